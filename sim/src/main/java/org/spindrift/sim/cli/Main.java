@@ -1,0 +1,76 @@
+package org.spindrift.sim.cli;
+
+import java.io.PrintWriter;
+import java.util.ServiceLoader;
+import org.spindrift.shared.SubcommandProvider;
+import org.spindrift.shared.UserInputException;
+import org.spindrift.shared.Version;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/**
+ * The {@code spindrift} command line. Subcommands are found with {@link ServiceLoader} through
+ * {@link SubcommandProvider} (see {@code META-INF/services} in each module), so the viewer and
+ * the validation suite add theirs without the engine depending on them.
+ *
+ * <p>Exit status: 0 success, 1 a failed check or internal error, 2 bad input (options, files).
+ */
+@Command(name = "spindrift", mixinStandardHelpOptions = true, versionProvider = Main.VersionProvider.class,
+        description = "Flares from the surroundings of supermassive black holes: geodesic motion of gas,"
+                + " ray-traced light, centroid tracks and light curves.",
+        subcommands = {CommandLine.HelpCommand.class})
+public final class Main implements Runnable {
+    /** Exit status for bad user input. */
+    public static final int EXIT_USAGE = 2;
+
+    @CommandLine.Spec
+    private CommandLine.Model.CommandSpec spec;
+
+    @Override public void run() {
+        spec.commandLine().usage(System.out);
+    }
+
+    /** Version string for {@code --version}. */
+    public static final class VersionProvider implements CommandLine.IVersionProvider {
+        @Override public String[] getVersion() {
+            return new String[] {"spindrift " + Version.get()};
+        }
+    }
+
+    /** @return the configured command line with every subcommand found on the class path */
+    public static CommandLine commandLine() {
+        CommandLine cl = new CommandLine(new Main());
+        for (SubcommandProvider p : ServiceLoader.load(SubcommandProvider.class)) {
+            cl.addSubcommand(p.name(), p.command());
+        }
+        cl.setParameterExceptionHandler((ex, args) -> {
+            PrintWriter err = ex.getCommandLine().getErr();
+            err.println(ex.getCommandLine().getCommandSpec().qualifiedName() + ": " + ex.getMessage()
+                    + " (see --help)");
+            err.flush();
+            return EXIT_USAGE;
+        });
+        cl.setExecutionExceptionHandler((ex, c, parsed) -> {
+            Throwable t = ex;
+            while (t != null && !(t instanceof UserInputException)) {
+                t = t.getCause();
+            }
+            if (t != null) {
+                c.getErr().println(c.getCommandSpec().qualifiedName() + ": " + t.getMessage());
+                c.getErr().flush();
+                return EXIT_USAGE;
+            }
+            throw ex;
+        });
+        return cl;
+    }
+
+    /** @return the exit status of running the command line on args */
+    public static int execute(String... args) {
+        return commandLine().execute(args);
+    }
+
+    public static void main(String[] args) {
+        System.exit(execute(args));
+    }
+}

@@ -1,0 +1,188 @@
+package org.spindrift.sim.spacetime;
+
+import org.hipparchus.CalculusFieldElement;
+import org.hipparchus.util.FastMath;
+
+/**
+ * Kerr metric with the mass replaced by a radial mass function m(r), in the Guerses-Guersey
+ * form (Guerses & Guersey 1975, J. Math. Phys. 16, 2385; rotating regular black holes:
+ * Bambi & Modesto 2013, Phys. Lett. B 721, 329):
+ *
+ * <pre>
+ *   Sigma = r^2 + a^2 cos^2(theta),   Delta = r^2 - 2 m(r) r + a^2
+ *   g_tt = -(1 - 2 m r / Sigma)        g_tphi = -2 m r a sin^2(theta) / Sigma
+ *   g_phiphi = (r^2 + a^2 + 2 m r a^2 sin^2(theta) / Sigma) sin^2(theta)
+ *   g_rr = Sigma / Delta               g_thth = Sigma
+ * </pre>
+ *
+ * With m = M this is Kerr in Boyer-Lindquist coordinates (Boyer & Lindquist 1967, J. Math. Phys.
+ * 8, 265, eq. 2.13); with m = M - Q^2/(2r) it is Kerr-Newman. Because Delta depends on r alone,
+ * the Hamilton-Jacobi equation separates and the Carter constant is conserved.
+ *
+ * <p>The inverse metric is written in the forms
+ * g^tt = -(r^2+a^2)^2/(Sigma Delta) + a^2 sin^2/Sigma, g^tphi = -2 a m r/(Sigma Delta),
+ * g^phiphi = 1/(Sigma sin^2) - a^2/(Sigma Delta), g^rr = Delta/Sigma, g^thth = 1/Sigma
+ * (Misner, Thorne & Wheeler 1973, eq. 33.2 generalised to m(r)), which differentiate simply.
+ */
+public final class MassFunctionSpacetime implements Spacetime {
+    private final String family;
+    private final double a;
+    private final MassFunction mass;
+
+    /**
+     * @param family the family name for reports (kerr, kerr-newman, hayward, bardeen, mass-series)
+     * @param spin the spin a in units of M
+     * @param mass the mass function
+     */
+    public MassFunctionSpacetime(String family, double spin, MassFunction mass) {
+        this.family = family;
+        this.a = spin;
+        this.mass = mass;
+    }
+
+    /** @return the mass function */
+    public MassFunction massFunction() {
+        return mass;
+    }
+
+    /** @return Delta(r) = r^2 - 2 m(r) r + a^2 */
+    public double delta(double r) {
+        return r * r - 2.0 * mass.value(r) * r + a * a;
+    }
+
+    /** @return dDelta/dr = 2 r - 2 (m + r m') */
+    public double deltaDerivative(double r) {
+        return 2.0 * r - 2.0 * (mass.value(r) + r * mass.derivative(r));
+    }
+
+    @Override public String family() {
+        return family;
+    }
+
+    @Override public double spin() {
+        return a;
+    }
+
+    @Override public boolean separable() {
+        return true;
+    }
+
+    @Override public double carter(double theta, double pTheta, double energy, double angularMomentum,
+                                   double mu2) {
+        double c = FastMath.cos(theta);
+        double s = FastMath.sin(theta);
+        // Carter 1968, Phys. Rev. 174, 1559: Q = p_th^2 + cos^2 th (a^2 (mu^2 - E^2) + L^2 / sin^2 th)
+        return pTheta * pTheta + c * c * (a * a * (mu2 - energy * energy)
+                + angularMomentum * angularMomentum / (s * s));
+    }
+
+    @Override public void inverse(double r, double theta, double[] out) {
+        final double s = FastMath.sin(theta);
+        final double c = FastMath.cos(theta);
+        final double s2 = s * s;
+        final double a2 = a * a;
+        final double m = mass.value(r);
+        final double mr = mass.derivative(r);
+
+        final double sig = r * r + a2 * c * c;
+        final double sigR = 2.0 * r;
+        final double sigT = -2.0 * a2 * s * c;
+        final double del = r * r - 2.0 * m * r + a2;
+        final double delR = 2.0 * r - 2.0 * (m + r * mr);
+        final double d = sig * del;
+        final double dR = sigR * del + sig * delR;
+        final double dT = sigT * del;
+        final double d2 = d * d;
+        final double sig2 = sig * sig;
+        final double rho = r * r + a2;
+        final double rho2 = rho * rho;
+
+        // g^tt = -(r^2+a^2)^2 / D + a^2 sin^2 / Sigma
+        out[TT] = -rho2 / d + a2 * s2 / sig;
+        out[DR + TT] = -4.0 * r * rho / d + rho2 * dR / d2 - a2 * s2 * sigR / sig2;
+        out[DTH + TT] = rho2 * dT / d2 + a2 * (2.0 * s * c * sig - s2 * sigT) / sig2;
+
+        // g^tphi = -B / D with B = 2 a m r
+        final double b = 2.0 * a * m * r;
+        final double bR = 2.0 * a * (m + r * mr);
+        out[TP] = -b / d;
+        out[DR + TP] = -bR / d + b * dR / d2;
+        out[DTH + TP] = b * dT / d2;
+
+        // g^phiphi = 1 / (Sigma sin^2) - a^2 / D
+        final double q = sig * s2;
+        final double q2 = q * q;
+        out[PP] = 1.0 / q - a2 / d;
+        out[DR + PP] = -sigR * s2 / q2 + a2 * dR / d2;
+        out[DTH + PP] = -(sigT * s2 + sig * 2.0 * s * c) / q2 + a2 * dT / d2;
+
+        // g^rr = Delta / Sigma
+        out[RR] = del / sig;
+        out[DR + RR] = delR / sig - del * sigR / sig2;
+        out[DTH + RR] = -del * sigT / sig2;
+
+        // g^thth = 1 / Sigma
+        out[HH] = 1.0 / sig;
+        out[DR + HH] = -sigR / sig2;
+        out[DTH + HH] = -sigT / sig2;
+    }
+
+    @Override public void covariant(double r, double theta, double[] out) {
+        final double s = FastMath.sin(theta);
+        final double c = FastMath.cos(theta);
+        final double s2 = s * s;
+        final double a2 = a * a;
+        final double m = mass.value(r);
+        final double mr = mass.derivative(r);
+
+        final double sig = r * r + a2 * c * c;
+        final double sigR = 2.0 * r;
+        final double sigT = -2.0 * a2 * s * c;
+        final double sig2 = sig * sig;
+        final double del = r * r - 2.0 * m * r + a2;
+        final double delR = 2.0 * r - 2.0 * (m + r * mr);
+
+        final double p = 2.0 * m * r;
+        final double pR = 2.0 * (m + r * mr);
+        final double f = p / sig;                 // 2 m r / Sigma
+        final double fR = pR / sig - p * sigR / sig2;
+        final double fT = -p * sigT / sig2;
+
+        out[TT] = -1.0 + f;
+        out[DR + TT] = fR;
+        out[DTH + TT] = fT;
+
+        out[TP] = -a * s2 * f;
+        out[DR + TP] = -a * s2 * fR;
+        out[DTH + TP] = -a * (2.0 * s * c * f + s2 * fT);
+
+        final double rho = r * r + a2;
+        out[PP] = (rho + a2 * s2 * f) * s2;
+        out[DR + PP] = (2.0 * r + a2 * s2 * fR) * s2;
+        out[DTH + PP] = 2.0 * s * c * rho + a2 * (4.0 * s2 * s * c * f + s2 * s2 * fT);
+
+        out[RR] = sig / del;
+        out[DR + RR] = sigR / del - sig * delR / (del * del);
+        out[DTH + RR] = sigT / del;
+
+        out[HH] = sig;
+        out[DR + HH] = sigR;
+        out[DTH + HH] = sigT;
+    }
+
+    @Override public <T extends CalculusFieldElement<T>> void covariant(T r, T theta, T[] out) {
+        T s = theta.sin();
+        T c = theta.cos();
+        T s2 = s.multiply(s);
+        double a2 = a * a;
+        T m = mass.value(r);
+        T sig = r.multiply(r).add(c.multiply(c).multiply(a2));
+        T del = r.multiply(r).subtract(m.multiply(r).multiply(2.0)).add(a2);
+        T f = m.multiply(r).multiply(2.0).divide(sig);
+        out[TT] = f.subtract(1.0);
+        out[TP] = f.multiply(s2).multiply(-a);
+        out[PP] = r.multiply(r).add(a2).add(f.multiply(s2).multiply(a2)).multiply(s2);
+        out[RR] = sig.divide(del);
+        out[HH] = sig;
+    }
+}
