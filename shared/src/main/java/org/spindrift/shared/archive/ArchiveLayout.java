@@ -1,0 +1,89 @@
+package org.spindrift.shared.archive;
+
+/**
+ * Names and codes of the run archive, format version 1 (DEVELOPERS.md, "Run archive layout").
+ * One place for every file name, dataset name and manifest key that writer and reader share.
+ */
+public final class ArchiveLayout {
+    private ArchiveLayout() {
+    }
+
+    /** Value of the manifest's {@code format} key. */
+    public static final String FORMAT = "spindrift-run";
+    /** Archive format version written by this code. */
+    public static final int FORMAT_VERSION = 1;
+
+    /** Manifest file, written last. */
+    public static final String MANIFEST = "manifest.json";
+    /** Particle snapshots (HDF5). */
+    public static final String SNAPSHOTS = "snapshots.h5";
+    /** Analysis summary (JSON). */
+    public static final String SUMMARY = "summary.json";
+    /** Per-particle periods (CSV). */
+    public static final String PERIODS = "periods.csv";
+    /** Shear shapes per source and snapshot (CSV). */
+    public static final String SHEAR = "shear.csv";
+    /** Sky centroid track (CSV, light stage). */
+    public static final String CENTROID = "centroid.csv";
+    /** Light curve (CSV, light stage). */
+    public static final String LIGHTCURVE = "lightcurve.csv";
+    /** Image cube (FITS, light stage). */
+    public static final String IMAGES = "images.fits";
+    /** Mock astrometric data (CSV, light stage). */
+    public static final String MOCK_ASTROMETRY = "mock_astrometry.csv";
+    /** Folder of plots. */
+    public static final String PLOTS = "plots";
+
+    /** Dataset: coordinate time of each snapshot [S], M. */
+    public static final String D_TIME = "time";
+    /** Dataset: source of each kept particle [N], int32. */
+    public static final String D_SOURCE_INDEX = "source_index";
+    /** Dataset: r [S,N]. */
+    public static final String D_R = "r";
+    /** Dataset: theta [S,N]. */
+    public static final String D_THETA = "theta";
+    /** Dataset: phi [S,N]. */
+    public static final String D_PHI = "phi";
+    /** Dataset: Cartesian x [S,N]. */
+    public static final String D_X = "x";
+    /** Dataset: Cartesian y [S,N]. */
+    public static final String D_Y = "y";
+    /** Dataset: Cartesian z [S,N]. */
+    public static final String D_Z = "z";
+    /** Dataset: contravariant 4-velocity [S,N,4]. */
+    public static final String D_U = "u";
+    /** Dataset: emission weight [S,N], float32. */
+    public static final String D_WEIGHT = "weight";
+    /** Dataset: end state [S,N], int8. */
+    public static final String D_STATE = "state";
+    /** Dataset: Cartesian centre of mass of each source's alive particles [S,K,3]. */
+    public static final String D_CENTRE = "centre";
+
+    /** Particle state code: alive. */
+    public static final byte ALIVE = 0;
+    /** Particle state code: captured (crossed the horizon or surface). */
+    public static final byte CAPTURED = 1;
+    /** Particle state code: escaped. */
+    public static final byte ESCAPED = 2;
+    /** Particle state code: integration failed. */
+    public static final byte FAILED = 3;
+
+    /** Prefix of a file being written; see {@link AtomicFiles}. */
+    public static final String PARTIAL_PREFIX = ".";
+    /** Suffix of a file being written; see {@link AtomicFiles}. */
+    public static final String PARTIAL_SUFFIX = ".partial";
+
+    /**
+     * Cartesian coordinates for display and spatial indexing (DESIGN section 3):
+     * x = sqrt(r^2+a^2) sin(theta) cos(phi), y = sqrt(r^2+a^2) sin(theta) sin(phi), z = r cos(theta)
+     * (Boyer & Lindquist 1967 oblate-spheroidal form).
+     *
+     * @param out receives x, y, z at out[0..2]
+     */
+    public static void cartesian(double r, double theta, double phi, double spin, double[] out) {
+        final double rho = Math.sqrt(r * r + spin * spin) * Math.sin(theta);
+        out[0] = rho * Math.cos(phi);
+        out[1] = rho * Math.sin(phi);
+        out[2] = r * Math.cos(theta);
+    }
+}

@@ -1,0 +1,74 @@
+package org.spindrift.shared.archive;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.HexFormat;
+
+/**
+ * Writes a file under a temporary name ({@code .name.partial} in the same folder) and renames it
+ * when complete, so that an interrupted run never leaves a file that looks complete.
+ */
+public final class AtomicFiles {
+    private AtomicFiles() {
+    }
+
+    /** Writes the content of a file to the path it is given. */
+    @FunctionalInterface
+    public interface Writer {
+        void write(Path temporary) throws IOException;
+    }
+
+    /** @return the temporary name used while {@code target} is written */
+    public static Path partialName(Path target) {
+        return target.resolveSibling(ArchiveLayout.PARTIAL_PREFIX + target.getFileName() + ArchiveLayout.PARTIAL_SUFFIX);
+    }
+
+    /**
+     * Writes target through its temporary name, then renames it (atomically where the file
+     * system allows). On failure the temporary file is removed and target is untouched.
+     */
+    public static void write(Path target, Writer writer) throws IOException {
+        Path tmp = partialName(target);
+        Files.deleteIfExists(tmp);
+        try {
+            writer.write(tmp);
+            try {
+                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+            } catch (AtomicMoveNotSupportedException e) {
+                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
+            }
+        } catch (IOException | RuntimeException | Error e) {
+            Files.deleteIfExists(tmp);
+            throw e;
+        }
+    }
+
+    /** Writes bytes to target atomically. */
+    public static void writeBytes(Path target, byte[] content) throws IOException {
+        write(target, tmp -> Files.write(tmp, content));
+    }
+
+    /** @return the lower-case hexadecimal SHA-256 of a file's bytes */
+    public static String sha256(Path file) {
+        try (InputStream in = Files.newInputStream(file)) {
+            MessageDigest md = MessageDigest.getInstance("SHA-256");
+            byte[] buf = new byte[1 << 16];
+            int n;
+            while ((n = in.read(buf)) > 0) {
+                md.update(buf, 0, n);
+            }
+            return HexFormat.of().formatHex(md.digest());
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("SHA-256 is required by every Java platform", e);
+        }
+    }
+}

@@ -1,0 +1,347 @@
+package org.spindrift.shared.archive;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import io.jhdf.HdfFile;
+import io.jhdf.api.Dataset;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.Iterator;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.spindrift.shared.UserInputException;
+
+/**
+ * Reads a run folder written by {@link RunArchiveWriter} (format version 1): the manifest's
+ * fields, the landmarks, the sources, and the particle snapshots one snapshot at a time
+ * (jhdf slices, so a large archive is never read whole). Used by the viewer and the analysis.
+ * Not thread-safe.
+ */
+public final class RunArchive implements AutoCloseable {
+    /**
+     * One source as listed in the manifest.
+     *
+     * @param name source name
+     * @param kind {@code hot_spot}, {@code cloud} or {@code ring}
+     * @param particles particles simulated
+     * @param kept particles kept in {@code snapshots.h5}
+     * @param firstIndex index of the source's first kept particle in the snapshot arrays (kept
+     *     particles of one source are contiguous)
+     */
+    public record SourceEntry(String name, String kind, int particles, int kept, int firstIndex) {
+    }
+
+    private final Path folder;
+    private final JsonNode manifest;
+    private HdfFile hdf;
+    private int snapshots = -1;
+    private int particles = -1;
+
+    private RunArchive(Path folder, JsonNode manifest) {
+        this.folder = folder;
+        this.manifest = manifest;
+    }
+
+    /**
+     * Opens a run folder.
+     *
+     * @throws UserInputException when the folder has no manifest (missing or interrupted run), or
+     *     the manifest is not a spindrift run of a supported format version
+     */
+    public static RunArchive open(Path folder) {
+        Path mf = folder.resolve(ArchiveLayout.MANIFEST);
+        if (!Files.isRegularFile(mf)) {
+            throw new UserInputException("run folder " + folder + ": no " + ArchiveLayout.MANIFEST
+                    + " (not a run folder, or the run did not complete)");
+        }
+        JsonNode m;
+        try {
+            m = new ObjectMapper().readTree(mf.toFile());
+        } catch (IOException e) {
+            throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + " is not valid JSON: "
+                    + e.getMessage());
+        }
+        if (m == null || !ArchiveLayout.FORMAT.equals(m.path("format").asText())) {
+            throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + ": key 'format' is not '"
+                    + ArchiveLayout.FORMAT + "'");
+        }
+        int v = m.path("format_version").asInt(-1);
+        if (v != ArchiveLayout.FORMAT_VERSION) {
+            throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + ": format_version " + v
+                    + " is not supported (this reader knows " + ArchiveLayout.FORMAT_VERSION + ")");
+        }
+        return new RunArchive(folder, m);
+    }
+
+    /** @return the folder */
+    public Path folder() {
+        return folder;
+    }
+
+    /** @return the whole manifest */
+    public JsonNode manifest() {
+        return manifest;
+    }
+
+    /** @return the code version that wrote the run */
+    public String codeVersion() {
+        return manifest.path("code_version").asText();
+    }
+
+    /** @return the run's seed */
+    public long seed() {
+        return manifest.path("seed").asLong();
+    }
+
+    /** @return the scenario name */
+    public String scenarioName() {
+        return manifest.path("scenario").path("name").asText("");
+    }
+
+    /** @return the black hole mass in solar masses */
+    public double massSolar() {
+        return manifest.path("black_hole").path("mass_solar").asDouble(Double.NaN);
+    }
+
+    /** @return the distance in kpc */
+    public double distanceKpc() {
+        return manifest.path("black_hole").path("distance_kpc").asDouble(Double.NaN);
+    }
+
+    /** @return the spacetime family */
+    public String family() {
+        return manifest.path("black_hole").path("family").asText();
+    }
+
+    /** @return the spin a */
+    public double spin() {
+        return manifest.path("black_hole").path("spin").asDouble(Double.NaN);
+    }
+
+    /** @return the family's parameters (name to value) */
+    public Map<String, Double> parameters() {
+        return numbers(manifest.path("black_hole").path("parameters"));
+    }
+
+    /** @return GM/c^3 in seconds */
+    public double mSeconds() {
+        return manifest.path("units").path("M_seconds").asDouble(Double.NaN);
+    }
+
+    /** @return GM/c^2 in metres */
+    public double mMetres() {
+        return manifest.path("units").path("M_metres").asDouble(Double.NaN);
+    }
+
+    /** @return micro-arcseconds subtended by 1 M at the distance */
+    public double mMicroarcsec() {
+        return manifest.path("units").path("M_microarcsec").asDouble(Double.NaN);
+    }
+
+    /** @return inclination in degrees */
+    public double inclinationDeg() {
+        return manifest.path("observer").path("inclination_deg").asDouble(Double.NaN);
+    }
+
+    /** @return position angle in degrees */
+    public double positionAngleDeg() {
+        return manifest.path("observer").path("position_angle_deg").asDouble(Double.NaN);
+    }
+
+    /**
+     * @return the numeric landmarks (horizon, ISCO, Omega maximum, surface_radius, ...); a JSON null
+     *     (landmark absent, for example no horizon) reads as NaN
+     */
+    public Map<String, Double> landmarks() {
+        return numbers(manifest.path("landmarks"));
+    }
+
+    /** @return the diagnostics object of the manifest */
+    public JsonNode diagnostics() {
+        return manifest.path("diagnostics");
+    }
+
+    /** @return end-state counts (alive, captured, escaped, failed) */
+    public Map<String, Long> endStates() {
+        Map<String, Long> out = new LinkedHashMap<>();
+        Iterator<Map.Entry<String, JsonNode>> it = manifest.path("end_states").fields();
+        while (it.hasNext()) {
+            Map.Entry<String, JsonNode> e = it.next();
+            if (e.getValue().isNumber()) {
+                out.put(e.getKey(), e.getValue().asLong());
+            }
+        }
+        return Collections.unmodifiableMap(out);
+    }
+
+    /** @return the sources in manifest order (index = {@code source_index}) */
+    public List<SourceEntry> sources() {
+        List<SourceEntry> out = new ArrayList<>();
+        for (JsonNode s : manifest.path("sources")) {
+            out.add(new SourceEntry(s.path("name").asText(), s.path("kind").asText(), s.path("particles").asInt(),
+                    s.path("kept").asInt(s.path("particles").asInt()), s.path("first_index").asInt()));
+        }
+        return Collections.unmodifiableList(out);
+    }
+
+    /** @return the files listed in the manifest with their SHA-256 */
+    public Map<String, String> files() {
+        Map<String, String> out = new LinkedHashMap<>();
+        manifest.path("files").fields().forEachRemaining(e -> out.put(e.getKey(), e.getValue().asText()));
+        return Collections.unmodifiableMap(out);
+    }
+
+    /** @return whether the run lists a file (for example {@code centroid.csv}) */
+    public boolean has(String name) {
+        return manifest.path("files").has(name);
+    }
+
+    /** @return the path of a file of the run */
+    public Path path(String name) {
+        return folder.resolve(name);
+    }
+
+    /**
+     * Checks the SHA-256 of every listed file.
+     *
+     * @throws UserInputException naming the first file that is missing or differs
+     */
+    public void verifyChecksums() {
+        for (Map.Entry<String, String> e : files().entrySet()) {
+            Path p = folder.resolve(e.getKey());
+            if (!Files.isRegularFile(p)) {
+                throw new UserInputException("run folder " + folder + ": " + e.getKey() + " is listed in the manifest but missing");
+            }
+            if (!AtomicFiles.sha256(p).equals(e.getValue())) {
+                throw new UserInputException("run folder " + folder + ": " + e.getKey() + " does not match its sha256 in the manifest");
+            }
+        }
+    }
+
+    private HdfFile hdf() {
+        if (hdf == null) {
+            Path p = folder.resolve(ArchiveLayout.SNAPSHOTS);
+            if (!Files.isRegularFile(p)) {
+                throw new UserInputException("run folder " + folder + ": no " + ArchiveLayout.SNAPSHOTS);
+            }
+            hdf = new HdfFile(p);
+            int[] dims = dataset(ArchiveLayout.D_R).getDimensions();
+            snapshots = dims[0];
+            particles = dims[1];
+        }
+        return hdf;
+    }
+
+    private Dataset dataset(String name) {
+        Dataset d = hdf().getDatasetByPath("/" + name);
+        if (d == null) {
+            throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.SNAPSHOTS + " has no dataset /" + name);
+        }
+        return d;
+    }
+
+    /** @return number of snapshots S */
+    public int snapshotCount() {
+        hdf();
+        return snapshots;
+    }
+
+    /** @return number of kept particles N */
+    public int particleCount() {
+        hdf();
+        return particles;
+    }
+
+    /** @return coordinate time of each snapshot, M */
+    public double[] times() {
+        return (double[]) dataset(ArchiveLayout.D_TIME).getData();
+    }
+
+    /** @return source (0-based) of each kept particle */
+    public int[] sourceIndex() {
+        return (int[]) dataset(ArchiveLayout.D_SOURCE_INDEX).getData();
+    }
+
+    private Object row(String name, int s, int... inner) {
+        if (s < 0 || s >= snapshotCount()) {
+            throw new IndexOutOfBoundsException("snapshot " + s + " outside 0.." + (snapshotCount() - 1));
+        }
+        Dataset d = dataset(name);
+        int[] dims = d.getDimensions();
+        long[] off = new long[dims.length];
+        off[0] = s;
+        int[] shape = dims.clone();
+        shape[0] = 1;
+        return d.getData(off, shape);
+    }
+
+    private double[] row2(String name, int s) {
+        return ((double[][]) row(name, s))[0];
+    }
+
+    /** @return r of every kept particle at snapshot s */
+    public double[] r(int s) {
+        return row2(ArchiveLayout.D_R, s);
+    }
+
+    /** @return theta of every kept particle at snapshot s */
+    public double[] theta(int s) {
+        return row2(ArchiveLayout.D_THETA, s);
+    }
+
+    /** @return phi of every kept particle at snapshot s */
+    public double[] phi(int s) {
+        return row2(ArchiveLayout.D_PHI, s);
+    }
+
+    /** @return {x, y, z} arrays (each of length N) at snapshot s, M */
+    public double[][] positions(int s) {
+        return new double[][] {row2(ArchiveLayout.D_X, s), row2(ArchiveLayout.D_Y, s), row2(ArchiveLayout.D_Z, s)};
+    }
+
+    /** @return 4-velocities u^mu at snapshot s, [N][4] (u^t, u^r, u^theta, u^phi) */
+    public double[][] velocities(int s) {
+        return ((double[][][]) row(ArchiveLayout.D_U, s))[0];
+    }
+
+    /** @return emission weights at snapshot s */
+    public float[] weights(int s) {
+        return ((float[][]) row(ArchiveLayout.D_WEIGHT, s))[0];
+    }
+
+    /** @return states at snapshot s (codes of {@link ArchiveLayout}) */
+    public byte[] states(int s) {
+        return ((byte[][]) row(ArchiveLayout.D_STATE, s))[0];
+    }
+
+    /** @return Cartesian centre of each source at snapshot s, [K][3] */
+    public double[][] centres(int s) {
+        return ((double[][][]) row(ArchiveLayout.D_CENTRE, s))[0];
+    }
+
+    private static Map<String, Double> numbers(JsonNode obj) {
+        Map<String, Double> out = new LinkedHashMap<>();
+        Iterator<Map.Entry<String, JsonNode>> it = obj.fields();
+        while (it.hasNext()) {
+            Map.Entry<String, JsonNode> e = it.next();
+            JsonNode v = e.getValue();
+            if (v.isNumber()) {
+                out.put(e.getKey(), v.asDouble());
+            } else if (v.isNull()) {
+                out.put(e.getKey(), Double.NaN);
+            }
+        }
+        return Collections.unmodifiableMap(out);
+    }
+
+    @Override public void close() {
+        if (hdf != null) {
+            hdf.close();
+            hdf = null;
+        }
+    }
+}

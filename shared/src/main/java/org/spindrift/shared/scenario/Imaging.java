@@ -1,0 +1,22 @@
+package org.spindrift.shared.scenario;
+
+/**
+ * The camera of the light stage (DESIGN section 7). All keys optional in a scenario.
+ *
+ * @param fieldOfViewM full width of the square field of view on the screen, M
+ * @param pixels pixels per side
+ * @param frameCadence interval between image frames in observer time (minutes or M); null means
+ *     the snapshot cadence
+ * @param lensing true: ray-traced null geodesics; false: straight lines (delays kept), for comparison
+ */
+public record Imaging(double fieldOfViewM, int pixels, TimeSpan frameCadence, boolean lensing) {
+    /** Default field of view, M. */
+    public static final double DEFAULT_FIELD_OF_VIEW_M = 30.0;
+    /** Default pixels per side. */
+    public static final int DEFAULT_PIXELS = 96;
+
+    /** @return the defaults used when a scenario has no {@code imaging} section */
+    public static Imaging defaults() {
+        return new Imaging(DEFAULT_FIELD_OF_VIEW_M, DEFAULT_PIXELS, null, true);
+    }
+}

@@ -1,0 +1,85 @@
+package org.spindrift.shared.archive;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assertions.fail;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * An independent reader, Debian's python3-h5py, opens {@code snapshots.h5} written by
+ * {@link SnapshotWriter} and reads back the same numbers, shapes and types (DEVELOPERS.md layout).
+ * Skips when h5py is missing, unless SPINDRIFT_REQUIRE_EXTERNAL=1 (CI), where it fails.
+ */
+class H5pyReadBackTest {
+    @TempDir Path tmp;
+
+    /** @return a python3 that imports h5py and numpy, or null */
+    static String python() throws Exception {
+        for (String exe : List.of("/usr/bin/python3", "python3")) {
+            try {
+                Process p = new ProcessBuilder(exe, "-c", "import h5py, numpy").redirectErrorStream(true).start();
+                p.getInputStream().readAllBytes();
+                if (p.waitFor(60, TimeUnit.SECONDS) && p.exitValue() == 0) {
+                    return exe;
+                }
+            } catch (java.io.IOException e) {
+                // try the next one
+            }
+        }
+        if ("1".equals(System.getenv("SPINDRIFT_REQUIRE_EXTERNAL"))) {
+            fail("python3-h5py is required (SPINDRIFT_REQUIRE_EXTERNAL=1) but python3 cannot import h5py and numpy");
+        }
+        return null;
+    }
+
+    @Test void h5pyReadsTheSameNumbers() throws Exception {
+        String py = python();
+        assumeTrue(py != null, "python3-h5py not installed: skipping the independent HDF5 reader check");
+        int s = 2;
+        int n = 3;
+        SnapshotWriter w = new SnapshotWriter(s, new int[] {0, 1, 1}, 2, 0.5, 6.5e6, 12.0);
+        for (int k = 0; k < s; k++) {
+            double[] r = {6 + k, 7 + k, 8 + k};
+            double[] th = {1.5, 1.6, 1.4};
+            double[] ph = {0.1 * k, 0.2, 0.3};
+            double[] ut = {1.1, 1.2, 1.3};
+            double[] ur = {0.01, -0.02, 0.03};
+            double[] uth = {0, 0, 0.001};
+            double[] uph = {0.05, 0.06, 0.07};
+            w.add(5.0 * k, r, th, ph, ut, ur, uth, uph, new float[] {0.5f, 0.25f, 0.125f},
+                    new byte[] {0, (byte) k, 3}, new double[][] {{1, 2, 3}, {4, 5, 6 + k}});
+        }
+        Path file = w.write(tmp);
+        String script = String.join("\n",
+                "import h5py, sys, numpy as np",
+                "f = h5py.File(sys.argv[1], 'r')",
+                "print(f['time'][:].tolist())",
+                "print(f['r'].shape, f['u'].shape, f['centre'].shape)",
+                "print(f['r'].dtype, f['weight'].dtype, f['state'].dtype, f['source_index'].dtype)",
+                "print(f['r'][1, 2], f['u'][1, 1, 1], f['weight'][0, 2], f['state'][1, 1], f['centre'][1, 1, 2])",
+                "x = np.sqrt(f['r'][:]**2 + 0.5**2) * np.sin(f['theta'][:]) * np.cos(f['phi'][:])",
+                "print(float(np.max(np.abs(x - f['x'][:]))))",
+                "print(float(f.attrs['spin']), int(f.attrs['format_version']))");
+        Process p = new ProcessBuilder(py, "-c", script, file.toString()).redirectErrorStream(true).start();
+        String out = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertTrue(p.waitFor(60, TimeUnit.SECONDS), "python timed out");
+        assertEquals(0, p.exitValue(), out);
+        String[] lines = out.strip().split("\n");
+        assertEquals("[0.0, 5.0]", lines[0]);
+        assertEquals("(2, 3) (2, 3, 4) (2, 2, 3)", lines[1]);
+        assertEquals("float64 float32 int8 int32", lines[2]);
+        assertEquals("9.0 -0.02 0.125 1 7.0", lines[3]);
+        // x recomputed by numpy from r, theta, phi with the DESIGN section 3 formula
+        assertTrue(Double.parseDouble(lines[4]) < 1e-12, lines[4]);
+        assertEquals("0.5 1", lines[5]);
+        assertTrue(Files.size(file) > 0);
+    }
+}
