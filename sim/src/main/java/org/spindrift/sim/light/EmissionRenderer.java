@@ -105,7 +105,6 @@ public final class EmissionRenderer implements AutoCloseable {
         int n = table.camera().pixels();
         for (int col = 0; col < n; col++) {
             int k = row * n + col;
-            double pphi = table.angularMomentum(k);
             double sum = 0.0;
             for (int i = table.firstSample(k), e = table.endSample(k); i < e; i++) {
                 double tE = tObs - table.delay[i];
@@ -119,7 +118,7 @@ public final class EmissionRenderer implements AutoCloseable {
                     continue;
                 }
                 sum += table.dl[i] * sl.emissivity(table.x[i], table.y[i], table.z[i], tE - sl.tau,
-                        table.pr[i], table.pth[i], pphi, invH, norm, support2);
+                        table.pr[i], table.pth[i], table.pph[i], invH, norm, support2);
             }
             image[k] = (float) sum;
         }

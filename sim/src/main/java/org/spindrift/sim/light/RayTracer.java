@@ -28,6 +28,8 @@ public final class RayTracer implements DormandPrince54.Rhs {
     private final double a2;
     private final double[] y = new double[6], dy = new double[6], yNew = new double[6], dyNew = new double[6];
     private double qt;
+    private double weightScale = 1.0;
+    private double rMin, thMin, phMin;
     private double qphi;
     private int steps;
 
@@ -50,6 +52,23 @@ public final class RayTracer implements DormandPrince54.Rhs {
     /** @return d/d(lambda) of {@link #lastState()} */
     public double[] lastDerivative() {
         return dy;
+    }
+
+    /** Scales the affine weights of recorded samples (1 / k^2 for k x k sub-pixel rays). */
+    public void setWeightScale(double s) {
+        weightScale = s;
+    }
+
+    /**
+     * Cartesian position (DESIGN section 3 map) of the last ray's point of smallest radius.
+     *
+     * @param out length 3
+     */
+    public void closestPoint(double[] out) {
+        double rho = FastMath.sqrt(rMin * rMin + a2) * FastMath.sin(thMin);
+        out[0] = rho * FastMath.cos(phMin);
+        out[1] = rho * FastMath.sin(phMin);
+        out[2] = rMin * FastMath.cos(thMin);
     }
 
     /** @return accepted plus rejected steps of the last ray */
@@ -79,6 +98,9 @@ public final class RayTracer implements DormandPrince54.Rhs {
         boolean inside = false;
         boolean periapsisPassed = false;
         steps = 0;
+        rMin = y[1];
+        thMin = y[2];
+        phMin = y[3];
         while (true) {
             double r = y[1];
             double speed = speed(r, y[2], dy);
@@ -107,6 +129,11 @@ public final class RayTracer implements DormandPrince54.Rhs {
             System.arraycopy(yNew, 0, y, 0, 6);
             System.arraycopy(dyNew, 0, dy, 0, 6);
             double rn = y[1];
+            if (rn < rMin) {
+                rMin = rn;
+                thMin = y[2];
+                phMin = y[3];
+            }
             if (rn < rStop) {
                 return RayEnd.CAPTURED;
             }
@@ -120,14 +147,14 @@ public final class RayTracer implements DormandPrince54.Rhs {
             if (rn < rEm) {
                 if (out != null) {
                     if (inside) {
-                        out.addWeightToLast(0.5 * hTaken);
+                        out.addWeightToLast(0.5 * hTaken * weightScale);
                     }
-                    record(out, 0.5 * hTaken, delayOffset);
+                    record(out, 0.5 * hTaken * weightScale, delayOffset);
                 }
                 inside = true;
             } else {
                 if (inside && out != null) {
-                    out.addWeightToLast(0.5 * hTaken);
+                    out.addWeightToLast(0.5 * hTaken * weightScale);
                 }
                 inside = false;
             }
@@ -142,7 +169,7 @@ public final class RayTracer implements DormandPrince54.Rhs {
         double cp = FastMath.cos(y[3]);
         double rho = FastMath.sqrt(r * r + a2) * st;
         // DESIGN section 3 Cartesian map; physical p = -q
-        out.add(rho * cp, rho * sp, r * ct, -y[0] - delayOffset, -y[4], -y[5], weight);
+        out.add(rho * cp, rho * sp, r * ct, -y[0] - delayOffset, -y[4], -y[5], -qphi, weight);
     }
 
     /** Coordinate speed |dx/dlambda| in the flat-space sense, for step limits. */

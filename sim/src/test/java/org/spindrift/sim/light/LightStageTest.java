@@ -16,7 +16,7 @@ class LightStageTest {
     }
 
     @Test
-    void faceOnCircularOrbitTrackRadiusPeriodRedshiftAndSense() {
+    void faceOnCircularOrbitImageRadiusPeriodSteadySourceAndSense() {
         Spacetime st = LightTestSupport.kerr(0.0);
         double re = 10.0;
         double period = 2 * FastMath.PI * FastMath.pow(re, 1.5);   // coordinate period 2 pi r^1.5 (Kepler; exact in Schwarzschild)
