@@ -4,7 +4,6 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.util.List;
-import java.util.Locale;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.scenario.CentreOrbit;
 import org.spindrift.shared.scenario.Scenario;
@@ -13,7 +12,8 @@ import org.spindrift.shared.scenario.Source;
 import org.spindrift.sim.run.ParticleHistory;
 import org.spindrift.sim.run.RunContext;
 import org.spindrift.sim.run.RunStage;
-import org.spindrift.sim.spacetime.CircularOrbits;
+import org.spindrift.sim.motion.TurningPoints;
+import org.spindrift.sim.scenario.SourceSetup;
 
 /**
  * Periods and shear shapes of a run: writes {@code periods.csv} (one row per particle) and
@@ -36,7 +36,8 @@ public final class AnalysisStage implements RunStage {
     @Override public void run(RunContext ctx) throws IOException {
         ParticleHistory h = ctx.history();
         int[] first = ctx.placed().firstIndex();
-        ParticlePeriods periods = ParticlePeriods.of(h);
+        ParticlePeriods periods = ParticlePeriods.of(h,
+                ctx.product(org.spindrift.sim.run.ScenarioRun.TURNING_POINTS, TurningPoints[].class));
         List<ShearShape> shapes = ShearAnalysis.of(h, first);
         ctx.products().put(PERIODS, periods);
         ctx.products().put(SHAPES, shapes);
@@ -113,7 +114,7 @@ public final class AnalysisStage implements RunStage {
         sum.put("scenario", sc.name());
         sum.put("time_unit", "coordinate time, M (GM/c^3) and minutes; t = 0 at the start of the run");
         sum.put("M_seconds", spm);
-        sum.put("omega_max_radius_M", ctx.landmark("omega_max_radius"));
+        put(sum, "omega_max_radius_M", ctx.landmark("omega_max_radius"));
         ArrayNode arr = sum.putArray("sources");
         int[] first = ctx.placed().firstIndex();
         int s = h.snapshots();
@@ -130,18 +131,13 @@ public final class AnalysisStage implements RunStage {
                 alive += h.state(s - 1)[i] == 0 ? 1 : 0;
             }
             o.put("alive_at_end", alive);
-            double rr = referenceRadius(src);
-            boolean pro = prograde(src);
-            o.put("reference_radius_M", rr);
-            o.put("reference_note", "predictions are those of the circular equatorial orbit at the reference radius"
-                    + " (circular: its radius; elements: p; local: the start radius)");
-            double om = CircularOrbits.omega(ctx.spacetime(), rr, pro);
-            double kr = CircularOrbits.radialEpicyclic(ctx.spacetime(), rr, pro);
-            double kt = CircularOrbits.verticalEpicyclic(ctx.spacetime(), rr, pro);
+            SourceSetup.Prediction pred = ctx.placed().centres()[k].prediction();
+            o.put("reference_radius_M", referenceRadius(src));
+            o.put("prediction_method", pred.method());
             ObjectNode per = o.putObject("periods");
-            period(per, "azimuthal", slice(p.periodPhi(), from, n), 2 * Math.PI / Math.abs(om), spm);
-            period(per, "radial", slice(p.periodR(), from, n), 2 * Math.PI / kr, spm);
-            period(per, "vertical", slice(p.periodTheta(), from, n), 2 * Math.PI / kt, spm);
+            period(per, "azimuthal", slice(p.periodPhi(), from, n), pred.azimuthal(), spm);
+            period(per, "radial", slice(p.periodR(), from, n), pred.radial(), spm);
+            period(per, "vertical", slice(p.periodTheta(), from, n), pred.vertical(), spm);
             double[] adv = slice(p.advance(), from, n);
             for (int i = 0; i < adv.length; i++) {
                 adv[i] = Math.toDegrees(adv[i]);
@@ -151,9 +147,7 @@ public final class AnalysisStage implements RunStage {
             put(a, "median", ms[0]);
             put(a, "spread", ms[1]);
             a.put("measured", (int) ms[2]);
-            // epicyclic estimate: 2 pi (Omega / Omega_r - 1) per radial period (near-circular orbits;
-            // e.g. Binney & Tremaine 2008, Galactic Dynamics, sec. 3.2.3, applied with relativistic frequencies)
-            put(a, "predicted", Math.toDegrees(2 * Math.PI * (Math.abs(om) / kr - 1)));
+            put(a, "predicted", Math.toDegrees(pred.advance()));
             ShearShape last = shapes.get(k * s + s - 1);
             ObjectNode sh = o.putObject("shape_at_end");
             put(sh, "time_M", last.time());
@@ -213,10 +207,5 @@ public final class AnalysisStage implements RunStage {
         } else {
             o.putNull(k);
         }
-    }
-
-    @SuppressWarnings("unused")
-    private static String lower(Enum<?> e) {
-        return e.name().toLowerCase(Locale.ROOT);
     }
 }

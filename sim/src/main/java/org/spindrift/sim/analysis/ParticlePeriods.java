@@ -1,5 +1,6 @@
 package org.spindrift.sim.analysis;
 
+import org.spindrift.sim.motion.TurningPoints;
 import org.spindrift.sim.run.ParticleHistory;
 
 /**
@@ -15,8 +16,10 @@ import org.spindrift.sim.run.ParticleHistory;
  *   <li>periastron advance per radial period: Omega_phi T_r - 2 pi (radians), the extra azimuth
  *       swept between two periapses.</li>
  * </ul>
- * Extrema are detected on the snapshots, so the cadence must resolve the period (at least 8
- * samples per period; common practice). Near-circular orbits have tiny radial excursions, where
+ * With the integrator's turning points ({@link TurningPoints}: p_r and p_theta rising through
+ * zero, located on the dense output) the passages are exact to the integration tolerance; without
+ * them (a history built elsewhere) extrema are detected on the snapshots, so the cadence must
+ * resolve the period (at least 8 samples per period; common practice). Near-circular orbits have tiny radial excursions, where
  * detection is ill-conditioned: an oscillation below {@link #MIN_RELATIVE_AMPLITUDE} of r gives
  * NaN for T_r (and theta likewise, in radians).
  */
@@ -38,8 +41,16 @@ public final class ParticlePeriods {
         meanR = new double[n];
     }
 
-    /** Measures every particle of the history. */
+    /** Measures every particle of the history from the snapshots alone. */
     public static ParticlePeriods of(ParticleHistory h) {
+        return of(h, null);
+    }
+
+    /**
+     * Measures every particle, with the turning points recorded during the integration when given
+     * (one per particle, or null to use the snapshots).
+     */
+    public static ParticlePeriods of(ParticleHistory h, TurningPoints[] turning) {
         int n = h.particles();
         int s = h.snapshots();
         ParticlePeriods p = new ParticlePeriods(n);
@@ -61,6 +72,9 @@ public final class ParticlePeriods {
                 m++;
             }
             p.measure(i, t, r, th, ph, m, ext, extPhi);
+            if (turning != null) {
+                p.fromTurningPoints(i, turning[i], r, th, m);
+            }
         }
         return p;
     }
@@ -96,6 +110,40 @@ public final class ParticlePeriods {
         if (nt >= 2) {
             periodTheta[i] = (ext[nt - 1] - ext[0]) / (nt - 1);
         }
+    }
+
+    private void fromTurningPoints(int i, TurningPoints tp, double[] r, double[] th, int m) {
+        if (m < 3) {
+            return;
+        }
+        // near-circular / near-equatorial orbits: the passages are ill-conditioned (see TurningPoints)
+        if (amplitude(r, m) > meanR[i] * MIN_RELATIVE_AMPLITUDE && tp.periapsisCount() >= 2) {
+            int c = tp.periapsisCount();
+            double dt = tp.periapsisTime(c - 1) - tp.periapsisTime(0);
+            double om = (tp.periapsisPhi(c - 1) - tp.periapsisPhi(0)) / dt;
+            periodR[i] = dt / (c - 1);
+            periodPhi[i] = 2.0 * Math.PI / Math.abs(om);
+            advance[i] = Math.abs(om) * periodR[i] - 2.0 * Math.PI;
+        } else {
+            periodR[i] = Double.NaN;
+            advance[i] = Double.NaN;
+        }
+        if (amplitude(th, m) > MIN_RELATIVE_AMPLITUDE && tp.polarCount() >= 2) {
+            int c = tp.polarCount();
+            periodTheta[i] = (tp.polarTime(c - 1) - tp.polarTime(0)) / (c - 1);
+        } else {
+            periodTheta[i] = Double.NaN;
+        }
+    }
+
+    private static double amplitude(double[] y, int m) {
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (int k = 0; k < m; k++) {
+            lo = Math.min(lo, y[k]);
+            hi = Math.max(hi, y[k]);
+        }
+        return hi - lo;
     }
 
     /**

@@ -373,14 +373,11 @@ public final class PlotStage implements RunStage {
             ser.setMarker(SeriesMarkers.NONE);
             ser.setLineColor(col);
             ser.setLineStyle(new BasicStroke(2f));
-            double rr = AnalysisStage.referenceRadius(sc.sources().get(k));
-            boolean pro = AnalysisStage.prograde(sc.sources().get(k));
-            double pred = which == 0
-                    ? 2 * Math.PI / Math.abs(org.spindrift.sim.spacetime.CircularOrbits.omega(ctx.spacetime(), rr, pro))
-                    : 2 * Math.PI / org.spindrift.sim.spacetime.CircularOrbits.radialEpicyclic(ctx.spacetime(), rr, pro);
+            org.spindrift.sim.scenario.SourceSetup.Prediction pr = ctx.placed().centres()[k].prediction();
+            double pred = which == 0 ? pr.azimuthal() : pr.radial();
             if (Double.isFinite(pred)) {
-                vline(c, name + ": circular orbit at r = " + fmt(rr) + " M: " + fmt(pred * spm / 60) + " min",
-                        pred * spm / 60, 0, top * 1.05, col.darker());
+                vline(c, name + ": metric prediction " + fmt(pred * spm / 60) + " min", pred * spm / 60, 0, top * 1.05,
+                        col.darker());
             }
         }
         if (!any) {

@@ -31,6 +31,8 @@ import org.spindrift.sim.motion.EndState;
 import org.spindrift.sim.motion.GeodesicEquations;
 import org.spindrift.sim.motion.ParticleBatch;
 import org.spindrift.sim.motion.Snapshot;
+import org.spindrift.sim.motion.StepListener;
+import org.spindrift.sim.motion.TurningPoints;
 import org.spindrift.sim.scenario.FlareEnvelope;
 import org.spindrift.sim.scenario.LoadedScenario;
 import org.spindrift.sim.scenario.ScenarioChecks;
@@ -49,6 +51,9 @@ import org.spindrift.sim.spacetime.Spacetime;
  * removes the temporary files of an interrupted run).
  */
 public final class ScenarioRun {
+    /** Product key of the per-particle {@code TurningPoints[]} recorded during the integration. */
+    public static final String TURNING_POINTS = "motion.turning_points";
+
     /** Largest number of snapshots of a run. */
     public static final int MAX_SNAPSHOTS = 20_000;
 
@@ -163,12 +168,18 @@ public final class ScenarioRun {
                 .withTolerance(sc.run().tolerance(), sc.run().tolerance()).withThreads(Math.max(1, o.threads()));
         BatchIntegrator integrator = new BatchIntegrator(st, cfg);
         HistorySink sink = new HistorySink(p, st);
+        // periapsis and polar turning points of every particle, on the dense output (motion engine)
+        TurningPoints[] turning = new TurningPoints[n];
+        for (int i = 0; i < n; i++) {
+            turning[i] = new TurningPoints(i);
+        }
+        StepListener events = (i, step) -> turning[i].step(i, step);
         BatchIntegrator.Result result;
         try (ProgressBar bar = o.progress() ? new ProgressBarBuilder().setTaskName("evolving " + n + " particles")
                 .setInitialMax(p.times().length).setStyle(ProgressBarStyle.ASCII)
                 .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build() : null) {
             sink.bar = bar;
-            result = integrator.integrate(batch, p.times(), sink);
+            result = integrator.integrate(batch, p.times(), sink, events);
         }
         ParticleHistory history = sink.history();
 
@@ -182,6 +193,7 @@ public final class ScenarioRun {
             RunContext ctx = new RunContext(p.loaded(), st, p.landmarks(), p.secondsPerM(), p.microarcsecPerM(),
                     p.placed(), history, archive, manifest, summary, Math.max(1, o.threads()), o.progress(),
                     new java.util.HashMap<>());
+            ctx.products().put(TURNING_POINTS, turning);
             for (RunStage stage : stages) {
                 stage.run(ctx);
             }

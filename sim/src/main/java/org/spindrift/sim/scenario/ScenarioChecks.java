@@ -8,6 +8,7 @@ import org.spindrift.shared.scenario.CentreOrbit;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.shared.scenario.Source;
 import org.spindrift.shared.scenario.SourceShape;
+import org.spindrift.sim.motion.OrbitSetup;
 import org.spindrift.sim.spacetime.CircularOrbits;
 import org.spindrift.sim.spacetime.Horizons;
 import org.spindrift.sim.spacetime.Spacetime;
@@ -49,18 +50,18 @@ public final class ScenarioChecks {
         }
     }
 
-    /** @return the radius below which particles count as captured: outer horizon + 2 %, or a surface */
+    /**
+     * @return the radius below which particles count as captured: the motion engine's
+     *     {@link OrbitSetup#captureRadius} (outer horizon + margin) when there is a horizon, the
+     *     landmarks' {@code surface_radius} for a horizonless object
+     */
     public static double captureRadius(Spacetime st, Map<String, Double> landmarks) {
-        double rh = Horizons.outer(st);
-        if (Double.isFinite(rh)) {
-            return rh * 1.02;
+        if (Double.isFinite(Horizons.outer(st))) {
+            return OrbitSetup.captureRadius(st);
         }
         Double surface = landmarks == null ? null : landmarks.get("surface_radius");
-        return surface != null && Double.isFinite(surface) && surface > 0 ? surface : DEFAULT_SURFACE_RADIUS;
+        return surface != null && Double.isFinite(surface) && surface > 0 ? surface : OrbitSetup.captureRadius(st);
     }
-
-    /** Capture radius used for a horizonless object whose landmarks name no surface, M. */
-    public static final double DEFAULT_SURFACE_RADIUS = 0.5;
 
     /** Checks every source's orbit against the metric. */
     public static void checkSources(LoadedScenario ls, Spacetime st, double captureRadius) {
@@ -90,6 +91,15 @@ public final class ScenarioChecks {
                 if (e.periapsisM() <= captureRadius) {
                     throw ls.error(base + ".elements.p_M", "periapsis p/(1+e) = " + fmt(e.periapsisM())
                             + " M is inside the capture radius " + fmt(captureRadius) + " M");
+                }
+                double inc = Math.toRadians(e.inclinationDeg());
+                try {
+                    OrbitSetup.elements(st, e.semiLatusRectumM(), e.eccentricity(),
+                            e.sense() == org.spindrift.shared.scenario.Sense.RETROGRADE ? Math.PI - inc : inc);
+                } catch (UserInputException ex) {
+                    String msg = ex.getMessage().replace("--p ", "p_M = ").replace("--e ", "e = ")
+                            .replace("(--p, --e)", "(orbit.elements)").replace("--inclination-deg", "inclination_deg");
+                    throw ls.error(base + ".elements.p_M", msg);
                 }
             } else if (o instanceof CentreOrbit.Local l) {
                 if (l.radiusM() <= captureRadius) {

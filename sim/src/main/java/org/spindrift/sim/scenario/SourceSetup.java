@@ -48,12 +48,39 @@ public final class SourceSetup {
      * @param theta polar angle
      * @param phi azimuth
      * @param velocity ZAMO-frame 3-velocity (v_r, v_theta, v_phi), units of c
-     * @param periodM the centre's orbital period in coordinate time, M (what "1 orbit" means)
-     * @param circularOmega Omega of the circular orbit at r (NaN if none): the metric's azimuthal prediction
+     * @param periodM the centre's orbital period in coordinate time, M (what "1 orbit" means):
+     *     circular orbits 2 pi / |Omega|, orbit elements the measured radial period, local starts a
+     *     Keplerian estimate
+     * @param prediction the metric's prediction of the periods for this centre
      */
-    public record Centre(double r, double theta, double phi, double[] velocity, double periodM, double circularOmega) {
+    public record Centre(double r, double theta, double phi, double[] velocity, double periodM, Prediction prediction) {
         public Centre {
             velocity = velocity.clone();
+        }
+    }
+
+    /**
+     * The metric's prediction of the periods of a source's centre (coordinate time, M).
+     *
+     * @param azimuthal azimuthal period
+     * @param radial radial period (NaN if none)
+     * @param vertical vertical (polar) period (NaN if none)
+     * @param advance periastron advance per radial period, radians
+     * @param method how it was obtained
+     */
+    public record Prediction(double azimuthal, double radial, double vertical, double advance, String method) {
+        /**
+         * Circular equatorial orbit at r: 2 pi / |Omega|, 2 pi / Omega_r, 2 pi / Omega_theta from the
+         * epicyclic frequencies, and the epicyclic advance 2 pi (|Omega| / Omega_r - 1) per radial
+         * period (small-eccentricity limit; e.g. Binney & Tremaine 2008, Galactic Dynamics, sec. 3.2.3,
+         * with the relativistic frequencies).
+         */
+        static Prediction circular(Spacetime st, double r, boolean prograde) {
+            double om = Math.abs(CircularOrbits.omega(st, r, prograde));
+            double kr = CircularOrbits.radialEpicyclic(st, r, prograde);
+            double kt = CircularOrbits.verticalEpicyclic(st, r, prograde);
+            return new Prediction(2 * Math.PI / om, 2 * Math.PI / kr, 2 * Math.PI / kt, 2 * Math.PI * (om / kr - 1),
+                    "circular equatorial orbit at r = " + r + " M (epicyclic frequencies)");
         }
     }
 
@@ -74,12 +101,26 @@ public final class SourceSetup {
 
     /** Places every source's particles. */
     public static Placed place(Scenario sc, Spacetime st, double captureRadius) {
+        return place(sc, st, captureRadius, centres(sc, st, captureRadius));
+    }
+
+    /** @return every source's centre */
+    public static Centre[] centres(Scenario sc, Spacetime st, double captureRadius) {
+        ZamoFrame zamo = new ZamoFrame(st);
+        Centre[] c = new Centre[sc.sources().size()];
+        for (int k = 0; k < c.length; k++) {
+            c[k] = centre(sc.sources().get(k), st, zamo, captureRadius);
+        }
+        return c;
+    }
+
+    /** Places every source's particles about the given centres. */
+    public static Placed place(Scenario sc, Spacetime st, double captureRadius, Centre[] centres) {
         List<Source> sources = sc.sources();
         int n = sc.totalParticles();
         ParticleBatch batch = new ParticleBatch(n);
         int[] sourceIndex = new int[n];
         int[] first = new int[sources.size()];
-        Centre[] centres = new Centre[sources.size()];
         double[] weights = new double[n];
         ZamoFrame zamo = new ZamoFrame(st);
         SplittableRandom root = new SplittableRandom(sc.run().seed());
@@ -87,8 +128,7 @@ public final class SourceSetup {
         for (int k = 0; k < sources.size(); k++) {
             Source s = sources.get(k);
             SplittableRandom rng = root.split();
-            Centre c = centre(s, st, zamo);
-            centres[k] = c;
+            Centre c = centres[k];
             first[k] = at;
             double w = s.emission().weight() / s.particles();
             for (int j = 0; j < s.particles(); j++) {
@@ -102,17 +142,18 @@ public final class SourceSetup {
     }
 
     /** @return the start of a source's centre */
-    public static Centre centre(Source s, Spacetime st, ZamoFrame zamo) {
+    public static Centre centre(Source s, Spacetime st, ZamoFrame zamo, double captureRadius) {
         CentreOrbit o = s.orbit();
         double phi0 = Math.toRadians(o.phiDeg());
         if (o instanceof CentreOrbit.Circular c) {
             boolean pro = c.sense() == Sense.PROGRADE;
             double om = CircularOrbits.omega(st, c.radiusM(), pro);
             double[] v = circularVelocity(st, zamo, c.radiusM(), pro);
-            return new Centre(c.radiusM(), EQUATOR, phi0, v, 2.0 * Math.PI / Math.abs(om), om);
+            return new Centre(c.radiusM(), EQUATOR, phi0, v, 2.0 * Math.PI / Math.abs(om),
+                    Prediction.circular(st, c.radiusM(), pro));
         }
         if (o instanceof CentreOrbit.Elements e) {
-            return ElementsStart.centre(e, st, zamo);
+            return ElementsStart.centre(e, st, zamo, captureRadius);
         }
         CentreOrbit.Local l = (CentreOrbit.Local) o;
         double th = Math.toRadians(l.thetaDeg());
@@ -124,7 +165,8 @@ public final class SourceSetup {
         double v2 = l.vR() * l.vR() + l.vTheta() * l.vTheta() + l.vPhi() * l.vPhi();
         double inv = 2.0 / l.radiusM() - v2;
         double period = inv > 0 ? 2.0 * Math.PI * Math.pow(1.0 / inv, 1.5) : 2.0 * Math.PI / Math.abs(om);
-        return new Centre(l.radiusM(), th, phi0, new double[] {l.vR(), l.vTheta(), l.vPhi()}, period, om);
+        return new Centre(l.radiusM(), th, phi0, new double[] {l.vR(), l.vTheta(), l.vPhi()}, period,
+                Prediction.circular(st, l.radiusM(), pro));
     }
 
     /** @return the ZAMO-frame velocity (0, 0, v_phi) of the circular equatorial orbit at r, NaN if none */
