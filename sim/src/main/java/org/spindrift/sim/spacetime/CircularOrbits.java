@@ -8,8 +8,9 @@ import org.hipparchus.util.FastMath;
  * Circular equatorial geodesics of any {@link Spacetime} (all members are reflection-symmetric
  * about theta = pi/2, so such orbits exist wherever they are timelike).
  *
- * <p>Conventions: "prograde" is the orbit with the larger angular velocity, Omega &gt; 0 and
- * L &gt; 0 (moving towards +phi); for a &gt; 0 it co-rotates with the hole, and a negative spin
+ * <p>Conventions: "prograde" is the branch Omega = (-g_tphi,r + sqrt(D)) / g_phiphi,r, which
+ * far out has Omega &gt; 0 and L &gt; 0 (moving towards +phi); for a &gt; 0 it co-rotates with the
+ * hole, and a negative spin
  * describes a hole turning the other way, exactly as in the Kerr formulas of Bardeen, Press &amp;
  * Teukolsky 1972 (ApJ 178, 347), e.g. Omega = 1/(r^1.5 + a) for prograde orbits at either sign of a.
  * E = -u_t and L = u_phi per unit rest mass; Omega = u^phi/u^t, and all frequencies (Omega, the
@@ -61,15 +62,14 @@ public final class CircularOrbits {
             return Double.NaN;
         }
         final double sq = FastMath.sqrt(disc);
-        // roots (-b +- sq)/a = c/(-b -+ sq); take each in the form without cancellation
-        final double plus = b <= 0.0 ? (-b + sq) / a : c / (-b - sq);
-        final double minus = b >= 0.0 ? (-b - sq) / a : c / (-b + sq);
-        if (a == 0.0) {
-            // one finite root -c/(2b); it is the prograde one when positive
-            final double only = -c / (2.0 * b);
-            return (only > 0.0) == prograde ? only : Double.NaN;
+        // Prograde is the root (-b + sq)/a, retrograde (-b - sq)/a, whatever the sign of a:
+        // for Kerr these are 1/(r^1.5 + a) and -1/(r^1.5 - a) identically (BPT 1972 eq. 2.16),
+        // including where g_phiphi,r < 0 (r^3 < a^2). Each is taken in the form without
+        // cancellation, (-b + sq)/a = c/(-b - sq).
+        if (prograde) {
+            return b <= 0.0 ? (-b + sq) / a : c / (-b - sq);
         }
-        return prograde ? FastMath.max(plus, minus) : FastMath.min(plus, minus);
+        return b >= 0.0 ? (-b - sq) / a : c / (-b + sq);
     }
 
     /** u^t of the circular orbit, per-thread scratch. */

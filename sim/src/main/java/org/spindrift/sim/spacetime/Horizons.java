@@ -12,11 +12,14 @@ import org.hipparchus.util.FastMath;
  *   <li>Johannsen-Psaltis: g^rr = W / (Sigma (1 + h)) with W = Delta + a^2 sin^2 h depends on
  *       theta, so the surface g^rr = 0 is not a sphere (Johannsen 2013, Phys. Rev. D 87, 124017,
  *       reference recalled from memory, studies such surfaces). We report the largest root of W over theta; it equals the Kerr
- *       r_+ at the poles and lies outside r_+ at the equator when epsilon_3 &lt; 0. Everything
+ *       r_+ at the poles and lies outside r_+ at the equator when epsilon_3 &lt; 0; there is no
+ *       horizon when W has no root at some polar angle (the surface does not close, e.g. at the
+ *       poles for |a| &gt; 1). Everything
  *       inside this radius is treated as captured (a conservative choice: the true null surface
  *       lies on or inside the g^rr = 0 surface, since a null surface r = R(theta) needs
  *       g^rr = -g^thth R'^2 &lt;= 0).</li>
- *   <li>Any other member: the largest root of g^rr over a grid of polar angles.</li>
+ *   <li>Any other member: the largest root of g^rr over a grid of polar angles, none unless
+ *       there is a root at every angle.</li>
  * </ul>
  * The search covers 1e-4 M &lt; r &lt; {@link #R_MAX}.
  */
@@ -51,9 +54,10 @@ public final class Horizons {
                 };
             }
             double root = RadialSearch.outermostRoot(f, R_MAX, R_MIN, true);
-            if (!Double.isNaN(root) && (Double.isNaN(best) || root > best)) {
-                best = root;
+            if (Double.isNaN(root)) {
+                return Double.NaN;      // the surface g^rr = 0 does not close: no horizon
             }
+            best = Double.isNaN(best) ? root : FastMath.max(best, root);
         }
         return best;
     }

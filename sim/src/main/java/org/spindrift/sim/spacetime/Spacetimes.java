@@ -34,8 +34,9 @@ import org.spindrift.shared.UserInputException;
  * 1..{@value #MAX_POWER} with |c_k| &lt;= {@value #MAX_COEFFICIENT}; |epsilon3| &lt;=
  * {@value #MAX_EPSILON3}. Unless horizonless objects are allowed, the object must have a horizon
  * ({@link Horizons#outer} finite); for jp with a horizon, also epsilon3 &gt; -r_+^3 with
- * r_+ = 1 + sqrt(1 - a^2), the bound of Johannsen & Psaltis 2011 (Phys. Rev. D 83, 124015;
- * recalled from memory) that keeps 1 + h &gt; 0 outside the horizon.
+ * r_+ = 1 + sqrt(1 - a^2), the bound of Johannsen &amp; Psaltis 2011 (Phys. Rev. D 83, 124015;
+ * recalled from memory) that keeps 1 + h &gt; 0 outside the horizon, and a closed surface
+ * g^rr = 0 (large positive epsilon3 at high spin opens it at the equator).
  */
 public final class Spacetimes {
     /** Family names, as on the command line. */
@@ -136,7 +137,7 @@ public final class Spacetimes {
                                 + " is out of range: |a| <= 1 for " + family + " with a horizon" + hint);
                     }
                     if (Double.isNaN(Horizons.outer(st))) {
-                        double crit = criticalParameter(make);
+                        double crit = criticalParameter(make::apply, MAX_LENGTH);
                         throw new UserInputException(names.apply(key) + " = " + fmt(l) + " with "
                                 + names.apply(SPIN) + " = " + fmt(spin) + " leaves no horizon: " + key
                                 + " <= " + String.format(Locale.ROOT, "%.4f", crit)
@@ -177,6 +178,16 @@ public final class Spacetimes {
                                 + String.format(Locale.ROOT, "%.4f", bound) + " at " + names.apply(SPIN)
                                 + " = " + fmt(spin) + hint);
                     }
+                    Spacetime st = new JohannsenPsaltisSpacetime(spin, e);
+                    if (Double.isNaN(Horizons.outer(st))) {
+                        // only epsilon3 > 0 can open the surface (W grows with epsilon3 there)
+                        double crit = criticalParameter(x -> new JohannsenPsaltisSpacetime(spin, x), MAX_EPSILON3);
+                        throw new UserInputException(names.apply(EPSILON3) + " = " + fmt(e) + " with "
+                                + names.apply(SPIN) + " = " + fmt(spin)
+                                + " leaves no closed horizon (g^rr = 0 does not reach the equator): epsilon3 <= "
+                                + String.format(Locale.ROOT, "%.4f", crit) + " has one at this spin" + hint);
+                    }
+                    return st;
                 }
                 return new JohannsenPsaltisSpacetime(spin, e);
             }
@@ -281,9 +292,9 @@ public final class Spacetimes {
     }
 
     /** Largest parameter value that still leaves a horizon (existence is monotone in it). */
-    private static double criticalParameter(Function<Double, Spacetime> make) {
+    private static double criticalParameter(java.util.function.DoubleFunction<Spacetime> make, double max) {
         double lo = 0.0;
-        double hi = MAX_LENGTH;
+        double hi = max;
         for (int i = 0; i < 40; i++) {
             double mid = 0.5 * (lo + hi);
             if (Double.isNaN(Horizons.outer(make.apply(mid)))) {

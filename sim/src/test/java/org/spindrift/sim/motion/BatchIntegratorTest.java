@@ -144,4 +144,22 @@ class BatchIntegratorTest {
         assertEquals(1, r.count(EndState.CAPTURED));
         assertEquals(1, r.count(EndState.ESCAPED));
     }
+
+    @Test
+    void carterConstantIsConservedAndDiagnosticsReportIt() {
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.9);
+        ParticleBatch b = KerrTestOrbits.ball(st, 8, 0.7, 30, 9);
+        MotionDiagnostics d = new MotionDiagnostics(st, b);
+        double q0max = 0;
+        for (int i = 0; i < b.size(); i++) {
+            q0max = Math.max(q0max, st.carter(b.theta(i), b.pTheta(i), -b.pT(i), b.pPhi(i), 1.0));
+        }
+        new BatchIntegrator(st, BatchIntegrator.Config.of(capture(0.9))).integrate(b, KerrTestOrbits.grid(1500, 40), d);
+        // Carter 1968, Phys. Rev. 174, 1559: Q is a constant of geodesic motion in Kerr
+        assertTrue(q0max > 0.1, "the ball must contain inclined orbits, max Q0 = " + q0max);
+        assertTrue(d.carterDriftMax() < 1e-8 * q0max, "max |Q - Q0| = " + d.carterDriftMax());
+        assertTrue(d.carterDriftMax() > 0, "a drift of exactly zero means nothing was measured");
+        assertTrue(d.massShellMedian() <= d.massShellMax());
+        assertTrue(d.massShellMax() < 1e-10, "max |H + 1/2| = " + d.massShellMax());
+    }
 }
