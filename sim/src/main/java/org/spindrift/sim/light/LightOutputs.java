@@ -39,14 +39,29 @@ public final class LightOutputs {
     private LightOutputs() {
     }
 
-    /** @return the names of the files written (relative to the folder) */
-    public static List<String> write(Path folder, LightResult r) throws IOException {
+    /** Where files go: the run folder's writer (temporary name, rename, registered for the manifest). */
+    @FunctionalInterface
+    public interface Sink {
+        void write(String relativeName, AtomicFiles.Writer writer) throws IOException;
+    }
+
+    /** @return a sink writing into a plain folder through {@link AtomicFiles} */
+    public static Sink folder(Path folder) {
+        return (name, w) -> {
+            Path target = folder.resolve(name);
+            Files.createDirectories(target.getParent());
+            AtomicFiles.write(target, w);
+        };
+    }
+
+    /** @return the names of the files written (relative to the run folder) */
+    public static List<String> write(Sink out, LightResult r) throws IOException {
         List<String> names = new ArrayList<>();
         LightSettings s = r.settings();
         double uas = s.uasPerM();
         double min = s.minutesPerM();
         double[] t = r.timesM();
-        AtomicFiles.write(folder.resolve(ArchiveLayout.CENTROID), tmp -> {
+        out.write(ArchiveLayout.CENTROID, tmp -> {
             try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
                 w.write(CENTROID_HEADER);
                 w.newLine();
@@ -65,7 +80,7 @@ public final class LightOutputs {
             mean += m.flux() / t.length;
         }
         final double meanFlux = mean;
-        AtomicFiles.write(folder.resolve(ArchiveLayout.LIGHTCURVE), tmp -> {
+        out.write(ArchiveLayout.LIGHTCURVE, tmp -> {
             try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
                 w.write(LIGHTCURVE_HEADER);
                 w.newLine();
@@ -80,7 +95,7 @@ public final class LightOutputs {
         names.add(ArchiveLayout.LIGHTCURVE);
         if (r.mock() != null) {
             LightResult.MockAstrometry mk = r.mock();
-            AtomicFiles.write(folder.resolve(ArchiveLayout.MOCK_ASTROMETRY), tmp -> {
+            out.write(ArchiveLayout.MOCK_ASTROMETRY, tmp -> {
                 try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
                     w.write(MOCK_HEADER);
                     w.newLine();
@@ -93,7 +108,7 @@ public final class LightOutputs {
             });
             names.add(ArchiveLayout.MOCK_ASTROMETRY);
         }
-        AtomicFiles.write(folder.resolve(ArchiveLayout.IMAGES), tmp -> writeFits(tmp, r));
+        out.write(ArchiveLayout.IMAGES, tmp -> writeFits(tmp, r));
         names.add(ArchiveLayout.IMAGES);
         return names;
     }

@@ -8,7 +8,6 @@ import java.awt.RenderingHints;
 import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -21,7 +20,6 @@ import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.lines.SeriesLines;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.shared.archive.ArchiveLayout;
-import org.spindrift.shared.archive.AtomicFiles;
 
 /**
  * Plots of the light stage (PNG): the centroid track on the sky (north up, east left, time
@@ -35,25 +33,23 @@ public final class LightPlots {
     private LightPlots() {
     }
 
-    /** Writes the plots into folder/plots; @return their names relative to folder */
-    public static List<String> write(Path folder, LightResult r) throws IOException {
-        Path dir = folder.resolve(ArchiveLayout.PLOTS);
-        Files.createDirectories(dir);
+    /** Writes the plots into plots/ of the run folder; @return their names relative to it */
+    public static List<String> write(LightOutputs.Sink out, LightResult r) throws IOException {
         List<String> names = new ArrayList<>();
-        save(dir, "centroid_track.png", track(r), names);
-        save(dir, "centroid_xy.png", xy(r), names);
-        save(dir, "lightcurve.png", lightCurve(r), names);
-        Path img = dir.resolve("images.png");
+        save(out, "light_track.png", track(r), names);
+        save(out, "light_offsets.png", xy(r), names);
+        save(out, "light_curve.png", lightCurve(r), names);
         BufferedImage panel = imagePanel(r);
-        AtomicFiles.write(img, tmp -> ImageIO.write(panel, "png", tmp.toFile()));
-        names.add(ArchiveLayout.PLOTS + "/images.png");
+        String img = ArchiveLayout.PLOTS + "/light_images.png";
+        out.write(img, tmp -> ImageIO.write(panel, "png", tmp.toFile()));
+        names.add(img);
         return names;
     }
 
-    private static void save(Path dir, String name, XYChart chart, List<String> names) throws IOException {
-        AtomicFiles.write(dir.resolve(name), tmp -> {
-            try (var out = Files.newOutputStream(tmp)) {
-                BitmapEncoder.saveBitmap(chart, out, BitmapEncoder.BitmapFormat.PNG);
+    private static void save(LightOutputs.Sink out, String name, XYChart chart, List<String> names) throws IOException {
+        out.write(ArchiveLayout.PLOTS + "/" + name, tmp -> {
+            try (var os = Files.newOutputStream(tmp)) {
+                BitmapEncoder.saveBitmap(chart, os, BitmapEncoder.BitmapFormat.PNG);
             }
         });
         names.add(ArchiveLayout.PLOTS + "/" + name);
@@ -78,21 +74,29 @@ public final class LightPlots {
         double uas = s.uasPerM();
         double min = s.minutesPerM();
         double[] t = r.timesM();
-        XYChart c = new XYChartBuilder().width(980).height(720).title("Centroid track on the sky (north up, east left)")
+        XYChart c = new XYChartBuilder().width(980).height(720)
+                .title("Centroid track on the sky (north up, east left; frames below 1% of peak flux omitted)")
                 .xAxisTitle("east offset (uas), east to the left").yAxisTitle("north offset (uas)").build();
         style(c);
         c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideE);
         // plotted abscissa is -x so that east is on the left; ticks show the true east offset
         c.getStyler().setxAxisTickLabelsFormattingFunction(v -> String.format(Locale.ROOT, "%.0f", v == 0 ? 0.0 : -v));
+        // frames fainter than 1% of the peak flux are left out: their centroid is noise
+        double peak = 0;
+        for (FrameMoments m : r.moments()) {
+            peak = Math.max(peak, m.flux());
+        }
+        double floor = 0.01 * peak;
         double ext = 0;
         for (int f = 0; f < t.length; f++) {
             FrameMoments m = r.moments().get(f);
-            if (!Double.isNaN(m.x())) {
+            if (!Double.isNaN(m.x()) && m.flux() >= floor) {
                 ext = Math.max(ext, Math.max(Math.abs(m.x()), Math.abs(m.y())) * uas);
             }
         }
         double beam = s.beamFwhmUas();
-        ext = Math.max(ext * 1.15, Math.max(beam, 1.0));
+        // room for the beam circle in the corner, clear of the track
+        ext = Math.max(ext * 1.1 + 1.2 * beam, 1.0);
         int bins = Math.min(TRACK_BINS, Math.max(1, t.length - 1));
         for (int b = 0; b < bins; b++) {
             int f0 = b * (t.length - 1) / bins;
@@ -101,7 +105,7 @@ public final class LightPlots {
             List<Double> ys = new ArrayList<>();
             for (int f = f0; f <= f1; f++) {
                 FrameMoments m = r.moments().get(f);
-                if (!Double.isNaN(m.x())) {
+                if (!Double.isNaN(m.x()) && m.flux() >= floor) {
                     xs.add(-m.x() * uas);
                     ys.add(m.y() * uas);
                 }
@@ -119,8 +123,10 @@ public final class LightPlots {
             List<Double> xs = new ArrayList<>();
             List<Double> ys = new ArrayList<>();
             for (int f = 0; f < t.length; f++) {
-                xs.add(-r.steadyX()[f] * uas);
-                ys.add(r.steadyY()[f] * uas);
+                if (r.moments().get(f).flux() >= floor) {
+                    xs.add(-r.steadyX()[f] * uas);
+                    ys.add(r.steadyY()[f] * uas);
+                }
             }
             XYSeries ser = c.addSeries(String.format(Locale.ROOT, "with steady source (f=%.2g)", s.steadyFluxRatio()),
                     xs, ys);
@@ -274,15 +280,20 @@ public final class LightPlots {
         return String.format(Locale.ROOT, Math.abs(a * 10 - Math.rint(a * 10)) < 1e-6 ? "%.1f" : "%.2f", v);
     }
 
-    /** Four frames spread over the run, on a common colour scale (square-root stretch). */
+    /**
+     * Four frames spread over the run on a common colour scale per row (square-root stretch):
+     * the model images, and below them the images convolved with the beam when one is set.
+     */
     static BufferedImage imagePanel(LightResult r) {
         int frames = r.images().length;
         int shown = Math.min(4, frames);
-        int n = r.camera().pixels();
+        boolean beamed = r.settings().beamFwhmUas() > 0;
+        int rows = beamed ? 2 : 1;
         int cell = 340;
         int margin = 60;
+        int rowH = cell + margin + 20;
         int w = shown * (cell + margin) + margin;
-        int h = cell + 2 * margin + 40;
+        int h = rows * rowH + margin + 30;
         BufferedImage out = new BufferedImage(w, h, BufferedImage.TYPE_INT_RGB);
         Graphics2D g = out.createGraphics();
         g.setRenderingHint(RenderingHints.KEY_ANTIALIASING, RenderingHints.VALUE_ANTIALIAS_ON);
@@ -290,21 +301,40 @@ public final class LightPlots {
         g.setColor(Color.WHITE);
         g.fillRect(0, 0, w, h);
         int[] idx = new int[shown];
-        float peak = 0;
         for (int i = 0; i < shown; i++) {
             idx[i] = shown == 1 ? 0 : i * (frames - 1) / (shown - 1);
-            for (float v : r.images()[idx[i]]) {
+        }
+        g.setFont(new Font(Font.SANS_SERIF, Font.PLAIN, 13));
+        for (int row = 0; row < rows; row++) {
+            float[][] set = row == 0 ? r.rawImages() : r.images();
+            drawRow(g, r, set, idx, margin, margin + row * rowH, cell, margin, row == 1);
+        }
+        LightSettings s = r.settings();
+        double half = 0.5 * r.camera().fieldOfView() * s.uasPerM();
+        g.setColor(Color.BLACK);
+        g.drawString(String.format(Locale.ROOT, "Images (%s), square-root stretch, common scale per row; field %.0f uas = %.0f M;"
+                + " north up, east left; + marks the black hole%s",
+                s.lensing() ? "ray traced" : "straight lines", 2 * half, r.camera().fieldOfView(),
+                beamed ? String.format(Locale.ROOT, "; lower row convolved with the beam, FWHM %.3g uas (circle)",
+                        s.beamFwhmUas()) : ""), margin, h - 14);
+        g.dispose();
+        return out;
+    }
+
+    private static void drawRow(Graphics2D g, LightResult r, float[][] set, int[] idx, int left, int y0, int cell,
+                                int margin, boolean beamRow) {
+        LightSettings s = r.settings();
+        int n = r.camera().pixels();
+        double half = 0.5 * r.camera().fieldOfView() * s.uasPerM();
+        float peak = 0;
+        for (int i : idx) {
+            for (float v : set[i]) {
                 peak = Math.max(peak, v);
             }
         }
-        LightSettings s = r.settings();
-        double uas = s.uasPerM();
-        double half = 0.5 * r.camera().fieldOfView() * uas;
-        g.setFont(new Font(Font.SANS_SERIF, Font.PLAIN, 13));
-        for (int i = 0; i < shown; i++) {
-            int x0 = margin + i * (cell + margin);
-            int y0 = margin;
-            float[] img = r.images()[idx[i]];
+        for (int i = 0; i < idx.length; i++) {
+            int x0 = left + i * (cell + margin);
+            float[] img = set[idx[i]];
             BufferedImage tile = new BufferedImage(n, n, BufferedImage.TYPE_INT_RGB);
             for (int row = 0; row < n; row++) {
                 for (int col = 0; col < n; col++) {
@@ -316,37 +346,28 @@ public final class LightPlots {
             g.drawImage(tile, x0, y0, cell, cell, null);
             g.setColor(Color.BLACK);
             g.drawRect(x0, y0, cell, cell);
-            g.drawString(String.format(Locale.ROOT, "t = %.1f min", r.timesM()[idx[i]] * s.minutesPerM()), x0, y0 - 10);
-            // axes ticks: +-half of the field in uas
+            g.drawString(String.format(Locale.ROOT, "t = %.1f min%s", r.timesM()[idx[i]] * s.minutesPerM(),
+                    beamRow ? ", with beam" : ""), x0, y0 - 10);
             g.drawString(String.format(Locale.ROOT, "%.0f", half), x0 - 8, y0 + cell + 18);
             g.drawString(String.format(Locale.ROOT, "%.0f", -half), x0 + cell - 20, y0 + cell + 18);
-            g.drawString("east offset (uas)", x0 + cell / 2 - 50, y0 + cell + 36);
+            g.drawString("east offset (uas)", x0 + cell / 2 - 50, y0 + cell + 18);
             g.drawString(String.format(Locale.ROOT, "%.0f", half), x0 - 30, y0 + 10);
             g.drawString(String.format(Locale.ROOT, "%.0f", -half), x0 - 34, y0 + cell);
-            // black hole marker
             g.setColor(Color.CYAN);
             int cx = x0 + cell / 2, cy = y0 + cell / 2;
             g.drawLine(cx - 6, cy, cx + 6, cy);
             g.drawLine(cx, cy - 6, cx, cy + 6);
-            // compass: N up, E left
             g.setColor(Color.WHITE);
             g.drawString("N", x0 + 24, y0 + 18);
             g.drawString("E", x0 + 6, y0 + 36);
             g.drawLine(x0 + 28, y0 + 32, x0 + 28, y0 + 22);
             g.drawLine(x0 + 28, y0 + 32, x0 + 18, y0 + 32);
-            if (s.beamFwhmUas() > 0) {
+            if (beamRow) {
                 double bpx = s.beamFwhmUas() / (2 * half) * cell;
                 g.setStroke(new BasicStroke(1.5f));
                 g.drawOval((int) (x0 + cell - 12 - bpx), (int) (y0 + cell - 12 - bpx), (int) bpx, (int) bpx);
             }
         }
-        g.setColor(Color.BLACK);
-        g.drawString(String.format(Locale.ROOT, "Images (%s, square-root stretch, common scale), field %.0f uas = %.0f M%s",
-                s.lensing() ? "ray traced" : "straight lines", 2 * half, r.camera().fieldOfView(),
-                s.beamFwhmUas() > 0 ? String.format(Locale.ROOT, ", beam FWHM %.3g uas (circle)", s.beamFwhmUas()) : ""),
-                margin, h - 14);
-        g.dispose();
-        return out;
     }
 
     /** Black through red and orange to white (a heat ramp). */

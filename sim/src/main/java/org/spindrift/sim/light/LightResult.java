@@ -11,16 +11,25 @@ import java.util.List;
  * @param timesM observer time of each frame, M (origin: see {@link LightStage})
  * @param moments per-frame flux and moments of the unbeamed images
  * @param images per-frame images as written (beam applied when one is set)
+ * @param rawImages per-frame images before the beam (the same arrays when there is no beam)
  * @param steadyFlux flux of the steady point source (same units as the frame fluxes)
  * @param steadyX centroid east offset with the steady source, M, per frame (and steadyY)
  * @param mock mock astrometric epochs (null when no noise was asked)
  * @param smoothingLength kernel smoothing length, M
  * @param emissionRadius outer radius of the emission region, M
  * @param table ray-table statistics
+ * @param coveredFrom first observer time (M) at which every sample sees an emission time inside
+ *     the particle history (and coveredTo the last); frames outside may miss far-side light
  */
 public record LightResult(LightSettings settings, Camera camera, double[] timesM, List<FrameMoments> moments,
-                          float[][] images, double steadyFlux, double[] steadyX, double[] steadyY,
-                          MockAstrometry mock, double smoothingLength, double emissionRadius, TableStats table) {
+                          float[][] images, float[][] rawImages, double steadyFlux, double[] steadyX, double[] steadyY,
+                          MockAstrometry mock, double smoothingLength, double emissionRadius, TableStats table,
+                          double coveredFrom, double coveredTo) {
+    /** @return whether frame f lies in the fully covered observer-time interval */
+    public boolean covered(int f) {
+        return timesM[f] >= coveredFrom - 1e-9 && timesM[f] <= coveredTo + 1e-9;
+    }
+
     /**
      * @param rays number of rays
      * @param samples samples kept in the emission region

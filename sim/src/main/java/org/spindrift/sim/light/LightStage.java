@@ -14,9 +14,12 @@ import org.spindrift.sim.spacetime.Spacetime;
  * <p>Observer-time origin: t_o = t_e + delay, with the delay the ray's elapsed coordinate time
  * minus the flat travel time from the camera plane and the leading Shapiro term
  * (see {@link RayTracer}); a photon emitted at coordinate time t_e from the sky plane through the
- * hole far from it arrives at t_o = t_e. Frames cover the observer times for which every sample
- * sees an emission time inside the particle history, at the frame cadence (the snapshot cadence
- * when none is given).
+ * hole far from it arrives at t_o = t_e. Frames run at the frame cadence (the snapshot cadence
+ * when none is given) from t_first + d_lo to t_last + d_hi, where t_first, t_last are the first
+ * and last snapshot times and d_lo, d_hi the 2nd and 98th percentiles of the delays of the
+ * samples in the radial range the gas occupies; emission before the first and after the last
+ * snapshot counts as zero (the gas is not there), so the first and last frames may miss light
+ * from the far side.
  */
 public final class LightStage {
     /** Sample spacing along rays in units of the smoothing length. */
@@ -41,28 +44,48 @@ public final class LightStage {
         long t0 = System.nanoTime();
         RayTable table = RayTable.trace(st, cam, ts, threads);
         double secs = (System.nanoTime() - t0) * 1e-9;
-        double[] times = frameTimes(history, table.delayRange(), s.frameCadenceM());
+        double[] rRange = radialRange(history);
+        double[] times = frameTimes(history, table.delayQuantiles(rRange[0] - 2 * h, rRange[1] + 2 * h, 0.02, 0.98),
+                s.frameCadenceM());
         int n = cam.pixels();
         float[][] images = new float[times.length][];
+        float[][] raw = beamOn(s) ? new float[times.length][] : images;
         List<FrameMoments> moments = new ArrayList<>(times.length);
-        GaussianBeam beam = s.beamFwhmUas() > 0
+        GaussianBeam beam = beamOn(s)
                 ? new GaussianBeam(s.beamFwhmUas() / (s.uasPerM() * cam.pixelSize()), n) : null;
         try (EmissionRenderer r = new EmissionRenderer(table, history, st, h, threads)) {
             for (int f = 0; f < times.length; f++) {
                 float[] img = new float[n * n];
                 r.render(times[f], img);
                 moments.add(FrameMoments.of(img, cam));
+                raw[f] = img;
                 if (beam != null) {
-                    beam.apply(img, img);
+                    float[] b = new float[n * n];
+                    beam.apply(img, b);
+                    images[f] = b;
+                } else {
+                    images[f] = img;
                 }
-                images[f] = img;
             }
         }
+        // mean flare flux over the fully covered frames (all frames when none is covered)
+        double coveredFrom = history.time(0) + table.delayRange()[1];
+        double coveredTo = history.time(history.snapshots() - 1) + table.delayRange()[0];
         double mean = 0;
-        for (FrameMoments m : moments) {
-            mean += m.flux();
+        int count = 0;
+        for (int f = 0; f < times.length; f++) {
+            if (times[f] >= coveredFrom - 1e-9 && times[f] <= coveredTo + 1e-9) {
+                mean += moments.get(f).flux();
+                count++;
+            }
         }
-        mean /= FastMath.max(1, moments.size());
+        if (count == 0) {
+            for (FrameMoments m : moments) {
+                mean += m.flux();
+            }
+            count = moments.size();
+        }
+        mean /= FastMath.max(1, count);
         // steady point source at the hole, flux ratio f to the mean flare flux: the apparent
         // centroid is F c / (F + F_s) (flux-weighted mean, common practice)
         double fs = s.steadyFluxRatio() * mean;
@@ -75,8 +98,27 @@ public final class LightStage {
             sy[f] = tot > 0 && m.flux() > 0 ? m.flux() * m.y() / tot : 0.0;
         }
         LightResult.MockAstrometry mock = s.noiseUas() > 0 ? mock(s, times, sx, sy) : null;
-        return new LightResult(s, cam, times, moments, images, fs, sx, sy, mock, h, rEm,
-                new LightResult.TableStats(table.rays(), table.samples(), table.steps(), secs));
+        return new LightResult(s, cam, times, moments, images, raw, fs, sx, sy, mock, h, rEm,
+                new LightResult.TableStats(table.rays(), table.samples(), table.steps(), secs),
+                coveredFrom, coveredTo);
+    }
+
+    private static boolean beamOn(LightSettings s) {
+        return s.beamFwhmUas() > 0;
+    }
+
+    /** @return smallest and largest radius of alive particles over the history */
+    static double[] radialRange(EmitterHistory h) {
+        double lo = Double.POSITIVE_INFINITY, hi = 0;
+        for (int s = 0; s < h.snapshots(); s++) {
+            for (int p = 0; p < h.particles(); p++) {
+                if (h.state(s, p) == EmitterHistory.ALIVE) {
+                    lo = FastMath.min(lo, h.r(s, p));
+                    hi = FastMath.max(hi, h.r(s, p));
+                }
+            }
+        }
+        return lo <= hi ? new double[] {lo, hi} : new double[] {0.0, Double.POSITIVE_INFINITY};
     }
 
     /** Kernel smoothing length: one pixel, at least 0.1 M. */
@@ -102,19 +144,14 @@ public final class LightStage {
         return FastMath.min(FastMath.max(r, stopRadius + 3.0), FastMath.max(fov, 20.0));
     }
 
-    /** Frame times with full emission coverage, at the cadence (the snapshot cadence if NaN). */
+    /** Frame times from t_first + delays[0] to t_last + delays[1] at the cadence (the snapshot cadence if NaN). */
     static double[] frameTimes(EmitterHistory h, double[] delays, double cadence) {
         int ns = h.snapshots();
         double first = h.time(0);
         double last = h.time(ns - 1);
         double dt = Double.isNaN(cadence) ? (last - first) / FastMath.max(1, ns - 1) : cadence;
-        double lo = first + delays[1];
-        double hi = last + delays[0];
-        if (hi - lo < dt) {
-            // the run is shorter than the spread of delays: render the whole span (edges partial)
-            lo = first + delays[0];
-            hi = last + delays[1];
-        }
+        double lo = first + delays[0];
+        double hi = last + delays[1];
         int count = (int) FastMath.floor((hi - lo) / dt + 1e-9) + 1;
         double[] t = new double[count];
         for (int i = 0; i < count; i++) {

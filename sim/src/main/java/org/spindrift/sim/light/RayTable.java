@@ -335,6 +335,27 @@ public final class RayTable {
         return steps;
     }
 
+    /**
+     * Quantiles of the delays of the samples whose radius |x| lies in [rLo, rHi] (where the gas
+     * is), M; the full range when no sample lies there.
+     */
+    public double[] delayQuantiles(double rLo, double rHi, double qLo, double qHi) {
+        int m = 0;
+        float[] d = new float[delay.length];
+        for (int i = 0; i < delay.length; i++) {
+            double r = FastMath.sqrt(x[i] * x[i] + y[i] * y[i] + z[i] * z[i]);
+            if (r >= rLo && r <= rHi) {
+                d[m++] = delay[i];
+            }
+        }
+        if (m == 0) {
+            return delayRange();
+        }
+        float[] v = Arrays.copyOf(d, m);
+        Arrays.sort(v);
+        return new double[] {v[(int) FastMath.floor(qLo * (m - 1))], v[(int) FastMath.ceil(qHi * (m - 1))]};
+    }
+
     /** @return smallest and largest sample delay, M ({0, 0} if there are no samples) */
     public double[] delayRange() {
         if (delay.length == 0) {

@@ -28,8 +28,8 @@ class LightOutputsTest {
     @Test
     void filesHaveHeadersAndAstropyReadsTheWcs() throws Exception {
         LightResult r = smallRun();
-        List<String> names = LightOutputs.write(dir, r);
-        names.addAll(LightPlots.write(dir, r));
+        List<String> names = LightOutputs.write(LightOutputs.folder(dir), r);
+        names.addAll(LightPlots.write(LightOutputs.folder(dir), r));
         for (String n : names) {
             assertTrue(Files.size(dir.resolve(n)) > 0, n);
             String keep = System.getenv("SPINDRIFT_KEEP_TEST_OUTPUT");   // to look at the plots by eye

@@ -28,7 +28,13 @@ class LightStageTest {
         int n = cam.pixels();
         double prevAngle = Double.NaN;
         double turned = 0;
+        int first = -1, last = -1;
         for (int f = 0; f < res.timesM().length; f++) {
+            if (!res.covered(f)) {
+                continue;
+            }
+            first = first < 0 ? f : first;
+            last = f;
             // centroid of the primary image: pixels outside the photon-ring region (b > 8 M)
             float[] img = res.images()[f];
             double w = 0, sx = 0, sy = 0;
@@ -51,14 +57,15 @@ class LightStageTest {
             }
             prevAngle = pa;
         }
-        double span = res.timesM()[res.timesM().length - 1] - res.timesM()[0];
+        assertTrue(last - first > 20, "enough covered frames");
+        double span = res.timesM()[last] - res.timesM()[first];
         // prograde orbit, i < 90: the position angle increases (counter-clockwise, north up, east left)
         assertTrue(turned > 0, "prograde orbit turns north through east");
         // centroid period equals the coordinate orbital period 2 pi r^1.5
         assertEquals(period, 2 * FastMath.PI * span / turned, 0.005 * period, "centroid period");
-        double r0 = FastMath.hypot(res.moments().get(0).x(), res.moments().get(0).y());
+        double r0 = FastMath.hypot(res.moments().get(first).x(), res.moments().get(first).y());
         // steady source with flux ratio f = 1: the track shrinks by 1/(1+f) (common practice, no source)
-        for (int f = 0; f < res.timesM().length; f++) {
+        for (int f = first; f <= last; f++) {
             FrameMoments m = res.moments().get(f);
             assertEquals(0.5 * FastMath.hypot(m.x(), m.y()), FastMath.hypot(res.steadyX()[f], res.steadyY()[f]),
                     0.01 * r0, "steady source shrinks the track");
@@ -125,9 +132,9 @@ class LightStageTest {
         double a = 0.5;
         Spacetime st = LightTestSupport.kerr(a);
         double re = 8.0;
-        CircularSpotHistory h = new CircularSpotHistory(st, re, 0.0, 0.4, 200, 0.0, 500.0, 160, 1.0, 9L);
+        CircularSpotHistory h = new CircularSpotHistory(st, re, 0.0, 0.4, 200, 0.0, 520.0, 160, 1.0, 9L);
         double period = 2 * FastMath.PI / h.omega();
-        LightSettings s = settings(60.0, 24.0, 48, 2.0, 0.0);
+        LightSettings s = settings(60.0, 24.0, 48, 3.0, 0.0);
         LightResult r1 = LightStage.run(s, st, LightTestSupport.stopRadius(a), h, 1);
         LightResult r2 = LightStage.run(s, st, LightTestSupport.stopRadius(a), h, 2);
         for (int f = 0; f < r1.images().length; f++) {
@@ -136,12 +143,20 @@ class LightStageTest {
         // upward zero crossings of x - mean(x): their spacing is the centroid period
         double[] t = r1.timesM();
         double mean = 0;
-        for (FrameMoments m : r1.moments()) {
-            mean += m.x() / t.length;
+        int covered = 0;
+        for (int f = 0; f < t.length; f++) {
+            if (r1.covered(f)) {
+                mean += r1.moments().get(f).x();
+                covered++;
+            }
         }
+        mean /= covered;
         double first = Double.NaN, last = Double.NaN;
         int crossings = 0;
         for (int f = 1; f < t.length; f++) {
+            if (!r1.covered(f - 1) || !r1.covered(f)) {
+                continue;
+            }
             double x0 = r1.moments().get(f - 1).x() - mean, x1 = r1.moments().get(f).x() - mean;
             if (x0 < 0 && x1 >= 0) {
                 double tc = t[f - 1] + (t[f] - t[f - 1]) * (-x0) / (x1 - x0);
