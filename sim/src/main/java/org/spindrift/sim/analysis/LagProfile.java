@@ -10,7 +10,9 @@ package org.spindrift.sim.analysis;
  * <p>Near a maximum of Omega(r) the gas there leads and the lag has a minimum, stationary in r:
  * the two arms (inside and outside) both trail and open into a V. {@link #stationaryRadius} is
  * that radius (vertex of a parabola through the lowest interior bin and its neighbours), NaN
- * when the lowest bin is at an end (a monotonic profile, as in Kerr). The arm lengths are the
+ * when the lowest bin is at an end (a monotonic profile, as in Kerr) or when either end rises
+ * above it by less than {@link #SIGNIFICANCE} standard errors of the bin means (noise, for
+ * example at t = 0). The arm lengths are the
  * lengths of the mean curve (r, phi_mean(r)) in the plane, sum of sqrt(dr^2 + (r dphi)^2), from
  * the stationary bin to the inner and outer ends.
  *
@@ -26,6 +28,9 @@ public record LagProfile(double[] r, double[] lag, int[] count, double stationar
     /** Empty profile. */
     static final LagProfile EMPTY = new LagProfile(new double[0], new double[0], new int[0], Double.NaN, Double.NaN,
             Double.NaN);
+
+    /** Rise of both ends above the minimum, in standard errors, for a stationary point to count. */
+    static final double SIGNIFICANCE = 5.0;
 
     /** Smallest number of members in a bin. */
     static final int MIN_PER_BIN = 5;
@@ -56,6 +61,7 @@ public record LagProfile(double[] r, double[] lag, int[] count, double stationar
         double[] rb = new double[bins];
         double[] lag = new double[bins];
         int[] cnt = new int[bins];
+        double[] se = new double[bins];
         for (int b = 0; b < bins; b++) {
             int from = (int) ((long) b * m / bins);
             int to = (int) ((long) (b + 1) * m / bins);
@@ -67,7 +73,14 @@ public record LagProfile(double[] r, double[] lag, int[] count, double stationar
             }
             cnt[b] = to - from;
             rb[b] = sr / cnt[b];
-            lag[b] = phiC - sp / cnt[b];
+            double mean = sp / cnt[b];
+            double var = 0;
+            for (int k = from; k < to; k++) {
+                double d = phi[order[k]] - mean;
+                var += d * d;
+            }
+            se[b] = Math.sqrt(var / Math.max(1, cnt[b] - 1) / cnt[b]);
+            lag[b] = phiC - mean;
         }
         int lo = 0;
         for (int b = 1; b < bins; b++) {
@@ -78,7 +91,10 @@ public record LagProfile(double[] r, double[] lag, int[] count, double stationar
         double rs = Double.NaN;
         double inner = Double.NaN;
         double outer = Double.NaN;
-        if (lo > 0 && lo < bins - 1) {
+        double noise = Math.max(se[lo], Math.max(se[0], se[bins - 1]));
+        boolean significant = lo > 0 && lo < bins - 1 && lag[0] - lag[lo] > SIGNIFICANCE * noise
+                && lag[bins - 1] - lag[lo] > SIGNIFICANCE * noise;
+        if (significant) {
             // vertex of the parabola through the minimum bin and its neighbours
             double x0 = rb[lo - 1];
             double x1 = rb[lo];
