@@ -25,9 +25,10 @@ import picocli.CommandLine.Parameters;
 @Command(name = "view", mixinStandardHelpOptions = true, sortOptions = false,
         description = {"Replay a run folder in 3D (particles, horizon, landmark circles, source paths) beside the"
                 + " sky image and centroid track; or export the replay as PNG frames.",
-            "Needs OpenGL 3.3: a desktop session, or a virtual X server: xvfb-run -a ./spindrift view RUN_DIR ..."},
+            "Needs OpenGL 3.3: a desktop session, or a virtual X server:",
+            "  xvfb-run -a ./spindrift view RUN_DIR --export-frames DIR"},
         footer = {"", "Turn exported frames into a movie, for example:",
-            "  ffmpeg -framerate 30 -i DIR/frame_%05d.png -c:v libx264 -pix_fmt yuv420p -crf 18 replay.mp4"})
+            "  ffmpeg -framerate 30 -i DIR/frame_%%05d.png -c:v libx264 -pix_fmt yuv420p \\", "         -crf 18 replay.mp4"})
 public final class ViewCommand implements Callable<Integer> {
     /** Exit status for bad input, no display or no OpenGL. */
     public static final int EXIT_USAGE = 2;
@@ -62,6 +63,11 @@ public final class ViewCommand implements Callable<Integer> {
     @Option(names = "--camera-distance", paramLabel = "M",
             description = "camera distance from the black hole, M (default: the whole scene in view)")
     Double cameraDistance;
+
+    @Option(names = "--samples", paramLabel = "N", defaultValue = "4",
+            description = "multisample anti-aliasing samples per pixel, 0 for none (faster on software OpenGL;"
+                    + " default: ${DEFAULT-VALUE})")
+    int samples;
 
     @Option(names = "--bare", description = "3D view only, filling the frame: no sky panel, bars or labels")
     boolean bare;
@@ -103,6 +109,9 @@ public final class ViewCommand implements Callable<Integer> {
         if (w < 64 || h < 64 || w > 8192 || h > 8192) {
             throw new UserInputException("option --size: " + w + "x" + h + " outside 64..8192 in each direction");
         }
+        if (samples < 0 || samples > 16) {
+            throw new UserInputException("option --samples: " + samples + " outside 0..16");
+        }
         if (every < 1) {
             throw new UserInputException("option --every: " + every + " must be at least 1");
         }
@@ -130,7 +139,7 @@ public final class ViewCommand implements Callable<Integer> {
             throw new UserInputException("run folder " + runDir + ": no " + ArchiveLayout.MANIFEST
                     + " (not a run folder, or the run did not complete)");
         }
-        return new ViewerSession.Options(runDir, w, h, q, cam, cameraDistance, bare, noSky);
+        return new ViewerSession.Options(runDir, w, h, q, cam, cameraDistance, bare, noSky, samples);
     }
 
     /** Runs {@code view} on its own (tests start it in a child JVM). */

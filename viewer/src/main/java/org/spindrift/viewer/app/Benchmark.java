@@ -17,9 +17,14 @@ public final class Benchmark {
     private Benchmark() {
     }
 
+    private static String parts(long[] ns, int frames) {
+        return String.format(Locale.ROOT, "; per frame: snapshot wait+upload %.1f ms, 3D %.1f ms, panels+text %.1f ms",
+                ns[0] * 1e-6 / frames, ns[1] * 1e-6 / frames, ns[2] * 1e-6 / frames);
+    }
+
     public static int run(ViewerSession.Options o, int frames, PrintStream out) {
         try (ViewerSession session = new ViewerSession(o, false);
-             Framebuffer fb = new Framebuffer(o.width(), o.height(), 4)) {
+             Framebuffer fb = new Framebuffer(o.width(), o.height(), o.samples())) {
             Playback p = session.playback();
             int snapshots = session.info().snapshots();
             FrameComposer c = session.composer();
@@ -30,6 +35,7 @@ public final class Benchmark {
                 c.render(fb.width(), fb.height(), p, true, 0);
             }
             glFinish();
+            c.profile(true);
             long t0 = System.nanoTime();
             for (int i = 0; i < frames; i++) {
                 p.seekSnapshot(i % snapshots);
@@ -38,6 +44,8 @@ public final class Benchmark {
                 glFinish();
             }
             double streaming = (System.nanoTime() - t0) * 1e-9;
+            long[] parts1 = c.profileNanos().clone();
+            c.profile(true);
             p.seekSnapshot(0);
             double t1 = p.start();
             double dt = snapshots > 1 ? (session.info().times()[1] - t1) / (frames + 1) : 0;
@@ -50,14 +58,19 @@ public final class Benchmark {
                 glFinish();
             }
             double replay = (System.nanoTime() - t2) * 1e-9;
+            long[] parts2 = c.profileNanos().clone();
+            c.profile(false);
             out.println(String.format(Locale.ROOT, "view bench: %s", session.gl().renderer()));
             out.println(String.format(Locale.ROOT, "view bench: %d particles, %d snapshots, %dx%d, %d frames each,"
                     + " %d cores", session.info().particles(), snapshots, o.width(), o.height(), frames,
                     Runtime.getRuntime().availableProcessors()));
-            out.println(String.format(Locale.ROOT, "view bench: streaming (new snapshot every frame): %.1f fps (%.2f ms/frame)",
-                    frames / streaming, 1e3 * streaming / frames));
-            out.println(String.format(Locale.ROOT, "view bench: between snapshots, camera turning:  %.1f fps (%.2f ms/frame)",
-                    frames / replay, 1e3 * replay / frames));
+            out.println(String.format(Locale.ROOT, "view bench: streaming (new snapshot every frame): %.1f fps (%.2f ms/frame)%s",
+                    frames / streaming, 1e3 * streaming / frames, parts(parts1, frames)));
+            out.println(String.format(Locale.ROOT, "view bench: between snapshots, camera turning:  %.1f fps (%.2f ms/frame)%s",
+                    frames / replay, 1e3 * replay / frames, parts(parts2, frames)));
+            out.println(String.format(Locale.ROOT, "view bench: load average %.2f over %d cores (the machine may be shared)",
+                    java.lang.management.ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage(),
+                    Runtime.getRuntime().availableProcessors()));
             return 0;
         }
     }

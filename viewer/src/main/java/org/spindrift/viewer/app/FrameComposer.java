@@ -27,6 +27,10 @@ public final class FrameComposer implements AutoCloseable {
     private final Layout layout = new Layout();
     private final boolean bare;
     private boolean help;
+    private boolean profile;
+    private long prepareNanos;
+    private long sceneNanos;
+    private long panelNanos;
 
     /**
      * @param sky  the sky panel, or null for none
@@ -102,11 +106,29 @@ public final class FrameComposer implements AutoCloseable {
         glClear(GL_COLOR_BUFFER_BIT | GL_DEPTH_BUFFER_BIT);
         int a = p.index();
         int b = p.next();
+        long t0 = 0;
+        if (profile) {
+            glFinish();
+            t0 = System.nanoTime();
+        }
         scene.prepare(a, b, p.direction(), block);
+        if (profile) {
+            glFinish();
+            long t1 = System.nanoTime();
+            prepareNanos += t1 - t0;
+            t0 = t1;
+        }
         scene.draw(layout.viewX, layout.glY(layout.viewY, layout.viewH), layout.viewW, layout.viewH, p.now(), a, b,
                 p.mix());
+        if (profile) {
+            glFinish();
+            sceneNanos += System.nanoTime() - t0;
+        }
         if (bare) {
             return;
+        }
+        if (profile) {
+            t0 = System.nanoTime();
         }
         glViewport(0, 0, fbW, fbH);
         overlay.begin(fbW, fbH);
@@ -124,6 +146,23 @@ public final class FrameComposer implements AutoCloseable {
             hud.help(overlay, layout);
         }
         overlay.flush();
+        if (profile) {
+            glFinish();
+            panelNanos += System.nanoTime() - t0;
+        }
+    }
+
+    /** Benchmark only: time each part of the frame (with glFinish between parts). */
+    public void profile(boolean on) {
+        profile = on;
+        prepareNanos = 0;
+        sceneNanos = 0;
+        panelNanos = 0;
+    }
+
+    /** @return nanoseconds spent waiting for and uploading snapshots, drawing the 3D view, the panels */
+    public long[] profileNanos() {
+        return new long[] {prepareNanos, sceneNanos, panelNanos};
     }
 
     @Override public void close() {

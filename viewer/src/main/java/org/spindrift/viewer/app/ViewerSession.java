@@ -37,7 +37,7 @@ public final class ViewerSession implements AutoCloseable {
 
     /** Parsed command-line options. */
     public record Options(Path runDir, int width, int height, Quantity colour, CameraStart camera,
-                          Double cameraDistance, boolean bare, boolean noSky) {
+                          Double cameraDistance, boolean bare, boolean noSky, int samples) {
     }
 
     private final RunData run;
@@ -70,7 +70,7 @@ public final class ViewerSession implements AutoCloseable {
                     track = CentroidTrack.read(csv, info.mSeconds());
                 }
             }
-            ctx = GlContext.open(o.width(), o.height(), "Spindrift replay - " + info.title(), visible, visible ? 4 : 0);
+            ctx = GlContext.open(o.width(), o.height(), "Spindrift replay - " + info.title(), visible, visible ? o.samples() : 0);
             s = new SnapshotStream(r);
             SkyPanel sky = o.bare() || o.noSky() || (cube == null && track == null) ? null : new SkyPanel(cube, track);
             cube = null; // owned by the panel now

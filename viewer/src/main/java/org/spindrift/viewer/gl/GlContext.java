@@ -34,54 +34,63 @@ public final class GlContext implements AutoCloseable {
      * @param samples multisample count for the default framebuffer (0 = none)
      */
     public static GlContext open(int width, int height, String title, boolean visible, int samples) {
-        final StringBuilder err = new StringBuilder();
-        GLFWErrorCallback cb = GLFWErrorCallback.create((code, description) -> {
-            err.setLength(0);
-            err.append(GLFWErrorCallback.getDescription(description));
-        });
-        glfwSetErrorCallback(cb);
         String display = System.getenv("DISPLAY");
         String wayland = System.getenv("WAYLAND_DISPLAY");
-        boolean linux = System.getProperty("os.name", "").toLowerCase().contains("linux");
+        boolean linux = System.getProperty("os.name", "").toLowerCase(java.util.Locale.ROOT).contains("linux");
         if (linux && (display == null || display.isEmpty()) && (wayland == null || wayland.isEmpty())) {
-            cb.free();
-            glfwSetErrorCallback(null);
             throw new DisplayUnavailableException("no display (DISPLAY is not set)");
         }
-        if (!glfwInit()) {
-            String why = err.length() > 0 ? err.toString() : "unknown reason";
-            cb.free();
-            glfwSetErrorCallback(null);
-            throw new DisplayUnavailableException("cannot open the display (" + firstLine(why) + ")");
+        final StringBuilder err = new StringBuilder();
+        try {
+            GLFWErrorCallback cb = GLFWErrorCallback.create((code, description) -> {
+                err.setLength(0);
+                err.append(GLFWErrorCallback.getDescription(description));
+            });
+            glfwSetErrorCallback(cb);
+            if (!glfwInit()) {
+                releaseErrorCallback();
+                throw new DisplayUnavailableException("cannot open the display (" + why(err) + ")");
+            }
+            glfwDefaultWindowHints();
+            glfwWindowHint(GLFW_CONTEXT_VERSION_MAJOR, 3);
+            glfwWindowHint(GLFW_CONTEXT_VERSION_MINOR, 3);
+            glfwWindowHint(GLFW_OPENGL_PROFILE, GLFW_OPENGL_CORE_PROFILE);
+            glfwWindowHint(GLFW_OPENGL_FORWARD_COMPAT, GLFW_TRUE);
+            glfwWindowHint(GLFW_VISIBLE, visible ? GLFW_TRUE : GLFW_FALSE);
+            glfwWindowHint(GLFW_RESIZABLE, GLFW_TRUE);
+            glfwWindowHint(GLFW_SAMPLES, samples);
+            long w = glfwCreateWindow(width, height, title, NULL, NULL);
+            if (w == NULL) {
+                glfwTerminate();
+                releaseErrorCallback();
+                throw new DisplayUnavailableException("no OpenGL 3.3 core context (" + why(err) + ")");
+            }
+            glfwMakeContextCurrent(w);
+            GLCapabilities caps = GL.createCapabilities();
+            if (!caps.OpenGL33) {
+                glfwDestroyWindow(w);
+                glfwTerminate();
+                releaseErrorCallback();
+                throw new DisplayUnavailableException("the OpenGL driver does not offer version 3.3");
+            }
+            GlContext ctx = new GlContext(w, cb);
+            ctx.lastError = err.toString();
+            return ctx;
+        } catch (UnsatisfiedLinkError | IllegalStateException e) {
+            throw new DisplayUnavailableException("cannot load the GLFW/OpenGL native libraries ("
+                    + firstLine(String.valueOf(e.getMessage())) + ")");
         }
-        glfwDefaultWindowHints();
-        glfwWindowHint(GLFW_CONTEXT_VERSION_MAJOR, 3);
-        glfwWindowHint(GLFW_CONTEXT_VERSION_MINOR, 3);
-        glfwWindowHint(GLFW_OPENGL_PROFILE, GLFW_OPENGL_CORE_PROFILE);
-        glfwWindowHint(GLFW_OPENGL_FORWARD_COMPAT, GLFW_TRUE);
-        glfwWindowHint(GLFW_VISIBLE, visible ? GLFW_TRUE : GLFW_FALSE);
-        glfwWindowHint(GLFW_RESIZABLE, GLFW_TRUE);
-        glfwWindowHint(GLFW_SAMPLES, samples);
-        long w = glfwCreateWindow(width, height, title, NULL, NULL);
-        if (w == NULL) {
-            String why = err.length() > 0 ? err.toString() : "unknown reason";
-            glfwTerminate();
-            cb.free();
-            glfwSetErrorCallback(null);
-            throw new DisplayUnavailableException("no OpenGL 3.3 core context (" + firstLine(why) + ")");
+    }
+
+    private static String why(StringBuilder err) {
+        return err.length() > 0 ? firstLine(err.toString()) : "unknown reason";
+    }
+
+    private static void releaseErrorCallback() {
+        GLFWErrorCallback prev = glfwSetErrorCallback(null);
+        if (prev != null) {
+            prev.free();
         }
-        glfwMakeContextCurrent(w);
-        GLCapabilities caps = GL.createCapabilities();
-        if (!caps.OpenGL33) {
-            glfwDestroyWindow(w);
-            glfwTerminate();
-            cb.free();
-            glfwSetErrorCallback(null);
-            throw new DisplayUnavailableException("the OpenGL driver does not offer version 3.3");
-        }
-        GlContext ctx = new GlContext(w, cb);
-        ctx.lastError = err.toString();
-        return ctx;
     }
 
     private static String firstLine(String s) {
@@ -106,7 +115,6 @@ public final class GlContext implements AutoCloseable {
         GL.setCapabilities(null);
         glfwDestroyWindow(window);
         glfwTerminate();
-        glfwSetErrorCallback(null);
-        errorCallback.free();
+        releaseErrorCallback();
     }
 }

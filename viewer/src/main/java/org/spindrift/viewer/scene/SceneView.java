@@ -14,11 +14,11 @@ import org.spindrift.viewer.data.SnapshotStream;
  */
 public final class SceneView implements AutoCloseable {
     /**
-     * Sprite diameter as a fraction of the scene extent: about half the mean spacing of N points
-     * spread over the extent (0.5 / cbrt(N)), kept between 0.8 % and 3.5 % of the extent.
+     * Sprite diameter as a fraction of the scene extent: about 0.3 of the mean spacing of N points
+     * spread over the extent (0.3 / cbrt(N)), kept between 0.6 % and 3 % of the extent.
      */
     static double spriteFraction(int particles) {
-        return Math.max(0.008, Math.min(0.035, 0.5 / Math.cbrt(Math.max(1, particles))));
+        return Math.max(0.006, Math.min(0.03, 0.3 / Math.cbrt(Math.max(1, particles))));
     }
 
     private final RunInfo info;

@@ -62,8 +62,9 @@ public final class CentroidTrack {
             int cx = find(cols, X);
             int cy = find(cols, Y);
             if (ct < 0 || cx < 0 || cy < 0) {
-                throw new UserInputException(file + ": header line '" + header + "' lacks "
-                        + (ct < 0 ? "an observer-time column (t_obs_M or t_obs_min)" : cx < 0 ? "column x_uas" : "column y_uas"));
+                String missing = (ct < 0 ? " t_obs_M (or t_obs_min)" : "") + (cx < 0 ? " x_uas" : "")
+                        + (cy < 0 ? " y_uas" : "");
+                throw new UserInputException(file + ": header line '" + header + "' lacks the column(s)" + missing);
             }
             double[] t = new double[256];
             double[] x = new double[256];

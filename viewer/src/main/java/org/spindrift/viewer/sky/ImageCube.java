@@ -19,6 +19,13 @@ import org.spindrift.shared.UserInputException;
  * time column for the frames' observer times.
  */
 public final class ImageCube implements AutoCloseable {
+    /** nom-tam-fits reports damaged files on java.util.logging as well; we report them ourselves. */
+    private static final java.util.logging.Logger FITS_LOG = java.util.logging.Logger.getLogger("nom.tam");
+
+    static {
+        FITS_LOG.setLevel(java.util.logging.Level.OFF);
+    }
+
     private final Path file;
     private final Fits fits;
     private final ImageHDU hdu;
@@ -58,6 +65,9 @@ public final class ImageCube implements AutoCloseable {
         try {
             fits = new Fits(file.toFile());
             BasicHDU<?> first = fits.getHDU(0);
+            if (first == null) {
+                throw new UserInputException(file + ": not a FITS file (no primary header)");
+            }
             if (!(first instanceof ImageHDU img)) {
                 throw new UserInputException(file + ": the primary HDU is not an image");
             }
