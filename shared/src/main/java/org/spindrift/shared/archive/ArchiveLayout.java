@@ -76,14 +76,11 @@ public final class ArchiveLayout {
     /**
      * Cartesian coordinates for display and spatial indexing (DESIGN section 3):
      * x = sqrt(r^2+a^2) sin(theta) cos(phi), y = sqrt(r^2+a^2) sin(theta) sin(phi), z = r cos(theta)
-     * (Boyer & Lindquist 1967 oblate-spheroidal form).
+     * (see {@link org.spindrift.shared.Coordinates}).
      *
      * @param out receives x, y, z at out[0..2]
      */
     public static void cartesian(double r, double theta, double phi, double spin, double[] out) {
-        final double rho = Math.sqrt(r * r + spin * spin) * Math.sin(theta);
-        out[0] = rho * Math.cos(phi);
-        out[1] = rho * Math.sin(phi);
-        out[2] = r * Math.cos(theta);
+        org.spindrift.shared.Coordinates.cartesian(r, theta, phi, spin, out);
     }
 }

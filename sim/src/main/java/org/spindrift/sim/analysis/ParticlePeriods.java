@@ -1,0 +1,248 @@
+package org.spindrift.sim.analysis;
+
+import org.spindrift.sim.motion.TurningPoints;
+import org.spindrift.sim.run.ParticleHistory;
+
+/**
+ * Orbital periods of each particle from its sampled trajectory (DESIGN section 8), in
+ * coordinate time (M):
+ * <ul>
+ *   <li>radial period T_r: mean interval between successive periapsis passages, the minima of
+ *       r(t), each located by a parabola through the three samples around it;</li>
+ *   <li>vertical period T_theta: mean interval between successive maxima of theta(t), likewise;</li>
+ *   <li>azimuthal period T_phi = 2 pi / |Omega_phi| with Omega_phi the mean dphi/dt: between the
+ *       first and last periapsis when there are at least two (an orbit average), otherwise the
+ *       least-squares slope of phi(t) over the samples where the particle is alive;</li>
+ *   <li>periastron advance per radial period: Omega_phi T_r - 2 pi (radians), the extra azimuth
+ *       swept between two periapses.</li>
+ * </ul>
+ * With the integrator's turning points ({@link TurningPoints}: p_r and p_theta rising through
+ * zero, located on the dense output) the passages are exact to the integration tolerance; without
+ * them (a history built elsewhere) extrema are detected on the snapshots, so the cadence must
+ * resolve the period (at least 8 samples per period; common practice). Near-circular orbits have tiny radial excursions, where
+ * detection is ill-conditioned: an oscillation below {@link #MIN_RELATIVE_AMPLITUDE} of r gives
+ * NaN for T_r (and theta likewise, in radians).
+ */
+public final class ParticlePeriods {
+    /** Smallest relative oscillation amplitude treated as a real oscillation. */
+    public static final double MIN_RELATIVE_AMPLITUDE = 1e-7;
+
+    private final double[] periodPhi;
+    private final double[] periodR;
+    private final double[] periodTheta;
+    private final double[] advance;
+    private final double[] meanR;
+
+    private ParticlePeriods(int n) {
+        periodPhi = new double[n];
+        periodR = new double[n];
+        periodTheta = new double[n];
+        advance = new double[n];
+        meanR = new double[n];
+    }
+
+    /** Measures every particle of the history from the snapshots alone. */
+    public static ParticlePeriods of(ParticleHistory h) {
+        return of(h, null);
+    }
+
+    /**
+     * Measures every particle, with the turning points recorded during the integration when given
+     * (one per particle, or null to use the snapshots).
+     */
+    public static ParticlePeriods of(ParticleHistory h, TurningPoints[] turning) {
+        int n = h.particles();
+        int s = h.snapshots();
+        ParticlePeriods p = new ParticlePeriods(n);
+        double[] t = h.times();
+        double[] r = new double[s];
+        double[] th = new double[s];
+        double[] ph = new double[s];
+        double[] ext = new double[s];
+        double[] extPhi = new double[s];
+        for (int i = 0; i < n; i++) {
+            int m = 0;
+            for (int k = 0; k < s; k++) {
+                if (h.state(k)[i] != 0) {
+                    break;
+                }
+                r[m] = h.r(k)[i];
+                th[m] = h.theta(k)[i];
+                ph[m] = h.phi(k)[i];
+                m++;
+            }
+            p.measure(i, t, r, th, ph, m, ext, extPhi);
+            if (turning != null) {
+                p.fromTurningPoints(i, turning[i], r, th, m);
+            }
+        }
+        return p;
+    }
+
+    private void measure(int i, double[] t, double[] r, double[] th, double[] ph, int m, double[] ext,
+            double[] extPhi) {
+        periodPhi[i] = Double.NaN;
+        periodR[i] = Double.NaN;
+        periodTheta[i] = Double.NaN;
+        advance[i] = Double.NaN;
+        meanR[i] = Double.NaN;
+        if (m < 3) {
+            return;
+        }
+        double sum = 0;
+        for (int k = 0; k < m; k++) {
+            sum += r[k];
+        }
+        meanR[i] = sum / m;
+        int nr = extrema(t, r, ph, m, -1, meanR[i] * MIN_RELATIVE_AMPLITUDE, ext, extPhi);
+        double omega;
+        if (nr >= 2) {
+            periodR[i] = (ext[nr - 1] - ext[0]) / (nr - 1);
+            omega = (extPhi[nr - 1] - extPhi[0]) / (ext[nr - 1] - ext[0]);
+        } else {
+            omega = slope(t, ph, m);
+        }
+        periodPhi[i] = 2.0 * Math.PI / Math.abs(omega);
+        if (nr >= 2) {
+            advance[i] = Math.abs(omega) * periodR[i] - 2.0 * Math.PI;
+        }
+        int nt = extrema(t, th, ph, m, +1, MIN_RELATIVE_AMPLITUDE, ext, extPhi);
+        if (nt >= 2) {
+            periodTheta[i] = (ext[nt - 1] - ext[0]) / (nt - 1);
+        }
+    }
+
+    private void fromTurningPoints(int i, TurningPoints tp, double[] r, double[] th, int m) {
+        if (m < 3) {
+            return;
+        }
+        // near-circular / near-equatorial orbits: the passages are ill-conditioned (see TurningPoints)
+        if (amplitude(r, m) > meanR[i] * MIN_RELATIVE_AMPLITUDE && tp.periapsisCount() >= 2) {
+            int c = tp.periapsisCount();
+            double dt = tp.periapsisTime(c - 1) - tp.periapsisTime(0);
+            double om = (tp.periapsisPhi(c - 1) - tp.periapsisPhi(0)) / dt;
+            periodR[i] = dt / (c - 1);
+            periodPhi[i] = 2.0 * Math.PI / Math.abs(om);
+            advance[i] = Math.abs(om) * periodR[i] - 2.0 * Math.PI;
+        } else {
+            periodR[i] = Double.NaN;
+            advance[i] = Double.NaN;
+        }
+        if (amplitude(th, m) > MIN_RELATIVE_AMPLITUDE && tp.polarCount() >= 2) {
+            int c = tp.polarCount();
+            periodTheta[i] = (tp.polarTime(c - 1) - tp.polarTime(0)) / (c - 1);
+        } else {
+            periodTheta[i] = Double.NaN;
+        }
+    }
+
+    private static double amplitude(double[] y, int m) {
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (int k = 0; k < m; k++) {
+            lo = Math.min(lo, y[k]);
+            hi = Math.max(hi, y[k]);
+        }
+        return hi - lo;
+    }
+
+    /**
+     * Interior extrema (sign -1: minima, +1: maxima) of y(t), refined by a parabola through the
+     * three samples (vertex of the interpolating quadratic; unequal spacing allowed).
+     *
+     * @return number found; times into et, interpolated phi into ephi
+     */
+    static int extrema(double[] t, double[] y, double[] ph, int m, int sign, double minAmplitude, double[] et,
+            double[] ephi) {
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (int k = 0; k < m; k++) {
+            lo = Math.min(lo, y[k]);
+            hi = Math.max(hi, y[k]);
+        }
+        if (!(hi - lo > minAmplitude)) {
+            return 0;
+        }
+        int c = 0;
+        for (int k = 1; k + 1 < m; k++) {
+            double a = sign * y[k - 1];
+            double b = sign * y[k];
+            double d = sign * y[k + 1];
+            if (b > a && b >= d) {
+                // vertex of the parabola through (t0,a), (t1,b), (t2,d)
+                double t0 = t[k - 1];
+                double t1 = t[k];
+                double t2 = t[k + 1];
+                double num = (t1 - t0) * (t1 - t0) * (b - d) - (t1 - t2) * (t1 - t2) * (b - a);
+                double den = (t1 - t0) * (b - d) - (t1 - t2) * (b - a);
+                double tv = den != 0 ? t1 - 0.5 * num / den : t1;
+                tv = Math.max(t0, Math.min(t2, tv));
+                et[c] = tv;
+                ephi[c] = tv <= t1 ? ph[k - 1] + (ph[k] - ph[k - 1]) * (tv - t0) / (t1 - t0)
+                        : ph[k] + (ph[k + 1] - ph[k]) * (tv - t1) / (t2 - t1);
+                c++;
+            }
+        }
+        return c;
+    }
+
+    /** Least-squares slope of y(t). */
+    static double slope(double[] t, double[] y, int m) {
+        double mt = 0;
+        double my = 0;
+        for (int k = 0; k < m; k++) {
+            mt += t[k];
+            my += y[k];
+        }
+        mt /= m;
+        my /= m;
+        double sxy = 0;
+        double sxx = 0;
+        for (int k = 0; k < m; k++) {
+            sxy += (t[k] - mt) * (y[k] - my);
+            sxx += (t[k] - mt) * (t[k] - mt);
+        }
+        return sxy / sxx;
+    }
+
+    /** @return azimuthal period of particle i, M (NaN if not measurable) */
+    public double periodPhi(int i) {
+        return periodPhi[i];
+    }
+
+    /** @return radial period, M */
+    public double periodR(int i) {
+        return periodR[i];
+    }
+
+    /** @return vertical period, M */
+    public double periodTheta(int i) {
+        return periodTheta[i];
+    }
+
+    /** @return periastron advance per radial period, radians */
+    public double advance(int i) {
+        return advance[i];
+    }
+
+    /** @return mean r while alive, M */
+    public double meanR(int i) {
+        return meanR[i];
+    }
+
+    double[] periodPhi() {
+        return periodPhi;
+    }
+
+    double[] periodR() {
+        return periodR;
+    }
+
+    double[] periodTheta() {
+        return periodTheta;
+    }
+
+    double[] advance() {
+        return advance;
+    }
+}

@@ -1,0 +1,388 @@
+package org.spindrift.sim.analysis;
+
+import java.awt.BasicStroke;
+import java.awt.Color;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.file.Files;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.knowm.xchart.BitmapEncoder;
+import org.knowm.xchart.XYChart;
+import org.knowm.xchart.XYChartBuilder;
+import org.knowm.xchart.XYSeries;
+import org.knowm.xchart.internal.chartpart.Chart;
+import org.knowm.xchart.style.Styler;
+import org.knowm.xchart.style.markers.SeriesMarkers;
+import org.spindrift.shared.Coordinates;
+import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.sim.run.ParticleHistory;
+import org.spindrift.sim.run.RunContext;
+import org.spindrift.sim.run.RunStage;
+import org.spindrift.sim.run.SnapshotStage;
+
+/**
+ * PNG plots of a run (XChart), in {@code plots/}:
+ * <ul>
+ *   <li>{@code positions.png}: kept particles in the orbital plane of the first source at four
+ *       times, coloured by r, with the capture radius, the ISCO and the Omega-maximum radius;</li>
+ *   <li>{@code shape.png}: aspect ratio and azimuthal extent of every source against time;</li>
+ *   <li>{@code lag.png}: lag profiles dphi(r) of every source at several times, Omega-maximum and
+ *       ISCO radii marked;</li>
+ *   <li>{@code periods.png}: histograms of the azimuthal and radial periods per source, with the
+ *       metric's prediction at the reference radius.</li>
+ * </ul>
+ */
+public final class PlotStage implements RunStage {
+    /** Colours from dark blue through teal and green to yellow (perceptually ordered; after matplotlib's viridis). */
+    static final Color[] RAMP = {new Color(68, 1, 84), new Color(65, 68, 135), new Color(42, 120, 142),
+        new Color(34, 168, 132), new Color(122, 209, 81), new Color(253, 231, 37)};
+    /** Distinct colours for lines (times, sources). */
+    static final Color[] LINES = {new Color(31, 119, 180), new Color(255, 127, 14), new Color(44, 160, 44),
+        new Color(214, 39, 40), new Color(148, 103, 189), new Color(140, 86, 75), new Color(23, 190, 207)};
+
+    @Override public String name() {
+        return "plots";
+    }
+
+    @Override @SuppressWarnings("unchecked") public void run(RunContext ctx) throws IOException {
+        List<ShearShape> shapes = (List<ShearShape>) ctx.products().get(AnalysisStage.SHAPES);
+        ParticlePeriods periods = ctx.product(AnalysisStage.PERIODS, ParticlePeriods.class);
+        if (shapes == null || periods == null) {
+            throw new IllegalStateException("the plots need the analysis stage first");
+        }
+        save(ctx, "plots/positions.png", positions(ctx), 2, 2);
+        save(ctx, "plots/shape.png", List.of(shape(ctx, shapes)), 1, 1);
+        save(ctx, "plots/lag.png", lag(ctx, shapes), 1, ctx.scenario().sources().size());
+        save(ctx, "plots/periods.png", periods(ctx, periods), 1, 2);
+    }
+
+    private static void save(RunContext ctx, String name, List<? extends Chart<?, ?>> charts, int rows, int cols)
+            throws IOException {
+        ctx.archive().write(name, tmp -> {
+            try (OutputStream out = Files.newOutputStream(tmp)) {
+                if (charts.size() == 1) {
+                    BitmapEncoder.saveBitmap(charts.get(0), out, BitmapEncoder.BitmapFormat.PNG);
+                } else {
+                    BitmapEncoder.saveBitmap(new ArrayList<>(charts), rows, cols, out, BitmapEncoder.BitmapFormat.PNG);
+                }
+            }
+        });
+    }
+
+    private static XYChart chart(int w, int h, String title, String x, String y) {
+        XYChart c = new XYChartBuilder().width(w).height(h).title(title).xAxisTitle(x).yAxisTitle(y)
+                .theme(Styler.ChartTheme.Matlab).build();
+        c.getStyler().setLegendPosition(Styler.LegendPosition.InsideNE);
+        c.getStyler().setChartBackgroundColor(Color.WHITE);
+        c.getStyler().setPlotGridLinesVisible(true);
+        c.getStyler().setToolTipsEnabled(false);
+        c.getStyler().setChartTitleFont(new java.awt.Font(java.awt.Font.SANS_SERIF, java.awt.Font.BOLD, 14));
+        c.getStyler().setLegendFont(new java.awt.Font(java.awt.Font.SANS_SERIF, java.awt.Font.PLAIN, 11));
+        c.getStyler().setAxisTitleFont(new java.awt.Font(java.awt.Font.SANS_SERIF, java.awt.Font.PLAIN, 12));
+        return c;
+    }
+
+    private static String fmt(double v) {
+        return String.format(Locale.ROOT, Math.abs(v) >= 100 ? "%.0f" : Math.abs(v) >= 10 ? "%.1f" : "%.2f", v);
+    }
+
+    private static void circle(XYChart c, String name, double radius, Color color, boolean dashed) {
+        if (!(radius > 0) || !Double.isFinite(radius)) {
+            return;
+        }
+        int m = 181;
+        double[] x = new double[m];
+        double[] y = new double[m];
+        for (int j = 0; j < m; j++) {
+            double a = 2 * Math.PI * j / (m - 1);
+            x[j] = radius * Math.cos(a);
+            y[j] = radius * Math.sin(a);
+        }
+        XYSeries s = c.addSeries(name, x, y);
+        s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        s.setMarker(SeriesMarkers.NONE);
+        s.setLineColor(color);
+        s.setLineStyle(dashed ? new BasicStroke(1.5f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
+                new float[] {6f, 4f}, 0f) : new BasicStroke(1.5f));
+    }
+
+    private static List<XYChart> positions(RunContext ctx) {
+        ParticleHistory h = ctx.history();
+        Scenario sc = ctx.scenario();
+        int[] idx = SnapshotStage.keptIndices(sc, ctx.placed().firstIndex());
+        int s = h.snapshots();
+        // orbital plane of the first source (from its centre-of-mass track)
+        int n0 = sc.sources().get(0).particles();
+        double[][] com = new double[s][3];
+        double[] xyz = new double[3];
+        for (int q = 0; q < s; q++) {
+            int m = 0;
+            for (int i = 0; i < n0; i++) {
+                if (h.state(q)[i] == 0) {
+                    Coordinates.cartesian(h.r(q)[i], h.theta(q)[i], h.phi(q)[i], h.spin(), xyz);
+                    for (int c = 0; c < 3; c++) {
+                        com[q][c] += xyz[c];
+                    }
+                    m++;
+                }
+            }
+            for (int c = 0; c < 3; c++) {
+                com[q][c] = m > 0 ? com[q][c] / m : Double.NaN;
+            }
+        }
+        double[] nrm = ShearAnalysis.planeNormal(com);
+        double[] e1 = new double[3];
+        double[] e2 = new double[3];
+        if (Math.abs(nrm[2]) > 0.999) {
+            // equatorial: keep the x, y axes of DESIGN section 3
+            e1 = new double[] {1, 0, 0};
+            e2 = new double[] {0, Math.signum(nrm[2]), 0};
+        } else {
+            ShearAnalysis.basis(nrm, e1, e2);
+        }
+        double rMin = Double.POSITIVE_INFINITY;
+        double rMax = 0;
+        double extent = 0;
+        for (int q = 0; q < s; q++) {
+            for (int i : idx) {
+                if (h.state(q)[i] == 0) {
+                    rMin = Math.min(rMin, h.r(q)[i]);
+                    rMax = Math.max(rMax, h.r(q)[i]);
+                    extent = Math.max(extent, h.r(q)[i]);
+                }
+            }
+        }
+        extent = Math.max(extent * 1.08, 1.3 * ctx.landmark("isco_prograde"));
+        if (!Double.isFinite(extent)) {
+            extent = 1.1 * rMax;
+        }
+        List<XYChart> charts = new ArrayList<>();
+        int[] at = {0, (s - 1) / 3, 2 * (s - 1) / 3, s - 1};
+        double spm = ctx.secondsPerM();
+        for (int q : at) {
+            XYChart c = chart(560, 560, String.format(Locale.ROOT, "t = %.1f M (%.1f min)", h.time(q), h.time(q) * spm / 60),
+                    "x in orbital plane (M)", "y in orbital plane (M)");
+            c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideS);
+            c.getStyler().setLegendLayout(Styler.LegendLayout.Horizontal);
+            c.getStyler().setMarkerSize(3);
+            c.getStyler().setXAxisMin(-extent);
+            c.getStyler().setXAxisMax(extent);
+            c.getStyler().setYAxisMin(-extent);
+            c.getStyler().setYAxisMax(extent);
+            int nb = RAMP.length;
+            List<List<Double>> xs = new ArrayList<>();
+            List<List<Double>> ys = new ArrayList<>();
+            for (int b = 0; b < nb; b++) {
+                xs.add(new ArrayList<>());
+                ys.add(new ArrayList<>());
+            }
+            double span = Math.max(1e-9, rMax - rMin);
+            for (int i : idx) {
+                if (h.state(q)[i] != 0) {
+                    continue;
+                }
+                Coordinates.cartesian(h.r(q)[i], h.theta(q)[i], h.phi(q)[i], h.spin(), xyz);
+                int b = (int) Math.min(nb - 1, Math.floor((h.r(q)[i] - rMin) / span * nb));
+                xs.get(b).add(ShearAnalysis.dot(xyz, e1));
+                ys.get(b).add(ShearAnalysis.dot(xyz, e2));
+            }
+            for (int b = 0; b < nb; b++) {
+                String label = "r " + fmt(rMin + span * b / nb) + "-" + fmt(rMin + span * (b + 1) / nb);
+                if (xs.get(b).isEmpty()) {
+                    xs.get(b).add(Double.NaN);
+                    ys.get(b).add(Double.NaN);
+                }
+                XYSeries ser = c.addSeries(label, xs.get(b), ys.get(b));
+                ser.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+                ser.setMarker(SeriesMarkers.CIRCLE);
+                ser.setMarkerColor(RAMP[b]);
+            }
+            circle(c, "capture " + fmt(ctx.landmarks().getOrDefault("capture_radius", Double.NaN)), captureRadius(ctx),
+                    Color.BLACK, false);
+            circle(c, "ISCO " + fmt(ctx.landmark("isco_prograde")), ctx.landmark("isco_prograde"), Color.GRAY, true);
+            circle(c, "Omega max " + fmt(ctx.landmark("omega_max_radius")), ctx.landmark("omega_max_radius"),
+                    new Color(214, 39, 40), true);
+            charts.add(c);
+        }
+        return charts;
+    }
+
+    private static double captureRadius(RunContext ctx) {
+        double h = ctx.landmark("horizon_outer");
+        return Double.isFinite(h) ? h : ctx.landmark("surface_radius");
+    }
+
+    private static XYChart shape(RunContext ctx, List<ShearShape> shapes) {
+        ParticleHistory h = ctx.history();
+        int s = h.snapshots();
+        double spm = ctx.secondsPerM();
+        XYChart c = chart(900, 520, "Shape of each source against time", "time (min)", "aspect ratio (major / minor axis)");
+        c.setYAxisGroupTitle(1, "azimuthal extent, 5-95 % (deg)");
+        c.getStyler().setYAxisGroupPosition(1, Styler.YAxisPosition.Right);
+        c.getStyler().setLegendPosition(Styler.LegendPosition.InsideNW);
+        int k = ctx.scenario().sources().size();
+        for (int src = 0; src < k; src++) {
+            double[] t = new double[s];
+            double[] ar = new double[s];
+            double[] ext = new double[s];
+            for (int q = 0; q < s; q++) {
+                ShearShape sh = shapes.get(src * s + q);
+                t[q] = sh.time() * spm / 60;
+                ar[q] = Double.isFinite(sh.aspectRatio()) ? sh.aspectRatio() : Double.NaN;
+                ext[q] = sh.azimuthalExtentDeg();
+            }
+            String name = ctx.scenario().sources().get(src).name();
+            Color col = LINES[src % LINES.length];
+            XYSeries a = c.addSeries(name + ": aspect ratio (left)", t, ar);
+            a.setMarker(SeriesMarkers.NONE);
+            a.setLineColor(col);
+            a.setLineStyle(new BasicStroke(2f));
+            XYSeries e = c.addSeries(name + ": azimuthal extent (right)", t, ext);
+            e.setMarker(SeriesMarkers.NONE);
+            e.setLineColor(col);
+            e.setLineStyle(new BasicStroke(2f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f, new float[] {7f, 4f}, 0f));
+            e.setYAxisGroup(1);
+        }
+        return c;
+    }
+
+    private static List<XYChart> lag(RunContext ctx, List<ShearShape> shapes) {
+        ParticleHistory h = ctx.history();
+        int s = h.snapshots();
+        double spm = ctx.secondsPerM();
+        List<XYChart> out = new ArrayList<>();
+        int k = ctx.scenario().sources().size();
+        double omr = ctx.landmark("omega_max_radius");
+        double isco = ctx.landmark("isco_prograde");
+        for (int src = 0; src < k; src++) {
+            String name = ctx.scenario().sources().get(src).name();
+            XYChart c = chart(k == 1 ? 900 : 620, 560, "Azimuthal lag profile, " + name,
+                    "r (M)", "lag = phi_centre - phi_mean(r) (deg)");
+            c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideE);
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = Double.NEGATIVE_INFINITY;
+            double rlo = Double.POSITIVE_INFINITY;
+            double rhi = Double.NEGATIVE_INFINITY;
+            int line = 0;
+            for (int q : AnalysisStage.profileSnapshots(s)) {
+                LagProfile lp = shapes.get(src * s + q).lag();
+                if (lp.r().length == 0) {
+                    continue;
+                }
+                double[] deg = new double[lp.lag().length];
+                for (int b = 0; b < deg.length; b++) {
+                    deg[b] = Math.toDegrees(lp.lag()[b]);
+                    lo = Math.min(lo, deg[b]);
+                    hi = Math.max(hi, deg[b]);
+                    rlo = Math.min(rlo, lp.r()[b]);
+                    rhi = Math.max(rhi, lp.r()[b]);
+                }
+                XYSeries ser = c.addSeries(String.format(Locale.ROOT, "t = %.1f min", h.time(q) * spm / 60), lp.r(), deg);
+                ser.setMarker(SeriesMarkers.CIRCLE);
+                ser.setMarkerColor(LINES[line % LINES.length]);
+                ser.setLineColor(LINES[line % LINES.length]);
+                line++;
+            }
+            if (line == 0) {
+                c.addSeries("too few particles for a profile", new double[] {0}, new double[] {0});
+            } else {
+                double pad = 0.05 * Math.max(1e-6, hi - lo);
+                if (omr > rlo - 0.5 * (rhi - rlo) && omr < rhi + 0.5 * (rhi - rlo)) {
+                    vline(c, "Omega max, r = " + fmt(omr), omr, lo - pad, hi + pad, new Color(214, 39, 40));
+                }
+                if (isco > rlo - 0.5 * (rhi - rlo) && isco < rhi + 0.5 * (rhi - rlo)) {
+                    vline(c, "ISCO, r = " + fmt(isco), isco, lo - pad, hi + pad, Color.GRAY);
+                }
+            }
+            out.add(c);
+        }
+        return out;
+    }
+
+    private static void vline(XYChart c, String name, double x, double y0, double y1, Color col) {
+        XYSeries s = c.addSeries(name, new double[] {x, x}, new double[] {y0, y1});
+        s.setMarker(SeriesMarkers.NONE);
+        s.setLineColor(col);
+        s.setLineStyle(new BasicStroke(2f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f, new float[] {6f, 4f}, 0f));
+    }
+
+    private static List<XYChart> periods(RunContext ctx, ParticlePeriods p) {
+        List<XYChart> out = new ArrayList<>();
+        out.add(histogram(ctx, p.periodPhi(), "Azimuthal periods", "azimuthal period (min)", 0));
+        out.add(histogram(ctx, p.periodR(), "Radial periods", "radial period (min)", 1));
+        return out;
+    }
+
+    private static XYChart histogram(RunContext ctx, double[] v, String title, String xTitle, int which) {
+        ParticleHistory h = ctx.history();
+        Scenario sc = ctx.scenario();
+        double spm = ctx.secondsPerM();
+        XYChart c = chart(620, 480, title, xTitle, "particles");
+        c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideS);
+        c.getStyler().setLegendLayout(Styler.LegendLayout.Vertical);
+        int[] first = ctx.placed().firstIndex();
+        boolean any = false;
+        for (int k = 0; k < sc.sources().size(); k++) {
+            int from = first[k];
+            int n = sc.sources().get(k).particles();
+            double[] vals = Stats.finiteSorted(java.util.Arrays.copyOfRange(v, from, from + n), n);
+            String name = sc.sources().get(k).name();
+            Color col = LINES[k % LINES.length];
+            if (vals.length == 0) {
+                continue;
+            }
+            any = true;
+            double lo = Stats.quantile(vals, 0.01) * spm / 60;
+            double hi = Stats.quantile(vals, 0.99) * spm / 60;
+            if (!(hi > lo)) {
+                hi = lo * 1.001 + 1e-9;
+                lo = lo * 0.999;
+            }
+            int nb = Math.max(5, Math.min(40, (int) Math.sqrt(vals.length)));
+            int[] cnt = new int[nb];
+            for (double x : vals) {
+                double m = x * spm / 60;
+                int b = (int) Math.floor((m - lo) / (hi - lo) * nb);
+                if (b >= 0 && b < nb) {
+                    cnt[b]++;
+                } else if (m == hi) {
+                    cnt[nb - 1]++;
+                }
+            }
+            double[] xs = new double[2 * nb + 2];
+            double[] ys = new double[2 * nb + 2];
+            for (int b = 0; b < nb; b++) {
+                double x0 = lo + (hi - lo) * b / nb;
+                double x1 = lo + (hi - lo) * (b + 1) / nb;
+                xs[2 * b + 1] = x0;
+                ys[2 * b + 1] = cnt[b];
+                xs[2 * b + 2] = x1;
+                ys[2 * b + 2] = cnt[b];
+            }
+            xs[0] = lo;
+            ys[0] = 0;
+            xs[2 * nb + 1] = hi;
+            ys[2 * nb + 1] = 0;
+            int top = 0;
+            for (int x : cnt) {
+                top = Math.max(top, x);
+            }
+            XYSeries ser = c.addSeries(name + String.format(Locale.ROOT, " (%d measured)", vals.length), xs, ys);
+            ser.setMarker(SeriesMarkers.NONE);
+            ser.setLineColor(col);
+            ser.setLineStyle(new BasicStroke(2f));
+            org.spindrift.sim.scenario.SourceSetup.Prediction pr = ctx.placed().centres()[k].prediction();
+            double pred = which == 0 ? pr.azimuthal() : pr.radial();
+            if (Double.isFinite(pred)) {
+                vline(c, name + ": metric prediction " + fmt(pred * spm / 60) + " min", pred * spm / 60, 0, top * 1.05,
+                        col.darker());
+            }
+        }
+        if (!any) {
+            c.addSeries("no particle completed two periapsis passages", new double[] {0}, new double[] {0});
+        }
+        return c;
+    }
+}

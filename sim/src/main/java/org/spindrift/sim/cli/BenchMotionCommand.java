@@ -1,0 +1,218 @@
+package org.spindrift.sim.cli;
+
+import java.util.Locale;
+import java.util.SplittableRandom;
+import java.util.concurrent.Callable;
+import org.hipparchus.ode.ODEState;
+import org.hipparchus.ode.OrdinaryDifferentialEquation;
+import org.hipparchus.ode.nonstiff.DormandPrince853Integrator;
+import org.hipparchus.ode.sampling.ODEStateInterpolator;
+import org.hipparchus.ode.sampling.ODEStepHandler;
+import org.hipparchus.util.FastMath;
+import org.spindrift.shared.UserInputException;
+import org.spindrift.sim.motion.BatchIntegrator;
+import org.spindrift.sim.motion.GeodesicEquations;
+import org.spindrift.sim.motion.InitialState;
+import org.spindrift.sim.motion.MotionDiagnostics;
+import org.spindrift.sim.motion.OrbitSetup;
+import org.spindrift.sim.motion.ParticleBatch;
+import org.spindrift.sim.motion.ZamoFrame;
+import org.spindrift.sim.spacetime.CircularOrbits;
+import org.spindrift.sim.spacetime.MassFunctionSpacetime;
+import org.spindrift.sim.spacetime.MassFunctions;
+import org.spindrift.sim.spacetime.Spacetime;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+
+/**
+ * {@code spindrift bench motion}: a Gaussian ball of test masses around a prograde circular
+ * orbit in Kerr, integrated with {@link BatchIntegrator} on 1 and 2 threads, and a subset of
+ * the same particles with Hipparchus' DormandPrince853Integrator at the same tolerance, each
+ * particle separately with the same snapshot times (dense output through a step handler).
+ */
+@Command(name = "motion", mixinStandardHelpOptions = true,
+        description = {"Time the batched motion integrator: a ball (sigma 0.5 M by default) around the prograde circular"
+                + " orbit r = 8 M in Kerr a = 0.9 for 10 orbits, snapshots every tenth of an orbit; 1 and 2"
+                + " threads; and the same per-particle work with Hipparchus' DormandPrince853Integrator."})
+public final class BenchMotionCommand implements Callable<Integer> {
+    @Option(names = "--particles", paramLabel = "N", defaultValue = "10000",
+            description = "Particles in the ball, 10..10000000 (default: ${DEFAULT-VALUE}).")
+    int particles;
+
+    @Option(names = "--reference-particles", paramLabel = "N", defaultValue = "500",
+            description = "Particles integrated with Hipparchus, 1..particles (default: ${DEFAULT-VALUE}).")
+    int referenceParticles;
+
+    @Option(names = "--orbits", paramLabel = "N", defaultValue = "10",
+            description = "Orbits of the circular orbit at the centre, 0.1..1000 (default: ${DEFAULT-VALUE}).")
+    double orbits;
+
+    @Option(names = "--tolerance", paramLabel = "TOL", defaultValue = "1e-11",
+            description = "Absolute and relative tolerance, 1e-15..1e-3 (default: ${DEFAULT-VALUE}).")
+    double tolerance;
+
+    @Option(names = "--sigma", paramLabel = "M", defaultValue = "0.5",
+            description = "Ball radius (Gaussian sigma) in M, 0..2 (default: ${DEFAULT-VALUE}).")
+    double sigma;
+
+    private static final double A = 0.9;
+    private static final double R0 = 8.0;
+
+    @Override public Integer call() {
+        if (particles < 10 || particles > 10_000_000) {
+            throw new UserInputException("--particles must be in 10..10000000, got " + particles);
+        }
+        if (referenceParticles < 1 || referenceParticles > particles) {
+            throw new UserInputException("--reference-particles must be in 1..--particles, got " + referenceParticles);
+        }
+        if (!(orbits >= 0.1 && orbits <= 1000)) {
+            throw new UserInputException("--orbits must be in 0.1..1000, got " + orbits);
+        }
+        if (!(tolerance >= 1e-15 && tolerance <= 1e-3)) {
+            throw new UserInputException("--tolerance must be in 1e-15..1e-3, got " + tolerance);
+        }
+        if (!(sigma >= 0 && sigma <= 2)) {
+            throw new UserInputException("--sigma must be in 0..2, got " + sigma);
+        }
+        Spacetime st = new MassFunctionSpacetime("kerr", A, MassFunctions.constant());
+        double omega = CircularOrbits.omega(st, R0, true);
+        double period = 2 * FastMath.PI / omega;
+        double tEnd = orbits * period;
+        int nSnap = (int) FastMath.max(1, FastMath.round(10 * orbits));
+        double[] times = new double[nSnap];
+        for (int k = 0; k < nSnap; k++) {
+            times[k] = tEnd * (k + 1) / nSnap;
+        }
+        ParticleBatch initial = ball(st, particles, sigma, 20261201L);
+        BatchIntegrator.Config cfg = BatchIntegrator.Config.of(OrbitSetup.captureRadius(st))
+                .withTolerance(tolerance, tolerance);
+        System.out.printf(Locale.ROOT, "bench motion: %d particles, sigma %.2f M, circular orbit r = %.1f M, a = %.2f,"
+                + " %.3g orbits (T = %.2f M), %d snapshots, tolerance %.1e, %d processors%n", particles, sigma, R0, A,
+                orbits, period, nSnap, tolerance, Runtime.getRuntime().availableProcessors());
+
+        // warm-up of both code paths (JIT), not timed
+        warmUp(st, cfg, initial, times, period);
+
+        ParticleBatch b1 = initial.copy();
+        MotionDiagnostics d1 = new MotionDiagnostics(st, b1);
+        long t0 = System.nanoTime();
+        BatchIntegrator.Result r1 = new BatchIntegrator(st, cfg.withThreads(1)).integrate(b1, times, d1);
+        double s1 = (System.nanoTime() - t0) * 1e-9;
+
+        ParticleBatch b2 = initial.copy();
+        t0 = System.nanoTime();
+        new BatchIntegrator(st, cfg.withThreads(2)).integrate(b2, times, null);
+        double s2 = (System.nanoTime() - t0) * 1e-9;
+        boolean identical = b1.bitwiseEquals(b2);
+
+        double[] hip = hipparchus(st, initial, referenceParticles, times);
+        double sh = hip[0];
+        double perParticleOurs = s1 / particles;
+        double perParticleHip = sh / referenceParticles;
+
+        int[] ends = r1.endStates();
+        System.out.printf(Locale.ROOT, "end states: alive %d, captured %d, escaped %d, failed %d%n", ends[0], ends[1],
+                ends[2], ends[3]);
+        System.out.printf(Locale.ROOT, "accuracy: max |H + 1/2| = %.3e (median %.3e), max |Q - Q0| = %.3e; target"
+                + " max |H + 1/2| < 1e-10: %s%n", d1.massShellMax(), d1.massShellMedian(), d1.carterDriftMax(),
+                d1.massShellMax() < 1e-10 ? "met" : "NOT met");
+        System.out.printf(Locale.ROOT, "work: %d accepted steps, %d rejected, %d evaluations (%.1f steps per particle"
+                + " per orbit)%n", r1.acceptedSteps(), r1.rejectedSteps(), r1.evaluations(),
+                r1.acceptedSteps() / (double) particles / orbits);
+        System.out.printf(Locale.ROOT, "1 thread : %.3f s, %.3e particle-steps/s, %.3e particle-orbits/s%n", s1,
+                r1.acceptedSteps() / s1, particles * orbits / s1);
+        System.out.printf(Locale.ROOT, "2 threads: %.3f s, %.3e particle-steps/s, %.3e particle-orbits/s;"
+                + " speed-up 1 -> 2 threads %.2fx (target >= 1.7x); results bitwise identical: %s%n", s2,
+                r1.acceptedSteps() / s2, particles * orbits / s2, s1 / s2, identical);
+        System.out.printf(Locale.ROOT, "state: %d bytes per particle in the batch + %d bytes snapshot buffer = %d"
+                + " (target < 200)%n", ParticleBatch.BYTES_PER_PARTICLE, 5 * Double.BYTES + 1,
+                ParticleBatch.BYTES_PER_PARTICLE + 5 * Double.BYTES + 1);
+        System.out.printf(Locale.ROOT, "Hipparchus DormandPrince853Integrator, %d particles one by one, same"
+                + " tolerance and snapshots: %.3f s, %.0f evaluations per particle (ours %.0f), max |H + 1/2| ="
+                + " %.3e%n", referenceParticles, sh, hip[1] / referenceParticles,
+                r1.evaluations() / (double) particles, hip[2]);
+        System.out.printf(Locale.ROOT, "per particle: ours %.3e s, Hipparchus %.3e s: ratio %.2fx (target >= 3x)%n",
+                perParticleOurs, perParticleHip, perParticleHip / perParticleOurs);
+        return 0;
+    }
+
+    private void warmUp(Spacetime st, BatchIntegrator.Config cfg, ParticleBatch initial, double[] times,
+                        double period) {
+        int n = FastMath.min(200, initial.size());
+        ParticleBatch w = new ParticleBatch(n);
+        for (int i = 0; i < n; i++) {
+            w.set(i, 0.0, initial.r(i), initial.theta(i), initial.phi(i), initial.pT(i), initial.pR(i),
+                    initial.pTheta(i), initial.pPhi(i));
+        }
+        double[] tw = {period, 2 * period};
+        new BatchIntegrator(st, cfg.withThreads(1)).integrate(w, tw, null);
+        hipparchus(st, w, FastMath.min(50, n), tw);
+    }
+
+    /** @return {seconds, evaluations, max |H + 1/2|} for the first n particles with Hipparchus */
+    private double[] hipparchus(Spacetime st, ParticleBatch b, int n, double[] times) {
+        final GeodesicEquations eq = new GeodesicEquations(st);
+        final long[] evals = {0};
+        final double[] worst = {0};
+        long t0 = System.nanoTime();
+        for (int i = 0; i < n; i++) {
+            final double pt = b.pT(i);
+            final double pphi = b.pPhi(i);
+            OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
+                @Override public int getDimension() {
+                    return 5;
+                }
+
+                @Override public double[] computeDerivatives(double t, double[] y) {
+                    double[] dy = new double[5];
+                    eq.coordinateTime(pt, pphi, y, 0, dy, 0);
+                    evals[0]++;
+                    return dy;
+                }
+            };
+            DormandPrince853Integrator integ = new DormandPrince853Integrator(1e-10, 1e4, tolerance, tolerance);
+            integ.addStepHandler(new ODEStepHandler() {
+                private int next;
+
+                @Override public void handleStep(ODEStateInterpolator in) {
+                    while (next < times.length && times[next] <= in.getCurrentState().getTime()) {
+                        double[] y = in.getInterpolatedState(times[next]).getPrimaryState();
+                        double h = eq.hamiltonian(y[0], y[1], pt, pphi, y[3], y[4]);
+                        worst[0] = FastMath.max(worst[0], FastMath.abs(h + 0.5));
+                        next++;
+                    }
+                }
+            });
+            integ.integrate(ode, new ODEState(0, new double[] {b.r(i), b.theta(i), b.phi(i), b.pR(i), b.pTheta(i)}),
+                    times[times.length - 1]);
+        }
+        return new double[] {(System.nanoTime() - t0) * 1e-9, evals[0], worst[0]};
+    }
+
+    /** A Gaussian ball around (R0, equator, phi = 0), every member with the centre's ZAMO velocity. */
+    static ParticleBatch ball(Spacetime st, int n, double sigma, long seed) {
+        InitialState c = OrbitSetup.circular(st, R0, true, 0.0);
+        ZamoFrame z = new ZamoFrame(st);
+        double[] v = new double[3];
+        z.localVelocity(c.r(), c.theta(), c.pT(), c.pR(), c.pTheta(), c.pPhi(), v);
+        SplittableRandom rnd = new SplittableRandom(seed);
+        ParticleBatch b = new ParticleBatch(n);
+        double[] p = new double[4];
+        for (int i = 0; i < n; i++) {
+            double x = R0 + sigma * gauss(rnd);
+            double y = sigma * gauss(rnd);
+            double zz = sigma * gauss(rnd);
+            double r = FastMath.sqrt(x * x + y * y + zz * zz);
+            double th = FastMath.acos(zz / r);
+            double ph = FastMath.atan2(y, x);
+            z.momentum(r, th, 0, 0, v[2], p);
+            b.set(i, 0.0, r, th, ph, p[0], p[1], p[2], p[3]);
+        }
+        return b;
+    }
+
+    /** Box-Muller normal deviate (Box &amp; Muller 1958, Ann. Math. Stat. 29, 610). */
+    private static double gauss(SplittableRandom rnd) {
+        return FastMath.sqrt(-2 * FastMath.log(1 - rnd.nextDouble())) * FastMath.cos(2 * FastMath.PI * rnd.nextDouble());
+    }
+}

@@ -1,0 +1,125 @@
+package org.spindrift.sim.cli;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.hipparchus.util.FastMath;
+import org.spindrift.shared.UserInputException;
+import org.spindrift.sim.analysis.OrbitPlot;
+import org.spindrift.sim.motion.BatchIntegrator;
+import org.spindrift.sim.motion.EndState;
+import org.spindrift.sim.motion.OrbitElements;
+import org.spindrift.sim.motion.OrbitMeasurement;
+import org.spindrift.sim.motion.OrbitSetup;
+import org.spindrift.sim.motion.Predictions;
+import org.spindrift.sim.spacetime.Spacetime;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+
+/** {@code spindrift orbit}: one bound orbit from elements, measured periods and periastron advance. */
+@Command(name = "orbit", mixinStandardHelpOptions = true,
+        description = {
+            "Integrate one bound test-mass orbit given by its elements and measure, from the trajectory, its"
+                    + " radial, azimuthal and polar periods and its periastron advance; compare with the"
+                    + " post-Newtonian predictions.",
+            "The orbit starts at periapsis r_p = p/(1+e) on the equator; the apoapsis is r_a = p/(1-e).",
+            "The inclination iota is defined by cos(iota) = L / sqrt(L^2 + Q), with L the axial angular"
+                    + " momentum and Q the Carter constant; iota > 90 deg is retrograde.",
+            "Times are coordinate time in M, angles in radians."})
+public final class OrbitCommand implements Callable<Integer> {
+    @Mixin
+    SpacetimeOptions spacetime;
+
+    @Option(names = "--p", paramLabel = "P", required = true, description = "Semi-latus rectum p in M.")
+    double p;
+
+    @Option(names = "--e", paramLabel = "E", required = true, description = "Eccentricity e, 0 <= e < 1.")
+    double e;
+
+    @Option(names = "--inclination-deg", paramLabel = "DEG", defaultValue = "0",
+            description = "Inclination iota in degrees, 0..180, cos(iota) = L / sqrt(L^2 + Q) (default: ${DEFAULT-VALUE}).")
+    double inclinationDeg;
+
+    @Option(names = "--retrograde", description = "Retrograde orbit: use 180 deg - iota.")
+    boolean retrograde;
+
+    @Option(names = "--orbits", paramLabel = "N", defaultValue = "20",
+            description = "Radial periods to integrate and average over, 1..100000 (default: ${DEFAULT-VALUE}).")
+    int orbits;
+
+    @Option(names = "--tolerance", paramLabel = "TOL", defaultValue = "1e-12",
+            description = "Absolute and relative tolerance of the integrator, 1e-15..1e-3 (default: ${DEFAULT-VALUE}).")
+    double tolerance;
+
+    @Option(names = "--json", description = "Print the results as JSON.")
+    boolean json;
+
+    @Option(names = "--plot", paramLabel = "FILE.png", description = "Draw the orbit in its plane, periapses marked.")
+    Path plot;
+
+    @Override public Integer call() throws IOException {
+        if (orbits < 1 || orbits > 100_000) {
+            throw new UserInputException("--orbits must be in 1..100000, got " + orbits);
+        }
+        if (!(tolerance >= 1e-15 && tolerance <= 1e-3)) {
+            throw new UserInputException("--tolerance must be in 1e-15..1e-3, got " + tolerance);
+        }
+        if (!(inclinationDeg >= 0 && inclinationDeg <= 180)) {
+            throw new UserInputException("--inclination-deg must be in [0, 180], got " + inclinationDeg);
+        }
+        if (plot != null && !plot.toString().toLowerCase(Locale.ROOT).endsWith(".png")) {
+            throw new UserInputException("--plot must name a .png file, got " + plot);
+        }
+        Spacetime st = spacetime.build();
+        double iotaDeg = retrograde ? 180.0 - inclinationDeg : inclinationDeg;
+        double iota = FastMath.toRadians(iotaDeg);
+        OrbitElements.Solution sol = OrbitSetup.elements(st, p, e, iota);
+        BatchIntegrator.Config cfg = BatchIntegrator.Config.of(OrbitSetup.captureRadius(st))
+                .withTolerance(tolerance, tolerance);
+        OrbitMeasurement.Result m = OrbitMeasurement.measure(st, sol.start(), orbits, cfg, 200,
+                OrbitMeasurement.keplerPeriod(p, e));
+        if (m.orbits() < orbits) {
+            System.err.println("orbit: the trajectory ended (" + m.endState().name().toLowerCase(Locale.ROOT)
+                    + ") after " + m.orbits() + " of " + orbits + " radial periods");
+            return 1;
+        }
+        boolean equatorial = sol.equatorial();
+        boolean prograde = sol.angularMomentum() > 0;
+        Map<String, Object> out = new LinkedHashMap<>();
+        out.put("energy", sol.energy());
+        out.put("angular_momentum", sol.angularMomentum());
+        out.put("carter", st.separable() ? sol.carter() : null);
+        out.put("period_radial", finite(m.periodRadial()));
+        out.put("period_azimuthal", finite(m.periodAzimuthal()));
+        out.put("period_polar", equatorial ? null : finite(m.periodPolar()));
+        out.put("periastron_advance", finite(m.advance()));
+        out.put("mass_shell_drift_max", m.massShellDriftMax());
+        out.put("carter_drift_max", finite(m.carterDriftMax()));
+        out.put("advance_1pn", Predictions.advance1pn(p));
+        out.put("advance_2pn", Predictions.advance2pn(p, e));
+        out.put("advance_spin", equatorial ? Predictions.advanceSpin(st.spin(), p, prograde) : null);
+        if (plot != null) {
+            OrbitPlot.write(st, sol, m, plot, String.format(Locale.ROOT, "%s a=%s p=%s e=%s iota=%s deg", st.family(),
+                    st.spin(), p, e, iotaDeg));
+        }
+        if (json) {
+            ObjectMapper om = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+            System.out.println(om.writeValueAsString(out));
+        } else {
+            for (Map.Entry<String, Object> en : out.entrySet()) {
+                System.out.printf(Locale.ROOT, "%-22s %s%n", en.getKey(), en.getValue() == null ? "-" : en.getValue());
+            }
+        }
+        return 0;
+    }
+
+    private static Double finite(double v) {
+        return Double.isFinite(v) ? v : null;
+    }
+}

@@ -1,0 +1,148 @@
+package org.spindrift.sim.motion;
+
+import java.util.Arrays;
+
+/**
+ * Structure-of-arrays state of N test masses for {@link BatchIntegrator}: per particle the
+ * coordinate-time state (r, theta, phi, p_r, p_theta), the constants p_t = -E and p_phi = L,
+ * the particle's own current time t (the end of its last step, which may lie beyond the last
+ * snapshot), its next step size and its end state. That is {@value #BYTES_PER_PARTICLE} bytes
+ * per particle; the stage scratch of the Runge-Kutta method lives in the worker threads, not
+ * here. When a particle has ended, t is the time at which it ended and the state is the state
+ * there.
+ */
+public final class ParticleBatch {
+    /** Bytes of integrator state per particle: 9 doubles and 2 bytes. */
+    public static final int BYTES_PER_PARTICLE = 9 * Double.BYTES + 2;
+
+    final double[] r;
+    final double[] th;
+    final double[] ph;
+    final double[] pr;
+    final double[] pth;
+    final double[] pt;
+    final double[] pphi;
+    final double[] t;
+    final double[] h;
+    final byte[] state;
+    final byte[] failure;
+
+    /** @param n number of particles, all initially unset (r = 0, alive) */
+    public ParticleBatch(int n) {
+        r = new double[n];
+        th = new double[n];
+        ph = new double[n];
+        pr = new double[n];
+        pth = new double[n];
+        pt = new double[n];
+        pphi = new double[n];
+        t = new double[n];
+        h = new double[n];
+        state = new byte[n];
+        failure = new byte[n];
+    }
+
+    /** @return the number of particles */
+    public int size() {
+        return r.length;
+    }
+
+    /**
+     * Sets particle i at time t0 from its covariant momentum (p_t, p_r, p_theta, p_phi), as
+     * produced by {@link ZamoFrame} or {@link OrbitSetup}.
+     */
+    public void set(int i, double t0, double rr, double theta, double phi, double pT, double pR,
+                    double pTheta, double pPhi) {
+        r[i] = rr;
+        th[i] = theta;
+        ph[i] = phi;
+        pr[i] = pR;
+        pth[i] = pTheta;
+        pt[i] = pT;
+        pphi[i] = pPhi;
+        t[i] = t0;
+        h[i] = 0.0;
+        state[i] = EndState.ALIVE.code();
+        failure[i] = (byte) Failure.NONE.ordinal();
+    }
+
+    /** Sets particle i from an {@link InitialState}. */
+    public void set(int i, double t0, InitialState s) {
+        set(i, t0, s.r(), s.theta(), s.phi(), s.pT(), s.pR(), s.pTheta(), s.pPhi());
+    }
+
+    public double r(int i) {
+        return r[i];
+    }
+
+    public double theta(int i) {
+        return th[i];
+    }
+
+    public double phi(int i) {
+        return ph[i];
+    }
+
+    public double pR(int i) {
+        return pr[i];
+    }
+
+    public double pTheta(int i) {
+        return pth[i];
+    }
+
+    public double pT(int i) {
+        return pt[i];
+    }
+
+    public double pPhi(int i) {
+        return pphi[i];
+    }
+
+    /** @return the particle's own time: end of its last step, or the time it ended */
+    public double time(int i) {
+        return t[i];
+    }
+
+    public EndState endState(int i) {
+        return EndState.ofCode(state[i]);
+    }
+
+    public Failure failure(int i) {
+        return Failure.ofCode(failure[i]);
+    }
+
+    /** @return the number of particles in each end state, indexed by {@link EndState#ordinal()} */
+    public int[] countByState() {
+        int[] c = new int[EndState.values().length];
+        for (byte s : state) {
+            c[s]++;
+        }
+        return c;
+    }
+
+    /** @return a copy of all arrays (tests compare two batches bitwise) */
+    public ParticleBatch copy() {
+        ParticleBatch b = new ParticleBatch(size());
+        System.arraycopy(r, 0, b.r, 0, size());
+        System.arraycopy(th, 0, b.th, 0, size());
+        System.arraycopy(ph, 0, b.ph, 0, size());
+        System.arraycopy(pr, 0, b.pr, 0, size());
+        System.arraycopy(pth, 0, b.pth, 0, size());
+        System.arraycopy(pt, 0, b.pt, 0, size());
+        System.arraycopy(pphi, 0, b.pphi, 0, size());
+        System.arraycopy(t, 0, b.t, 0, size());
+        System.arraycopy(h, 0, b.h, 0, size());
+        System.arraycopy(state, 0, b.state, 0, size());
+        System.arraycopy(failure, 0, b.failure, 0, size());
+        return b;
+    }
+
+    /** @return true when every array equals the other's bit for bit */
+    public boolean bitwiseEquals(ParticleBatch o) {
+        return Arrays.equals(r, o.r) && Arrays.equals(th, o.th) && Arrays.equals(ph, o.ph)
+                && Arrays.equals(pr, o.pr) && Arrays.equals(pth, o.pth) && Arrays.equals(pt, o.pt)
+                && Arrays.equals(pphi, o.pphi) && Arrays.equals(t, o.t) && Arrays.equals(h, o.h)
+                && Arrays.equals(state, o.state) && Arrays.equals(failure, o.failure);
+    }
+}

@@ -1,0 +1,280 @@
+package org.spindrift.sim.motion;
+
+import org.hipparchus.util.FastMath;
+
+/**
+ * Adaptive DOP853 stepping of one particle at a time in coordinate time (tableau:
+ * {@link Dop853}; error norm and step-size control as in Hairer, Norsett &amp; Wanner 1993,
+ * section II.4 and II.10). One instance per worker thread: it owns the stage scratch (16 x 5
+ * doubles) so the particles themselves only keep their state; nothing is allocated per step.
+ */
+final class ParticleStepper implements DenseStep {
+    private static final int N = GeodesicEquations.DIM_T;
+
+    private final GeodesicEquations eq;
+    private final double atol;
+    private final double rtol;
+    private final double minStep;
+    private final double maxStep;
+
+    private final double[] k = new double[Dop853.ALL_STAGES * N];
+    private final double[] y0 = new double[N];
+    private final double[] y1 = new double[N];
+    private final double[] yt = new double[N];
+    private final double[] rc = new double[7 * N];
+
+    private double pt;
+    private double pphi;
+    private double t0;
+    private double h;
+    private boolean denseReady;
+    /** Right-hand-side evaluations since construction. */
+    long evaluations;
+    /** Accepted and rejected steps since construction. */
+    long accepted;
+    long rejected;
+    /** Why the last {@link #attempt} failed, when it returned a failure. */
+    Failure lastFailure = Failure.NONE;
+
+    ParticleStepper(GeodesicEquations eq, double atol, double rtol, double minStep, double maxStep) {
+        this.eq = eq;
+        this.atol = atol;
+        this.rtol = rtol;
+        this.minStep = minStep;
+        this.maxStep = maxStep;
+    }
+
+    /**
+     * Loads a particle: state y at time t, conserved p_t and p_phi; evaluates the derivative at
+     * the start point.
+     *
+     * @return Failure.NONE, or why the start point is unusable
+     */
+    Failure load(double t, double r, double th, double ph, double pr, double pth, double pT, double pPhi) {
+        this.t0 = t;
+        this.pt = pT;
+        this.pphi = pPhi;
+        y0[0] = r;
+        y0[1] = th;
+        y0[2] = ph;
+        y0[3] = pr;
+        y0[4] = pth;
+        double tDot = rhs(y0, 0);
+        return check(tDot, 0);
+    }
+
+    private double rhs(double[] y, int stage) {
+        evaluations++;
+        return eq.coordinateTime(pt, pphi, y, 0, k, stage * N);
+    }
+
+    private Failure check(double tDot, int stage) {
+        if (Double.isNaN(tDot) || Double.isInfinite(tDot)) {
+            return Failure.NON_FINITE;
+        }
+        if (tDot <= 0.0) {
+            return Failure.TIME_NOT_INCREASING;
+        }
+        int o = stage * N;
+        for (int j = 0; j < N; j++) {
+            if (!Double.isFinite(k[o + j])) {
+                return Failure.NON_FINITE;
+            }
+        }
+        return Failure.NONE;
+    }
+
+    /** Hairer's starting step (Hairer, Norsett &amp; Wanner 1993, section II.4, algorithm on p. 169). */
+    double initialStep() {
+        double d0 = 0;
+        double d1 = 0;
+        for (int j = 0; j < N; j++) {
+            double sc = atol + rtol * FastMath.abs(y0[j]);
+            d0 += (y0[j] / sc) * (y0[j] / sc);
+            d1 += (k[j] / sc) * (k[j] / sc);
+        }
+        d0 = FastMath.sqrt(d0 / N);
+        d1 = FastMath.sqrt(d1 / N);
+        double h0 = (d0 < 1e-5 || d1 < 1e-5) ? 1e-6 : 0.01 * d0 / d1;
+        h0 = FastMath.min(h0, maxStep);
+        for (int j = 0; j < N; j++) {
+            yt[j] = y0[j] + h0 * k[j];
+        }
+        double tDot = rhs(yt, 1);
+        if (check(tDot, 1) != Failure.NONE) {
+            return FastMath.max(minStep, 1e-3 * h0);
+        }
+        double d2 = 0;
+        for (int j = 0; j < N; j++) {
+            double sc = atol + rtol * FastMath.abs(y0[j]);
+            double d = (k[N + j] - k[j]) / sc;
+            d2 += d * d;
+        }
+        d2 = FastMath.sqrt(d2 / N) / h0;
+        double dm = FastMath.max(d1, d2);
+        double h1 = dm <= 1e-15 ? FastMath.max(1e-6, h0 * 1e-3) : FastMath.pow(0.01 / dm, 1.0 / 8.0);
+        return FastMath.min(FastMath.min(100 * h0, h1), maxStep);
+    }
+
+    /**
+     * Tries one step of size hTry from the loaded start point.
+     *
+     * @return the error ratio (accept when &lt;= 1), or NaN when a stage failed (then
+     *     {@link #lastFailure} says why and the caller should shrink the step)
+     */
+    double attempt(double hTry) {
+        this.h = hTry;
+        this.denseReady = false;
+        for (int s = 1; s < Dop853.STEP_STAGES; s++) {
+            stageInput(s);
+            double tDot = rhs(yt, s);
+            Failure f = check(tDot, s);
+            if (f != Failure.NONE) {
+                lastFailure = f;
+                return Double.NaN;
+            }
+        }
+        // 8th-order solution and the two embedded error estimates (Hipparchus' estimateError form)
+        double e1 = 0;
+        double e2 = 0;
+        final double[] b = Dop853.B;
+        final double[] w5 = Dop853.E5;
+        final double[] w3 = Dop853.E3;
+        for (int j = 0; j < N; j++) {
+            double sb = 0;
+            double s5 = 0;
+            double s3 = 0;
+            for (int i = 0; i < Dop853.STEP_STAGES; i++) {
+                double ki = k[i * N + j];
+                sb += b[i] * ki;
+                s5 += w5[i] * ki;
+                s3 += w3[i] * ki;
+            }
+            double yn = y0[j] + h * sb;
+            y1[j] = yn;
+            double tol = atol + rtol * FastMath.max(FastMath.abs(y0[j]), FastMath.abs(yn));
+            double q5 = s5 / tol;
+            double q3 = s3 / tol;
+            e1 += q5 * q5;
+            e2 += q3 * q3;
+        }
+        double den = e1 + 0.01 * e2;
+        if (den <= 0.0) {
+            den = 1.0;
+        }
+        double err = FastMath.abs(h) * e1 / FastMath.sqrt(N * den);
+        if (!Double.isFinite(err)) {
+            lastFailure = Failure.NON_FINITE;
+            return Double.NaN;
+        }
+        return err;
+    }
+
+    private void stageInput(int s) {
+        final double[] a = Dop853.A[s];
+        for (int j = 0; j < N; j++) {
+            double sum = 0;
+            for (int i = 0; i < a.length; i++) {
+                sum += a[i] * k[i * N + j];
+            }
+            yt[j] = y0[j] + h * sum;
+        }
+    }
+
+    /**
+     * Completes an accepted step: evaluates the derivative at the new point (stage 12).
+     *
+     * @return Failure.NONE, or why the new point is unusable (the caller then rejects the step)
+     */
+    Failure finishAccepted() {
+        double tDot = eq.coordinateTime(pt, pphi, y1, 0, k, 12 * N);
+        evaluations++;
+        return check(tDot, 12);
+    }
+
+    /** Moves the start point to the end of the last accepted step. */
+    void advance() {
+        t0 += h;
+        System.arraycopy(y1, 0, y0, 0, N);
+        System.arraycopy(k, 12 * N, k, 0, N);
+        denseReady = false;
+    }
+
+    /** @return the new step size proposed after an error ratio err (Hipparchus/Hairer control) */
+    static double nextStep(double hOld, double err) {
+        double f = Dop853.SAFETY * FastMath.pow(err, Dop853.EXPONENT);
+        f = FastMath.min(Dop853.MAX_GROWTH, FastMath.max(Dop853.MIN_REDUCTION, f));
+        return hOld * f;
+    }
+
+    double minStep() {
+        return minStep;
+    }
+
+    double maxStep() {
+        return maxStep;
+    }
+
+    double time() {
+        return t0;
+    }
+
+    /** @return component c at the start point (after advance: the current state) */
+    double y(int c) {
+        return y0[c];
+    }
+
+    private void ensureDense() {
+        if (denseReady) {
+            return;
+        }
+        for (int s = 13; s < Dop853.ALL_STAGES; s++) {
+            stageInput(s);
+            rhs(yt, s);
+        }
+        for (int m = 0; m < 7; m++) {
+            final double[] d = Dop853.D[m];
+            for (int j = 0; j < N; j++) {
+                double sum = 0;
+                for (int i = 0; i < Dop853.ALL_STAGES; i++) {
+                    sum += d[i] * k[i * N + j];
+                }
+                rc[m * N + j] = h * sum;
+            }
+        }
+        denseReady = true;
+    }
+
+    // ---- DenseStep view of the last accepted (not yet advanced) step ----
+
+    @Override public double t0() {
+        return t0;
+    }
+
+    @Override public double t1() {
+        return t0 + h;
+    }
+
+    @Override public double start(int c) {
+        return y0[c];
+    }
+
+    @Override public double end(int c) {
+        return y1[c];
+    }
+
+    @Override public double at(int c, double t) {
+        ensureDense();
+        double s = (t - t0) / h;
+        double s1 = 1.0 - s;
+        // Hairer, Norsett & Wanner 1993, contd8: y0 + s (r0 + s1 (r1 + s (r2 + s1 (r3 + s (r4 + s1 (r5 + s r6))))))
+        double v = rc[6 * N + c];
+        v = rc[5 * N + c] + s * v;
+        v = rc[4 * N + c] + s1 * v;
+        v = rc[3 * N + c] + s * v;
+        v = rc[2 * N + c] + s1 * v;
+        v = rc[N + c] + s * v;
+        v = rc[c] + s1 * v;
+        return y0[c] + s * v;
+    }
+}

@@ -1,0 +1,128 @@
+package org.spindrift.sim.motion;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import org.junit.jupiter.api.Test;
+import org.spindrift.shared.UserInputException;
+import org.spindrift.sim.spacetime.MassFunctionSpacetime;
+import org.spindrift.sim.spacetime.MassFunctions;
+
+class OrbitElementsTest {
+    @Test
+    void schwarzschildEccentricOrbitsMatchTheClosedForm() {
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.0);
+        double[][] cases = {{10, 0.5}, {7.2, 0.3}, {20, 0.9}, {6.5, 0.1}};
+        for (double[] c : cases) {
+            double p = c[0];
+            double e = c[1];
+            OrbitElements.Solution s = OrbitElements.solve(st, p, e, 0.0);
+            // Cutler, Kennefick & Poisson 1994, Phys. Rev. D 50, 3816, eq. 2.5:
+            // E^2 = ((p-2)^2 - 4 e^2) / (p (p - 3 - e^2)), L^2 = p^2 / (p - 3 - e^2)
+            double e2 = ((p - 2) * (p - 2) - 4 * e * e) / (p * (p - 3 - e * e));
+            double l2 = p * p / (p - 3 - e * e);
+            assertEquals(Math.sqrt(e2), s.energy(), 1e-13, "E at p=" + p + " e=" + e);
+            assertEquals(Math.sqrt(l2), s.angularMomentum(), 1e-11, "L at p=" + p + " e=" + e);
+            assertEquals(0.0, s.carter());
+        }
+    }
+
+    @Test
+    void schwarzschildInclinationSplitsTotalAngularMomentum() {
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.0);
+        double iota = Math.toRadians(40);
+        OrbitElements.Solution s = OrbitElements.solve(st, 10, 0.4, iota);
+        // spherical symmetry: L^2 + Q equals the equatorial L^2 (CKP 1994 eq. 2.5)
+        double l2 = 100 / (10 - 3 - 0.16);
+        assertEquals(l2, s.angularMomentum() * s.angularMomentum() + s.carter(), 1e-10);
+        assertEquals(Math.cos(iota), s.angularMomentum() / Math.sqrt(l2), 1e-13);
+        // for a = 0 the polar turning point is theta_min = pi/2 - iota
+        assertEquals(Math.cos(Math.PI / 2 - iota) * Math.cos(Math.PI / 2 - iota), s.zMinus(), 1e-13);
+    }
+
+    @Test
+    void circularLimitReproducesBardeenPressTeukolsky() {
+        for (double a : new double[] {0.0, 0.5, 0.9, 0.998}) {
+            MassFunctionSpacetime st = KerrTestOrbits.kerr(a);
+            double r = 9;
+            double[] pro = KerrTestOrbits.circularEL(a, r);
+            double[] ret = KerrTestOrbits.circularELRetro(a, r);
+            OrbitElements.Solution s0 = OrbitElements.solve(st, r, 0.0, 0.0);
+            // Bardeen, Press & Teukolsky 1972, ApJ 178, 347, eq. 2.12-2.13
+            assertEquals(pro[0], s0.energy(), 1e-13);
+            assertEquals(pro[1], s0.angularMomentum(), 1e-12);
+            OrbitElements.Solution sr = OrbitElements.solve(st, r, 0.0, Math.PI);
+            assertEquals(ret[0], sr.energy(), 1e-13);
+            assertEquals(ret[1], sr.angularMomentum(), 1e-12);
+            // e -> 0 through the two-turning-point branch
+            OrbitElements.Solution se = OrbitElements.solve(st, r, 1e-5, 0.0);
+            assertEquals(pro[0], se.energy(), 1e-9);
+            assertEquals(pro[1], se.angularMomentum(), 1e-8);
+        }
+    }
+
+    @Test
+    void kerrInclinedOrbitHasTurningPointsOfTheKerrQuartic() {
+        double a = 0.9;
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(a);
+        for (double iotaDeg : new double[] {20, 60, 90, 130}) {
+            OrbitElements.Solution s = OrbitElements.solve(st, 11, 0.4, Math.toRadians(iotaDeg));
+            double en = s.energy();
+            double l = s.angularMomentum();
+            double q = s.carter();
+            // Kerr radial potential as a quartic (Schmidt 2002, CQG 19, 2743, eq. 4 expanded;
+            // Carter 1968): R = (E^2-1) r^4 + 2 r^3 + (a^2(E^2-1) - L^2 - Q) r^2 + 2((aE-L)^2+Q) r - a^2 Q
+            for (double r : new double[] {s.periapsis(), s.apoapsis()}) {
+                double rr = (en * en - 1) * Math.pow(r, 4) + 2 * Math.pow(r, 3)
+                        + (a * a * (en * en - 1) - l * l - q) * r * r + 2 * ((a * en - l) * (a * en - l) + q) * r
+                        - a * a * q;
+                assertEquals(0.0, rr, 1e-10 * Math.pow(r, 4), "R at r=" + r + " iota=" + iotaDeg);
+            }
+            assertEquals(Math.cos(Math.toRadians(iotaDeg)), l / Math.sqrt(l * l + q), 1e-13);
+            // polar potential vanishes at the turning point (Carter 1968)
+            double z = s.zMinus();
+            // sin^2(theta) Theta = Q (1 - z) - z (a^2 (1 - E^2) (1 - z) + L^2), z = cos^2(theta)
+            double th = q * (1 - z) - z * (a * a * (1 - en * en) * (1 - z) + l * l);
+            assertEquals(0.0, th, 1e-12 * (q + l * l));
+            assertTrue(z > 0 && z <= 1);
+        }
+    }
+
+    @Test
+    void schwarzschildSeparatrixIsSixPlusTwoE() {
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.0);
+        for (double e : new double[] {0.0, 0.3, 0.7}) {
+            // Cutler, Kennefick & Poisson 1994: bound orbits need p > 6 + 2e
+            assertEquals(6 + 2 * e, OrbitElements.separatrix(st, 5.0, e, 0.0), 1e-6);
+            UserInputException ex = assertThrows(UserInputException.class,
+                    () -> OrbitElements.solve(st, 6 + 2 * e - 0.01, e, 0.0));
+            assertTrue(ex.getMessage().contains(String.format(java.util.Locale.ROOT, "%.6f", 6 + 2 * e)),
+                    ex.getMessage());
+            OrbitElements.solve(st, 6 + 2 * e + 0.01, e, 0.0);
+        }
+    }
+
+    @Test
+    void unboundElementsAreRejected() {
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.5);
+        assertThrows(UserInputException.class, () -> OrbitElements.solve(st, 10, 1.0, 0.0));
+        assertThrows(UserInputException.class, () -> OrbitElements.solve(st, 10, -0.1, 0.0));
+        assertThrows(UserInputException.class, () -> OrbitElements.solve(st, -3, 0.2, 0.0));
+    }
+
+    @Test
+    void massFunctionFamilyTurningPointsAreRootsOfItsOwnPotential() {
+        MassFunctionSpacetime st = new MassFunctionSpacetime("hayward", 0.6, MassFunctions.hayward(0.8));
+        OrbitElements.Solution s = OrbitElements.solve(st, 9, 0.5, Math.toRadians(35));
+        for (double r : new double[] {s.periapsis(), s.apoapsis()}) {
+            assertEquals(0.0, OrbitElements.radialPotential(st, r, s.energy(), s.angularMomentum(), s.carter()),
+                    1e-10 * Math.pow(r, 4));
+        }
+        // mass shell at the start (Misner, Thorne & Wheeler 1973 eq. 25.19: H = -1/2)
+        InitialState x = s.start();
+        double h = new GeodesicEquations(st).hamiltonian(x.r(), x.theta(), x.pT(), x.pPhi(), x.pR(), x.pTheta());
+        assertEquals(-0.5, h, 1e-13);
+        assertEquals(s.carter(), x.pTheta() * x.pTheta(), 1e-10);
+    }
+}

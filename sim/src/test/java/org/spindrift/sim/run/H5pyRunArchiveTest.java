@@ -1,0 +1,87 @@
+package org.spindrift.sim.run;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assertions.fail;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.scenario.VelocityModel;
+import org.spindrift.sim.scenario.LoadedScenario;
+
+/**
+ * Debian's python3-h5py, an independent HDF5 reader, opens the snapshots of a real run and reads
+ * back the same numbers as the engine holds (positions, 4-velocities, weights, states, times).
+ * Skips when h5py is missing, fails instead when SPINDRIFT_REQUIRE_EXTERNAL=1 (CI).
+ */
+class H5pyRunArchiveTest {
+    @TempDir Path tmp;
+
+    static String python() throws Exception {
+        for (String exe : List.of("/usr/bin/python3", "python3")) {
+            try {
+                Process p = new ProcessBuilder(exe, "-c", "import h5py, numpy").redirectErrorStream(true).start();
+                p.getInputStream().readAllBytes();
+                if (p.waitFor(60, TimeUnit.SECONDS) && p.exitValue() == 0) {
+                    return exe;
+                }
+            } catch (java.io.IOException e) {
+                // next
+            }
+        }
+        if ("1".equals(System.getenv("SPINDRIFT_REQUIRE_EXTERNAL"))) {
+            fail("python3-h5py is required (SPINDRIFT_REQUIRE_EXTERNAL=1) but python3 cannot import h5py and numpy");
+        }
+        return null;
+    }
+
+    @Test void h5pyReadsTheRunsSnapshots() throws Exception {
+        String py = python();
+        assumeTrue(py != null, "python3-h5py not installed: skipping the independent HDF5 reader check");
+        LoadedScenario ls = TestScenarios.scenario(TestScenarios.kerr(0.3),
+                List.of(TestScenarios.hotSpot(30, 6.0, 0.5, new VelocityModel(VelocityModel.Kind.SHEAR, 0)),
+                        TestScenarios.ring(20, 8, 9, 5)), 40, 8, 4, 0);
+        ScenarioRun.Outcome o = ScenarioRun.run(ScenarioRun.prepare(ls), new ScenarioRun.Options(tmp.resolve("run"), 2,
+                false), List.of(new SnapshotStage()));
+        ParticleHistory h = o.history();
+        int s = 3;
+        int i = 37;
+        String script = String.join("\n",
+                "import h5py, sys",
+                "f = h5py.File(sys.argv[1], 'r')",
+                "s, i = int(sys.argv[2]), int(sys.argv[3])",
+                "print(repr(float(f['time'][s])))",
+                "print(repr(float(f['r'][s, i])), repr(float(f['theta'][s, i])), repr(float(f['phi'][s, i])))",
+                "print(' '.join(repr(float(v)) for v in f['u'][s, i, :]))",
+                "print(repr(float(f['weight'][s, i])), int(f['state'][s, i]), int(f['source_index'][i]))",
+                "print(f['r'].shape[0], f['r'].shape[1], f['centre'].shape[1])");
+        Process p = new ProcessBuilder(py, "-c", script, o.folder().resolve(ArchiveLayout.SNAPSHOTS).toString(),
+                Integer.toString(s), Integer.toString(i)).redirectErrorStream(true).start();
+        String out = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertTrue(p.waitFor(60, TimeUnit.SECONDS));
+        assertEquals(0, p.exitValue(), out);
+        String[] l = out.strip().split("\n");
+        // python's repr of a float round-trips exactly: the numbers must be bit-identical
+        assertEquals(h.time(s), Double.parseDouble(l[0]));
+        String[] pos = l[1].split(" ");
+        assertEquals(h.r(s)[i], Double.parseDouble(pos[0]));
+        assertEquals(h.theta(s)[i], Double.parseDouble(pos[1]));
+        assertEquals(h.phi(s)[i], Double.parseDouble(pos[2]));
+        String[] u = l[2].split(" ");
+        assertEquals(h.ut(s)[i], Double.parseDouble(u[0]));
+        assertEquals(h.ur(s)[i], Double.parseDouble(u[1]));
+        assertEquals(h.uTheta(s)[i], Double.parseDouble(u[2]));
+        assertEquals(h.uPhi(s)[i], Double.parseDouble(u[3]));
+        String[] w = l[3].split(" ");
+        assertEquals(h.weight(s)[i], Float.parseFloat(w[0]));
+        assertEquals(h.state(s)[i], Integer.parseInt(w[1]));
+        assertEquals(1, Integer.parseInt(w[2]), "particle 37 belongs to the second source (the ring)");
+        assertEquals(h.snapshots() + " 50 2", l[4]);
+    }
+}

@@ -1,0 +1,117 @@
+package org.spindrift.sim.run;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.spindrift.shared.UserInputException;
+import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.archive.AtomicFiles;
+import org.spindrift.shared.archive.RunArchive;
+import org.spindrift.shared.scenario.VelocityModel;
+import org.spindrift.sim.scenario.LoadedScenario;
+
+/** The run: reproducibility whatever the thread count, the archive's contents, interrupted runs. */
+class ScenarioRunTest {
+    @TempDir Path tmp;
+
+    static LoadedScenario thermalSpot(int n) {
+        return TestScenarios.scenario(TestScenarios.kerr(0.6),
+                List.of(TestScenarios.hotSpot(n, 7.0, 0.8, new VelocityModel(VelocityModel.Kind.THERMAL, 0.02))),
+                60, 6, 99, 50);
+    }
+
+    @Test void sameSeedGivesBitwiseIdenticalSnapshotsWhateverTheThreads() throws Exception {
+        // 300 particles = 5 chunks of 64: several threads really share the work
+        Path a = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("a"), 1, false))
+                .folder();
+        Path b = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("b"), 3, false))
+                .folder();
+        byte[] ha = Files.readAllBytes(a.resolve(ArchiveLayout.SNAPSHOTS));
+        byte[] hb = Files.readAllBytes(b.resolve(ArchiveLayout.SNAPSHOTS));
+        assertArrayEquals(ha, hb, "snapshots.h5 differs between 1 and 3 threads");
+        assertEquals(Files.readString(a.resolve(ArchiveLayout.PERIODS)), Files.readString(b.resolve(ArchiveLayout.PERIODS)));
+        // and a different seed gives different particles
+        LoadedScenario other = thermalSpot(300);
+        other = other.with(other.scenario().withRun(other.scenario().run().withSeed(100)));
+        Path c = ScenarioRun.run(ScenarioRun.prepare(other), new ScenarioRun.Options(tmp.resolve("c"), 2, false)).folder();
+        assertFalse(java.util.Arrays.equals(ha, Files.readAllBytes(c.resolve(ArchiveLayout.SNAPSHOTS))));
+    }
+
+    @Test void archiveHoldsTheLayoutAndChecksums() throws Exception {
+        ScenarioRun.Outcome o = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(120)),
+                new ScenarioRun.Options(tmp.resolve("run"), 2, false));
+        try (RunArchive a = RunArchive.open(o.folder())) {
+            a.verifyChecksums();
+            for (String f : List.of(ArchiveLayout.SNAPSHOTS, ArchiveLayout.SUMMARY, ArchiveLayout.PERIODS,
+                    ArchiveLayout.SHEAR, "plots/positions.png", "plots/shape.png", "plots/lag.png", "plots/periods.png")) {
+                assertTrue(a.has(f), "manifest lists " + f);
+            }
+            assertEquals(99, a.seed());
+            assertEquals(0.6, a.spin());
+            // Kerr a = 0.6: r_+ = 1 + sqrt(1 - a^2) = 1.8 (Boyer & Lindquist 1967)
+            assertEquals(1.8, a.landmarks().get("horizon_outer"), 1e-9);
+            assertEquals(50, a.particleCount(), "archive_subsample keeps 50 of 120");
+            assertEquals(11, a.snapshotCount(), "60 M at a cadence of 6 M: 11 snapshots");
+            ParticleHistory h = o.history();
+            int[] kept = SnapshotStage.keptIndices(thermalSpot(120).scenario(), new int[] {0});
+            double[] r = a.r(5);
+            float[] w = a.weights(5);
+            for (int j = 0; j < kept.length; j++) {
+                assertEquals(h.r(5)[kept[j]], r[j], "r of kept particle " + j);
+                assertEquals(h.weight(5)[kept[j]], w[j]);
+            }
+            // the flare envelope (Gaussian peak 20 M, width 10 M) times weight 2 / 120 particles, at t = 30 M
+            double expected = 2.0 / 120 * Math.exp(-0.5 * Math.pow((30 - 20) / 10.0, 2));
+            assertEquals(30.0, a.times()[5], 1e-12);
+            assertEquals(expected, w[0], 1e-7);
+            long alive = a.endStates().get("alive");
+            assertEquals(120, alive + a.endStates().get("captured") + a.endStates().get("escaped")
+                    + a.endStates().get("failed"));
+            // diagnostics: mass shell kept to the tolerance's order
+            assertTrue(a.diagnostics().path("hamiltonian_error_max").asDouble() < 1e-7, a.diagnostics().toString());
+            assertTrue(a.diagnostics().path("carter_relative_drift_max").asDouble() < 1e-6, a.diagnostics().toString());
+        }
+    }
+
+    @Test void aRunStoppedPartWayLeavesNothingThatLooksComplete() throws Exception {
+        Path out = tmp.resolve("broken");
+        List<RunStage> stages = new ArrayList<>(ScenarioRun.stages());
+        stages.add(2, new RunStage() {
+            @Override public String name() {
+                return "failing";
+            }
+
+            @Override public void run(RunContext context) throws IOException {
+                // a file half written when the failure hits
+                context.archive().write("centroid.csv", tmpFile -> {
+                    Files.writeString(tmpFile, "t,x\n0,");
+                    throw new IOException("disk full (simulated)");
+                });
+            }
+        });
+        assertThrows(IOException.class, () -> ScenarioRun.run(ScenarioRun.prepare(thermalSpot(40)),
+                new ScenarioRun.Options(out, 1, false), stages));
+        assertFalse(Files.exists(out.resolve(ArchiveLayout.MANIFEST)), "no manifest");
+        assertFalse(Files.exists(out.resolve("centroid.csv")), "the half-written file keeps no final name");
+        assertFalse(Files.exists(AtomicFiles.partialName(out.resolve("centroid.csv"))));
+        UserInputException e = assertThrows(UserInputException.class, () -> RunArchive.open(out));
+        assertTrue(e.getMessage().contains("did not complete"), e.getMessage());
+        // re-running into the same folder works and completes it
+        ScenarioRun.run(ScenarioRun.prepare(thermalSpot(40)), new ScenarioRun.Options(out, 1, false));
+        try (RunArchive a = RunArchive.open(out); Stream<Path> files = Files.list(out)) {
+            a.verifyChecksums();
+            assertTrue(files.noneMatch(p -> p.getFileName().toString().endsWith(".partial")));
+        }
+    }
+}
