@@ -163,8 +163,8 @@ public final class SyntheticRun {
         body.putObject("units").put("M_seconds", Units.timeUnitSeconds(MASS))
                 .put("M_metres", Units.lengthUnitMetres(MASS)).put("M_microarcsec", Units.microarcsecPerM(MASS, DISTANCE));
         body.putObject("observer").put("inclination_deg", incl).put("position_angle_deg", pa);
-        ObjectNode lm = body.putObject("landmarks").put("horizon", horizon).put("isco", isco)
-                .put("ergosurface_equatorial", ergo);
+        ObjectNode lm = body.putObject("landmarks").put("horizon_outer", horizon).put("isco_prograde", isco)
+                .put("ergosurface_equator", ergo);
         if (Double.isFinite(omegaMax)) {
             lm.put("omega_max_radius", omegaMax);
         } else {

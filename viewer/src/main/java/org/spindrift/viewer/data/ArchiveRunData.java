@@ -16,13 +16,12 @@ import org.spindrift.shared.archive.RunArchive;
  * archive is used by one thread at a time: the opening thread, then only the snapshot reader.
  */
 public final class ArchiveRunData implements RunData {
-    /** Manifest landmark keys tried in order (the first present wins). */
-    private static final String[] HORIZON = {"horizon", "horizon_outer", "r_horizon", "outer_horizon"};
+    /** Manifest landmark keys (those of {@code landmarks --json}); the first present wins. */
+    private static final String[] HORIZON = {"horizon_outer", "horizon"};
     private static final String[] SURFACE = {"surface_radius"};
-    private static final String[] ISCO = {"isco", "isco_prograde", "r_isco", "isco_radius"};
-    private static final String[] OMEGA_MAX = {"omega_max_radius", "r_omega_max", "omega_max_r"};
-    private static final String[] ERGO = {"ergosurface_equatorial", "ergo_equatorial", "r_ergo_equatorial",
-        "ergosphere_equatorial"};
+    private static final String[] ISCO = {"isco_prograde", "isco"};
+    private static final String[] OMEGA_MAX = {"omega_max_radius"};
+    private static final String[] ERGO = {"ergosurface_equator"};
 
     private final RunArchive archive;
     private final RunInfo info;
@@ -142,13 +141,13 @@ public final class ArchiveRunData implements RunData {
 
     @Override public void readSnapshot(int s, FloatBuffer dest) {
         double[][] pos;
-        double[][] u;
+        double[] ut;
         float[] w;
         byte[] st;
         double[] r;
         try {
             pos = archive.positions(s);
-            u = archive.velocities(s);
+            ut = archive.timeComponents(s);
             w = archive.weights(s);
             st = archive.states(s);
             r = archive.r(s);
@@ -159,13 +158,12 @@ public final class ArchiveRunData implements RunData {
         }
         int n = info.particles();
         for (int i = 0; i < n; i++) {
-            double ut = u[i][0];
             int o = i * STRIDE;
             dest.put(o + X, (float) pos[0][i]);
             dest.put(o + Y, (float) pos[1][i]);
             dest.put(o + Z, (float) pos[2][i]);
             // redshift factor of a zero-angular-momentum photon, g = 1/u^t (see Quantity.REDSHIFT)
-            dest.put(o + REDSHIFT, ut > 0 ? (float) (1.0 / ut) : 0f);
+            dest.put(o + REDSHIFT, ut[i] > 0 ? (float) (1.0 / ut[i]) : 0f);
             dest.put(o + WEIGHT, w[i]);
             dest.put(o + RADIUS, (float) r[i]);
             boolean finite = Double.isFinite(pos[0][i]) && Double.isFinite(pos[1][i]) && Double.isFinite(pos[2][i]);

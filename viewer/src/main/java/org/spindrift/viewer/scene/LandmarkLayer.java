@@ -62,7 +62,7 @@ public final class LandmarkLayer implements AutoCloseable {
         try (LineBuilder b = new LineBuilder()) {
             double rc = landmarks.centralRadius();
             double pole = Double.isFinite(rc) ? rc : 0;
-            b.segment(0, 0, pole, 0, 0, pole + Math.max(3, 0.25 * extent), Palette.alpha(Palette.ACCENT, 0xb0));
+            b.segment(0, 0, pole, 0, 0, pole + Math.max(2, 0.18 * extent), Palette.alpha(Palette.ACCENT, 0x80));
             axis = new LineMesh(b);
         }
         try (LineBuilder b = new LineBuilder()) {
