@@ -308,6 +308,23 @@ public final class RunArchive implements AutoCloseable {
         return ((double[][][]) row(ArchiveLayout.D_U, s))[0];
     }
 
+    /**
+     * @return u^t of every kept particle at snapshot s: one component of {@code /u}, read without
+     *     the other three (about half the time of {@link #velocities} for the viewer's redshift colours)
+     */
+    public double[] timeComponents(int s) {
+        if (s < 0 || s >= snapshotCount()) {
+            throw new IndexOutOfBoundsException("snapshot " + s + " outside 0.." + (snapshotCount() - 1));
+        }
+        Dataset d = dataset(ArchiveLayout.D_U);
+        double[][] col = ((double[][][]) d.getData(new long[] {s, 0, 0}, new int[] {1, particleCount(), 1}))[0];
+        double[] out = new double[col.length];
+        for (int i = 0; i < out.length; i++) {
+            out[i] = col[i][0];
+        }
+        return out;
+    }
+
     /** @return emission weights at snapshot s */
     public float[] weights(int s) {
         return ((float[][]) row(ArchiveLayout.D_WEIGHT, s))[0];

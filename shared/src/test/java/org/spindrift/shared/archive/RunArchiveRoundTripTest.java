@@ -90,6 +90,7 @@ class RunArchiveRoundTripTest {
                     for (int k = 0; k < 4; k++) {
                         assertEquals(value(s, i, 3 + k), u[i][k]);
                     }
+                    assertEquals(value(s, i, 3), a.timeComponents(s)[i]);
                     assertEquals((float) (0.25 * i + s), a.weights(s)[i]);
                 }
                 assertEquals(s == 2 ? ArchiveLayout.CAPTURED : ArchiveLayout.ALIVE, a.states(s)[4]);

@@ -38,7 +38,8 @@ public final class LandmarksCommand implements Callable<Integer> {
 
     @Option(names = "--at", paramLabel = "R", split = ",",
             description = "Also list the circular equatorial orbits at these radii (M): Omega, E, L, shear rate"
-                    + " r dOmega/dr and the radial and vertical epicyclic frequencies, both senses.")
+                    + " r dOmega/dr and the squared radial and vertical epicyclic frequencies (negative where unstable),"
+                    + " both senses.")
     List<Double> at;
 
     @Option(names = "--plot", paramLabel = "FILE.png",

@@ -5,6 +5,7 @@ import org.hipparchus.util.FastMath;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.sim.spacetime.CircularOrbits;
 import org.spindrift.sim.spacetime.Horizons;
+import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
@@ -16,8 +17,6 @@ import org.spindrift.sim.spacetime.Spacetime;
 public final class OrbitSetup {
     /** Margin added to the outer horizon for capture, M (common practice, no source). */
     public static final double CAPTURE_MARGIN = 0.01;
-    /** Capture radius used for horizonless objects until a surface radius is given, M. */
-    public static final double HORIZONLESS_CAPTURE = 0.05;
 
     private OrbitSetup() {
     }
@@ -50,11 +49,17 @@ public final class OrbitSetup {
     }
 
     /**
-     * @return the radius below which particles count as captured: outer horizon + {@link #CAPTURE_MARGIN},
-     *     or {@link #HORIZONLESS_CAPTURE} when the spacetime has no horizon
+     * @return the radius below which particles count as captured: outer horizon +
+     *     {@link #CAPTURE_MARGIN}, or the surface radius of {@link Landmarks} when the spacetime
+     *     has no horizon
      */
     public static double captureRadius(Spacetime st) {
         double rh = Horizons.outer(st);
-        return Double.isNaN(rh) ? HORIZONLESS_CAPTURE : rh + CAPTURE_MARGIN;
+        return Double.isNaN(rh) ? Landmarks.of(st).surfaceRadius() : rh + CAPTURE_MARGIN;
+    }
+
+    /** @return {@link #captureRadius(Spacetime)} from landmarks already computed */
+    public static double captureRadius(Landmarks landmarks) {
+        return landmarks.hasHorizon() ? landmarks.horizonOuter() + CAPTURE_MARGIN : landmarks.surfaceRadius();
     }
 }

@@ -151,7 +151,7 @@ public final class ScenarioRun {
         List<RunStage> stages = new ArrayList<>();
         stages.add(new SnapshotStage());
         stages.add(new AnalysisStage());
-        // LIGHT STAGE HOOK: the light layer adds its RunStage here (it reads context.history()).
+        stages.add(new org.spindrift.sim.light.LightRunStage());
         stages.add(new PlotStage());
         return stages;
     }

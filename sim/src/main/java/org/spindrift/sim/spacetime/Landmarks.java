@@ -19,7 +19,7 @@ import org.hipparchus.util.FastMath;
  *       347, sec. II for Kerr).</li>
  *   <li>{@code isco_*}: the inner edge of the band of stable circular orbits that reaches
  *       infinity: the outermost root of Omega_r^2 = 0 (where dE/dr = dL/dr = 0, BPT 1972
- *       eq. 2.20 for Kerr) or of Omega_theta^2 = 0, whichever lies further out. Kerr orbits are
+ *       sec. II for Kerr) or of Omega_theta^2 = 0, whichever lies further out. Kerr orbits are
  *       always vertically stable, so there it is the BPT radius; Johannsen-Psaltis orbits with
  *       epsilon_3 &gt; 0 at high spin turn vertically unstable first, as Johannsen &amp; Psaltis
  *       2011 note (recalled from memory). Null when circular orbits stay stable down to the
@@ -108,7 +108,7 @@ public final class Landmarks {
         double surface = Double.NaN;
         if (!horizon) {
             double inner = Double.POSITIVE_INFINITY;
-            for (double x : new double[] {photon[0], photon[1], isco[0], isco[1], wMaxR}) {
+            for (double x : new double[] {ergo, photon[0], photon[1], isco[0], isco[1], mb, wMaxR}) {
                 if (!Double.isNaN(x)) {
                     inner = FastMath.min(inner, x);
                 }
@@ -201,8 +201,9 @@ public final class Landmarks {
     /**
      * Surface radius of a horizonless object (NaN when there is a horizon): particles and rays
      * that reach r &lt; surface_radius are stopped (treated like capture). Our choice (no
-     * published convention): {@value #SURFACE_FRACTION} times the innermost of the ISCO, photon
-     * orbit and Omega-maximum radii that exist, at least {@value #MIN_SURFACE} M, and at least
+     * published convention): {@value #SURFACE_FRACTION} times the innermost of the other
+     * landmark radii that exist (ergosurface, ISCOs, photon orbits, marginally bound orbit,
+     * Omega maximum), at least {@value #MIN_SURFACE} M, and at least
      * 1.1 times the radius where the metric stops being regular ({@link #regularityLimit}).
      * Everything the landmarks describe lies well outside it.
      */

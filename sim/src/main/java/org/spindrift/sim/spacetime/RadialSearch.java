@@ -50,7 +50,7 @@ final class RadialSearch {
             final double r = i == n ? rLo : rHi * Math.pow(ratio, i);
             final double fr = f.applyAsDouble(r);
             if (Double.isNaN(fr)) {
-                return Double.NaN;
+                return rootBeforeEdge(f, r, rPrev, fPrev);
             }
             if (fr == 0.0) {
                 return r;
@@ -70,6 +70,31 @@ final class RadialSearch {
             fPrev = fr;
         }
         return Double.NaN;
+    }
+
+    /**
+     * The quantity ends (NaN) between nan and ok: locate the edge of its domain by bisection and
+     * look for a sign change between the edge and ok, so that landmarks crowded into one grid
+     * cell next to the edge (near-extremal Kerr: horizon, photon orbit and ISCO within 0.3%)
+     * are not lost.
+     */
+    private static double rootBeforeEdge(DoubleUnaryOperator f, double nan, double ok, double fOk) {
+        double lo = nan;
+        double hi = ok;
+        double fHi = fOk;
+        for (int i = 0; i < 200 && hi - lo > 1e-15 * hi; i++) {
+            double mid = 0.5 * (lo + hi);
+            double fm = f.applyAsDouble(mid);
+            if (Double.isNaN(fm)) {
+                lo = mid;
+            } else if ((fm < 0.0) != (fOk < 0.0) || fm == 0.0) {
+                return fm == 0.0 ? mid : solve(f, mid, ok);
+            } else {
+                hi = mid;
+                fHi = fm;
+            }
+        }
+        return fHi == 0.0 ? hi : Double.NaN;
     }
 
     /** @return the root of f in [lo, hi], where f changes sign */

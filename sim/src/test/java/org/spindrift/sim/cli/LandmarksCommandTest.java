@@ -60,6 +60,26 @@ class LandmarksCommandTest {
         }
     }
 
+    @ParameterizedTest(name = "{0}")
+    @CsvSource(delimiter = ';', value = {
+        "--family kerr --spin 0.5", "--family kerr-newman --spin 0.5 --charge 0.6",
+        "--family hayward --spin 0.5 --core-length 0.4", "--family bardeen --spin 0.5 --core-charge 0.3",
+        "--family mass-series --spin 0.5 --series 2=0.5,3=-0.1", "--family jp --spin 0.5 --epsilon3 1.5"})
+    void everyFamilyAnswers(String args) throws Exception {
+        List<String> argv = new ArrayList<>(List.of("landmarks", "--json", "--at", "8"));
+        argv.addAll(List.of(args.split(" ")));
+        JsonNode j = new ObjectMapper().readTree(run(0, argv.toArray(new String[0]))[0]);
+        double rh = j.get("horizon_outer").asDouble();
+        // common practice, no source: horizon < photon orbit < marginally bound < ISCO for a spin-0.5 hole
+        assertTrue(rh > 1.0 && rh < j.get("photon_orbit_prograde").asDouble(), args);
+        assertTrue(j.get("photon_orbit_prograde").asDouble() < j.get("marginally_bound_prograde").asDouble(), args);
+        assertTrue(j.get("marginally_bound_prograde").asDouble() < j.get("isco_prograde").asDouble(), args);
+        assertTrue(j.get("isco_prograde").asDouble() < j.get("isco_retrograde").asDouble(), args);
+        JsonNode orbit = j.get("circular_orbits").get(0);
+        assertEquals("prograde", orbit.get("sense").asText());
+        assertTrue(orbit.get("energy").asDouble() < 1.0 && orbit.get("epicyclic_radial_squared").asDouble() > 0, args);
+    }
+
     @Test
     void horizonlessHaywardTableShowsTheOmegaMaximum() {
         String out = run(0, "landmarks", "--family", "hayward", "--spin", "0.9", "--core-length", "1",

@@ -14,14 +14,28 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.junit.jupiter.params.provider.ValueSource;
 
-/** Landmarks against closed forms and independent solutions. */
+/**
+ * Landmarks against closed forms and independent solutions. Equation numbers of Bardeen, Press &amp;
+ * Teukolsky 1972 (ApJ 178, 347) are recalled from memory; the formulas themselves are standard.
+ */
 class LandmarksTest {
     private static final double REL = 1e-10;
 
     @ParameterizedTest(name = "a = {0}")
-    @ValueSource(doubles = {0.0, 0.3, 0.5, 0.7, 0.9, 0.998, -0.4})
+    @ValueSource(doubles = {0.0, 0.3, 0.5, 0.7, 0.9, 0.998, 0.99999, -0.4})
     void kerrLandmarksMatchBardeenPressTeukolsky(double a) {
-        Landmarks l = Landmarks.of(Spacetimes.create("kerr", a, Map.of(), false));
+        checkKerr(Landmarks.of(Spacetimes.create("kerr", a, Map.of(), false)), a);
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @ValueSource(strings = {"kerr-newman:charge", "hayward:core_length", "bardeen:core_charge", "mass-series:c3",
+        "jp:epsilon3"})
+    void everyFamilyHasKerrLandmarksAtZeroDeformation(String familyAndKey) {
+        String[] fk = familyAndKey.split(":");
+        checkKerr(Landmarks.of(Spacetimes.create(fk[0], 0.8, Map.of(fk[1], 0.0), false)), 0.8);
+    }
+
+    private static void checkKerr(Landmarks l, double a) {
         // Boyer & Lindquist 1967; BPT 1972 eq. 2.x (recalled from memory): r_+ = 1 + sqrt(1 - a^2)
         assertRel(1.0 + Math.sqrt(1.0 - a * a), l.horizonOuter(), "horizon");
         // static limit at the equator: g_tt = -(1 - 2/r) there (common practice, no source)

@@ -1,0 +1,235 @@
+package org.spindrift.sim.light;
+
+import org.hipparchus.util.FastMath;
+import org.spindrift.sim.spacetime.Spacetime;
+
+/**
+ * The emitting particles at one emission time tau, interpolated from the two snapshots around it,
+ * with a uniform-grid cell list for neighbour search. Positions come from cubic Hermite
+ * interpolation of (r, theta, phi) with the snapshot values and their coordinate-time derivatives
+ * u^i / u^t (cubic Hermite spline, e.g. de Boor 1978, A Practical Guide to Splines, ch. IV);
+ * u^t is re-normalised from g_{mu nu} u^mu u^nu = -1 at the interpolated point, and the weight
+ * (flare envelope included) is interpolated linearly and divided by u^t, so that the kernel sum
+ * estimates the emitter-frame density (a point source then brightens as g^(3+alpha)). The Cartesian velocity is kept so that a
+ * sample at a nearby time t_e moves the particle by v (t_e - tau).
+ *
+ * <p>Particles are stored sorted by cell (counting sort); the cell size covers the kernel support
+ * 2h plus the largest drift within half a slice spacing, so a query visits 3 x 3 x 3 cells.
+ */
+final class EmissionSlice {
+    final double tau;
+    final float[] x, y, z, vx, vy, vz, ut, ur, uth, uph, w, expo;
+    final int count;
+    final int[] cellStart;
+    final double ox, oy, oz, cell, invCell;
+    final int nx, ny, nz;
+
+    private EmissionSlice(double tau, int count, float[][] cols, int[] cellStart, double ox, double oy,
+                          double oz, double cell, int nx, int ny, int nz) {
+        this.tau = tau;
+        this.count = count;
+        x = cols[0];
+        y = cols[1];
+        z = cols[2];
+        vx = cols[3];
+        vy = cols[4];
+        vz = cols[5];
+        ut = cols[6];
+        ur = cols[7];
+        uth = cols[8];
+        uph = cols[9];
+        w = cols[10];
+        expo = cols[11];
+        this.cellStart = cellStart;
+        this.ox = ox;
+        this.oy = oy;
+        this.oz = oz;
+        this.cell = cell;
+        this.invCell = 1.0 / cell;
+        this.nx = nx;
+        this.ny = ny;
+        this.nz = nz;
+    }
+
+    /**
+     * Builds the slice at time tau.
+     *
+     * @param support the kernel support radius 2h, M
+     * @param halfSpacing half the spacing of slices in time, M (largest |t_e - tau|)
+     * @param rMax particles beyond this radius are left out (they cannot reach any sample)
+     * @return the slice, or null when tau is outside the snapshots or no particle emits
+     */
+    static EmissionSlice build(EmitterHistory h, Spacetime st, double tau, double support, double halfSpacing,
+                               double rMax) {
+        int ns = h.snapshots();
+        if (ns < 2 || tau < h.time(0) || tau > h.time(ns - 1)) {
+            return null;
+        }
+        int k = 0;
+        int hi = ns - 1;
+        while (hi - k > 1) {                       // bisection for t_k <= tau < t_{k+1}
+            int mid = (k + hi) >>> 1;
+            if (h.time(mid) <= tau) {
+                k = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        final double t0 = h.time(k);
+        final double dt = h.time(k + 1) - t0;
+        final double s = (tau - t0) / dt;
+        final double s2 = s * s, s3 = s2 * s;
+        // cubic Hermite basis and its derivative in s
+        final double h00 = 2 * s3 - 3 * s2 + 1, h10 = s3 - 2 * s2 + s, h01 = -2 * s3 + 3 * s2, h11 = s3 - s2;
+        final double d00 = 6 * s2 - 6 * s, d10 = 3 * s2 - 4 * s + 1, d01 = -6 * s2 + 6 * s, d11 = 3 * s2 - 2 * s;
+        final double a2 = st.spin() * st.spin();
+        final int n = h.particles();
+        float[][] tmp = new float[12][n];
+        double[] g = new double[Spacetime.SIZE];
+        int m = 0;
+        double vmax = 0.0;
+        double minX = Double.POSITIVE_INFINITY, minY = minX, minZ = minX;
+        double maxX = Double.NEGATIVE_INFINITY, maxY = maxX, maxZ = maxX;
+        for (int p = 0; p < n; p++) {
+            if (h.state(k, p) != EmitterHistory.ALIVE || h.state(k + 1, p) != EmitterHistory.ALIVE) {
+                continue;
+            }
+            double wgt = (1 - s) * h.weight(k, p) + s * h.weight(k + 1, p);
+            if (!(wgt > 0)) {
+                continue;
+            }
+            double ut0 = h.u(k, p, 0), ut1 = h.u(k + 1, p, 0);
+            double r0 = h.r(k, p), r1 = h.r(k + 1, p);
+            double q0 = h.theta(k, p), q1 = h.theta(k + 1, p);
+            double f0 = h.phi(k, p), f1 = h.phi(k + 1, p);
+            double dr0 = h.u(k, p, 1) / ut0, dr1 = h.u(k + 1, p, 1) / ut1;
+            double dq0 = h.u(k, p, 2) / ut0, dq1 = h.u(k + 1, p, 2) / ut1;
+            double df0 = h.u(k, p, 3) / ut0, df1 = h.u(k + 1, p, 3) / ut1;
+            // unwrap phi: choose the 2 pi branch nearest to the mean angular velocity times dt
+            double jump = f1 - f0 - 0.5 * (df0 + df1) * dt;
+            f1 -= 2 * FastMath.PI * FastMath.rint(jump / (2 * FastMath.PI));
+            double r = h00 * r0 + h10 * dt * dr0 + h01 * r1 + h11 * dt * dr1;
+            if (r > rMax) {
+                continue;
+            }
+            double th = h00 * q0 + h10 * dt * dq0 + h01 * q1 + h11 * dt * dq1;
+            double ph = h00 * f0 + h10 * dt * df0 + h01 * f1 + h11 * dt * df1;
+            double rd = (d00 * r0 + d10 * dt * dr0 + d01 * r1 + d11 * dt * dr1) / dt;
+            double thd = (d00 * q0 + d10 * dt * dq0 + d01 * q1 + d11 * dt * dq1) / dt;
+            double phd = (d00 * f0 + d10 * dt * df0 + d01 * f1 + d11 * dt * df1) / dt;
+            // u^t from the normalisation g_{mu nu} u^mu u^nu = -1 with u^i = u^t dx^i/dt
+            st.covariant(r, th, g);
+            double norm = g[Spacetime.TT] + 2 * g[Spacetime.TP] * phd + g[Spacetime.PP] * phd * phd
+                    + g[Spacetime.RR] * rd * rd + g[Spacetime.HH] * thd * thd;
+            double uT = norm < 0 ? 1.0 / FastMath.sqrt(-norm) : (1 - s) * ut0 + s * ut1;
+            double sth = FastMath.sin(th), cth = FastMath.cos(th);
+            double sph = FastMath.sin(ph), cph = FastMath.cos(ph);
+            double big = FastMath.sqrt(r * r + a2);
+            // DESIGN section 3 Cartesian map and its time derivative
+            double px = big * sth * cph, py = big * sth * sph, pz = r * cth;
+            double dBig = r * rd / big;
+            double vxx = dBig * sth * cph + big * cth * cph * thd - big * sth * sph * phd;
+            double vyy = dBig * sth * sph + big * cth * sph * thd + big * sth * cph * phd;
+            double vzz = rd * cth - r * sth * thd;
+            vmax = FastMath.max(vmax, FastMath.sqrt(vxx * vxx + vyy * vyy + vzz * vzz));
+            tmp[0][m] = (float) px;
+            tmp[1][m] = (float) py;
+            tmp[2][m] = (float) pz;
+            tmp[3][m] = (float) vxx;
+            tmp[4][m] = (float) vyy;
+            tmp[5][m] = (float) vzz;
+            tmp[6][m] = (float) uT;
+            tmp[7][m] = (float) (uT * rd);
+            tmp[8][m] = (float) (uT * thd);
+            tmp[9][m] = (float) (uT * phd);
+            // rest-frame density n = rho_coord / (u^t sqrt(-g)) from the number current N^mu = n u^mu
+            // (MTW 1973, sect. 22.3); sqrt(-g) = 1 in the Cartesian map for the Kerr-like families
+            tmp[10][m] = (float) (wgt / uT);
+            tmp[11][m] = (float) (2.0 + h.spectralIndex(p));  // exponent of g in I = int g^(2+alpha) rho dlambda
+            minX = FastMath.min(minX, px);
+            minY = FastMath.min(minY, py);
+            minZ = FastMath.min(minZ, pz);
+            maxX = FastMath.max(maxX, px);
+            maxY = FastMath.max(maxY, py);
+            maxZ = FastMath.max(maxZ, pz);
+            m++;
+        }
+        if (m == 0) {
+            return null;
+        }
+        double cell = support + vmax * halfSpacing;
+        // cap the grid at 64^3 cells; bigger cells only cost more candidates
+        double span = FastMath.max(maxX - minX, FastMath.max(maxY - minY, maxZ - minZ));
+        cell = FastMath.max(cell, span / 64.0);
+        int gx = (int) ((maxX - minX) / cell) + 1;
+        int gy = (int) ((maxY - minY) / cell) + 1;
+        int gz = (int) ((maxZ - minZ) / cell) + 1;
+        int cells = gx * gy * gz;
+        int[] cellOf = new int[m];
+        int[] start = new int[cells + 1];
+        for (int p = 0; p < m; p++) {
+            int cx = FastMath.min(gx - 1, (int) ((tmp[0][p] - minX) / cell));
+            int cy = FastMath.min(gy - 1, (int) ((tmp[1][p] - minY) / cell));
+            int cz = FastMath.min(gz - 1, (int) ((tmp[2][p] - minZ) / cell));
+            int c = (cx * gy + cy) * gz + cz;
+            cellOf[p] = c;
+            start[c + 1]++;
+        }
+        for (int c = 0; c < cells; c++) {
+            start[c + 1] += start[c];
+        }
+        int[] fill = new int[cells];
+        float[][] cols = new float[12][m];
+        for (int p = 0; p < m; p++) {              // stable counting sort by cell
+            int c = cellOf[p];
+            int dst = start[c] + fill[c]++;
+            for (int q = 0; q < 12; q++) {
+                cols[q][dst] = tmp[q][p];
+            }
+        }
+        return new EmissionSlice(tau, m, cols, start, minX, minY, minZ, cell, gx, gy, gz);
+    }
+
+    /**
+     * Emissivity sum over the particles near a sample: sum_p w_p W(|x - x_p(t_e)|, h) g_p^(2+alpha_p)
+     * with x_p(t_e) = x_p(tau) + v_p (t_e - tau).
+     */
+    double emissivity(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
+                      double invH, double norm, double support2) {
+        int cx = (int) FastMath.floor((sx - ox) * invCell);
+        int cy = (int) FastMath.floor((sy - oy) * invCell);
+        int cz = (int) FastMath.floor((sz - oz) * invCell);
+        if (cx < -1 || cy < -1 || cz < -1 || cx > nx || cy > ny || cz > nz) {
+            return 0.0;
+        }
+        double sum = 0.0;
+        int x0 = FastMath.max(0, cx - 1), x1 = FastMath.min(nx - 1, cx + 1);
+        int y0 = FastMath.max(0, cy - 1), y1 = FastMath.min(ny - 1, cy + 1);
+        int z0 = FastMath.max(0, cz - 1), z1 = FastMath.min(nz - 1, cz + 1);
+        for (int ix = x0; ix <= x1; ix++) {
+            for (int iy = y0; iy <= y1; iy++) {
+                int base = (ix * ny + iy) * nz;
+                int from = cellStart[base + z0];
+                int to = cellStart[base + z1 + 1];        // cells along z are contiguous
+                for (int p = from; p < to; p++) {
+                    double ddx = sx - (x[p] + vx[p] * dtE);
+                    double ddy = sy - (y[p] + vy[p] * dtE);
+                    double ddz = sz - (z[p] + vz[p] * dtE);
+                    double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
+                    if (d2 >= support2) {
+                        continue;
+                    }
+                    double gInv = Redshift.inverse(pr, pth, pphi, ut[p], ur[p], uth[p], uph[p]);
+                    if (!(gInv > 0)) {
+                        continue;
+                    }
+                    double e = expo[p];
+                    // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
+                    double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
+                    sum += w[p] * Kernel.w(d2, invH, norm) * gp;
+                }
+            }
+        }
+        return sum;
+    }
+}

@@ -1,0 +1,68 @@
+package org.spindrift.sim.light;
+
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.io.IOException;
+import org.hipparchus.util.FastMath;
+import org.spindrift.sim.run.RunContext;
+import org.spindrift.sim.run.RunStage;
+import org.spindrift.sim.scenario.ScenarioChecks;
+
+/**
+ * The light stage of {@code spindrift run}: ray table, frames, centroid track, light curve,
+ * image cube, mock astrometry and their plots, written into the run folder; adds a {@code light}
+ * object to the manifest and the summary.
+ */
+public final class LightRunStage implements RunStage {
+    /** Key of the {@link LightResult} in the run's products. */
+    public static final String RESULT = "light";
+
+    @Override public String name() {
+        return "light";
+    }
+
+    @Override public void run(RunContext ctx) throws IOException {
+        LightSettings s = LightSettings.of(ctx.scenario());
+        // rays stop where particles are captured: outer horizon plus margin, or the surface
+        double stop = ScenarioChecks.captureRadius(ctx.spacetime(), ctx.landmarks());
+        EmitterHistory h = new HistoryEmitters(ctx.history(), ctx.scenario().sources());
+        if (ctx.progress()) {
+            System.err.printf("spindrift: light: tracing %d x %d rays%n", s.pixels(), s.pixels());
+        }
+        LightResult r = LightStage.run(s, ctx.spacetime(), stop, h, ctx.threads());
+        LightOutputs.write((name, w) -> ctx.archive().write(name, w), r);
+        LightPlots.write((name, w) -> ctx.archive().write(name, w), r);
+        ctx.products().put(RESULT, r);
+        ObjectNode m = ctx.manifest().putObject("light");
+        m.put("lensing", s.lensing());
+        m.put("pixels", s.pixels());
+        m.put("field_of_view_M", s.fieldOfViewM());
+        m.put("pixel_uas", r.camera().pixelSize() * s.uasPerM());
+        m.put("camera_distance_M", r.camera().distance());
+        m.put("stop_radius_M", stop);
+        m.put("emission_radius_M", r.emissionRadius());
+        m.put("smoothing_length_M", r.smoothingLength());
+        m.put("rays", r.table().rays());
+        m.put("samples", r.table().samples());
+        m.put("frames", r.timesM().length);
+        m.put("time_origin", "observer time = emission coordinate time + ray delay; delay = elapsed coordinate"
+                + " time from the camera plane at distance d minus d + 2 M ln(d/M)");
+        m.put("steady_source_flux", r.steadyFlux());
+        m.putArray("fully_covered_min").add(r.coveredFrom() * s.minutesPerM()).add(r.coveredTo() * s.minutesPerM());
+        ObjectNode sm = ctx.summary().putObject("light");
+        sm.put("frames", r.timesM().length);
+        if (r.timesM().length > 0) {
+            sm.put("t_first_min", r.timesM()[0] * s.minutesPerM());
+            sm.put("t_last_min", r.timesM()[r.timesM().length - 1] * s.minutesPerM());
+        }
+        double maxOff = 0, mean = 0, peak = 0;
+        for (FrameMoments fm : r.moments()) {
+            if (!Double.isNaN(fm.x())) {
+                maxOff = FastMath.max(maxOff, FastMath.hypot(fm.x(), fm.y()));
+            }
+            mean += fm.flux() / r.moments().size();
+            peak = FastMath.max(peak, fm.flux());
+        }
+        sm.put("max_centroid_offset_uas", maxOff * s.uasPerM());
+        sm.put("peak_over_mean_flux", mean > 0 ? peak / mean : 0.0);
+    }
+}

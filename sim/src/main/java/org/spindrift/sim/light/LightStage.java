@@ -1,0 +1,190 @@
+package org.spindrift.sim.light;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Random;
+import org.hipparchus.util.FastMath;
+import org.spindrift.sim.spacetime.Spacetime;
+
+/**
+ * The light stage of a run (DESIGN section 7): traces the ray table once, renders the frames with
+ * slow light, measures flux, centroid and moments, and applies the instrument (beam, steady
+ * point source, astrometric noise).
+ *
+ * <p>Observer-time origin: t_o = t_e + delay, with the delay the ray's elapsed coordinate time
+ * minus the flat travel time from the camera plane and the leading Shapiro term
+ * (see {@link RayTracer}); a photon emitted at coordinate time t_e from the sky plane through the
+ * hole far from it arrives at t_o = t_e. Frames run at the frame cadence (the snapshot cadence
+ * when none is given) from t_first + d_lo to t_last + d_hi, where t_first, t_last are the first
+ * and last snapshot times and d_lo, d_hi the 2nd and 98th percentiles of the delays of the
+ * samples in the radial range the gas occupies; emission before the first and after the last
+ * snapshot counts as zero (the gas is not there), so the first and last frames may miss light
+ * from the far side.
+ */
+public final class LightStage {
+    /** Sample spacing along rays in units of the smoothing length. */
+    static final double SAMPLES_PER_H = 0.5;
+
+    private LightStage() {
+    }
+
+    /**
+     * Runs the stage.
+     *
+     * @param stopRadius inner stop radius of the rays (horizon plus margin, or surface), M
+     * @param threads worker threads (the results do not depend on it)
+     */
+    public static LightResult run(LightSettings s, Spacetime st, double stopRadius, EmitterHistory history,
+                                  int threads) {
+        Camera cam = s.camera();
+        double h = smoothingLength(cam);
+        double rEm = emissionRadius(history, h, s.fieldOfViewM(), stopRadius);
+        TraceSettings ts = TraceSettings.of(rEm, stopRadius, SAMPLES_PER_H * h, s.lensing())
+                .withTolerance(1.0e-8, 1.0e-10);
+        long t0 = System.nanoTime();
+        RayTable table = RayTable.trace(st, cam, ts, threads);
+        double secs = (System.nanoTime() - t0) * 1e-9;
+        double[] rRange = radialRange(history);
+        double[] times = frameTimes(history, table.delayQuantiles(rRange[0] - 2 * h, rRange[1] + 2 * h, 0.02, 0.98),
+                s.frameCadenceM());
+        int n = cam.pixels();
+        float[][] images = new float[times.length][];
+        float[][] raw = beamOn(s) ? new float[times.length][] : images;
+        List<FrameMoments> moments = new ArrayList<>(times.length);
+        GaussianBeam beam = beamOn(s)
+                ? new GaussianBeam(s.beamFwhmUas() / (s.uasPerM() * cam.pixelSize()), n) : null;
+        try (EmissionRenderer r = new EmissionRenderer(table, history, st, h, threads)) {
+            for (int f = 0; f < times.length; f++) {
+                float[] img = new float[n * n];
+                r.render(times[f], img);
+                moments.add(FrameMoments.of(img, cam));
+                raw[f] = img;
+                if (beam != null) {
+                    float[] b = new float[n * n];
+                    beam.apply(img, b);
+                    images[f] = b;
+                } else {
+                    images[f] = img;
+                }
+            }
+        }
+        // mean flare flux over the fully covered frames (all frames when none is covered)
+        double coveredFrom = history.time(0) + table.delayRange()[1];
+        double coveredTo = history.time(history.snapshots() - 1) + table.delayRange()[0];
+        double mean = 0;
+        int count = 0;
+        for (int f = 0; f < times.length; f++) {
+            if (times[f] >= coveredFrom - 1e-9 && times[f] <= coveredTo + 1e-9) {
+                mean += moments.get(f).flux();
+                count++;
+            }
+        }
+        if (count == 0) {
+            for (FrameMoments m : moments) {
+                mean += m.flux();
+            }
+            count = moments.size();
+        }
+        mean /= FastMath.max(1, count);
+        // steady point source at the hole, flux ratio f to the mean flare flux: the apparent
+        // centroid is F c / (F + F_s) (flux-weighted mean, common practice)
+        double fs = s.steadyFluxRatio() * mean;
+        double[] sx = new double[times.length];
+        double[] sy = new double[times.length];
+        for (int f = 0; f < times.length; f++) {
+            FrameMoments m = moments.get(f);
+            double tot = m.flux() + fs;
+            sx[f] = tot > 0 && m.flux() > 0 ? m.flux() * m.x() / tot : 0.0;
+            sy[f] = tot > 0 && m.flux() > 0 ? m.flux() * m.y() / tot : 0.0;
+        }
+        LightResult.MockAstrometry mock = s.noiseUas() > 0 ? mock(s, times, sx, sy) : null;
+        return new LightResult(s, cam, times, moments, images, raw, fs, sx, sy, mock, h, rEm,
+                new LightResult.TableStats(table.rays(), table.samples(), table.steps(), secs),
+                coveredFrom, coveredTo);
+    }
+
+    private static boolean beamOn(LightSettings s) {
+        return s.beamFwhmUas() > 0;
+    }
+
+    /** @return smallest and largest radius of alive particles over the history */
+    static double[] radialRange(EmitterHistory h) {
+        double lo = Double.POSITIVE_INFINITY, hi = 0;
+        for (int s = 0; s < h.snapshots(); s++) {
+            for (int p = 0; p < h.particles(); p++) {
+                if (h.state(s, p) == EmitterHistory.ALIVE) {
+                    lo = FastMath.min(lo, h.r(s, p));
+                    hi = FastMath.max(hi, h.r(s, p));
+                }
+            }
+        }
+        return lo <= hi ? new double[] {lo, hi} : new double[] {0.0, Double.POSITIVE_INFINITY};
+    }
+
+    /** Kernel smoothing length: one pixel, at least 0.1 M. */
+    static double smoothingLength(Camera cam) {
+        return FastMath.max(0.1, cam.pixelSize());
+    }
+
+    /**
+     * Emission radius: the largest radius any alive particle reaches, plus the kernel support and
+     * a margin, at least 3 M beyond the stop radius and at most the larger of the field of view
+     * and 20 M (farther particles rarely lens into the field).
+     */
+    static double emissionRadius(EmitterHistory h, double smoothing, double fov, double stopRadius) {
+        double rMax = 0;
+        for (int s = 0; s < h.snapshots(); s++) {
+            for (int p = 0; p < h.particles(); p++) {
+                if (h.state(s, p) == EmitterHistory.ALIVE) {
+                    rMax = FastMath.max(rMax, h.r(s, p));
+                }
+            }
+        }
+        double r = rMax + 2.0 * smoothing + 0.5;
+        return FastMath.min(FastMath.max(r, stopRadius + 3.0), FastMath.max(fov, 20.0));
+    }
+
+    /** Frame times from t_first + delays[0] to t_last + delays[1] at the cadence (the snapshot cadence if NaN). */
+    static double[] frameTimes(EmitterHistory h, double[] delays, double cadence) {
+        int ns = h.snapshots();
+        double first = h.time(0);
+        double last = h.time(ns - 1);
+        double dt = Double.isNaN(cadence) ? (last - first) / FastMath.max(1, ns - 1) : cadence;
+        double lo = first + delays[0];
+        double hi = last + delays[1];
+        int count = (int) FastMath.floor((hi - lo) / dt + 1e-9) + 1;
+        double[] t = new double[count];
+        for (int i = 0; i < count; i++) {
+            t[i] = lo + i * dt;
+        }
+        return t;
+    }
+
+    private static LightResult.MockAstrometry mock(LightSettings s, double[] t, double[] x, double[] y) {
+        double step = s.noiseCadenceMin() / s.minutesPerM();
+        int count = (int) FastMath.floor((t[t.length - 1] - t[0]) / step + 1e-9) + 1;
+        double sigma = s.noiseUas() / s.uasPerM();
+        Random rng = new Random(s.seed() ^ 0x5DEECE66DL);   // own stream, fixed by the scenario seed
+        double[] tm = new double[count], mx = new double[count], my = new double[count];
+        for (int i = 0; i < count; i++) {
+            double te = t[0] + i * step;
+            tm[i] = te;
+            mx[i] = interpolate(t, x, te) + sigma * rng.nextGaussian();
+            my[i] = interpolate(t, y, te) + sigma * rng.nextGaussian();
+        }
+        return new LightResult.MockAstrometry(tm, mx, my, s.noiseUas());
+    }
+
+    /** Linear interpolation on an increasing grid. */
+    static double interpolate(double[] t, double[] v, double te) {
+        if (t.length == 1 || te <= t[0]) {
+            return v[0];
+        }
+        int j = 1;
+        while (j < t.length - 1 && t[j] < te) {
+            j++;
+        }
+        double f = (te - t[j - 1]) / (t[j] - t[j - 1]);
+        return v[j - 1] + FastMath.min(1.0, f) * (v[j] - v[j - 1]);
+    }
+}

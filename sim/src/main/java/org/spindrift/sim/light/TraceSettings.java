@@ -1,0 +1,36 @@
+package org.spindrift.sim.light;
+
+/**
+ * Settings of the backward ray tracer.
+ *
+ * @param emissionRadius outer radius of the emission region, M: samples are kept inside it and a
+ *     ray moving outwards beyond it ends
+ * @param stopRadius inner stop radius, M: the outer horizon plus a margin, or the surface of a
+ *     horizonless object (from the landmarks)
+ * @param endRadius rays moving outwards end beyond max(emissionRadius, endRadius), M
+ * @param sampleSpacing largest spacing of samples along the ray inside the emission region, M
+ * @param relativeTolerance relative tolerance of the Dormand-Prince 5(4) step control
+ * @param absoluteTolerance absolute tolerance of the step control
+ * @param maxSteps step budget per ray (the ray fails beyond it)
+ * @param lensing false for straight lines (no bending, no redshift from the photon path; delays kept)
+ */
+public record TraceSettings(double emissionRadius, double stopRadius, double endRadius,
+                            double sampleSpacing, double relativeTolerance, double absoluteTolerance,
+                            int maxSteps, boolean lensing) {
+    /** Default tolerances: tight enough for the validation checks (relative 1e-9). */
+    public static TraceSettings of(double emissionRadius, double stopRadius, double sampleSpacing,
+                                   boolean lensing) {
+        return new TraceSettings(emissionRadius, stopRadius, 0.0, sampleSpacing, 1.0e-9, 1.0e-11,
+                200_000, lensing);
+    }
+
+    public TraceSettings withEndRadius(double r) {
+        return new TraceSettings(emissionRadius, stopRadius, r, sampleSpacing, relativeTolerance,
+                absoluteTolerance, maxSteps, lensing);
+    }
+
+    public TraceSettings withTolerance(double rtol, double atol) {
+        return new TraceSettings(emissionRadius, stopRadius, endRadius, sampleSpacing, rtol, atol,
+                maxSteps, lensing);
+    }
+}

@@ -1,0 +1,114 @@
+package org.spindrift.sim.light;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.spindrift.sim.spacetime.Spacetime;
+
+/** The light files in a run folder, read back by an independent reader (astropy). */
+class LightOutputsTest {
+    @TempDir
+    Path dir;
+
+    private static LightResult smallRun() {
+        Spacetime st = LightTestSupport.kerr(0.3);
+        CircularSpotHistory h = new CircularSpotHistory(st, 7.0, 0.0, 0.4, 200, 0.0, 300.0, 100, 1.0, 11L);
+        LightSettings s = new LightSettings(50.0, 30.0, 24.0, 40, 3.0, true, 4.0e6, 8.0, 20.0, 0.5, 5.0, 1.0, 3L);
+        return LightStage.run(s, st, LightTestSupport.stopRadius(0.3), h, 2);
+    }
+
+    @Test
+    void filesHaveHeadersAndAstropyReadsTheWcs() throws Exception {
+        LightResult r = smallRun();
+        List<String> names = LightOutputs.write(LightOutputs.folder(dir), r);
+        names.addAll(LightPlots.write(LightOutputs.folder(dir), r));
+        for (String n : names) {
+            assertTrue(Files.size(dir.resolve(n)) > 0, n);
+            String keep = System.getenv("SPINDRIFT_KEEP_TEST_OUTPUT");   // to look at the plots by eye
+            if (keep != null) {
+                Path to = Path.of(keep).resolve(n);
+                Files.createDirectories(to.getParent());
+                Files.copy(dir.resolve(n), to, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+            }
+        }
+        List<String> c = Files.readAllLines(dir.resolve("centroid.csv"), StandardCharsets.UTF_8);
+        assertEquals(LightOutputs.CENTROID_HEADER, c.get(0));
+        assertEquals(r.timesM().length + 1, c.size());
+        assertTrue(Files.exists(dir.resolve("mock_astrometry.csv")), "noise asked: mock data written");
+        try (var s = Files.list(dir)) {
+            assertTrue(s.noneMatch(p -> p.getFileName().toString().endsWith(".partial")), "no partial files left");
+        }
+
+        double pixDeg = r.camera().pixelSize() * r.settings().uasPerM() / 3.6e9;
+        String py = String.join("\n",
+                "import sys",
+                "from astropy.io import fits",
+                "from astropy.wcs import WCS",
+                "from astropy.wcs.utils import proj_plane_pixel_scales",
+                "h = fits.open(sys.argv[1])[0]",
+                "w = WCS(h.header)",
+                "c = w.celestial",
+                "s = proj_plane_pixel_scales(c)",
+                "ra, dec = c.wcs_pix2world([[(h.header['NAXIS1'] - 1) / 2.0, (h.header['NAXIS2'] - 1) / 2.0]], 0)[0]",
+                "print(w.naxis, h.data.shape[0], s[0], s[1], c.wcs.cdelt[0], ra, dec, w.wcs.ctype[2])");
+        String out = python(py, dir.resolve("images.fits").toString());
+        if (out == null) {
+            return;
+        }
+        String[] f = out.trim().split("\\s+");
+        assertEquals(3, Integer.parseInt(f[0]), "three WCS axes");
+        assertEquals(r.images().length, Integer.parseInt(f[1]), "frames along NAXIS3");
+        // pixel scale = field of view / N (astropy.wcs, Debian python3-astropy as independent reader)
+        double expected = r.camera().fieldOfView() / r.camera().pixels() * r.settings().uasPerM() / 3.6e9;
+        assertEquals(expected, pixDeg, 1e-15);
+        assertEquals(expected, Double.parseDouble(f[2]), 1e-6 * expected, "x pixel scale");
+        assertEquals(expected, Double.parseDouble(f[3]), 1e-6 * expected, "y pixel scale");
+        assertTrue(Double.parseDouble(f[4]) < 0, "CDELT1 negative: east to the left");
+        // image centre maps to the reference point (the black hole), RA 0 or 360, Dec 0
+        double ra = Double.parseDouble(f[5]);
+        assertEquals(0.0, Math.min(ra, 360.0 - ra), 1e-12);
+        assertEquals(0.0, Double.parseDouble(f[6]), 1e-12);
+        assertEquals("TIME", f[7]);
+    }
+
+    /**
+     * The Debian interpreter /usr/bin/python3 when present (the python3-astropy package installs
+     * there; a python3 earlier on PATH, e.g. from pyenv, may lack it), else python3 from PATH.
+     */
+    static String interpreter() {
+        return Files.isExecutable(Path.of("/usr/bin/python3")) ? "/usr/bin/python3" : "python3";
+    }
+
+    /** Runs python3 with a script; null (test skipped) when astropy is missing, unless required. */
+    static String python(String script, String arg) throws IOException, InterruptedException {
+        boolean required = "1".equals(System.getenv("SPINDRIFT_REQUIRE_EXTERNAL"));
+        Process probe;
+        try {
+            probe = new ProcessBuilder(interpreter(), "-c", "import astropy.wcs").redirectErrorStream(true).start();
+        } catch (IOException e) {
+            probe = null;
+        }
+        boolean ok = probe != null && probe.waitFor() == 0;
+        if (!ok) {
+            if (required) {
+                throw new AssertionError("python3-astropy is required (SPINDRIFT_REQUIRE_EXTERNAL=1) but missing");
+            }
+            System.out.println("skipping: python3-astropy not installed");
+            assumeTrue(false, "python3-astropy not installed");
+            return null;
+        }
+        Process p = new ProcessBuilder(interpreter(), "-c", script, arg).redirectErrorStream(true).start();
+        String text = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertEquals(0, p.waitFor(), "python3 failed: " + text);
+        String[] lines = text.trim().split("\n");
+        return lines[lines.length - 1];
+    }
+}

@@ -1,0 +1,176 @@
+package org.spindrift.viewer.app;
+
+import static org.lwjgl.opengl.GL33C.*;
+
+import org.spindrift.viewer.data.RunInfo;
+import org.spindrift.viewer.data.SnapshotStream;
+import org.spindrift.viewer.gl.FontAtlas;
+import org.spindrift.viewer.gl.Overlay;
+import org.spindrift.viewer.scene.Palette;
+import org.spindrift.viewer.scene.SceneView;
+import org.spindrift.viewer.sky.SkyPanel;
+import org.spindrift.viewer.ui.Hud;
+import org.spindrift.viewer.ui.Layout;
+
+/**
+ * Draws one complete frame (3D view, sky panel, title and time bars, help) into the bound
+ * framebuffer. Shared by the window, the frame export and the benchmark, so all three show the
+ * same picture.
+ */
+public final class FrameComposer implements AutoCloseable {
+    private final RunInfo info;
+    private final SceneView scene;
+    private final SkyPanel sky;
+    private final FontAtlas font;
+    private final Overlay overlay;
+    private final Hud hud;
+    private final Layout layout = new Layout();
+    private final boolean bare;
+    private boolean help;
+    private boolean profile;
+    private long prepareNanos;
+    private long sceneNanos;
+    private long panelNanos;
+
+    /**
+     * @param sky  the sky panel, or null for none
+     * @param bare draw the 3D view only, filling the frame (no panels, no text)
+     */
+    public FrameComposer(RunInfo info, SnapshotStream stream, SkyPanel sky, boolean bare) {
+        this.info = info;
+        this.bare = bare;
+        this.scene = new SceneView(info, stream);
+        this.sky = sky;
+        this.font = new FontAtlas();
+        this.overlay = new Overlay(font);
+        this.hud = new Hud(info);
+        if (!info.sourceNames().isEmpty()) {
+            hud.sourceNote("(light from the centre of " + info.sourceNames().get(0) + ")");
+        }
+    }
+
+    public SceneView scene() {
+        return scene;
+    }
+
+    public Hud hud() {
+        return hud;
+    }
+
+    public Layout layout() {
+        return layout;
+    }
+
+    public FontAtlas font() {
+        return font;
+    }
+
+    public void toggleHelp() {
+        help = !help;
+    }
+
+    public void help(boolean on) {
+        help = on;
+    }
+
+    /**
+     * Observer time of the light from the first source's centre at emitter time t (flat-space
+     * delay, see {@link org.spindrift.viewer.scene.ObserverGeometry#observerTime}); t itself when
+     * the run has no sources.
+     */
+    public double observerTime(Playback p) {
+        if (info.sourceNames().isEmpty()) {
+            return p.now();
+        }
+        float[] a = info.centres()[p.index()];
+        float[] b = info.centres()[p.next()];
+        double m = p.mix();
+        double x = a[0] + m * (b[0] - a[0]);
+        double y = a[1] + m * (b[1] - a[1]);
+        double z = a[2] + m * (b[2] - a[2]);
+        return scene.observer().observerTime(p.now(), x, y, z);
+    }
+
+    /**
+     * Renders the frame for the playback state.
+     *
+     * @param block wait for the snapshot reader (export, benchmark)
+     * @param wallNow wall-clock seconds, for transient messages
+     */
+    public void render(int fbW, int fbH, Playback p, boolean block, double wallNow) {
+        layout.update(fbW, fbH, bare, sky != null);
+        glDisable(GL_SCISSOR_TEST);
+        glViewport(0, 0, fbW, fbH);
+        glClearColor(((Palette.BACKGROUND >>> 24) & 0xff) / 255f, ((Palette.BACKGROUND >>> 16) & 0xff) / 255f,
+                ((Palette.BACKGROUND >>> 8) & 0xff) / 255f, 1f);
+        glClear(GL_COLOR_BUFFER_BIT | GL_DEPTH_BUFFER_BIT);
+        int a = p.index();
+        int b = p.next();
+        long t0 = 0;
+        if (profile) {
+            glFinish();
+            t0 = System.nanoTime();
+        }
+        scene.prepare(a, b, p.direction(), block);
+        if (profile) {
+            glFinish();
+            long t1 = System.nanoTime();
+            prepareNanos += t1 - t0;
+            t0 = t1;
+        }
+        scene.draw(layout.viewX, layout.glY(layout.viewY, layout.viewH), layout.viewW, layout.viewH, p.now(), a, b,
+                p.mix());
+        if (profile) {
+            glFinish();
+            sceneNanos += System.nanoTime() - t0;
+        }
+        if (bare) {
+            return;
+        }
+        if (profile) {
+            t0 = System.nanoTime();
+        }
+        glViewport(0, 0, fbW, fbH);
+        overlay.begin(fbW, fbH);
+        double tObs = observerTime(p);
+        if (sky != null) {
+            sky.draw(overlay, scene.maps(), layout.skyX, layout.skyY, layout.skyW, layout.skyH, fbW, fbH, tObs);
+        }
+        hud.titleBar(overlay, layout, info.particles());
+        hud.colourBar(overlay, layout, scene);
+        if (scene.ringsShown()) {
+            hud.legend(overlay, layout, scene);
+        }
+        hud.timeBar(overlay, layout, p.now(), tObs, p.fraction(), p.playing(), p.speed(), p.index(), wallNow);
+        if (help) {
+            hud.help(overlay, layout);
+        }
+        overlay.flush();
+        if (profile) {
+            glFinish();
+            panelNanos += System.nanoTime() - t0;
+        }
+    }
+
+    /** Benchmark only: time each part of the frame (with glFinish between parts). */
+    public void profile(boolean on) {
+        profile = on;
+        prepareNanos = 0;
+        sceneNanos = 0;
+        panelNanos = 0;
+    }
+
+    /** @return nanoseconds spent waiting for and uploading snapshots, drawing the 3D view, the panels */
+    public long[] profileNanos() {
+        return new long[] {prepareNanos, sceneNanos, panelNanos};
+    }
+
+    @Override public void close() {
+        scene.close();
+        overlay.close();
+        font.close();
+        if (sky != null) {
+            sky.close();
+        }
+    }
+}

@@ -1,0 +1,141 @@
+package org.spindrift.viewer.app;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.viewer.data.ArchiveRunData;
+import org.spindrift.viewer.data.RunData;
+import org.spindrift.viewer.data.RunInfo;
+import org.spindrift.viewer.data.SnapshotStream;
+import org.spindrift.viewer.gl.GlContext;
+import org.spindrift.viewer.scene.Quantity;
+import org.spindrift.viewer.scene.SceneView;
+import org.spindrift.viewer.sky.CentroidTrack;
+import org.spindrift.viewer.sky.ImageCube;
+import org.spindrift.viewer.sky.SkyPanel;
+
+/**
+ * Everything one replay needs, opened in a safe order (run folder and sky files first, so bad
+ * input is reported before any window appears; then the OpenGL context and the GPU resources)
+ * and closed in reverse.
+ */
+public final class ViewerSession implements AutoCloseable {
+    /** Initial camera. */
+    public enum CameraStart {
+        DEFAULT, OBSERVER, FACE_ON;
+
+        public static CameraStart parse(String s) {
+            String k = s.trim().toLowerCase(java.util.Locale.ROOT).replace('_', '-');
+            return switch (k) {
+                case "default" -> DEFAULT;
+                case "observer" -> OBSERVER;
+                case "face-on", "faceon" -> FACE_ON;
+                default -> null;
+            };
+        }
+    }
+
+    /** Parsed command-line options. */
+    public record Options(Path runDir, int width, int height, Quantity colour, CameraStart camera,
+                          Double cameraDistance, boolean bare, boolean noSky, int samples) {
+    }
+
+    private final RunData run;
+    private final GlContext gl;
+    private final SnapshotStream stream;
+    private final FrameComposer composer;
+    private final Playback playback;
+    private final Options options;
+
+    /**
+     * @param visible open a visible window (else a hidden one for offscreen work)
+     */
+    public ViewerSession(Options o, boolean visible) {
+        this.options = o;
+        RunData r = ArchiveRunData.open(o.runDir());
+        ImageCube cube = null;
+        CentroidTrack track = null;
+        GlContext ctx = null;
+        SnapshotStream s = null;
+        FrameComposer c = null;
+        try {
+            RunInfo info = r.info();
+            if (!o.bare() && !o.noSky()) {
+                Path img = o.runDir().resolve(ArchiveLayout.IMAGES);
+                Path csv = o.runDir().resolve(ArchiveLayout.CENTROID);
+                if (Files.isRegularFile(img)) {
+                    cube = ImageCube.open(img, info.mSeconds(), info.mMicroarcsec());
+                }
+                if (Files.isRegularFile(csv)) {
+                    track = CentroidTrack.read(csv, info.mSeconds());
+                }
+            }
+            ctx = GlContext.open(o.width(), o.height(), "Spindrift replay - " + info.title(), visible, visible ? o.samples() : 0);
+            s = new SnapshotStream(r);
+            SkyPanel sky = o.bare() || o.noSky() || (cube == null && track == null) ? null : new SkyPanel(cube, track);
+            cube = null; // owned by the panel now
+            c = new FrameComposer(info, s, sky, o.bare());
+            c.scene().quantity(o.colour());
+            applyCamera(c.scene(), o);
+            playback = new Playback(info.times());
+        } catch (RuntimeException e) {
+            if (c != null) {
+                c.close();
+            }
+            if (s != null) {
+                s.close();
+            }
+            if (cube != null) {
+                cube.close();
+            }
+            if (ctx != null) {
+                ctx.close();
+            }
+            r.close();
+            throw e;
+        }
+        this.run = r;
+        this.gl = ctx;
+        this.stream = s;
+        this.composer = c;
+    }
+
+    /** Puts the camera where the options ask. */
+    public static void applyCamera(SceneView scene, Options o) {
+        switch (o.camera()) {
+            case OBSERVER -> scene.observerCamera();
+            case FACE_ON -> scene.faceOnCamera();
+            default -> scene.resetCamera();
+        }
+        if (o.cameraDistance() != null) {
+            scene.camera().zoom(o.cameraDistance() / scene.camera().distance());
+        }
+    }
+
+    public Options options() {
+        return options;
+    }
+
+    public RunInfo info() {
+        return run.info();
+    }
+
+    public GlContext gl() {
+        return gl;
+    }
+
+    public FrameComposer composer() {
+        return composer;
+    }
+
+    public Playback playback() {
+        return playback;
+    }
+
+    @Override public void close() {
+        composer.close();
+        stream.close();
+        gl.close();
+        run.close();
+    }
+}

@@ -1,0 +1,119 @@
+package org.spindrift.viewer;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.util.Locale;
+import nom.tam.fits.BinaryTable;
+import nom.tam.fits.BinaryTableHDU;
+import nom.tam.fits.Fits;
+import nom.tam.fits.FitsException;
+import nom.tam.fits.ImageHDU;
+import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.archive.RunArchiveWriter;
+
+/**
+ * Invented sky products for the synthetic runs (no ray tracing: straight projection onto the
+ * observer's screen, flat-space delays), in the shape the viewer reads: centroid.csv with
+ * t_obs_M, x_uas, y_uas and images.fits with a frame cube and a table of frame times.
+ */
+final class SyntheticSky {
+    static final int PIX = 64;
+    static final double FOV_M = 40.0;
+
+    private final double inc;
+    private final double pa;
+    private final double uasPerM;
+    private final StringBuilder csv = new StringBuilder("t_obs_M,t_obs_min,x_uas,y_uas,flux\n");
+    private final java.util.List<float[][]> frames = new java.util.ArrayList<>();
+    private final java.util.List<Double> frameTimes = new java.util.ArrayList<>();
+    private final double mSeconds;
+
+    SyntheticSky(double inclinationDeg, double positionAngleDeg, double uasPerM, double mSeconds) {
+        inc = Math.toRadians(inclinationDeg);
+        pa = Math.toRadians(positionAngleDeg);
+        this.uasPerM = uasPerM;
+        this.mSeconds = mSeconds;
+    }
+
+    /** Sky offsets (east, north) in micro-arcseconds of a display-frame point; out[2] = n.x. */
+    void project(double x, double y, double z, double[] out) {
+        // screen axes of the light stage's camera: alpha = +y, beta = (-cos i, 0, sin i), n = (sin i, 0, cos i)
+        double alpha = y;
+        double beta = -Math.cos(inc) * x + Math.sin(inc) * z;
+        out[0] = (alpha * -Math.cos(pa) + beta * Math.sin(pa)) * uasPerM;
+        out[1] = (alpha * Math.sin(pa) + beta * Math.cos(pa)) * uasPerM;
+        out[2] = Math.sin(inc) * x + Math.cos(inc) * z;
+    }
+
+    /** Adds one snapshot: positions and weights of the particles, centre of the first source. */
+    void add(double t, double[] xs, double[] ys, double[] zs, float[] w, double[] centre, boolean frame) {
+        double[] p = new double[3];
+        double sx = 0;
+        double sy = 0;
+        double sw = 0;
+        float[][] img = frame ? new float[PIX][PIX] : null;
+        double pixUas = FOV_M / PIX * uasPerM;
+        for (int i = 0; i < xs.length; i++) {
+            project(xs[i], ys[i], zs[i], p);
+            sx += w[i] * p[0];
+            sy += w[i] * p[1];
+            sw += w[i];
+            if (img != null) {
+                // column index grows westward (CDELT1 < 0: east to the left), row index northward
+                int col = (int) Math.floor(-p[0] / pixUas + PIX / 2.0);
+                int row = (int) Math.floor(p[1] / pixUas + PIX / 2.0);
+                for (int dr = -1; dr <= 1; dr++) {
+                    for (int dc = -1; dc <= 1; dc++) {
+                        int rr = row + dr;
+                        int cc = col + dc;
+                        if (rr >= 0 && rr < PIX && cc >= 0 && cc < PIX) {
+                            img[rr][cc] += w[i] * (dr == 0 && dc == 0 ? 0.4f : 0.075f);
+                        }
+                    }
+                }
+            }
+        }
+        project(centre[0], centre[1], centre[2], p);
+        double tObs = t - p[2];
+        if (sw > 0) {
+            csv.append(String.format(Locale.ROOT, "%.6f,%.6f,%.6f,%.6f,%.6g%n", tObs, tObs * mSeconds / 60,
+                    sx / sw, sy / sw, sw));
+        }
+        if (img != null) {
+            frames.add(img);
+            frameTimes.add(tObs);
+        }
+    }
+
+    void write(RunArchiveWriter w) throws IOException {
+        w.write(ArchiveLayout.CENTROID, tmp -> Files.writeString(tmp, csv, StandardCharsets.UTF_8));
+        w.write(ArchiveLayout.IMAGES, tmp -> {
+            try (Fits f = new Fits()) {
+                float[][][] cube = frames.toArray(new float[0][][]);
+                ImageHDU img = (ImageHDU) Fits.makeHDU(cube);
+                double pixDeg = FOV_M / PIX * uasPerM / 3600e6;
+                img.getHeader().addValue("CTYPE1", "RA---SIN", "offset east (sky x), east to the left");
+                img.getHeader().addValue("CDELT1", -pixDeg, "deg");
+                img.getHeader().addValue("CRPIX1", PIX / 2.0 + 0.5, "black hole");
+                img.getHeader().addValue("CUNIT1", "deg", "");
+                img.getHeader().addValue("CTYPE2", "DEC--SIN", "offset north");
+                img.getHeader().addValue("CDELT2", pixDeg, "deg");
+                img.getHeader().addValue("CRPIX2", PIX / 2.0 + 0.5, "black hole");
+                img.getHeader().addValue("CUNIT2", "deg", "");
+                f.addHDU(img);
+                double[] t = new double[frameTimes.size()];
+                for (int i = 0; i < t.length; i++) {
+                    t[i] = frameTimes.get(i);
+                }
+                BinaryTable table = BinaryTable.fromColumnMajor(new Object[] {t});
+                BinaryTableHDU th = table.toHDU();
+                th.setColumnName(0, "T_OBS_M", "observer time of the frame, M");
+                f.addHDU(th);
+                f.write(tmp.toFile());
+            } catch (FitsException e) {
+                throw new IOException(e);
+            }
+        });
+    }
+}
