@@ -31,7 +31,9 @@ import picocli.CommandLine.Option;
             "The orbit starts at periapsis r_p = p/(1+e) on the equator; the apoapsis is r_a = p/(1-e).",
             "The inclination iota is defined by cos(iota) = L / sqrt(L^2 + Q), with L the axial angular"
                     + " momentum and Q the Carter constant; iota > 90 deg is retrograde.",
-            "Times are coordinate time in M, angles in radians."})
+            "Times are coordinate time in M, angles in radians. A circular orbit (--e 0) has no periapsis:"
+                    + " period_radial and periastron_advance are null; near-circular orbits (e < 1e-3) give"
+                    + " ill-conditioned periapsis times."})
 public final class OrbitCommand implements Callable<Integer> {
     @Mixin
     SpacetimeOptions spacetime;
@@ -83,7 +85,7 @@ public final class OrbitCommand implements Callable<Integer> {
         BatchIntegrator.Config cfg = BatchIntegrator.Config.of(OrbitSetup.captureRadius(st))
                 .withTolerance(tolerance, tolerance);
         OrbitMeasurement.Result m = OrbitMeasurement.measure(st, sol.start(), orbits, cfg, 200,
-                OrbitMeasurement.keplerPeriod(p, e));
+                OrbitMeasurement.keplerPeriod(p, e), e == 0.0);
         if (m.orbits() < orbits) {
             System.err.println("orbit: the trajectory ended (" + m.endState().name().toLowerCase(Locale.ROOT)
                     + ") after " + m.orbits() + " of " + orbits + " radial periods");

@@ -48,10 +48,18 @@ public final class OrbitMeasurement {
      * @param orbits number of radial periods to measure (&gt;= 1)
      * @param config integrator settings (one thread is enough)
      * @param samplesPerOrbit trajectory samples per estimated radial period (for plots)
-     * @param periodEstimate an estimate of the radial period (M), for the sampling cadence
+     * @param periodEstimate an estimate of the radial period (M), for the sampling cadence; for a
+     *     circular orbit (no periapsis) the integration lasts orbits x periodEstimate and the
+     *     azimuthal period comes from the mean dphi/dt over the samples
      */
     public static Result measure(Spacetime st, InitialState start, int orbits, BatchIntegrator.Config config,
                                  int samplesPerOrbit, double periodEstimate) {
+        return measure(st, start, orbits, config, samplesPerOrbit, periodEstimate, false);
+    }
+
+    /** As {@link #measure(Spacetime, InitialState, int, BatchIntegrator.Config, int, double)}; circular when e = 0. */
+    public static Result measure(Spacetime st, InitialState start, int orbits, BatchIntegrator.Config config,
+                                 int samplesPerOrbit, double periodEstimate, boolean circular) {
         ParticleBatch b = new ParticleBatch(1);
         b.set(0, 0.0, start);
         TurningPoints tp = new TurningPoints(0);
@@ -92,7 +100,11 @@ public final class OrbitMeasurement {
         double t = 0;
         int blocks = 0;
         int maxBlocks = 4 * orbits + 20;
-        while (tp.periapsisCount() < orbits + 1 && b.endState(0) == EndState.ALIVE && blocks++ < maxBlocks) {
+        if (circular) {
+            maxBlocks = orbits;
+        }
+        while ((circular || tp.periapsisCount() < orbits + 1) && b.endState(0) == EndState.ALIVE
+                && blocks++ < maxBlocks) {
             double[] times = new double[samplesPerOrbit];
             for (int k = 0; k < samplesPerOrbit; k++) {
                 times[k] = t + periodEstimate * (k + 1) / samplesPerOrbit;
@@ -100,11 +112,14 @@ public final class OrbitMeasurement {
             evals += integ.integrate(b, times, sink, tp).evaluations();
             t = times[samplesPerOrbit - 1];
         }
-        int n = FastMath.min(orbits, tp.periapsisCount() - 1);
+        int n = circular ? 0 : FastMath.min(orbits, tp.periapsisCount() - 1);
         double tr = Double.NaN;
         double tphi = Double.NaN;
         double adv = Double.NaN;
-        if (n >= 1) {
+        if (circular && ns[0] > 0 && b.endState(0) == EndState.ALIVE) {
+            n = orbits;
+            tphi = 2 * FastMath.PI * samples[0][ns[0] - 1] / (samples[3][ns[0] - 1] - start.phi());
+        } else if (n >= 1) {
             double dt = weightedMeanIncrement(tp::periapsisTime, n);
             double dphi = weightedMeanIncrement(tp::periapsisPhi, n);
             tr = dt;
@@ -115,7 +130,8 @@ public final class OrbitMeasurement {
         if (start.pTheta() != 0.0 && tp.polarCount() >= 2) {
             // polar turning points up to the last periapsis used
             int m = 0;
-            while (m + 1 < tp.polarCount() && tp.polarTime(m + 1) <= tp.periapsisTime(n)) {
+            double tLast = circular ? Double.POSITIVE_INFINITY : tp.periapsisTime(n);
+            while (m + 1 < tp.polarCount() && tp.polarTime(m + 1) <= tLast) {
                 m++;
             }
             if (m >= 1) {

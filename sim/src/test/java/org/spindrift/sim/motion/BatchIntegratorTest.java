@@ -162,4 +162,23 @@ class BatchIntegratorTest {
         assertTrue(d.massShellMedian() <= d.massShellMax());
         assertTrue(d.massShellMax() < 1e-10, "max |H + 1/2| = " + d.massShellMax());
     }
+
+    @Test
+    void unusableStartsFailWithTheirReason() {
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.5);
+        ParticleBatch b = new ParticleBatch(3);
+        InitialState ok = new ZamoFrame(st).initialState(10, Math.PI / 2, 0, 0, 0, 0.3);
+        b.set(0, 0, ok);
+        // p_t > 0 outside the ergoregion: dt/dlambda = g^tt p_t + g^tphi p_phi < 0 (past-directed)
+        b.set(1, 0, 10, Math.PI / 2, 0, -ok.pT(), 0, 0, ok.pPhi());
+        b.set(2, 0, Double.NaN, Math.PI / 2, 0, ok.pT(), 0, 0, ok.pPhi());
+        new BatchIntegrator(st, BatchIntegrator.Config.of(capture(0.5))).integrate(b, new double[] {50}, null);
+        assertEquals(EndState.ALIVE, b.endState(0));
+        assertEquals(EndState.FAILED, b.endState(1));
+        assertEquals(Failure.TIME_NOT_INCREASING, b.failure(1));
+        assertEquals(0.0, b.time(1));
+        assertEquals(EndState.FAILED, b.endState(2));
+        assertEquals(Failure.NON_FINITE, b.failure(2));
+        assertEquals(50.0, b.time(0));
+    }
 }
