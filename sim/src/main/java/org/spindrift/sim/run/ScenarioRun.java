@@ -92,8 +92,12 @@ public final class ScenarioRun {
      * @param folder the run folder
      * @param history every particle at every snapshot
      * @param result integrator work counts and end states
+     * @param integrationSeconds wall time of the integration (for benchmarks; not written anywhere)
+     * @param outputSeconds wall time of the stages and the files after the integration
+     * @param stageSeconds wall time of each stage, by name, in order
      */
-    public record Outcome(Path folder, ParticleHistory history, BatchIntegrator.Result result) {
+    public record Outcome(Path folder, ParticleHistory history, BatchIntegrator.Result result, double integrationSeconds,
+            double outputSeconds, Map<String, Double> stageSeconds) {
     }
 
     private ScenarioRun() {
@@ -175,6 +179,7 @@ public final class ScenarioRun {
         }
         StepListener events = (i, step) -> turning[i].step(i, step);
         BatchIntegrator.Result result;
+        long t0 = System.nanoTime();
         try (ProgressBar bar = o.progress() ? new ProgressBarBuilder().setTaskName("evolving " + n + " particles")
                 .setInitialMax(p.times().length).setStyle(ProgressBarStyle.ASCII)
                 .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build() : null) {
@@ -182,9 +187,11 @@ public final class ScenarioRun {
             result = integrator.integrate(batch, p.times(), sink, events);
         }
         ParticleHistory history = sink.history();
+        long t1 = System.nanoTime();
 
         Path folder = o.output();
         RunArchiveWriter archive = RunArchiveWriter.create(folder);
+        Map<String, Double> stageSeconds = new LinkedHashMap<>();
         Thread cleanup = new Thread(() -> removePartials(folder), "spindrift-cleanup");
         Runtime.getRuntime().addShutdownHook(cleanup);
         try {
@@ -195,7 +202,9 @@ public final class ScenarioRun {
                     new java.util.HashMap<>());
             ctx.products().put(TURNING_POINTS, turning);
             for (RunStage stage : stages) {
+                long ts = System.nanoTime();
                 stage.run(ctx);
+                stageSeconds.put(stage.name(), (System.nanoTime() - ts) * 1e-9);
             }
             ObjectNode diag = diagnostics(st, batch, q0, result);
             summary.set("diagnostics", diag);
@@ -208,7 +217,7 @@ public final class ScenarioRun {
                 // shutting down already
             }
         }
-        return new Outcome(folder, history, result);
+        return new Outcome(folder, history, result, (t1 - t0) * 1e-9, (System.nanoTime() - t1) * 1e-9, stageSeconds);
     }
 
     private static void removePartials(Path folder) {

@@ -33,10 +33,11 @@ class ScenarioRunTest {
 
     @Test void sameSeedGivesBitwiseIdenticalSnapshotsWhateverTheThreads() throws Exception {
         // 300 particles = 5 chunks of 64: several threads really share the work
-        Path a = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("a"), 1, false))
-                .folder();
-        Path b = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("b"), 3, false))
-                .folder();
+        List<RunStage> stages = List.of(new SnapshotStage(), new org.spindrift.sim.analysis.AnalysisStage());
+        Path a = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("a"), 1, false),
+                stages).folder();
+        Path b = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("b"), 3, false),
+                stages).folder();
         byte[] ha = Files.readAllBytes(a.resolve(ArchiveLayout.SNAPSHOTS));
         byte[] hb = Files.readAllBytes(b.resolve(ArchiveLayout.SNAPSHOTS));
         assertArrayEquals(ha, hb, "snapshots.h5 differs between 1 and 3 threads");
@@ -44,7 +45,8 @@ class ScenarioRunTest {
         // and a different seed gives different particles
         LoadedScenario other = thermalSpot(300);
         other = other.with(other.scenario().withRun(other.scenario().run().withSeed(100)));
-        Path c = ScenarioRun.run(ScenarioRun.prepare(other), new ScenarioRun.Options(tmp.resolve("c"), 2, false)).folder();
+        Path c = ScenarioRun.run(ScenarioRun.prepare(other), new ScenarioRun.Options(tmp.resolve("c"), 2, false), stages)
+                .folder();
         assertFalse(java.util.Arrays.equals(ha, Files.readAllBytes(c.resolve(ArchiveLayout.SNAPSHOTS))));
     }
 
