@@ -3,8 +3,6 @@ package org.spindrift.sim.run;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
-import java.nio.file.DirectoryStream;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -192,8 +190,10 @@ public final class ScenarioRun {
         Path folder = o.output();
         RunArchiveWriter archive = RunArchiveWriter.create(folder);
         Map<String, Double> stageSeconds = new LinkedHashMap<>();
-        Thread cleanup = new Thread(() -> removePartials(folder), "spindrift-cleanup");
+        // stopped (Ctrl-C, SIGTERM) or failed: remove what this run wrote, so nothing looks complete
+        Thread cleanup = new Thread(archive::abandon, "spindrift-cleanup");
         Runtime.getRuntime().addShutdownHook(cleanup);
+        boolean done = false;
         try {
             ObjectNode manifest = RunArchiveWriter.json().createObjectNode();
             ObjectNode summary = RunArchiveWriter.json().createObjectNode();
@@ -210,7 +210,11 @@ public final class ScenarioRun {
             summary.set("diagnostics", diag);
             archive.writeJson(ArchiveLayout.SUMMARY, summary);
             archive.finish(manifestBody(p, manifest, diag, result));
+            done = true;
         } finally {
+            if (!done) {
+                archive.abandon();
+            }
             try {
                 Runtime.getRuntime().removeShutdownHook(cleanup);
             } catch (IllegalStateException e) {
@@ -218,16 +222,6 @@ public final class ScenarioRun {
             }
         }
         return new Outcome(folder, history, result, (t1 - t0) * 1e-9, (System.nanoTime() - t1) * 1e-9, stageSeconds);
-    }
-
-    private static void removePartials(Path folder) {
-        try (DirectoryStream<Path> ds = Files.newDirectoryStream(folder, "*" + ArchiveLayout.PARTIAL_SUFFIX)) {
-            for (Path q : ds) {
-                Files.deleteIfExists(q);
-            }
-        } catch (IOException e) {
-            // best effort while the JVM stops
-        }
     }
 
     /** Builds the history from the integrator's snapshots. */

@@ -132,9 +132,12 @@ public final class ParticleLayer implements AutoCloseable {
         glDepthMask(false);
         glEnable(GL_BLEND);
         glBlendFuncSeparate(GL_SRC_ALPHA, GL_ONE_MINUS_SRC_ALPHA, GL_ONE, GL_ONE_MINUS_SRC_ALPHA);
+        // the sprites carry their own soft edge: multisampling them only multiplies the blending work
+        glDisable(GL_MULTISAMPLE);
         glBindVertexArray(vao[sa]);
         glDrawArrays(GL_POINTS, 0, particles);
         glBindVertexArray(0);
+        glEnable(GL_MULTISAMPLE);
         glDepthMask(true);
     }
 

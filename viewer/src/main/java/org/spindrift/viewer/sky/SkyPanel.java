@@ -237,7 +237,7 @@ public final class SkyPanel implements AutoCloseable {
     private void lightCurve(Overlay o, int x, int y, int w, int h, double tObs) {
         FontAtlas font = o.font();
         float lh = font.lineHeight(FontAtlas.Size.SMALL);
-        o.text(x, y - 2, "flux (centroid.csv)", FontAtlas.Size.SMALL, Palette.TEXT);
+        o.text(x, y - 2, "total flux (centroid.csv, relative units)", FontAtlas.Size.SMALL, Palette.TEXT);
         int py = (int) (y + lh + 2);
         int ph = (int) (h - lh - 2 - lh);
         o.rect(x, py, w, ph, 0x070a10ff);

@@ -54,6 +54,11 @@ public final class Hud {
         messageUntil = until;
     }
 
+    /** @return whether a message is on screen at wall time now (seconds) */
+    public boolean messageShown(double now) {
+        return !message.isEmpty() && now < messageUntil + 0.1;
+    }
+
     /** Sets the note on how the observer time is derived (which source centre). */
     public void sourceNote(String note) {
         sourceNote = note;
