@@ -8,8 +8,9 @@ import org.spindrift.sim.spacetime.Spacetime;
  * Integrates one bound orbit for a number of radial periods and measures from the trajectory
  * (not from formulas): the radial period as the mean spacing of periapsis passages
  * ({@link TurningPoints}: p_r rising through zero, refined on the dense output), the periastron
- * advance per radial period as the mean of phi(t_k+1) - phi(t_k) - 2 pi, the azimuthal period
- * 2 pi / (mean dphi/dt) over those radial periods, and the polar period as the mean spacing of
+ * advance per radial period as the mean of |phi(t_k+1) - phi(t_k)| - 2 pi (in the sense of the
+ * orbital motion, so retrograde orbits have a positive advance too), the azimuthal period
+ * 2 pi / |mean dphi/dt| over those radial periods (periods are positive), and the polar period as the mean spacing of
  * northern polar turning points (p_theta rising through zero). All in coordinate time (M).
  * The means are weighted with a smooth window ({@link #weightedMeanIncrement}).
  * Also the mass-shell drift max |H + 1/2| and, for separable spacetimes, max |Q - Q_0| over
@@ -24,9 +25,9 @@ public final class OrbitMeasurement {
     /**
      * @param orbits radial periods measured
      * @param periodRadial mean radial period (M)
-     * @param periodAzimuthal 2 pi / mean dphi/dt (M)
+     * @param periodAzimuthal 2 pi / |mean dphi/dt| (M)
      * @param periodPolar mean polar period (M), NaN for equatorial orbits
-     * @param advance periastron advance per radial period (radians)
+     * @param advance periastron advance per radial period in the sense of the motion (radians)
      * @param massShellDriftMax max |H + 1/2|
      * @param carterDriftMax max |Q - Q0| (M^2), NaN when not separable
      * @param endState how the integration ended
@@ -118,13 +119,14 @@ public final class OrbitMeasurement {
         double adv = Double.NaN;
         if (circular && ns[0] > 0 && b.endState(0) == EndState.ALIVE) {
             n = orbits;
-            tphi = 2 * FastMath.PI * samples[0][ns[0] - 1] / (samples[3][ns[0] - 1] - start.phi());
+            tphi = 2 * FastMath.PI * samples[0][ns[0] - 1] / FastMath.abs(samples[3][ns[0] - 1] - start.phi());
         } else if (n >= 1) {
             double dt = weightedMeanIncrement(tp::periapsisTime, n);
             double dphi = weightedMeanIncrement(tp::periapsisPhi, n);
             tr = dt;
-            adv = dphi - 2 * FastMath.PI;
-            tphi = 2 * FastMath.PI * dt / dphi;
+            // in the sense of the orbital motion: retrograde orbits (phi decreasing) advance too
+            adv = FastMath.abs(dphi) - 2 * FastMath.PI;
+            tphi = 2 * FastMath.PI * dt / FastMath.abs(dphi);
         }
         double tth = Double.NaN;
         if (start.pTheta() != 0.0 && tp.polarCount() >= 2) {

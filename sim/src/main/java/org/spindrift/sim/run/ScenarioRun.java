@@ -3,8 +3,6 @@ package org.spindrift.sim.run;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
-import java.nio.file.DirectoryStream;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -18,12 +16,10 @@ import me.tongfei.progressbar.ProgressBarStyle;
 import org.spindrift.shared.Units;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.RunArchiveWriter;
-import org.spindrift.shared.archive.SnapshotWriter;
 import org.spindrift.shared.scenario.RunSettings;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.shared.scenario.ScenarioJson;
 import org.spindrift.shared.scenario.Source;
-import org.spindrift.shared.scenario.TimeSpan;
 import org.spindrift.sim.analysis.AnalysisStage;
 import org.spindrift.sim.analysis.PlotStage;
 import org.spindrift.sim.motion.BatchIntegrator;
@@ -163,6 +159,7 @@ public final class ScenarioRun {
 
     /** Runs a prepared scenario through the given stages. */
     public static Outcome run(Prepared p, Options o, List<RunStage> stages) throws IOException {
+        RunArchiveWriter.checkUsable(o.output()); // before the work, so a bad -o fails at once
         Scenario sc = p.loaded().scenario();
         ParticleBatch batch = p.placed().batch();
         int n = batch.size();
@@ -192,8 +189,10 @@ public final class ScenarioRun {
         Path folder = o.output();
         RunArchiveWriter archive = RunArchiveWriter.create(folder);
         Map<String, Double> stageSeconds = new LinkedHashMap<>();
-        Thread cleanup = new Thread(() -> removePartials(folder), "spindrift-cleanup");
+        // stopped (Ctrl-C, SIGTERM) or failed: remove what this run wrote, so nothing looks complete
+        Thread cleanup = new Thread(archive::abandon, "spindrift-cleanup");
         Runtime.getRuntime().addShutdownHook(cleanup);
+        boolean done = false;
         try {
             ObjectNode manifest = RunArchiveWriter.json().createObjectNode();
             ObjectNode summary = RunArchiveWriter.json().createObjectNode();
@@ -210,7 +209,11 @@ public final class ScenarioRun {
             summary.set("diagnostics", diag);
             archive.writeJson(ArchiveLayout.SUMMARY, summary);
             archive.finish(manifestBody(p, manifest, diag, result));
+            done = true;
         } finally {
+            if (!done) {
+                archive.abandon();
+            }
             try {
                 Runtime.getRuntime().removeShutdownHook(cleanup);
             } catch (IllegalStateException e) {
@@ -218,16 +221,6 @@ public final class ScenarioRun {
             }
         }
         return new Outcome(folder, history, result, (t1 - t0) * 1e-9, (System.nanoTime() - t1) * 1e-9, stageSeconds);
-    }
-
-    private static void removePartials(Path folder) {
-        try (DirectoryStream<Path> ds = Files.newDirectoryStream(folder, "*" + ArchiveLayout.PARTIAL_SUFFIX)) {
-            for (Path q : ds) {
-                Files.deleteIfExists(q);
-            }
-        } catch (IOException e) {
-            // best effort while the JVM stops
-        }
     }
 
     /** Builds the history from the integrator's snapshots. */
@@ -426,15 +419,5 @@ public final class ScenarioRun {
 
     static String fmt(double v) {
         return String.format(java.util.Locale.ROOT, "%.6g", v);
-    }
-
-    /** @return the run duration of a scenario in M without running it */
-    public static double durationM(Prepared p) {
-        return p.durationM();
-    }
-
-    /** @return a time in M */
-    public static double toM(TimeSpan t, Prepared p) {
-        return t.toM(p.secondsPerM(), p.placed().centres()[0].periodM());
     }
 }

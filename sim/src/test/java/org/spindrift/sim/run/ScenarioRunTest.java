@@ -105,10 +105,19 @@ class ScenarioRunTest {
         assertThrows(IOException.class, () -> ScenarioRun.run(ScenarioRun.prepare(thermalSpot(40)),
                 new ScenarioRun.Options(out, 1, false), stages));
         assertFalse(Files.exists(out.resolve(ArchiveLayout.MANIFEST)), "no manifest");
+        assertFalse(Files.exists(out.resolve(ArchiveLayout.SNAPSHOTS)), "the files written before the failure are removed");
+        assertFalse(Files.exists(out), "the folder the run created is removed");
         assertFalse(Files.exists(out.resolve("centroid.csv")), "the half-written file keeps no final name");
         assertFalse(Files.exists(AtomicFiles.partialName(out.resolve("centroid.csv"))));
         UserInputException e = assertThrows(UserInputException.class, () -> RunArchive.open(out));
         assertTrue(e.getMessage().contains("did not complete"), e.getMessage());
+        // a folder that existed before keeps existing, emptied of the run's files
+        Files.createDirectories(out);
+        assertThrows(IOException.class, () -> ScenarioRun.run(ScenarioRun.prepare(thermalSpot(40)),
+                new ScenarioRun.Options(out, 1, false), stages));
+        try (Stream<Path> left = Files.list(out)) {
+            assertEquals(0, left.count(), "nothing left in the folder");
+        }
         // re-running into the same folder works and completes it
         ScenarioRun.run(ScenarioRun.prepare(thermalSpot(40)), new ScenarioRun.Options(out, 1, false));
         try (RunArchive a = RunArchive.open(out); Stream<Path> files = Files.list(out)) {
