@@ -22,7 +22,6 @@ public final class ParticleLayer implements AutoCloseable {
     private final int[] vao = new int[2]; // vao[k]: slot k is A, slot 1-k is B
     private final int[] slotSnapshot = {-1, -1};
     private final int uViewProjection;
-    private final int uView;
     private final int uMix;
     private final int uQuantity;
     private final int uRange;
@@ -66,7 +65,6 @@ public final class ParticleLayer implements AutoCloseable {
         }
         glBindVertexArray(0);
         uViewProjection = shader.uniform("u_viewProjection");
-        uView = shader.uniform("u_view");
         uMix = shader.uniform("u_mix");
         uQuantity = shader.uniform("u_quantity");
         uRange = shader.uniform("u_range");
@@ -110,7 +108,6 @@ public final class ParticleLayer implements AutoCloseable {
         }
         shader.use();
         org.spindrift.viewer.gl.Shader.setMatrix(uViewProjection, camera.viewProjection());
-        org.spindrift.viewer.gl.Shader.setMatrix(uView, camera.view());
         glUniform1f(uMix, mix);
         glUniform1i(uQuantity, q.ordinal());
         glUniform2f(uRange, lo, hi);
