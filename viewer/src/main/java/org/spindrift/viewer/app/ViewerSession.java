@@ -76,6 +76,8 @@ public final class ViewerSession implements AutoCloseable {
             cube = null; // owned by the panel now
             c = new FrameComposer(info, s, sky, o.bare());
             c.scene().quantity(o.colour());
+            c.layout().update(o.width(), o.height(), o.bare(), sky != null);
+            c.scene().aspect(c.layout().viewW / (float) Math.max(1, c.layout().viewH));
             applyCamera(c.scene(), o);
             playback = new Playback(info.times());
         } catch (RuntimeException e) {
