@@ -9,6 +9,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import org.knowm.xchart.BitmapEncoder;
+import org.knowm.xchart.VectorGraphicsEncoder;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
@@ -73,6 +74,15 @@ public final class PlotStage implements RunStage {
                 }
             }
         });
+        if (charts.size() == 1) {
+            // a vector twin where XChart offers one (single-panel charts; DESIGN section 8)
+            ctx.archive().write(name.replaceFirst("\\.png$", ".svg"), tmp -> {
+                try (OutputStream out = Files.newOutputStream(tmp)) {
+                    VectorGraphicsEncoder.saveVectorGraphic(charts.get(0), out,
+                            VectorGraphicsEncoder.VectorGraphicsFormat.SVG);
+                }
+            });
+        }
     }
 
     private static XYChart chart(int w, int h, String title, String x, String y) {

@@ -50,6 +50,10 @@ public final class BenchRunCommand implements Callable<Integer> {
     @Option(names = "--keep", paramLabel = "DIR", description = "Write the run folder here and keep it.")
     Path keep;
 
+    @Option(names = "--skip", paramLabel = "STAGE", split = ",",
+            description = "Leave out run stages by name (for example light), to time the rest.")
+    List<String> skip = List.of();
+
     @Override public Integer call() throws IOException {
         if (particles < 1 || particles > 5_000_000) {
             throw new UserInputException("--particles " + particles + ": allowed 1..5000000");
@@ -75,7 +79,9 @@ public final class BenchRunCommand implements Callable<Integer> {
         Path out = keep != null ? keep : Files.createTempDirectory("spindrift-bench-");
         ScenarioRun.Outcome o;
         try {
-            o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, false));
+            List<org.spindrift.sim.run.RunStage> stages = new java.util.ArrayList<>(ScenarioRun.stages());
+            stages.removeIf(st -> skip.contains(st.name()));
+            o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, false), stages);
         } finally {
             if (keep == null) {
                 delete(out);
@@ -90,9 +96,9 @@ public final class BenchRunCommand implements Callable<Integer> {
         }
         long rss = peakResidentKib();
         long steps = o.result().acceptedSteps();
-        System.out.printf(Locale.ROOT, "bench run: %s, %d particles, %.1f orbits (%.0f M), %d snapshots, %d threads on %d cores%n",
+        System.out.printf(Locale.ROOT, "bench run: %s, %d particles, %.1f orbits (%.0f M), %d snapshots, %d threads on %d cores%s%n",
                 config, sc.totalParticles(), orbits, p.durationM(), p.times().length, n,
-                Runtime.getRuntime().availableProcessors());
+                Runtime.getRuntime().availableProcessors(), skip.isEmpty() ? "" : ", skipping " + String.join(",", skip));
         System.out.printf(Locale.ROOT, "  wall time        %8.2f s  (set-up %.2f s, integration %.2f s, output %.2f s)%n",
                 wall, setup, o.integrationSeconds(), o.outputSeconds());
         StringBuilder st = new StringBuilder();

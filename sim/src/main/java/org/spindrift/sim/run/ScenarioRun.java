@@ -16,12 +16,10 @@ import me.tongfei.progressbar.ProgressBarStyle;
 import org.spindrift.shared.Units;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.RunArchiveWriter;
-import org.spindrift.shared.archive.SnapshotWriter;
 import org.spindrift.shared.scenario.RunSettings;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.shared.scenario.ScenarioJson;
 import org.spindrift.shared.scenario.Source;
-import org.spindrift.shared.scenario.TimeSpan;
 import org.spindrift.sim.analysis.AnalysisStage;
 import org.spindrift.sim.analysis.PlotStage;
 import org.spindrift.sim.motion.BatchIntegrator;
@@ -420,15 +418,5 @@ public final class ScenarioRun {
 
     static String fmt(double v) {
         return String.format(java.util.Locale.ROOT, "%.6g", v);
-    }
-
-    /** @return the run duration of a scenario in M without running it */
-    public static double durationM(Prepared p) {
-        return p.durationM();
-    }
-
-    /** @return a time in M */
-    public static double toM(TimeSpan t, Prepared p) {
-        return t.toM(p.secondsPerM(), p.placed().centres()[0].periodM());
     }
 }
