@@ -63,28 +63,41 @@ public final class RunArchiveWriter {
      */
     public static RunArchiveWriter create(Path folder) throws IOException {
         boolean existed = Files.exists(folder);
+        checkUsable(folder);
         if (existed) {
-            if (!Files.isDirectory(folder)) {
-                throw new UserInputException("output folder " + folder + ": exists and is not a folder; choose another with -o");
-            }
-            List<Path> foreign = new ArrayList<>();
-            try (DirectoryStream<Path> ds = Files.newDirectoryStream(folder)) {
-                for (Path p : ds) {
-                    String name = p.getFileName().toString();
-                    boolean partial = name.startsWith(ArchiveLayout.PARTIAL_PREFIX) && name.endsWith(ArchiveLayout.PARTIAL_SUFFIX);
-                    if (!KNOWN.contains(name) && !partial) {
-                        foreign.add(p);
-                    }
-                }
-            }
-            if (!foreign.isEmpty()) {
-                throw new UserInputException("output folder " + folder + ": holds files that are not part of a run (for example "
-                        + foreign.get(0).getFileName() + "); choose another with -o");
-            }
             clear(folder);
         }
         Files.createDirectories(folder);
         return new RunArchiveWriter(folder, !existed);
+    }
+
+    /**
+     * Checks, without changing anything, that a folder may receive a run: it does not exist, or
+     * it is a folder holding only files of a run (an earlier or interrupted one).
+     *
+     * @throws UserInputException naming the folder and the first foreign file
+     */
+    public static void checkUsable(Path folder) throws IOException {
+        if (!Files.exists(folder)) {
+            return;
+        }
+        if (!Files.isDirectory(folder)) {
+            throw new UserInputException("output folder " + folder + ": exists and is not a folder; choose another with -o");
+        }
+        List<Path> foreign = new ArrayList<>();
+        try (DirectoryStream<Path> ds = Files.newDirectoryStream(folder)) {
+            for (Path p : ds) {
+                String name = p.getFileName().toString();
+                boolean partial = name.startsWith(ArchiveLayout.PARTIAL_PREFIX) && name.endsWith(ArchiveLayout.PARTIAL_SUFFIX);
+                if (!KNOWN.contains(name) && !partial) {
+                    foreign.add(p);
+                }
+            }
+        }
+        if (!foreign.isEmpty()) {
+            throw new UserInputException("output folder " + folder + ": holds files that are not part of a run (for example "
+                    + foreign.get(0).getFileName() + "); choose another with -o");
+        }
     }
 
     /** Removes the manifest first, then the other files of an earlier or interrupted run. */

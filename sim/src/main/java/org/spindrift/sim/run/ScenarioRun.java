@@ -159,6 +159,7 @@ public final class ScenarioRun {
 
     /** Runs a prepared scenario through the given stages. */
     public static Outcome run(Prepared p, Options o, List<RunStage> stages) throws IOException {
+        RunArchiveWriter.checkUsable(o.output()); // before the work, so a bad -o fails at once
         Scenario sc = p.loaded().scenario();
         ParticleBatch batch = p.placed().batch();
         int n = batch.size();

@@ -141,6 +141,20 @@ class BadConfigTest {
         assertFalse(Files.exists(out), "no output folder for " + name);
     }
 
+    @Test void foreignOutputFolderIsRefusedAndKept() throws Exception {
+        Path f = tmp.resolve("good.yaml");
+        Files.writeString(f, GOOD);
+        Path out = tmp.resolve("thesis");
+        Files.createDirectories(out);
+        Files.writeString(out.resolve("chapter1.tex"), "precious");
+        String[] err = new String[1];
+        assertEquals(2, cli(err, "run", f.toString(), "-o", out.toString(), "--quiet"));
+        assertTrue(err[0].contains("not part of a run") && err[0].contains("chapter1.tex"), err[0]);
+        assertEquals("precious", Files.readString(out.resolve("chapter1.tex")));
+        assertEquals(2, cli(err, "run", f.toString(), "-o", out.resolve("chapter1.tex").toString(), "--quiet"));
+        assertTrue(err[0].contains("not a folder"), err[0]);
+    }
+
     @Test void lineNumberPointsAtTheKey() throws Exception {
         Path f = tmp.resolve("typo.yaml");
         Files.writeString(f, swap("    particles: 8", "    particle: 8"));
