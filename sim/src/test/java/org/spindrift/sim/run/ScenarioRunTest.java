@@ -83,6 +83,10 @@ class ScenarioRunTest {
             // diagnostics: mass shell kept to the tolerance's order
             assertTrue(a.diagnostics().path("hamiltonian_error_max").asDouble() < 1e-7, a.diagnostics().toString());
             assertTrue(a.diagnostics().path("carter_relative_drift_max").asDouble() < 1e-6, a.diagnostics().toString());
+            // the manifest's scenario echo is itself a scenario file that reads back to the same scenario
+            Path echo = tmp.resolve("echo.json");
+            Files.writeString(echo, a.manifest().get("scenario").toString());
+            assertEquals(thermalSpot(120).scenario(), org.spindrift.sim.scenario.ScenarioLoader.load(echo).scenario());
         }
     }
 
