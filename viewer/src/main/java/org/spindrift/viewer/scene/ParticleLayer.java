@@ -28,7 +28,8 @@ public final class ParticleLayer implements AutoCloseable {
     private final int uRange;
     private final int uPixelsPerUnit;
     private final int uSize;
-    private final int uMaps;
+    private final int uMap;
+    private final float[] mapPoints = new float[15];
     private final int uSources;
 
     public ParticleLayer(int[] sourceOf) {
@@ -71,7 +72,7 @@ public final class ParticleLayer implements AutoCloseable {
         uRange = shader.uniform("u_range");
         uPixelsPerUnit = shader.uniform("u_pixelsPerUnit");
         uSize = shader.uniform("u_size");
-        uMaps = shader.uniform("u_maps");
+        uMap = shader.uniform("u_map");
         uSources = shader.uniform("u_sources");
     }
 
@@ -115,8 +116,10 @@ public final class ParticleLayer implements AutoCloseable {
         glUniform2f(uRange, lo, hi);
         glUniform1f(uPixelsPerUnit, pixelsPerUnit);
         glUniform1f(uSize, sizeM);
-        maps.bind(0);
-        glUniform1i(uMaps, 0);
+        if (q != Quantity.SOURCE) {
+            Palette.controlPoints(q.ordinal(), mapPoints);
+            glUniform3fv(uMap, mapPoints);
+        }
         try (MemoryStack stack = MemoryStack.stackPush()) {
             FloatBuffer c = stack.mallocFloat(32);
             for (int k = 0; k < 8; k++) {

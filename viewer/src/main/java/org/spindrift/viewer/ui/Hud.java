@@ -139,7 +139,16 @@ public final class Hud {
         float x = l.viewX + 14;
         float y = l.viewY + l.viewH - 12 - rows * lh;
         t1.clear().add("equatorial grid: circles every ").num(scene.gridStep()).add(" M");
-        float boxW = Math.max(250, f.width(t1, FontAtlas.Size.SMALL) + 40);
+        float textW = f.width(t1, FontAtlas.Size.SMALL);
+        if (Double.isFinite(lm.omegaMax())) {
+            t1.clear().add("maximum of Omega(r)  r = ").fixed(lm.omegaMax(), 3).add(" M");
+            textW = Math.max(textW, f.width(t1, FontAtlas.Size.SMALL));
+        }
+        if (Double.isFinite(lm.ergoEquatorial())) {
+            t1.clear().add("ergosurface (equator)  r = ").fixed(lm.ergoEquatorial(), 3).add(" M");
+            textW = Math.max(textW, f.width(t1, FontAtlas.Size.SMALL));
+        }
+        float boxW = Math.max(200, textW + 40);
         o.rect(x - 6, y - 6, boxW, rows * lh + 10, 0x111823c8);
         double rc = lm.centralRadius();
         boolean horizon = lm.horizon() > 0;
