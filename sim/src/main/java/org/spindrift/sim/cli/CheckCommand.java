@@ -49,7 +49,7 @@ public final class CheckCommand implements Callable<Integer> {
     }
 
     private static String fmt(double v) {
-        return String.format(Locale.ROOT, "%.6g", v);
+        return Double.toString(v);
     }
 
     /** Registers {@code check}. */

@@ -114,7 +114,7 @@ final class ParticleStepper implements DenseStep {
         }
         d2 = FastMath.sqrt(d2 / N) / h0;
         double dm = FastMath.max(d1, d2);
-        double h1 = dm <= 1e-15 ? FastMath.max(1e-6, h0 * 1e-3) : FastMath.pow(0.01 / dm, 1.0 / 8.0);
+        double h1 = dm <= 1e-15 ? FastMath.max(1e-6, h0 * 1e-3) : Math.pow(0.01 / dm, 1.0 / 8.0);
         return FastMath.min(FastMath.min(100 * h0, h1), maxStep);
     }
 
@@ -248,7 +248,8 @@ final class ParticleStepper implements DenseStep {
 
     /** @return the new step size proposed after an error ratio err (Hipparchus/Hairer control) */
     static double nextStep(double hOld, double err) {
-        double f = Dop853.SAFETY * FastMath.pow(err, Dop853.EXPONENT);
+        // Math.pow: FastMath.pow allocates a scratch array per call (found by the allocation test)
+        double f = Dop853.SAFETY * Math.pow(err, Dop853.EXPONENT);
         f = FastMath.min(Dop853.MAX_GROWTH, FastMath.max(Dop853.MIN_REDUCTION, f));
         return hOld * f;
     }

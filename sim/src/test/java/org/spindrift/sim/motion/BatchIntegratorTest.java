@@ -181,4 +181,41 @@ class BatchIntegratorTest {
         assertEquals(Failure.NON_FINITE, b.failure(2));
         assertEquals(50.0, b.time(0));
     }
+
+    @Test
+    void resultsDoNotDependOnTheChunkSize() {
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.9);
+        ParticleBatch a = KerrTestOrbits.ball(st, 8, 0.5, 40, 21);
+        ParticleBatch b = a.copy();
+        BatchIntegrator.Config c = BatchIntegrator.Config.of(capture(0.9));
+        new BatchIntegrator(st, c.withChunkSize(7).withThreads(2)).integrate(a, new double[] {50, 200}, null);
+        new BatchIntegrator(st, c.withChunkSize(64)).integrate(b, new double[] {50, 200}, null);
+        assertTrue(a.bitwiseEquals(b));
+    }
+
+    @Test
+    void stepLoopDoesNotAllocate() {
+        // allocation per call is fixed (snapshot buffer, worker scratch); per step it must be zero
+        // (common practice, no source: JOML/Hipparchus-style allocation-free inner loops)
+        java.lang.management.ThreadMXBean mx = java.lang.management.ManagementFactory.getThreadMXBean();
+        org.junit.jupiter.api.Assumptions.assumeTrue(mx instanceof com.sun.management.ThreadMXBean,
+                "allocation counter not available on this JVM");
+        com.sun.management.ThreadMXBean tmx = (com.sun.management.ThreadMXBean) mx;
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.9);
+        BatchIntegrator integ = new BatchIntegrator(st, BatchIntegrator.Config.of(capture(0.9)));
+        long[] bytes = new long[2];
+        long[] steps = new long[2];
+        double[][] horizons = {{100}, {3000}};
+        for (int warm = 0; warm < 2; warm++) {
+            for (int k = 0; k < 2; k++) {
+                ParticleBatch b = KerrTestOrbits.ball(st, 8, 0.5, 20, 4);
+                long before = tmx.getCurrentThreadAllocatedBytes();
+                steps[k] = integ.integrate(b, horizons[k], null).acceptedSteps();
+                bytes[k] = tmx.getCurrentThreadAllocatedBytes() - before;
+            }
+        }
+        assertTrue(steps[1] > 10 * steps[0], "the long run must take many more steps");
+        assertTrue(bytes[1] - bytes[0] < 4096, "allocated " + bytes[0] + " B for " + steps[0] + " steps, "
+                + bytes[1] + " B for " + steps[1] + " steps");
+    }
 }

@@ -90,6 +90,9 @@ class BadConfigTest {
                         "not a known family"),
                 Arguments.of("inside-horizon.yaml", swap("radius_M: 8.0", "radius_M: 1.5"),
                         "sources[0].orbit.circular.radius_M", "capture radius"),
+                // Kerr a = 0.5: horizon 1.866 M, prograde photon orbit 2.347 M (BPT 1972 eq. 2.18)
+                Arguments.of("inside-photon-orbit.yaml", swap("radius_M: 8.0", "radius_M: 2.1"),
+                        "sources[0].orbit.circular.radius_M", "no prograde circular orbit"),
                 Arguments.of("no-time-unit.yaml", swap("duration: 20 M", "duration: 20"), "run.duration", "needs a unit"),
                 Arguments.of("duplicate.yaml", swap("  spin: 0.5\n", "  spin: 0.5\n  spin: 0.6\n"), "", "duplicate key"),
                 Arguments.of("syntax.yaml", swap("  spin: 0.5\n", "  spin: [0.5\n"), "", "not valid YAML"),
