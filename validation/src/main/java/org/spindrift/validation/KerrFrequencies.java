@@ -25,9 +25,9 @@ import org.hipparchus.util.FastMath;
 public final class KerrFrequencies {
     /**
      * @param periodRadial 2 pi / Omega_r (M)
-     * @param periodAzimuthal 2 pi / Omega_phi (M)
+     * @param periodAzimuthal 2 pi / |Omega_phi| (M)
      * @param periodPolar 2 pi / Omega_theta (M), NaN for equatorial orbits
-     * @param advance 2 pi (Omega_phi / Omega_r - 1) (radians per radial period)
+     * @param advance 2 pi (|Omega_phi| / Omega_r - 1) (radians per radial period, in the sense of the motion)
      */
     public record Result(double periodRadial, double periodAzimuthal, double periodPolar, double advance) {
     }
@@ -108,9 +108,10 @@ public final class KerrFrequencies {
         double gamma = avgTR + avgTTh;
         double upsPhi = avgPhR + avgPhTh;
         double periodR = lamR * gamma;
-        double periodPhi = 2 * FastMath.PI * gamma / upsPhi;
+        // periods positive; the advance in the sense of the orbital motion
+        double periodPhi = 2 * FastMath.PI * gamma / FastMath.abs(upsPhi);
         double periodTh = q == 0.0 ? Double.NaN : lamTh * gamma;
-        double advance = upsPhi * lamR - 2 * FastMath.PI;
+        double advance = FastMath.abs(upsPhi) * lamR - 2 * FastMath.PI;
         return new Result(periodR, periodPhi, periodTh, advance);
     }
 

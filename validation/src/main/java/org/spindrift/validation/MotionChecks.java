@@ -143,6 +143,35 @@ public final class MotionChecks {
         return out;
     }
 
+    /** Spin of the Lense-Thirring checks. */
+    public static final double LT_SPIN = 0.9;
+    /** Semi-latus recta of the Lense-Thirring checks. */
+    public static final double[] LT_P = {400, 1600, 6400};
+
+    /**
+     * The leading spin term: the ratio of (Kerr equatorial advance - Schwarzschild exact advance)
+     * to the Lense-Thirring term -+8 pi a / p^(3/2) must approach 1, prograde and retrograde. The
+     * next spin terms (a / p^(5/2), a^2 / p^2) are smaller by about p^(-1/2), so the tolerance is
+     * 0.1 sqrt(400 / p) (our choice; no published coefficients used).
+     */
+    public static List<Check> lenseThirring() {
+        List<Check> out = new ArrayList<>();
+        Spacetime st = kerr(LT_SPIN);
+        for (boolean prograde : new boolean[] {true, false}) {
+            for (double p : LT_P) {
+                OrbitElements.Solution s = OrbitElements.solve(st, p, SERIES_E, prograde ? 0.0 : FastMath.PI);
+                double spinPart = measure(st, s, SERIES_ORBITS).advance() - SchwarzschildPrecession.exact(p, SERIES_E);
+                double lt = Predictions.advanceSpin(LT_SPIN, p, prograde);
+                out.add(new Check("Spin term", String.format(Locale.ROOT,
+                        "(Kerr - Schwarzschild advance) / (%s8 pi a p^-3/2), %s, a = %s, p = %s, e = %s",
+                        prograde ? "-" : "+", prograde ? "prograde" : "retrograde", LT_SPIN, p, SERIES_E), 1.0,
+                        "Lense & Thirring 1918 (equatorial periapsis term, see Predictions.advanceSpin)",
+                        spinPart / lt, 0.1 * FastMath.sqrt(400 / p)));
+            }
+        }
+        return out;
+    }
+
     /** Kerr periods and advance vs quadrature, and the set-up's turning points vs the Kerr quartic. */
     public static List<Check> kerr() {
         List<Check> out = new ArrayList<>();

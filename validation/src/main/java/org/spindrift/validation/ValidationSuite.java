@@ -19,6 +19,7 @@ public final class ValidationSuite {
     public static Run run() {
         MotionChecks.Series s = MotionChecks.schwarzschildSeries();
         List<Check> all = new ArrayList<>(MotionChecks.schwarzschild(s));
+        all.addAll(MotionChecks.lenseThirring());
         all.addAll(MotionChecks.kerr());
         all.addAll(MotionChecks.hipparchus());
         return new Run(all, s);

@@ -35,6 +35,13 @@ class MotionValidationTest {
     }
 
     @Test
+    void spinTermIsTheLeadingKerrCorrection() {
+        List<Check> checks = MotionChecks.lenseThirring();
+        assertEquals(2 * MotionChecks.LT_P.length, checks.size());
+        assertAllPass(checks);
+    }
+
+    @Test
     void kerrPeriodsAndAdvanceMatchQuadrature() {
         List<Check> checks = MotionChecks.kerr();
         // 2 equatorial cases x 5 checks + 2 inclined cases x 6 checks

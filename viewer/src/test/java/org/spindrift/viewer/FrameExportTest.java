@@ -96,6 +96,52 @@ class FrameExportTest {
         }
     }
 
+    /**
+     * The observer's camera shows the sky as DESIGN section 3 and the light stage's camera define
+     * it: line of sight n = (sin i, 0, cos i), screen axes alpha = (0, 1, 0) (west at PA = 0) and
+     * beta = (-cos i, 0, sin i) (north at PA = 0), sky (east, north) = alpha (-cos PA, sin PA) +
+     * beta (sin PA, cos PA), drawn east to the left and north up. Pixel positions follow from a
+     * pinhole at distance D: column = W/2 - f east / (D - n.p), row = H/2 - f north / (D - n.p),
+     * f = (H/2) / tan(17.5 deg). Worked out here without the viewer's camera code.
+     */
+    @Test void observerCameraShowsEastLeftNorthUp() throws Exception {
+        ChildViewer.requireDisplayOrXvfb();
+        double incl = 60;
+        double pa = 30;
+        Path run = tmp.resolve("run-observer");
+        SyntheticRun.writeLayout(run, X, Y, new double[] {0, 10}, incl, pa);
+        Path frames = tmp.resolve("frames-observer");
+        ChildViewer.Result r = ChildViewer.runWithDisplay(tmp, run.toString(), "--export-frames", frames.toString(),
+                "--size", W + "x" + H, "--bare", "--camera", "observer", "--camera-distance", String.valueOf(DISTANCE),
+                "--colour", "source", "--every", "2");
+        if (r.exit() == 2 && r.err().contains("xvfb-run") && !ChildViewer.required()) {
+            Assumptions.abort("no OpenGL 3.3 on this display: " + r.err().trim());
+        }
+        assertEquals(0, r.exit(), "view --export-frames failed: " + r.err());
+        BufferedImage im = ImageIO.read(frames.resolve("frame_00000.png").toFile());
+        double i = Math.toRadians(incl);
+        double p = Math.toRadians(pa);
+        double f = (H / 2.0) / Math.tan(Math.toRadians(17.5));
+        for (int k = 0; k < X[0].length; k++) {
+            double x = X[0][k];
+            double y = Y[0][k];
+            double alpha = y;
+            double beta = -Math.cos(i) * x;
+            double east = -alpha * Math.cos(p) + beta * Math.sin(p);
+            double north = alpha * Math.sin(p) + beta * Math.cos(p);
+            double depth = DISTANCE - Math.sin(i) * x;
+            int col = (int) Math.floor(W / 2.0 - f * east / depth);
+            int row = (int) Math.floor(H / 2.0 - f * north / depth);
+            assertTrue(brightest(im, col, row, 2) >= 150, "particle " + k + " lit at (" + col + ", " + row + ")");
+            // its mirror image (east and west swapped) is dark: the sky is not flipped
+            int mirror = (int) Math.floor(W / 2.0 + f * east / depth);
+            if (Math.abs(mirror - col) > 6) {
+                assertTrue(brightest(im, mirror, row, 1) < 100, "particle " + k + " not mirrored to (" + mirror + ", "
+                        + row + ")");
+            }
+        }
+    }
+
     /** Pixel (column, row from the top) of a point in the equatorial plane. */
     static int[] project(Matrix4f vp, double x, double y) {
         Vector4f p = new Vector4f((float) x, (float) y, 0f, 1f).mul(vp);

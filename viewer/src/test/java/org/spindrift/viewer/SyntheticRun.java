@@ -31,6 +31,12 @@ public final class SyntheticRun {
      * equator; Schwarzschild 1916 / Bardeen, Press &amp; Teukolsky 1972, values from memory).
      */
     static void writeLayout(Path dir, double[][] x, double[][] y, double[] times) throws IOException {
+        writeLayout(dir, x, y, times, 0.0, 0.0);
+    }
+
+    /** As {@link #writeLayout(Path, double[][], double[][], double[])} with an observer at (i, PA), degrees. */
+    static void writeLayout(Path dir, double[][] x, double[][] y, double[] times, double incl, double pa)
+            throws IOException {
         int s = times.length;
         int n = x[0].length;
         RunArchiveWriter w = RunArchiveWriter.create(dir);
@@ -57,7 +63,7 @@ public final class SyntheticRun {
         }
         sw.write(dir);
         w.register(ArchiveLayout.SNAPSHOTS);
-        w.finish(manifest("layout test (invented)", 0.0, 2.0, 6.0, Double.NaN, 2.0, 0.0, 0.0, n, "probe"));
+        w.finish(manifest("layout test (invented)", 0.0, 2.0, 6.0, Double.NaN, 2.0, incl, pa, n, "probe"));
     }
 
     /**

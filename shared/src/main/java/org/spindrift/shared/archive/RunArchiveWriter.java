@@ -26,6 +26,11 @@ import org.spindrift.shared.Version;
  *
  * <p>Re-using a folder that holds an earlier run removes that run's manifest first (so the folder
  * never looks complete while it is being rewritten) and then the files it listed.
+ *
+ * <p>A run that fails or is stopped calls {@link #abandon}: the files written so far are removed
+ * (and the folder, when this writer created it and it is left empty), so an interrupted run
+ * leaves no file that looks complete. The methods are synchronized so that a shutdown hook can
+ * abandon the run while the main thread is writing.
  */
 public final class RunArchiveWriter {
     /** Files of format version 1, allowed in a folder that is about to be re-used. */
@@ -36,11 +41,14 @@ public final class RunArchiveWriter {
     private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 
     private final Path folder;
+    private final boolean created;
     private final Map<String, Path> files = new LinkedHashMap<>();
     private boolean finished;
+    private boolean abandoned;
 
-    private RunArchiveWriter(Path folder) {
+    private RunArchiveWriter(Path folder, boolean created) {
         this.folder = folder;
+        this.created = created;
     }
 
     /** @return the JSON mapper used for the manifest (indenting) */
@@ -54,28 +62,42 @@ public final class RunArchiveWriter {
      * @throws UserInputException when the folder exists and holds files that are not a run's
      */
     public static RunArchiveWriter create(Path folder) throws IOException {
-        if (Files.exists(folder)) {
-            if (!Files.isDirectory(folder)) {
-                throw new UserInputException("output folder " + folder + ": exists and is not a folder; choose another with -o");
-            }
-            List<Path> foreign = new ArrayList<>();
-            try (DirectoryStream<Path> ds = Files.newDirectoryStream(folder)) {
-                for (Path p : ds) {
-                    String name = p.getFileName().toString();
-                    boolean partial = name.startsWith(ArchiveLayout.PARTIAL_PREFIX) && name.endsWith(ArchiveLayout.PARTIAL_SUFFIX);
-                    if (!KNOWN.contains(name) && !partial) {
-                        foreign.add(p);
-                    }
-                }
-            }
-            if (!foreign.isEmpty()) {
-                throw new UserInputException("output folder " + folder + ": holds files that are not part of a run (for example "
-                        + foreign.get(0).getFileName() + "); choose another with -o");
-            }
+        boolean existed = Files.exists(folder);
+        checkUsable(folder);
+        if (existed) {
             clear(folder);
         }
         Files.createDirectories(folder);
-        return new RunArchiveWriter(folder);
+        return new RunArchiveWriter(folder, !existed);
+    }
+
+    /**
+     * Checks, without changing anything, that a folder may receive a run: it does not exist, or
+     * it is a folder holding only files of a run (an earlier or interrupted one).
+     *
+     * @throws UserInputException naming the folder and the first foreign file
+     */
+    public static void checkUsable(Path folder) throws IOException {
+        if (!Files.exists(folder)) {
+            return;
+        }
+        if (!Files.isDirectory(folder)) {
+            throw new UserInputException("output folder " + folder + ": exists and is not a folder; choose another with -o");
+        }
+        List<Path> foreign = new ArrayList<>();
+        try (DirectoryStream<Path> ds = Files.newDirectoryStream(folder)) {
+            for (Path p : ds) {
+                String name = p.getFileName().toString();
+                boolean partial = name.startsWith(ArchiveLayout.PARTIAL_PREFIX) && name.endsWith(ArchiveLayout.PARTIAL_SUFFIX);
+                if (!KNOWN.contains(name) && !partial) {
+                    foreign.add(p);
+                }
+            }
+        }
+        if (!foreign.isEmpty()) {
+            throw new UserInputException("output folder " + folder + ": holds files that are not part of a run (for example "
+                    + foreign.get(0).getFileName() + "); choose another with -o");
+        }
     }
 
     /** Removes the manifest first, then the other files of an earlier or interrupted run. */
@@ -110,7 +132,7 @@ public final class RunArchiveWriter {
      *
      * @param relativeName for example {@code periods.csv} or {@code plots/positions.png}
      */
-    public Path write(String relativeName, AtomicFiles.Writer writer) throws IOException {
+    public synchronized Path write(String relativeName, AtomicFiles.Writer writer) throws IOException {
         checkOpen();
         Path target = folder.resolve(relativeName);
         Files.createDirectories(target.getParent());
@@ -130,9 +152,16 @@ public final class RunArchiveWriter {
     }
 
     /** Registers a file that another writer (for example {@link SnapshotWriter}) completed in the folder. */
-    public void register(String relativeName) {
-        checkOpen();
+    public synchronized void register(String relativeName) {
         Path p = folder.resolve(relativeName);
+        if (abandoned) {
+            try {
+                Files.deleteIfExists(p);
+            } catch (IOException e) {
+                // best effort
+            }
+        }
+        checkOpen();
         if (!Files.isRegularFile(p)) {
             throw new IllegalStateException("no file " + p + " to register");
         }
@@ -151,7 +180,7 @@ public final class RunArchiveWriter {
      *
      * @param body the run's manifest keys (scenario echo, seed, black hole, landmarks, ...)
      */
-    public Path finish(ObjectNode body) throws IOException {
+    public synchronized Path finish(ObjectNode body) throws IOException {
         checkOpen();
         ObjectNode m = JSON.createObjectNode();
         m.put("format", ArchiveLayout.FORMAT);
@@ -176,6 +205,66 @@ public final class RunArchiveWriter {
     private void checkOpen() {
         if (finished) {
             throw new IllegalStateException("run folder " + folder + " already finished");
+        }
+        if (abandoned) {
+            throw new IllegalStateException("run folder " + folder + " was abandoned (run stopped)");
+        }
+    }
+
+    /** @return whether {@link #finish} completed */
+    public synchronized boolean finished() {
+        return finished;
+    }
+
+    /**
+     * Removes every file this run wrote and every temporary file in the folder (and the folder
+     * itself when this writer created it and nothing else is left). Does nothing after
+     * {@link #finish}. Best effort: errors are ignored.
+     */
+    public synchronized void abandon() {
+        if (finished || abandoned) {
+            return;
+        }
+        abandoned = true;
+        for (Path p : files.values()) {
+            try {
+                Files.deleteIfExists(p);
+            } catch (IOException e) {
+                // best effort
+            }
+        }
+        removePartials(folder);
+        Path plots = folder.resolve(ArchiveLayout.PLOTS);
+        removePartials(plots);
+        try {
+            if (Files.isDirectory(plots) && isEmpty(plots)) {
+                Files.delete(plots);
+            }
+            if (created && isEmpty(folder)) {
+                Files.delete(folder);
+            }
+        } catch (IOException e) {
+            // best effort
+        }
+    }
+
+    private static boolean isEmpty(Path dir) throws IOException {
+        try (DirectoryStream<Path> ds = Files.newDirectoryStream(dir)) {
+            return !ds.iterator().hasNext();
+        }
+    }
+
+    private static void removePartials(Path dir) {
+        if (!Files.isDirectory(dir)) {
+            return;
+        }
+        try (DirectoryStream<Path> ds = Files.newDirectoryStream(dir,
+                ArchiveLayout.PARTIAL_PREFIX + "*" + ArchiveLayout.PARTIAL_SUFFIX)) {
+            for (Path q : ds) {
+                Files.deleteIfExists(q);
+            }
+        } catch (IOException e) {
+            // best effort
         }
     }
 }

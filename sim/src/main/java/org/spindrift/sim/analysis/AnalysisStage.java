@@ -7,7 +7,6 @@ import java.util.List;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.scenario.CentreOrbit;
 import org.spindrift.shared.scenario.Scenario;
-import org.spindrift.shared.scenario.Sense;
 import org.spindrift.shared.scenario.Source;
 import org.spindrift.sim.run.ParticleHistory;
 import org.spindrift.sim.run.RunContext;
@@ -93,17 +92,6 @@ public final class AnalysisStage implements RunStage {
             return e.semiLatusRectumM();
         }
         return ((CentreOrbit.Local) o).radiusM();
-    }
-
-    static boolean prograde(Source s) {
-        CentreOrbit o = s.orbit();
-        if (o instanceof CentreOrbit.Circular c) {
-            return c.sense() == Sense.PROGRADE;
-        }
-        if (o instanceof CentreOrbit.Elements e) {
-            return e.sense() == Sense.PROGRADE;
-        }
-        return ((CentreOrbit.Local) o).vPhi() >= 0;
     }
 
     private static void summary(RunContext ctx, ParticlePeriods p, List<ShearShape> shapes) {

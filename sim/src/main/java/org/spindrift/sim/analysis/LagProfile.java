@@ -49,38 +49,50 @@ public record LagProfile(double[] r, double[] lag, int[] count, double stationar
             return EMPTY;
         }
         bins = Math.max(3, Math.min(bins, m / MIN_PER_BIN));
-        Integer[] order = new Integer[m];
         double[] phis = new double[m];
+        double[] rsort = new double[m];
         for (int k = 0; k < m; k++) {
-            order[k] = idx[k];
             phis[k] = phi[idx[k]];
+            rsort[k] = r[idx[k]];
         }
         java.util.Arrays.sort(phis);
         double phiC = Stats.quantile(phis, 0.5);
-        java.util.Arrays.sort(order, (a, b) -> Double.compare(r[a], r[b]));
+        // equal-count bins: edges at the r quantiles (primitive sort; ties may shift a member)
+        java.util.Arrays.sort(rsort);
+        double[] edge = new double[bins - 1];
+        for (int b = 1; b < bins; b++) {
+            edge[b - 1] = rsort[(int) ((long) b * m / bins)];
+        }
         double[] rb = new double[bins];
         double[] lag = new double[bins];
         int[] cnt = new int[bins];
         double[] se = new double[bins];
+        double[] sp = new double[bins];
+        double[] sp2 = new double[bins];
+        int[] bin = new int[m];
+        for (int k = 0; k < m; k++) {
+            int i = idx[k];
+            int b = java.util.Arrays.binarySearch(edge, r[i]);
+            b = b >= 0 ? b + 1 : -b - 1;
+            bin[k] = b;
+            cnt[b]++;
+            rb[b] += r[i];
+            sp[b] += phi[i];
+        }
         for (int b = 0; b < bins; b++) {
-            int from = (int) ((long) b * m / bins);
-            int to = (int) ((long) (b + 1) * m / bins);
-            double sr = 0;
-            double sp = 0;
-            for (int k = from; k < to; k++) {
-                sr += r[order[k]];
-                sp += phi[order[k]];
+            if (cnt[b] == 0) {
+                return EMPTY;
             }
-            cnt[b] = to - from;
-            rb[b] = sr / cnt[b];
-            double mean = sp / cnt[b];
-            double var = 0;
-            for (int k = from; k < to; k++) {
-                double d = phi[order[k]] - mean;
-                var += d * d;
-            }
-            se[b] = Math.sqrt(var / Math.max(1, cnt[b] - 1) / cnt[b]);
-            lag[b] = phiC - mean;
+            rb[b] /= cnt[b];
+            sp[b] /= cnt[b];
+        }
+        for (int k = 0; k < m; k++) {
+            double d = phi[idx[k]] - sp[bin[k]];
+            sp2[bin[k]] += d * d;
+        }
+        for (int b = 0; b < bins; b++) {
+            se[b] = Math.sqrt(sp2[b] / Math.max(1, cnt[b] - 1) / cnt[b]);
+            lag[b] = phiC - sp[b];
         }
         int lo = 0;
         for (int b = 1; b < bins; b++) {

@@ -9,6 +9,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import org.knowm.xchart.BitmapEncoder;
+import org.knowm.xchart.VectorGraphicsEncoder;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
@@ -42,6 +43,10 @@ public final class PlotStage implements RunStage {
     static final Color[] LINES = {new Color(31, 119, 180), new Color(255, 127, 14), new Color(44, 160, 44),
         new Color(214, 39, 40), new Color(148, 103, 189), new Color(140, 86, 75), new Color(23, 190, 207)};
 
+    /** Panel size of the position plots, chosen so that the plot area is square with the legend at the right. */
+    static final int PANEL_W = 700;
+    static final int PANEL_H = 540;
+
     @Override public String name() {
         return "plots";
     }
@@ -69,6 +74,15 @@ public final class PlotStage implements RunStage {
                 }
             }
         });
+        if (charts.size() == 1) {
+            // a vector twin where XChart offers one (single-panel charts; DESIGN section 8)
+            ctx.archive().write(name.replaceFirst("\\.png$", ".svg"), tmp -> {
+                try (OutputStream out = Files.newOutputStream(tmp)) {
+                    VectorGraphicsEncoder.saveVectorGraphic(charts.get(0), out,
+                            VectorGraphicsEncoder.VectorGraphicsFormat.SVG);
+                }
+            });
+        }
     }
 
     private static XYChart chart(int w, int h, String title, String x, String y) {
@@ -142,54 +156,64 @@ public final class PlotStage implements RunStage {
         } else {
             ShearAnalysis.basis(nrm, e1, e2);
         }
-        double rMin = Double.POSITIVE_INFINITY;
-        double rMax = 0;
+        // colour classes of r: quantiles of the kept particles' radii over the whole run, open at both ends
+        double[] allR = new double[idx.length * s];
+        int na = 0;
         double extent = 0;
         for (int q = 0; q < s; q++) {
             for (int i : idx) {
                 if (h.state(q)[i] == 0) {
-                    rMin = Math.min(rMin, h.r(q)[i]);
-                    rMax = Math.max(rMax, h.r(q)[i]);
+                    allR[na++] = h.r(q)[i];
                     extent = Math.max(extent, h.r(q)[i]);
                 }
             }
         }
+        double[] sortedR = Stats.finiteSorted(allR, na);
+        int nb = RAMP.length;
+        double[] edges = new double[nb + 1];
+        for (int b = 0; b <= nb; b++) {
+            edges[b] = Stats.quantile(sortedR, (double) b / nb);
+        }
         extent = Math.max(extent * 1.08, 1.3 * ctx.landmark("isco_prograde"));
         if (!Double.isFinite(extent)) {
-            extent = 1.1 * rMax;
+            extent = 1.1 * sortedR[sortedR.length - 1];
         }
         List<XYChart> charts = new ArrayList<>();
         int[] at = {0, (s - 1) / 3, 2 * (s - 1) / 3, s - 1};
         double spm = ctx.secondsPerM();
         for (int q : at) {
-            XYChart c = chart(560, 560, String.format(Locale.ROOT, "t = %.1f M (%.1f min)", h.time(q), h.time(q) * spm / 60),
-                    "x in orbital plane (M)", "y in orbital plane (M)");
-            c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideS);
-            c.getStyler().setLegendLayout(Styler.LegendLayout.Horizontal);
+            XYChart c = chart(PANEL_W, PANEL_H, String.format(Locale.ROOT, "t = %.1f M (%.1f min)", h.time(q),
+                    h.time(q) * spm / 60), "x in the orbital plane (M)", "y in the orbital plane (M)");
+            c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideE);
             c.getStyler().setMarkerSize(3);
             c.getStyler().setXAxisMin(-extent);
             c.getStyler().setXAxisMax(extent);
             c.getStyler().setYAxisMin(-extent);
             c.getStyler().setYAxisMax(extent);
-            int nb = RAMP.length;
+            c.getStyler().setXAxisDecimalPattern("0.#");
+            c.getStyler().setYAxisDecimalPattern("0.#");
             List<List<Double>> xs = new ArrayList<>();
             List<List<Double>> ys = new ArrayList<>();
             for (int b = 0; b < nb; b++) {
                 xs.add(new ArrayList<>());
                 ys.add(new ArrayList<>());
             }
-            double span = Math.max(1e-9, rMax - rMin);
             for (int i : idx) {
                 if (h.state(q)[i] != 0) {
                     continue;
                 }
                 Coordinates.cartesian(h.r(q)[i], h.theta(q)[i], h.phi(q)[i], h.spin(), xyz);
-                int b = (int) Math.min(nb - 1, Math.floor((h.r(q)[i] - rMin) / span * nb));
+                int b = 0;
+                while (b < nb - 1 && h.r(q)[i] >= edges[b + 1]) {
+                    b++;
+                }
                 xs.get(b).add(ShearAnalysis.dot(xyz, e1));
                 ys.get(b).add(ShearAnalysis.dot(xyz, e2));
             }
             for (int b = 0; b < nb; b++) {
-                String label = "r " + fmt(rMin + span * b / nb) + "-" + fmt(rMin + span * (b + 1) / nb);
+                String label = b == 0 ? "r < " + fmt(edges[1]) + " M"
+                        : b == nb - 1 ? "r > " + fmt(edges[nb - 1]) + " M"
+                        : "r " + fmt(edges[b]) + " - " + fmt(edges[b + 1]) + " M";
                 if (xs.get(b).isEmpty()) {
                     xs.get(b).add(Double.NaN);
                     ys.get(b).add(Double.NaN);
@@ -199,10 +223,11 @@ public final class PlotStage implements RunStage {
                 ser.setMarker(SeriesMarkers.CIRCLE);
                 ser.setMarkerColor(RAMP[b]);
             }
-            circle(c, "capture " + fmt(ctx.landmarks().getOrDefault("capture_radius", Double.NaN)), captureRadius(ctx),
+            double cap = captureRadius(ctx);
+            circle(c, (Double.isFinite(ctx.landmark("horizon_outer")) ? "horizon " : "surface ") + fmt(cap) + " M", cap,
                     Color.BLACK, false);
-            circle(c, "ISCO " + fmt(ctx.landmark("isco_prograde")), ctx.landmark("isco_prograde"), Color.GRAY, true);
-            circle(c, "Omega max " + fmt(ctx.landmark("omega_max_radius")), ctx.landmark("omega_max_radius"),
+            circle(c, "ISCO " + fmt(ctx.landmark("isco_prograde")) + " M", ctx.landmark("isco_prograde"), Color.GRAY, true);
+            circle(c, "Omega max " + fmt(ctx.landmark("omega_max_radius")) + " M", ctx.landmark("omega_max_radius"),
                     new Color(214, 39, 40), true);
             charts.add(c);
         }
@@ -235,13 +260,13 @@ public final class PlotStage implements RunStage {
             }
             String name = ctx.scenario().sources().get(src).name();
             Color col = LINES[src % LINES.length];
-            XYSeries a = c.addSeries(name + ": aspect ratio (left)", t, ar);
+            XYSeries a = c.addSeries(name + ": aspect ratio (left axis)", t, ar);
             a.setMarker(SeriesMarkers.NONE);
             a.setLineColor(col);
             a.setLineStyle(new BasicStroke(2f));
-            XYSeries e = c.addSeries(name + ": azimuthal extent (right)", t, ext);
+            XYSeries e = c.addSeries(name + ": azimuthal extent (right axis)", t, ext);
             e.setMarker(SeriesMarkers.NONE);
-            e.setLineColor(col);
+            e.setLineColor(LINES[(src + 1) % LINES.length]);
             e.setLineStyle(new BasicStroke(2f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f, new float[] {7f, 4f}, 0f));
             e.setYAxisGroup(1);
         }
@@ -311,8 +336,67 @@ public final class PlotStage implements RunStage {
     private static List<XYChart> periods(RunContext ctx, ParticlePeriods p) {
         List<XYChart> out = new ArrayList<>();
         out.add(histogram(ctx, p.periodPhi(), "Azimuthal periods", "azimuthal period (min)", 0));
-        out.add(histogram(ctx, p.periodR(), "Radial periods", "radial period (min)", 1));
+        if (Stats.finiteSorted(p.periodR(), p.periodR().length).length > 0) {
+            out.add(histogram(ctx, p.periodR(), "Radial periods", "radial period (min)", 1));
+        } else {
+            out.add(periodAgainstRadius(ctx, p));
+        }
         return out;
+    }
+
+    /** Azimuthal period against mean radius, with the circular-orbit curve 2 pi / |Omega(r)| of the metric. */
+    private static XYChart periodAgainstRadius(RunContext ctx, ParticlePeriods p) {
+        ParticleHistory h = ctx.history();
+        Scenario sc = ctx.scenario();
+        double spm = ctx.secondsPerM();
+        XYChart c = chart(620, 480, "Azimuthal period against radius (no radial periods measured)", "mean r (M)",
+                "azimuthal period (min)");
+        c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideS);
+        c.getStyler().setMarkerSize(3);
+        int[] idx = SnapshotStage.keptIndices(sc, ctx.placed().firstIndex());
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = 0;
+        List<List<Double>> allX = new ArrayList<>();
+        List<List<Double>> allY = new ArrayList<>();
+        for (int k = 0; k < sc.sources().size(); k++) {
+            List<Double> xs = new ArrayList<>();
+            List<Double> ys = new ArrayList<>();
+            for (int i : idx) {
+                if (h.sourceIndex()[i] == k && Double.isFinite(p.periodPhi(i)) && Double.isFinite(p.meanR(i))) {
+                    xs.add(p.meanR(i));
+                    ys.add(p.periodPhi(i) * spm / 60);
+                    lo = Math.min(lo, p.meanR(i));
+                    hi = Math.max(hi, p.meanR(i));
+                }
+            }
+            allX.add(xs);
+            allY.add(ys);
+        }
+        if (hi > lo) {
+            // drawn first, under the measured points
+            int m = 100;
+            double[] x = new double[m];
+            double[] y = new double[m];
+            for (int j = 0; j < m; j++) {
+                x[j] = lo + (hi - lo) * j / (m - 1);
+                y[j] = 2 * Math.PI / Math.abs(org.spindrift.sim.spacetime.CircularOrbits.omega(ctx.spacetime(), x[j], true))
+                        * spm / 60;
+            }
+            XYSeries curve = c.addSeries("metric: circular prograde orbit, 2 pi / Omega(r)", x, y);
+            curve.setMarker(SeriesMarkers.NONE);
+            curve.setLineColor(new Color(120, 120, 120));
+            curve.setLineStyle(new BasicStroke(5f));
+        }
+        for (int k = 0; k < allX.size(); k++) {
+            if (allX.get(k).isEmpty()) {
+                continue;
+            }
+            XYSeries ser = c.addSeries(sc.sources().get(k).name() + " (measured, kept particles)", allX.get(k), allY.get(k));
+            ser.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+            ser.setMarker(SeriesMarkers.CIRCLE);
+            ser.setMarkerColor(LINES[k % LINES.length]);
+        }
+        return c;
     }
 
     private static XYChart histogram(RunContext ctx, double[] v, String title, String xTitle, int which) {
@@ -374,14 +458,16 @@ public final class PlotStage implements RunStage {
             ser.setLineColor(col);
             ser.setLineStyle(new BasicStroke(2f));
             org.spindrift.sim.scenario.SourceSetup.Prediction pr = ctx.placed().centres()[k].prediction();
-            double pred = which == 0 ? pr.azimuthal() : pr.radial();
+            double pred = which == 0 ? pr.azimuthal() : which == 1 ? pr.radial() : pr.vertical();
             if (Double.isFinite(pred)) {
                 vline(c, name + ": metric prediction " + fmt(pred * spm / 60) + " min", pred * spm / 60, 0, top * 1.05,
                         col.darker());
             }
         }
         if (!any) {
-            c.addSeries("no particle completed two periapsis passages", new double[] {0}, new double[] {0});
+            XYSeries e = c.addSeries("no particle completed two turning points", new double[] {0, 1}, new double[] {0, 0});
+            e.setMarker(SeriesMarkers.NONE);
+            e.setLineColor(Color.LIGHT_GRAY);
         }
         return c;
     }

@@ -23,25 +23,33 @@ public final class CheckCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "FILE", description = "Scenario file (YAML or JSON).")
     private Path file;
 
+    @picocli.CommandLine.Spec
+    private picocli.CommandLine.Model.CommandSpec spec;
+
+    private java.io.PrintWriter out() {
+        return spec.commandLine().getOut();
+    }
+
     @Override public Integer call() {
         ScenarioRun.Prepared p = ScenarioRun.prepare(ScenarioLoader.load(file));
         Scenario sc = p.loaded().scenario();
         double spm = p.secondsPerM();
-        System.out.printf(Locale.ROOT, "%s: ok: scenario '%s', %s a = %s, %d source(s), %d particles%n", file, sc.name(),
+        out().printf(Locale.ROOT, "%s: ok: scenario '%s', %s a = %s, %d source(s), %d particles%n", file, sc.name(),
                 sc.blackHole().family(), fmt(sc.blackHole().spin()), sc.sources().size(), sc.totalParticles());
-        System.out.printf(Locale.ROOT, "  1 M = %.4g s = %.4g micro-arcsec; duration %.1f M = %.1f min, %d snapshots%n",
+        out().printf(Locale.ROOT, "  1 M = %.4g s = %.4g micro-arcsec; duration %.1f M = %.1f min, %d snapshots%n",
                 spm, p.microarcsecPerM(), p.durationM(), p.durationM() * spm / 60, p.times().length);
         for (int k = 0; k < sc.sources().size(); k++) {
             Source s = sc.sources().get(k);
-            System.out.printf(Locale.ROOT, "  source %s: %s, %d particles, centre period %.1f M = %.1f min%n", s.name(),
+            out().printf(Locale.ROOT, "  source %s: %s, %d particles, centre period %.1f M = %.1f min%n", s.name(),
                     s.kind().key(), s.particles(), p.placed().centres()[k].periodM(),
                     p.placed().centres()[k].periodM() * spm / 60);
         }
+        out().flush();
         return 0;
     }
 
     private static String fmt(double v) {
-        return String.format(Locale.ROOT, "%.6g", v);
+        return Double.toString(v);
     }
 
     /** Registers {@code check}. */

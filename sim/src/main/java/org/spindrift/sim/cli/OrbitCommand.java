@@ -31,7 +31,10 @@ import picocli.CommandLine.Option;
             "The orbit starts at periapsis r_p = p/(1+e) on the equator; the apoapsis is r_a = p/(1-e).",
             "The inclination iota is defined by cos(iota) = L / sqrt(L^2 + Q), with L the axial angular"
                     + " momentum and Q the Carter constant; iota > 90 deg is retrograde.",
-            "Times are coordinate time in M, angles in radians."})
+            "Times are coordinate time in M, angles in radians; periods are positive and the periastron"
+                    + " advance is counted in the sense of the orbital motion (also for retrograde orbits). A circular orbit (--e 0) has no periapsis:"
+                    + " period_radial and periastron_advance are null; near-circular orbits (e < 1e-3) give"
+                    + " ill-conditioned periapsis times."})
 public final class OrbitCommand implements Callable<Integer> {
     @Mixin
     SpacetimeOptions spacetime;
@@ -76,14 +79,17 @@ public final class OrbitCommand implements Callable<Integer> {
         if (plot != null && !plot.toString().toLowerCase(Locale.ROOT).endsWith(".png")) {
             throw new UserInputException("--plot must name a .png file, got " + plot);
         }
+        if (!(p > 0 && p <= 1e6)) {
+            throw new UserInputException("--p must be in (0, 1e6] M, got " + p);
+        }
         Spacetime st = spacetime.build();
         double iotaDeg = retrograde ? 180.0 - inclinationDeg : inclinationDeg;
         double iota = FastMath.toRadians(iotaDeg);
         OrbitElements.Solution sol = OrbitSetup.elements(st, p, e, iota);
         BatchIntegrator.Config cfg = BatchIntegrator.Config.of(OrbitSetup.captureRadius(st))
-                .withTolerance(tolerance, tolerance);
+                .withTolerance(tolerance, tolerance).withEscapeRadius(FastMath.max(1e4, 10 * sol.apoapsis()));
         OrbitMeasurement.Result m = OrbitMeasurement.measure(st, sol.start(), orbits, cfg, 200,
-                OrbitMeasurement.keplerPeriod(p, e));
+                OrbitMeasurement.keplerPeriod(p, e), e == 0.0);
         if (m.orbits() < orbits) {
             System.err.println("orbit: the trajectory ended (" + m.endState().name().toLowerCase(Locale.ROOT)
                     + ") after " + m.orbits() + " of " + orbits + " radial periods");

@@ -36,6 +36,13 @@ public final class RunCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress bar or summary lines.")
     private boolean quiet;
 
+    @picocli.CommandLine.Spec
+    private picocli.CommandLine.Model.CommandSpec spec;
+
+    private java.io.PrintWriter out() {
+        return spec.commandLine().getOut();
+    }
+
     @Override public Integer call() throws IOException {
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
         if (n < 1 || n > 1024) {
@@ -49,14 +56,15 @@ public final class RunCommand implements Callable<Integer> {
         ScenarioRun.Outcome o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, !quiet && terminal));
         if (!quiet) {
             double s = (System.nanoTime() - t0) * 1e-9;
-            System.out.printf(Locale.ROOT, "%s: %d particles over %.1f min (%.0f M), %d snapshots, %.1f s%n",
+            out().printf(Locale.ROOT, "%s: %d particles over %.1f min (%.0f M), %d snapshots, %.1f s%n",
                     ls.scenario().name(), o.history().particles(), p.durationM() * p.secondsPerM() / 60,
                     p.durationM(), o.history().snapshots(), s);
-            System.out.printf(Locale.ROOT, "end states: alive %d, captured %d, escaped %d, failed %d%n",
+            out().printf(Locale.ROOT, "end states: alive %d, captured %d, escaped %d, failed %d%n",
                     o.result().endStates()[0], o.result().endStates()[1], o.result().endStates()[2],
                     o.result().endStates()[3]);
-            System.out.println("run folder: " + o.folder());
+            out().println("run folder: " + o.folder());
         }
+        out().flush();
         return 0;
     }
 

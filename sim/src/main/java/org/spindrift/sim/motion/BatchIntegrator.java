@@ -296,7 +296,8 @@ public final class BatchIntegrator {
             long steps = 0;
             while (true) {
                 final double room = limit - t;
-                final boolean clamped = hh >= room;
+                // compare the sum, not hh with room: t + hh could round past limit
+                final boolean clamped = t + hh >= limit;
                 final double hTry = clamped ? room : hh;
                 final double err = st.attempt(hTry);
                 if (Double.isNaN(err) || err > 1.0) {

@@ -8,8 +8,9 @@ import org.spindrift.sim.spacetime.Spacetime;
  * Integrates one bound orbit for a number of radial periods and measures from the trajectory
  * (not from formulas): the radial period as the mean spacing of periapsis passages
  * ({@link TurningPoints}: p_r rising through zero, refined on the dense output), the periastron
- * advance per radial period as the mean of phi(t_k+1) - phi(t_k) - 2 pi, the azimuthal period
- * 2 pi / (mean dphi/dt) over those radial periods, and the polar period as the mean spacing of
+ * advance per radial period as the mean of |phi(t_k+1) - phi(t_k)| - 2 pi (in the sense of the
+ * orbital motion, so retrograde orbits have a positive advance too), the azimuthal period
+ * 2 pi / |mean dphi/dt| over those radial periods (periods are positive), and the polar period as the mean spacing of
  * northern polar turning points (p_theta rising through zero). All in coordinate time (M).
  * The means are weighted with a smooth window ({@link #weightedMeanIncrement}).
  * Also the mass-shell drift max |H + 1/2| and, for separable spacetimes, max |Q - Q_0| over
@@ -24,9 +25,9 @@ public final class OrbitMeasurement {
     /**
      * @param orbits radial periods measured
      * @param periodRadial mean radial period (M)
-     * @param periodAzimuthal 2 pi / mean dphi/dt (M)
+     * @param periodAzimuthal 2 pi / |mean dphi/dt| (M)
      * @param periodPolar mean polar period (M), NaN for equatorial orbits
-     * @param advance periastron advance per radial period (radians)
+     * @param advance periastron advance per radial period in the sense of the motion (radians)
      * @param massShellDriftMax max |H + 1/2|
      * @param carterDriftMax max |Q - Q0| (M^2), NaN when not separable
      * @param endState how the integration ended
@@ -48,10 +49,18 @@ public final class OrbitMeasurement {
      * @param orbits number of radial periods to measure (&gt;= 1)
      * @param config integrator settings (one thread is enough)
      * @param samplesPerOrbit trajectory samples per estimated radial period (for plots)
-     * @param periodEstimate an estimate of the radial period (M), for the sampling cadence
+     * @param periodEstimate an estimate of the radial period (M), for the sampling cadence; for a
+     *     circular orbit (no periapsis) the integration lasts orbits x periodEstimate and the
+     *     azimuthal period comes from the mean dphi/dt over the samples
      */
     public static Result measure(Spacetime st, InitialState start, int orbits, BatchIntegrator.Config config,
                                  int samplesPerOrbit, double periodEstimate) {
+        return measure(st, start, orbits, config, samplesPerOrbit, periodEstimate, false);
+    }
+
+    /** As {@link #measure(Spacetime, InitialState, int, BatchIntegrator.Config, int, double)}; circular when e = 0. */
+    public static Result measure(Spacetime st, InitialState start, int orbits, BatchIntegrator.Config config,
+                                 int samplesPerOrbit, double periodEstimate, boolean circular) {
         ParticleBatch b = new ParticleBatch(1);
         b.set(0, 0.0, start);
         TurningPoints tp = new TurningPoints(0);
@@ -92,7 +101,11 @@ public final class OrbitMeasurement {
         double t = 0;
         int blocks = 0;
         int maxBlocks = 4 * orbits + 20;
-        while (tp.periapsisCount() < orbits + 1 && b.endState(0) == EndState.ALIVE && blocks++ < maxBlocks) {
+        if (circular) {
+            maxBlocks = orbits;
+        }
+        while ((circular || tp.periapsisCount() < orbits + 1) && b.endState(0) == EndState.ALIVE
+                && blocks++ < maxBlocks) {
             double[] times = new double[samplesPerOrbit];
             for (int k = 0; k < samplesPerOrbit; k++) {
                 times[k] = t + periodEstimate * (k + 1) / samplesPerOrbit;
@@ -100,22 +113,27 @@ public final class OrbitMeasurement {
             evals += integ.integrate(b, times, sink, tp).evaluations();
             t = times[samplesPerOrbit - 1];
         }
-        int n = FastMath.min(orbits, tp.periapsisCount() - 1);
+        int n = circular ? 0 : FastMath.min(orbits, tp.periapsisCount() - 1);
         double tr = Double.NaN;
         double tphi = Double.NaN;
         double adv = Double.NaN;
-        if (n >= 1) {
+        if (circular && ns[0] > 0 && b.endState(0) == EndState.ALIVE) {
+            n = orbits;
+            tphi = 2 * FastMath.PI * samples[0][ns[0] - 1] / FastMath.abs(samples[3][ns[0] - 1] - start.phi());
+        } else if (n >= 1) {
             double dt = weightedMeanIncrement(tp::periapsisTime, n);
             double dphi = weightedMeanIncrement(tp::periapsisPhi, n);
             tr = dt;
-            adv = dphi - 2 * FastMath.PI;
-            tphi = 2 * FastMath.PI * dt / dphi;
+            // in the sense of the orbital motion: retrograde orbits (phi decreasing) advance too
+            adv = FastMath.abs(dphi) - 2 * FastMath.PI;
+            tphi = 2 * FastMath.PI * dt / FastMath.abs(dphi);
         }
         double tth = Double.NaN;
         if (start.pTheta() != 0.0 && tp.polarCount() >= 2) {
             // polar turning points up to the last periapsis used
             int m = 0;
-            while (m + 1 < tp.polarCount() && tp.polarTime(m + 1) <= tp.periapsisTime(n)) {
+            double tLast = circular ? Double.POSITIVE_INFINITY : tp.periapsisTime(n);
+            while (m + 1 < tp.polarCount() && tp.polarTime(m + 1) <= tLast) {
                 m++;
             }
             if (m >= 1) {

@@ -60,7 +60,8 @@ final class ParticleStepper implements DenseStep {
         y0[3] = pr;
         y0[4] = pth;
         double tDot = rhs(y0, 0);
-        return check(tDot, 0);
+        Failure f = check(tDot);
+        return f == Failure.NONE && !derivativeFinite(0) ? Failure.NON_FINITE : f;
     }
 
     private double rhs(double[] y, int stage) {
@@ -68,20 +69,21 @@ final class ParticleStepper implements DenseStep {
         return eq.coordinateTime(pt, pphi, y, 0, k, stage * N);
     }
 
-    private Failure check(double tDot, int stage) {
-        if (Double.isNaN(tDot) || Double.isInfinite(tDot)) {
-            return Failure.NON_FINITE;
+    /**
+     * Checks a stage through dt/dlambda only: a non-finite state or derivative makes it NaN or
+     * propagates into the error estimate (every later stage and the error sums use the earlier
+     * stages), where {@link #attempt} catches it; so the five derivatives need no test here.
+     */
+    private static Failure check(double tDot) {
+        if (tDot > 0.0 && tDot < Double.POSITIVE_INFINITY) {
+            return Failure.NONE;
         }
-        if (tDot <= 0.0) {
-            return Failure.TIME_NOT_INCREASING;
-        }
+        return Double.isNaN(tDot) || Double.isInfinite(tDot) ? Failure.NON_FINITE : Failure.TIME_NOT_INCREASING;
+    }
+
+    private boolean derivativeFinite(int stage) {
         int o = stage * N;
-        for (int j = 0; j < N; j++) {
-            if (!Double.isFinite(k[o + j])) {
-                return Failure.NON_FINITE;
-            }
-        }
-        return Failure.NONE;
+        return Double.isFinite(k[o] + k[o + 1] + k[o + 2] + k[o + 3] + k[o + 4]);
     }
 
     /** Hairer's starting step (Hairer, Norsett &amp; Wanner 1993, section II.4, algorithm on p. 169). */
@@ -101,7 +103,7 @@ final class ParticleStepper implements DenseStep {
             yt[j] = y0[j] + h0 * k[j];
         }
         double tDot = rhs(yt, 1);
-        if (check(tDot, 1) != Failure.NONE) {
+        if (check(tDot) != Failure.NONE || !derivativeFinite(1)) {
             return FastMath.max(minStep, 1e-3 * h0);
         }
         double d2 = 0;
@@ -112,7 +114,7 @@ final class ParticleStepper implements DenseStep {
         }
         d2 = FastMath.sqrt(d2 / N) / h0;
         double dm = FastMath.max(d1, d2);
-        double h1 = dm <= 1e-15 ? FastMath.max(1e-6, h0 * 1e-3) : FastMath.pow(0.01 / dm, 1.0 / 8.0);
+        double h1 = dm <= 1e-15 ? FastMath.max(1e-6, h0 * 1e-3) : Math.pow(0.01 / dm, 1.0 / 8.0);
         return FastMath.min(FastMath.min(100 * h0, h1), maxStep);
     }
 
@@ -128,36 +130,54 @@ final class ParticleStepper implements DenseStep {
         for (int s = 1; s < Dop853.STEP_STAGES; s++) {
             stageInput(s);
             double tDot = rhs(yt, s);
-            Failure f = check(tDot, s);
+            Failure f = check(tDot);
             if (f != Failure.NONE) {
                 lastFailure = f;
                 return Double.NaN;
             }
         }
-        // 8th-order solution and the two embedded error estimates (Hipparchus' estimateError form)
-        double e1 = 0;
-        double e2 = 0;
+        // 8th-order solution and the two embedded error estimates (Hipparchus' estimateError form);
+        // loops run over stages outside and the five components inside, so the five sums are
+        // independent chains (no dependency on the previous addition of the same sum)
         final double[] b = Dop853.B;
         final double[] w5 = Dop853.E5;
         final double[] w3 = Dop853.E3;
-        for (int j = 0; j < N; j++) {
-            double sb = 0;
-            double s5 = 0;
-            double s3 = 0;
-            for (int i = 0; i < Dop853.STEP_STAGES; i++) {
-                double ki = k[i * N + j];
-                sb += b[i] * ki;
-                s5 += w5[i] * ki;
-                s3 += w3[i] * ki;
-            }
-            double yn = y0[j] + h * sb;
-            y1[j] = yn;
-            double tol = atol + rtol * FastMath.max(FastMath.abs(y0[j]), FastMath.abs(yn));
-            double q5 = s5 / tol;
-            double q3 = s3 / tol;
-            e1 += q5 * q5;
-            e2 += q3 * q3;
+        double b0 = 0, b1 = 0, b2 = 0, b3 = 0, b4 = 0;
+        double f0 = 0, f1 = 0, f2 = 0, f3 = 0, f4 = 0;
+        double g0 = 0, g1 = 0, g2 = 0, g3 = 0, g4 = 0;
+        for (int i = 0; i < Dop853.STEP_STAGES; i++) {
+            final int o = i * N;
+            final double k0 = k[o];
+            final double k1 = k[o + 1];
+            final double k2 = k[o + 2];
+            final double k3 = k[o + 3];
+            final double k4 = k[o + 4];
+            final double bi = b[i];
+            final double fi = w5[i];
+            final double gi = w3[i];
+            b0 += bi * k0;
+            b1 += bi * k1;
+            b2 += bi * k2;
+            b3 += bi * k3;
+            b4 += bi * k4;
+            f0 += fi * k0;
+            f1 += fi * k1;
+            f2 += fi * k2;
+            f3 += fi * k3;
+            f4 += fi * k4;
+            g0 += gi * k0;
+            g1 += gi * k1;
+            g2 += gi * k2;
+            g3 += gi * k3;
+            g4 += gi * k4;
         }
+        y1[0] = y0[0] + h * b0;
+        y1[1] = y0[1] + h * b1;
+        y1[2] = y0[2] + h * b2;
+        y1[3] = y0[3] + h * b3;
+        y1[4] = y0[4] + h * b4;
+        double e1 = sq(f0 / tol(0)) + sq(f1 / tol(1)) + sq(f2 / tol(2)) + sq(f3 / tol(3)) + sq(f4 / tol(4));
+        double e2 = sq(g0 / tol(0)) + sq(g1 / tol(1)) + sq(g2 / tol(2)) + sq(g3 / tol(3)) + sq(g4 / tol(4));
         double den = e1 + 0.01 * e2;
         if (den <= 0.0) {
             den = 1.0;
@@ -170,15 +190,40 @@ final class ParticleStepper implements DenseStep {
         return err;
     }
 
+    private static double sq(double x) {
+        return x * x;
+    }
+
+    /** Error scale of component j: atol + rtol max(|y0|, |y1|) (Hairer, Norsett &amp; Wanner 1993, eq. II.4.10). */
+    private double tol(int j) {
+        return atol + rtol * FastMath.max(FastMath.abs(y0[j]), FastMath.abs(y1[j]));
+    }
+
+    /** yt = y0 + h sum_i a_{s,i} k_i, skipping zero coefficients, five independent sums. */
     private void stageInput(int s) {
         final double[] a = Dop853.A[s];
-        for (int j = 0; j < N; j++) {
-            double sum = 0;
-            for (int i = 0; i < a.length; i++) {
-                sum += a[i] * k[i * N + j];
+        double s0 = 0;
+        double s1 = 0;
+        double s2 = 0;
+        double s3 = 0;
+        double s4 = 0;
+        for (int i = 0; i < a.length; i++) {
+            final double ai = a[i];
+            if (ai == 0.0) {
+                continue;
             }
-            yt[j] = y0[j] + h * sum;
+            final int o = i * N;
+            s0 += ai * k[o];
+            s1 += ai * k[o + 1];
+            s2 += ai * k[o + 2];
+            s3 += ai * k[o + 3];
+            s4 += ai * k[o + 4];
         }
+        yt[0] = y0[0] + h * s0;
+        yt[1] = y0[1] + h * s1;
+        yt[2] = y0[2] + h * s2;
+        yt[3] = y0[3] + h * s3;
+        yt[4] = y0[4] + h * s4;
     }
 
     /**
@@ -189,7 +234,8 @@ final class ParticleStepper implements DenseStep {
     Failure finishAccepted() {
         double tDot = eq.coordinateTime(pt, pphi, y1, 0, k, 12 * N);
         evaluations++;
-        return check(tDot, 12);
+        Failure f = check(tDot);
+        return f == Failure.NONE && !derivativeFinite(12) ? Failure.NON_FINITE : f;
     }
 
     /** Moves the start point to the end of the last accepted step. */
@@ -202,7 +248,8 @@ final class ParticleStepper implements DenseStep {
 
     /** @return the new step size proposed after an error ratio err (Hipparchus/Hairer control) */
     static double nextStep(double hOld, double err) {
-        double f = Dop853.SAFETY * FastMath.pow(err, Dop853.EXPONENT);
+        // Math.pow: FastMath.pow allocates a scratch array per call (found by the allocation test)
+        double f = Dop853.SAFETY * Math.pow(err, Dop853.EXPONENT);
         f = FastMath.min(Dop853.MAX_GROWTH, FastMath.max(Dop853.MIN_REDUCTION, f));
         return hOld * f;
     }
@@ -234,13 +281,29 @@ final class ParticleStepper implements DenseStep {
         }
         for (int m = 0; m < 7; m++) {
             final double[] d = Dop853.D[m];
-            for (int j = 0; j < N; j++) {
-                double sum = 0;
-                for (int i = 0; i < Dop853.ALL_STAGES; i++) {
-                    sum += d[i] * k[i * N + j];
+            double s0 = 0;
+            double s1 = 0;
+            double s2 = 0;
+            double s3 = 0;
+            double s4 = 0;
+            for (int i = 0; i < Dop853.ALL_STAGES; i++) {
+                final double di = d[i];
+                if (di == 0.0) {
+                    continue;
                 }
-                rc[m * N + j] = h * sum;
+                final int o = i * N;
+                s0 += di * k[o];
+                s1 += di * k[o + 1];
+                s2 += di * k[o + 2];
+                s3 += di * k[o + 3];
+                s4 += di * k[o + 4];
             }
+            final int o = m * N;
+            rc[o] = h * s0;
+            rc[o + 1] = h * s1;
+            rc[o + 2] = h * s2;
+            rc[o + 3] = h * s3;
+            rc[o + 4] = h * s4;
         }
         denseReady = true;
     }

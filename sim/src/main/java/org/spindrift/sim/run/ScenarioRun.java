@@ -3,8 +3,6 @@ package org.spindrift.sim.run;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
-import java.nio.file.DirectoryStream;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -18,12 +16,10 @@ import me.tongfei.progressbar.ProgressBarStyle;
 import org.spindrift.shared.Units;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.RunArchiveWriter;
-import org.spindrift.shared.archive.SnapshotWriter;
 import org.spindrift.shared.scenario.RunSettings;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.shared.scenario.ScenarioJson;
 import org.spindrift.shared.scenario.Source;
-import org.spindrift.shared.scenario.TimeSpan;
 import org.spindrift.sim.analysis.AnalysisStage;
 import org.spindrift.sim.analysis.PlotStage;
 import org.spindrift.sim.motion.BatchIntegrator;
@@ -92,8 +88,12 @@ public final class ScenarioRun {
      * @param folder the run folder
      * @param history every particle at every snapshot
      * @param result integrator work counts and end states
+     * @param integrationSeconds wall time of the integration (for benchmarks; not written anywhere)
+     * @param outputSeconds wall time of the stages and the files after the integration
+     * @param stageSeconds wall time of each stage, by name, in order
      */
-    public record Outcome(Path folder, ParticleHistory history, BatchIntegrator.Result result) {
+    public record Outcome(Path folder, ParticleHistory history, BatchIntegrator.Result result, double integrationSeconds,
+            double outputSeconds, Map<String, Double> stageSeconds) {
     }
 
     private ScenarioRun() {
@@ -159,6 +159,7 @@ public final class ScenarioRun {
 
     /** Runs a prepared scenario through the given stages. */
     public static Outcome run(Prepared p, Options o, List<RunStage> stages) throws IOException {
+        RunArchiveWriter.checkUsable(o.output()); // before the work, so a bad -o fails at once
         Scenario sc = p.loaded().scenario();
         ParticleBatch batch = p.placed().batch();
         int n = batch.size();
@@ -175,6 +176,7 @@ public final class ScenarioRun {
         }
         StepListener events = (i, step) -> turning[i].step(i, step);
         BatchIntegrator.Result result;
+        long t0 = System.nanoTime();
         try (ProgressBar bar = o.progress() ? new ProgressBarBuilder().setTaskName("evolving " + n + " particles")
                 .setInitialMax(p.times().length).setStyle(ProgressBarStyle.ASCII)
                 .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build() : null) {
@@ -182,11 +184,15 @@ public final class ScenarioRun {
             result = integrator.integrate(batch, p.times(), sink, events);
         }
         ParticleHistory history = sink.history();
+        long t1 = System.nanoTime();
 
         Path folder = o.output();
         RunArchiveWriter archive = RunArchiveWriter.create(folder);
-        Thread cleanup = new Thread(() -> removePartials(folder), "spindrift-cleanup");
+        Map<String, Double> stageSeconds = new LinkedHashMap<>();
+        // stopped (Ctrl-C, SIGTERM) or failed: remove what this run wrote, so nothing looks complete
+        Thread cleanup = new Thread(archive::abandon, "spindrift-cleanup");
         Runtime.getRuntime().addShutdownHook(cleanup);
+        boolean done = false;
         try {
             ObjectNode manifest = RunArchiveWriter.json().createObjectNode();
             ObjectNode summary = RunArchiveWriter.json().createObjectNode();
@@ -195,30 +201,26 @@ public final class ScenarioRun {
                     new java.util.HashMap<>());
             ctx.products().put(TURNING_POINTS, turning);
             for (RunStage stage : stages) {
+                long ts = System.nanoTime();
                 stage.run(ctx);
+                stageSeconds.put(stage.name(), (System.nanoTime() - ts) * 1e-9);
             }
             ObjectNode diag = diagnostics(st, batch, q0, result);
             summary.set("diagnostics", diag);
             archive.writeJson(ArchiveLayout.SUMMARY, summary);
             archive.finish(manifestBody(p, manifest, diag, result));
+            done = true;
         } finally {
+            if (!done) {
+                archive.abandon();
+            }
             try {
                 Runtime.getRuntime().removeShutdownHook(cleanup);
             } catch (IllegalStateException e) {
                 // shutting down already
             }
         }
-        return new Outcome(folder, history, result);
-    }
-
-    private static void removePartials(Path folder) {
-        try (DirectoryStream<Path> ds = Files.newDirectoryStream(folder, "*" + ArchiveLayout.PARTIAL_SUFFIX)) {
-            for (Path q : ds) {
-                Files.deleteIfExists(q);
-            }
-        } catch (IOException e) {
-            // best effort while the JVM stops
-        }
+        return new Outcome(folder, history, result, (t1 - t0) * 1e-9, (System.nanoTime() - t1) * 1e-9, stageSeconds);
     }
 
     /** Builds the history from the integrator's snapshots. */
@@ -417,15 +419,5 @@ public final class ScenarioRun {
 
     static String fmt(double v) {
         return String.format(java.util.Locale.ROOT, "%.6g", v);
-    }
-
-    /** @return the run duration of a scenario in M without running it */
-    public static double durationM(Prepared p) {
-        return p.durationM();
-    }
-
-    /** @return a time in M */
-    public static double toM(TimeSpan t, Prepared p) {
-        return t.toM(p.secondsPerM(), p.placed().centres()[0].periodM());
     }
 }

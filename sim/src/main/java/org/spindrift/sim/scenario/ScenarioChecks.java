@@ -74,18 +74,25 @@ public final class ScenarioChecks {
             if (o instanceof CentreOrbit.Circular c) {
                 boolean pro = c.sense() == org.spindrift.shared.scenario.Sense.PROGRADE;
                 String key = base + ".circular.radius_M";
-                double rTest = c.radiusM();
+                double[] radii = {c.radiusM()};
                 if (s.shape() instanceof SourceShape.Ring ring) {
-                    rTest = ring.innerRadiusM();
+                    // every member is on its own circular orbit: check across the ring
                     key = "sources[" + i + "].shape.inner_radius_M";
+                    radii = new double[9];
+                    for (int k = 0; k < radii.length; k++) {
+                        radii[k] = ring.innerRadiusM() + (ring.outerRadiusM() - ring.innerRadiusM()) * k / (radii.length - 1);
+                    }
                 }
-                if (rTest <= captureRadius) {
-                    throw ls.error(key, "radius " + rTest + " M is inside the capture radius " + fmt(captureRadius)
-                            + " M (horizon or surface)");
-                }
-                if (!Double.isFinite(CircularOrbits.ut(st, rTest, pro))) {
-                    throw ls.error(key, "there is no " + c.sense().name().toLowerCase() + " circular orbit at r = " + rTest
-                            + " M in this spacetime (circular orbits exist only outside the photon orbit)");
+                for (double rTest : radii) {
+                    if (rTest <= captureRadius) {
+                        throw ls.error(key, "radius " + fmt(rTest) + " M is inside the capture radius " + fmt(captureRadius)
+                                + " M (horizon or surface)");
+                    }
+                    if (!Double.isFinite(CircularOrbits.ut(st, rTest, pro))) {
+                        throw ls.error(key, "there is no " + c.sense().name().toLowerCase(java.util.Locale.ROOT)
+                                + " circular orbit at r = " + fmt(rTest)
+                                + " M in this spacetime (circular orbits exist only outside the photon orbit)");
+                    }
                 }
             } else if (o instanceof CentreOrbit.Elements e) {
                 if (e.periapsisM() <= captureRadius) {

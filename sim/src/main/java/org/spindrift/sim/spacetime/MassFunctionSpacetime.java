@@ -69,16 +69,18 @@ public final class MassFunctionSpacetime implements Spacetime {
 
     @Override public double carter(double theta, double pTheta, double energy, double angularMomentum,
                                    double mu2) {
-        double c = FastMath.cos(theta);
-        double s = FastMath.sin(theta);
+        double c = StrictMath.cos(theta); // allocation-free, see inverse()
+        double s = StrictMath.sin(theta);
         // Carter 1968, Phys. Rev. 174, 1559: Q = p_th^2 + cos^2 th (a^2 (mu^2 - E^2) + L^2 / sin^2 th)
         return pTheta * pTheta + c * c * (a * a * (mu2 - energy * energy)
                 + angularMomentum * angularMomentum / (s * s));
     }
 
     @Override public void inverse(double r, double theta, double[] out) {
-        final double s = FastMath.sin(theta);
-        final double c = FastMath.cos(theta);
+        // StrictMath: FastMath.sin/cos allocate a reduction object for theta > pi/2 (Hipparchus 4.0.2),
+        // which the hot loops must not; StrictMath (fdlibm) is allocation-free and platform-independent
+        final double s = StrictMath.sin(theta);
+        final double c = StrictMath.cos(theta);
         final double s2 = s * s;
         final double a2 = a * a;
         final double m = mass.value(r);
@@ -128,8 +130,10 @@ public final class MassFunctionSpacetime implements Spacetime {
     }
 
     @Override public void covariant(double r, double theta, double[] out) {
-        final double s = FastMath.sin(theta);
-        final double c = FastMath.cos(theta);
+        // StrictMath: FastMath.sin/cos allocate a reduction object for theta > pi/2 (Hipparchus 4.0.2),
+        // which the hot loops must not; StrictMath (fdlibm) is allocation-free and platform-independent
+        final double s = StrictMath.sin(theta);
+        final double c = StrictMath.cos(theta);
         final double s2 = s * s;
         final double a2 = a * a;
         final double m = mass.value(r);

@@ -162,4 +162,60 @@ class BatchIntegratorTest {
         assertTrue(d.massShellMedian() <= d.massShellMax());
         assertTrue(d.massShellMax() < 1e-10, "max |H + 1/2| = " + d.massShellMax());
     }
+
+    @Test
+    void unusableStartsFailWithTheirReason() {
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.5);
+        ParticleBatch b = new ParticleBatch(3);
+        InitialState ok = new ZamoFrame(st).initialState(10, Math.PI / 2, 0, 0, 0, 0.3);
+        b.set(0, 0, ok);
+        // p_t > 0 outside the ergoregion: dt/dlambda = g^tt p_t + g^tphi p_phi < 0 (past-directed)
+        b.set(1, 0, 10, Math.PI / 2, 0, -ok.pT(), 0, 0, ok.pPhi());
+        b.set(2, 0, Double.NaN, Math.PI / 2, 0, ok.pT(), 0, 0, ok.pPhi());
+        new BatchIntegrator(st, BatchIntegrator.Config.of(capture(0.5))).integrate(b, new double[] {50}, null);
+        assertEquals(EndState.ALIVE, b.endState(0));
+        assertEquals(EndState.FAILED, b.endState(1));
+        assertEquals(Failure.TIME_NOT_INCREASING, b.failure(1));
+        assertEquals(0.0, b.time(1));
+        assertEquals(EndState.FAILED, b.endState(2));
+        assertEquals(Failure.NON_FINITE, b.failure(2));
+        assertEquals(50.0, b.time(0));
+    }
+
+    @Test
+    void resultsDoNotDependOnTheChunkSize() {
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.9);
+        ParticleBatch a = KerrTestOrbits.ball(st, 8, 0.5, 40, 21);
+        ParticleBatch b = a.copy();
+        BatchIntegrator.Config c = BatchIntegrator.Config.of(capture(0.9));
+        new BatchIntegrator(st, c.withChunkSize(7).withThreads(2)).integrate(a, new double[] {50, 200}, null);
+        new BatchIntegrator(st, c.withChunkSize(64)).integrate(b, new double[] {50, 200}, null);
+        assertTrue(a.bitwiseEquals(b));
+    }
+
+    @Test
+    void stepLoopDoesNotAllocate() {
+        // allocation per call is fixed (snapshot buffer, worker scratch); per step it must be zero
+        // (common practice, no source: JOML/Hipparchus-style allocation-free inner loops)
+        java.lang.management.ThreadMXBean mx = java.lang.management.ManagementFactory.getThreadMXBean();
+        org.junit.jupiter.api.Assumptions.assumeTrue(mx instanceof com.sun.management.ThreadMXBean,
+                "allocation counter not available on this JVM");
+        com.sun.management.ThreadMXBean tmx = (com.sun.management.ThreadMXBean) mx;
+        MassFunctionSpacetime st = KerrTestOrbits.kerr(0.9);
+        BatchIntegrator integ = new BatchIntegrator(st, BatchIntegrator.Config.of(capture(0.9)));
+        long[] bytes = new long[2];
+        long[] steps = new long[2];
+        double[][] horizons = {{100}, {3000}};
+        for (int warm = 0; warm < 2; warm++) {
+            for (int k = 0; k < 2; k++) {
+                ParticleBatch b = KerrTestOrbits.ball(st, 8, 0.5, 20, 4);
+                long before = tmx.getCurrentThreadAllocatedBytes();
+                steps[k] = integ.integrate(b, horizons[k], null).acceptedSteps();
+                bytes[k] = tmx.getCurrentThreadAllocatedBytes() - before;
+            }
+        }
+        assertTrue(steps[1] > 10 * steps[0], "the long run must take many more steps");
+        assertTrue(bytes[1] - bytes[0] < 4096, "allocated " + bytes[0] + " B for " + steps[0] + " steps, "
+                + bytes[1] + " B for " + steps[1] + " steps");
+    }
 }

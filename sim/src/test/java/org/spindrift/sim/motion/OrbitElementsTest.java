@@ -125,4 +125,25 @@ class OrbitElementsTest {
         assertEquals(-0.5, h, 1e-13);
         assertEquals(s.carter(), x.pTheta() * x.pTheta(), 1e-10);
     }
+
+    @Test
+    void integratedOrbitTurnsAtTheRequestedRadii() {
+        // second route: the trajectory started from the solved constants must turn at r_p and r_a
+        MassFunctionSpacetime st = new MassFunctionSpacetime("bardeen", 0.5, MassFunctions.bardeen(0.6));
+        OrbitElements.Solution s = OrbitElements.solve(st, 9.5, 0.35, Math.toRadians(50));
+        OrbitMeasurement.Result m = OrbitMeasurement.measure(st, s.start(), 5,
+                BatchIntegrator.Config.of(OrbitSetup.captureRadius(st)), 400, OrbitMeasurement.keplerPeriod(9.5, 0.35));
+        assertEquals(5, m.orbits());
+        double[] rPeri = m.periapses()[1];
+        for (double r : rPeri) {
+            assertEquals(s.periapsis(), r, 1e-8);
+        }
+        double rMax = 0;
+        for (double r : m.samples()[1]) {
+            rMax = Math.max(rMax, r);
+        }
+        assertTrue(rMax <= s.apoapsis() + 1e-8 && rMax > s.apoapsis() - 1e-3, "max r " + rMax + " vs " + s.apoapsis());
+        assertTrue(m.massShellDriftMax() < 1e-11);
+        assertTrue(m.carterDriftMax() < 1e-9 * s.carter());
+    }
 }

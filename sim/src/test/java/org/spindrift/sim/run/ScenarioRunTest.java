@@ -33,10 +33,11 @@ class ScenarioRunTest {
 
     @Test void sameSeedGivesBitwiseIdenticalSnapshotsWhateverTheThreads() throws Exception {
         // 300 particles = 5 chunks of 64: several threads really share the work
-        Path a = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("a"), 1, false))
-                .folder();
-        Path b = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("b"), 3, false))
-                .folder();
+        List<RunStage> stages = List.of(new SnapshotStage(), new org.spindrift.sim.analysis.AnalysisStage());
+        Path a = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("a"), 1, false),
+                stages).folder();
+        Path b = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("b"), 3, false),
+                stages).folder();
         byte[] ha = Files.readAllBytes(a.resolve(ArchiveLayout.SNAPSHOTS));
         byte[] hb = Files.readAllBytes(b.resolve(ArchiveLayout.SNAPSHOTS));
         assertArrayEquals(ha, hb, "snapshots.h5 differs between 1 and 3 threads");
@@ -44,7 +45,8 @@ class ScenarioRunTest {
         // and a different seed gives different particles
         LoadedScenario other = thermalSpot(300);
         other = other.with(other.scenario().withRun(other.scenario().run().withSeed(100)));
-        Path c = ScenarioRun.run(ScenarioRun.prepare(other), new ScenarioRun.Options(tmp.resolve("c"), 2, false)).folder();
+        Path c = ScenarioRun.run(ScenarioRun.prepare(other), new ScenarioRun.Options(tmp.resolve("c"), 2, false), stages)
+                .folder();
         assertFalse(java.util.Arrays.equals(ha, Files.readAllBytes(c.resolve(ArchiveLayout.SNAPSHOTS))));
     }
 
@@ -81,6 +83,10 @@ class ScenarioRunTest {
             // diagnostics: mass shell kept to the tolerance's order
             assertTrue(a.diagnostics().path("hamiltonian_error_max").asDouble() < 1e-7, a.diagnostics().toString());
             assertTrue(a.diagnostics().path("carter_relative_drift_max").asDouble() < 1e-6, a.diagnostics().toString());
+            // the manifest's scenario echo is itself a scenario file that reads back to the same scenario
+            Path echo = tmp.resolve("echo.json");
+            Files.writeString(echo, a.manifest().get("scenario").toString());
+            assertEquals(thermalSpot(120).scenario(), org.spindrift.sim.scenario.ScenarioLoader.load(echo).scenario());
         }
     }
 
@@ -103,10 +109,19 @@ class ScenarioRunTest {
         assertThrows(IOException.class, () -> ScenarioRun.run(ScenarioRun.prepare(thermalSpot(40)),
                 new ScenarioRun.Options(out, 1, false), stages));
         assertFalse(Files.exists(out.resolve(ArchiveLayout.MANIFEST)), "no manifest");
+        assertFalse(Files.exists(out.resolve(ArchiveLayout.SNAPSHOTS)), "the files written before the failure are removed");
+        assertFalse(Files.exists(out), "the folder the run created is removed");
         assertFalse(Files.exists(out.resolve("centroid.csv")), "the half-written file keeps no final name");
         assertFalse(Files.exists(AtomicFiles.partialName(out.resolve("centroid.csv"))));
         UserInputException e = assertThrows(UserInputException.class, () -> RunArchive.open(out));
         assertTrue(e.getMessage().contains("did not complete"), e.getMessage());
+        // a folder that existed before keeps existing, emptied of the run's files
+        Files.createDirectories(out);
+        assertThrows(IOException.class, () -> ScenarioRun.run(ScenarioRun.prepare(thermalSpot(40)),
+                new ScenarioRun.Options(out, 1, false), stages));
+        try (Stream<Path> left = Files.list(out)) {
+            assertEquals(0, left.count(), "nothing left in the folder");
+        }
         // re-running into the same folder works and completes it
         ScenarioRun.run(ScenarioRun.prepare(thermalSpot(40)), new ScenarioRun.Options(out, 1, false));
         try (RunArchive a = RunArchive.open(out); Stream<Path> files = Files.list(out)) {

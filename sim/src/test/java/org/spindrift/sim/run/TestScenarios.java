@@ -6,6 +6,7 @@ import org.spindrift.shared.scenario.BlackHole;
 import org.spindrift.shared.scenario.CentreOrbit;
 import org.spindrift.shared.scenario.Emission;
 import org.spindrift.shared.scenario.Flare;
+import org.spindrift.shared.scenario.Imaging;
 import org.spindrift.shared.scenario.Observer;
 import org.spindrift.shared.scenario.RunSettings;
 import org.spindrift.shared.scenario.Scenario;
@@ -42,11 +43,12 @@ public final class TestScenarios {
                 new Emission(2.0, 1.0, new Flare.Gaussian(TimeSpan.geometric(20), TimeSpan.geometric(10))));
     }
 
+    /** A scenario with a coarse camera (16 x 16 pixels) so that the light stage stays cheap in tests. */
     public static LoadedScenario scenario(BlackHole bh, List<Source> sources, double durationM, double cadenceM,
             long seed, int subsample) {
         Scenario sc = new Scenario("test", "test scenario", bh, new Observer(60, 0), sources,
                 new RunSettings(TimeSpan.geometric(durationM), TimeSpan.geometric(cadenceM), seed, 1e-10, subsample),
-                null, null);
+                new Imaging(20, 16, null, true), null);
         return LoadedScenario.of(sc, "test.yaml");
     }
 }

@@ -90,6 +90,9 @@ class BadConfigTest {
                         "not a known family"),
                 Arguments.of("inside-horizon.yaml", swap("radius_M: 8.0", "radius_M: 1.5"),
                         "sources[0].orbit.circular.radius_M", "capture radius"),
+                // Kerr a = 0.5: horizon 1.866 M, prograde photon orbit 2.347 M (BPT 1972 eq. 2.18)
+                Arguments.of("inside-photon-orbit.yaml", swap("radius_M: 8.0", "radius_M: 2.1"),
+                        "sources[0].orbit.circular.radius_M", "no prograde circular orbit"),
                 Arguments.of("no-time-unit.yaml", swap("duration: 20 M", "duration: 20"), "run.duration", "needs a unit"),
                 Arguments.of("duplicate.yaml", swap("  spin: 0.5\n", "  spin: 0.5\n  spin: 0.6\n"), "", "duplicate key"),
                 Arguments.of("syntax.yaml", swap("  spin: 0.5\n", "  spin: [0.5\n"), "", "not valid YAML"),
@@ -139,6 +142,20 @@ class BadConfigTest {
         Path out = tmp.resolve("out-" + name);
         assertEquals(2, cli(err, "run", f.toString(), "-o", out.toString(), "--quiet"), err[0]);
         assertFalse(Files.exists(out), "no output folder for " + name);
+    }
+
+    @Test void foreignOutputFolderIsRefusedAndKept() throws Exception {
+        Path f = tmp.resolve("good.yaml");
+        Files.writeString(f, GOOD);
+        Path out = tmp.resolve("thesis");
+        Files.createDirectories(out);
+        Files.writeString(out.resolve("chapter1.tex"), "precious");
+        String[] err = new String[1];
+        assertEquals(2, cli(err, "run", f.toString(), "-o", out.toString(), "--quiet"));
+        assertTrue(err[0].contains("not part of a run") && err[0].contains("chapter1.tex"), err[0]);
+        assertEquals("precious", Files.readString(out.resolve("chapter1.tex")));
+        assertEquals(2, cli(err, "run", f.toString(), "-o", out.resolve("chapter1.tex").toString(), "--quiet"));
+        assertTrue(err[0].contains("not a folder"), err[0]);
     }
 
     @Test void lineNumberPointsAtTheKey() throws Exception {

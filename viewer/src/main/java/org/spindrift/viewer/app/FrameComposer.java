@@ -96,8 +96,9 @@ public final class FrameComposer implements AutoCloseable {
      *
      * @param block wait for the snapshot reader (export, benchmark)
      * @param wallNow wall-clock seconds, for transient messages
+     * @return false when the snapshots for this time were not in memory yet (an older pair was shown)
      */
-    public void render(int fbW, int fbH, Playback p, boolean block, double wallNow) {
+    public boolean render(int fbW, int fbH, Playback p, boolean block, double wallNow) {
         layout.update(fbW, fbH, bare, sky != null);
         glDisable(GL_SCISSOR_TEST);
         glViewport(0, 0, fbW, fbH);
@@ -111,7 +112,7 @@ public final class FrameComposer implements AutoCloseable {
             glFinish();
             t0 = System.nanoTime();
         }
-        scene.prepare(a, b, p.direction(), block);
+        boolean ready = scene.prepare(a, b, p.direction(), block);
         if (profile) {
             glFinish();
             long t1 = System.nanoTime();
@@ -125,7 +126,7 @@ public final class FrameComposer implements AutoCloseable {
             sceneNanos += System.nanoTime() - t0;
         }
         if (bare) {
-            return;
+            return ready;
         }
         if (profile) {
             t0 = System.nanoTime();
@@ -150,6 +151,7 @@ public final class FrameComposer implements AutoCloseable {
             glFinish();
             panelNanos += System.nanoTime() - t0;
         }
+        return ready;
     }
 
     /** Benchmark only: time each part of the frame (with glFinish between parts). */

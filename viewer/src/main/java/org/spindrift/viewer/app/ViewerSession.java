@@ -72,10 +72,12 @@ public final class ViewerSession implements AutoCloseable {
             }
             ctx = GlContext.open(o.width(), o.height(), "Spindrift replay - " + info.title(), visible, visible ? o.samples() : 0);
             s = new SnapshotStream(r);
-            SkyPanel sky = o.bare() || o.noSky() || (cube == null && track == null) ? null : new SkyPanel(cube, track);
+            SkyPanel sky = o.bare() || o.noSky() || (cube == null && track == null) ? null : new SkyPanel(cube, track, info.mSeconds() / 60.0);
             cube = null; // owned by the panel now
             c = new FrameComposer(info, s, sky, o.bare());
             c.scene().quantity(o.colour());
+            c.layout().update(o.width(), o.height(), o.bare(), sky != null);
+            c.scene().aspect(c.layout().viewW / (float) Math.max(1, c.layout().viewH));
             applyCamera(c.scene(), o);
             playback = new Playback(info.times());
         } catch (RuntimeException e) {

@@ -4,11 +4,9 @@ import static org.lwjgl.glfw.GLFW.*;
 import static org.lwjgl.opengl.GL33C.*;
 
 import java.io.IOException;
-import java.nio.IntBuffer;
 import java.nio.file.Path;
 import java.time.LocalDateTime;
 import java.time.format.DateTimeFormatter;
-import org.lwjgl.system.MemoryStack;
 import org.spindrift.viewer.gl.PixelWriter;
 import org.spindrift.viewer.ui.Hud;
 import org.spindrift.viewer.ui.Layout;
@@ -16,7 +14,7 @@ import org.spindrift.viewer.ui.Layout;
 /**
  * The interactive window: keys and mouse drive the {@link Playback} and the camera; every frame
  * is drawn by the {@link FrameComposer}. Event callbacks are created once; the loop allocates
- * nothing per frame (sizes come from a {@link MemoryStack}).
+ * nothing per frame (window sizes go into int arrays held in fields).
  */
 public final class ViewerWindow {
     private final ViewerSession session;
@@ -32,6 +30,11 @@ public final class ViewerWindow {
     private boolean screenshotRequested;
     private boolean help = true;
     private double helpUntil;
+    private final int[] sizeW = new int[1];
+    private final int[] sizeH = new int[1];
+    private boolean dirty = true;
+    private int lastFbW = -1;
+    private int lastFbH = -1;
     private int fbW = 1;
     private int fbH = 1;
     private int winW = 1;
@@ -58,8 +61,17 @@ public final class ViewerWindow {
         helpUntil = glfwGetTime() + 6; // the help shows for a few seconds at start
         double last = glfwGetTime();
         while (!glfwWindowShouldClose(window)) {
-            glfwPollEvents();
+            // paused and nothing happening: sleep until an event (or the help's timeout) instead of
+            // redrawing the same picture; a virtual X server has no vertical sync to pace us
+            boolean busy = playback.playing() || (help && helpUntil > 0) || composer.hud().messageShown(glfwGetTime());
+            if (!busy && !dirty) {
+                glfwWaitEventsTimeout(0.25);
+            } else {
+                glfwPollEvents();
+            }
             double now = glfwGetTime();
+            boolean frameDue = dirty || busy;
+            dirty = false;
             playback.tick(now - last);
             last = now;
             if (help && now > helpUntil && helpUntil > 0) {
@@ -67,25 +79,43 @@ public final class ViewerWindow {
                 helpUntil = 0;
                 composer.help(false);
             }
-            try (MemoryStack stack = MemoryStack.stackPush()) {
-                IntBuffer w = stack.mallocInt(1);
-                IntBuffer h = stack.mallocInt(1);
-                glfwGetFramebufferSize(window, w, h);
-                fbW = Math.max(1, w.get(0));
-                fbH = Math.max(1, h.get(0));
-                glfwGetWindowSize(window, w, h);
-                winW = Math.max(1, w.get(0));
-                winH = Math.max(1, h.get(0));
+            glfwGetFramebufferSize(window, sizeW, sizeH);
+            fbW = Math.max(1, sizeW[0]);
+            fbH = Math.max(1, sizeH[0]);
+            glfwGetWindowSize(window, sizeW, sizeH);
+            winW = Math.max(1, sizeW[0]);
+            winH = Math.max(1, sizeH[0]);
+            if (!frameDue && !sizeChanged()) {
+                continue;
             }
             glBindFramebuffer(GL_FRAMEBUFFER, 0);
-            composer.render(fbW, fbH, playback, false, now);
+            if (!composer.render(fbW, fbH, playback, false, now)) {
+                dirty = true; // the reader has not caught up yet: draw again when it has
+            }
             if (screenshotRequested) {
                 screenshotRequested = false;
                 screenshot(now);
             }
             glfwSwapBuffers(window);
+            // at most about 120 frames per second when the driver does not pace buffer swaps
+            double spent = glfwGetTime() - now;
+            if (spent < 1.0 / 120) {
+                try {
+                    Thread.sleep((long) ((1.0 / 120 - spent) * 1000));
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                    break;
+                }
+            }
         }
         pixels.close();
+    }
+
+    private boolean sizeChanged() {
+        boolean changed = fbW != lastFbW || fbH != lastFbH;
+        lastFbW = fbW;
+        lastFbH = fbH;
+        return changed;
     }
 
     private void screenshot(double now) {
@@ -123,6 +153,7 @@ public final class ViewerWindow {
             if (action != GLFW_PRESS && action != GLFW_REPEAT) {
                 return;
             }
+            dirty = true;
             switch (key) {
                 case GLFW_KEY_ESCAPE, GLFW_KEY_Q -> glfwSetWindowShouldClose(win, true);
                 case GLFW_KEY_SPACE -> playback.togglePlay();
@@ -151,6 +182,7 @@ public final class ViewerWindow {
             }
         });
         glfwSetMouseButtonCallback(window, (win, button, action, mods) -> {
+            dirty = true;
             boolean down = action == GLFW_PRESS;
             if (!down) {
                 orbiting = false;
@@ -176,6 +208,7 @@ public final class ViewerWindow {
             double dy = y - lastY;
             lastX = x;
             lastY = y;
+            dirty |= scrubbing || orbiting || panning;
             if (scrubbing) {
                 scrubTo(x);
             } else if (orbiting) {
@@ -185,6 +218,10 @@ public final class ViewerWindow {
                 composer.scene().camera().pan(dx / h, dy / h);
             }
         });
-        glfwSetScrollCallback(window, (win, sx, sy) -> composer.scene().camera().zoom(Math.pow(0.88, sy)));
+        glfwSetScrollCallback(window, (win, sx, sy) -> {
+            dirty = true;
+            composer.scene().camera().zoom(Math.pow(0.88, sy));
+        });
+        glfwSetWindowRefreshCallback(window, win -> dirty = true);
     }
 }

@@ -47,6 +47,10 @@ public final class GlContext implements AutoCloseable {
                 err.append(GLFWErrorCallback.getDescription(description));
             });
             glfwSetErrorCallback(cb);
+            if (linux && display != null && !display.isEmpty() && (wayland == null || wayland.isEmpty())
+                    && glfwPlatformSupported(GLFW_PLATFORM_X11)) {
+                glfwInitHint(GLFW_PLATFORM, GLFW_PLATFORM_X11); // skip probing for Wayland
+            }
             if (!glfwInit()) {
                 releaseErrorCallback();
                 throw new DisplayUnavailableException("cannot open the display (" + why(err) + ")");

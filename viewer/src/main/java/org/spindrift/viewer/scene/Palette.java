@@ -50,6 +50,16 @@ public final class Palette {
          {1.00f, 1.00f, 0.95f}},
     };
 
+    /** @return the five control points (r, g, b each) of map row as 15 floats, into dest */
+    public static void controlPoints(int map, float[] dest) {
+        float[][] c = MAPS[map];
+        for (int i = 0; i < 5; i++) {
+            dest[3 * i] = c[i][0];
+            dest[3 * i + 1] = c[i][1];
+            dest[3 * i + 2] = c[i][2];
+        }
+    }
+
     /** Row of the colour-map texture used for sky images. */
     public static final int SKY_MAP = 3;
     /** Number of rows (maps) in the colour-map texture. */

@@ -20,14 +20,18 @@ public final class CentroidTrack {
     private static final String[] X = {"x_uas", "centroid_x_uas", "dx_uas", "east_uas", "x"};
     private static final String[] Y = {"y_uas", "centroid_y_uas", "dy_uas", "north_uas", "y"};
 
+    private static final String[] FLUX = {"flux"};
+
     private final double[] t;
     private final double[] x;
     private final double[] y;
+    private final double[] flux;
 
-    private CentroidTrack(double[] t, double[] x, double[] y) {
+    private CentroidTrack(double[] t, double[] x, double[] y, double[] flux) {
         this.t = t;
         this.x = x;
         this.y = y;
+        this.flux = flux;
     }
 
     /**
@@ -61,6 +65,7 @@ public final class CentroidTrack {
             }
             int cx = find(cols, X);
             int cy = find(cols, Y);
+            int cf = find(cols, FLUX);
             if (ct < 0 || cx < 0 || cy < 0) {
                 String missing = (ct < 0 ? " t_obs_M (or t_obs_min)" : "") + (cx < 0 ? " x_uas" : "")
                         + (cy < 0 ? " y_uas" : "");
@@ -69,6 +74,7 @@ public final class CentroidTrack {
             double[] t = new double[256];
             double[] x = new double[256];
             double[] y = new double[256];
+            double[] fl = new double[256];
             int n = 0;
             while ((line = in.readLine()) != null) {
                 lineNo++;
@@ -85,17 +91,25 @@ public final class CentroidTrack {
                     t = Arrays.copyOf(t, 2 * n);
                     x = Arrays.copyOf(x, 2 * n);
                     y = Arrays.copyOf(y, 2 * n);
+                    fl = Arrays.copyOf(fl, 2 * n);
                 }
                 try {
                     t[n] = Double.parseDouble(f[ct].trim()) * tScale;
                     x[n] = parse(f[cx]);
                     y[n] = parse(f[cy]);
+                    fl[n] = cf >= 0 && cf < f.length ? parse(f[cf]) : Double.NaN;
                 } catch (NumberFormatException e) {
                     throw new UserInputException(file + ": line " + lineNo + ": not a number (" + e.getMessage() + ")");
                 }
                 n++;
             }
-            return new CentroidTrack(Arrays.copyOf(t, n), Arrays.copyOf(x, n), Arrays.copyOf(y, n));
+            for (int i = 1; i < n; i++) {
+                if (!(t[i] >= t[i - 1])) {
+                    throw new UserInputException(file + ": observer time decreases at data row " + (i + 1));
+                }
+            }
+            return new CentroidTrack(Arrays.copyOf(t, n), Arrays.copyOf(x, n), Arrays.copyOf(y, n),
+                    cf >= 0 ? Arrays.copyOf(fl, n) : null);
         } catch (IOException e) {
             throw new UserInputException(file + ": cannot be read (" + e.getMessage() + ")");
         }
@@ -131,6 +145,29 @@ public final class CentroidTrack {
 
     public double y(int i) {
         return y[i];
+    }
+
+    /** @return whether the table has a flux column */
+    public boolean hasFlux() {
+        return flux != null;
+    }
+
+    /** @return the total flux of row i (NaN without a flux column) */
+    public double flux(int i) {
+        return flux == null ? Double.NaN : flux[i];
+    }
+
+    /** @return the largest finite flux (0 if none) */
+    public double maxFlux() {
+        double m = 0;
+        if (flux != null) {
+            for (double f : flux) {
+                if (f > m && Double.isFinite(f)) {
+                    m = f;
+                }
+            }
+        }
+        return m;
     }
 
     /** @return the index of the last point at or before time tObs, or -1 */

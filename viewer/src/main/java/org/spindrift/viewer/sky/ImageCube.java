@@ -230,15 +230,29 @@ public final class ImageCube implements AutoCloseable {
         return times[f];
     }
 
-    /** @return the frame shown at observer time t: the last one at or before t (0 before the first) */
+    /**
+     * @return the frame shown at observer time t: the last one at or before t (within half a frame
+     *     interval before the first), or -1 before the first frame
+     */
     public int frameAt(double t) {
-        int best = 0;
-        for (int i = 0; i < frames; i++) {
-            if (times[i] <= t) {
-                best = i;
+        double half = frames > 1 ? 0.5 * (times[1] - times[0]) : 0;
+        if (t < times[0] - half) {
+            return -1;
+        }
+        int lo = 0;
+        int hi = frames - 1;
+        if (t >= times[hi]) {
+            return hi;
+        }
+        while (hi - lo > 1) {
+            int mid = (lo + hi) >>> 1;
+            if (times[mid] <= t) {
+                lo = mid;
+            } else {
+                hi = mid;
             }
         }
-        return best;
+        return lo;
     }
 
     /** @return signed pixel sizes, micro-arcseconds (CDELT1, CDELT2) */

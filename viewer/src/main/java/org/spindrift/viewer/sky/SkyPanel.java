@@ -22,6 +22,7 @@ public final class SkyPanel implements AutoCloseable {
     private final CentroidTrack track;
     private final double halfWidth; // micro-arcseconds from the centre to the panel's edge
     private final Text text = new Text();
+    private final double minutesPerM;
     private Shader shader;
     private int texture;
     private int vao;
@@ -36,8 +37,13 @@ public final class SkyPanel implements AutoCloseable {
     private int uMax;
     private int uRow;
 
-    /** Either argument may be null (file absent). */
-    public SkyPanel(ImageCube cube, CentroidTrack track) {
+    /**
+     * Either data argument may be null (file absent).
+     *
+     * @param minutesPerM minutes per M of time, for labels
+     */
+    public SkyPanel(ImageCube cube, CentroidTrack track, double minutesPerM) {
+        this.minutesPerM = minutesPerM;
         this.cube = cube;
         this.track = track;
         double hw = 0;
@@ -95,14 +101,18 @@ public final class SkyPanel implements AutoCloseable {
         FontAtlas font = o.font();
         float lh = font.lineHeight(FontAtlas.Size.SMALL);
         o.text(x + 10, y + 8, "Sky (observer's view)", FontAtlas.Size.LARGE, Palette.TEXT);
-        int side = Math.max(10, Math.min(w - 20, h - 96));
+        boolean curve = track != null && track.hasFlux() && track.size() > 1;
+        int curveH = curve ? Math.max(70, Math.min(150, h / 5)) : 0;
+        int side = Math.max(10, Math.min(w - 20, h - 96 - (curve ? curveH + 34 : 0)));
         int ix = x + (w - side) / 2;
         int iy = y + 40;
         double s = side / (2 * halfWidth); // pixels per micro-arcsecond
         float cx = ix + side / 2f;
         float cy = iy + side / 2f;
-        if (cube != null) {
-            int f = cube.frameAt(tObs);
+        int f = cube != null ? cube.frameAt(tObs) : -1;
+        if (cube != null && f < 0) {
+            o.rect(ix, iy, side, side, 0x000000ff);
+        } else if (cube != null) {
             if (f != loadedFrame) {
                 cube.readFrame(f, frame);
                 glBindTexture(GL_TEXTURE_2D, texture);
@@ -194,9 +204,12 @@ public final class SkyPanel implements AutoCloseable {
         o.text(bx, by - 6 - lh, text, FontAtlas.Size.SMALL, Palette.TEXT);
         // caption
         float ty = iy + side + 10;
-        if (cube != null) {
-            text.clear().add("image frame ").add(cube.frameAt(tObs) + 1).add('/').add(cube.frames())
-                    .add(",  sqrt stretch, peak ").sig3(cube.max());
+        if (cube != null && f < 0) {
+            o.text(x + 10, ty, "no image yet at this observer time (first frame later)", FontAtlas.Size.SMALL,
+                    Palette.TEXT_DIM);
+        } else if (cube != null) {
+            text.clear().add("frame ").add(f + 1).add('/').add(cube.frames())
+                    .add("  \u00b7  sqrt stretch  \u00b7  peak ").sig3(cube.max());
             o.text(x + 10, ty, text, FontAtlas.Size.SMALL, Palette.TEXT_DIM);
         } else {
             o.text(x + 10, ty, "no images.fits in this run", FontAtlas.Size.SMALL, Palette.TEXT_DIM);
@@ -215,6 +228,56 @@ public final class SkyPanel implements AutoCloseable {
         } else {
             o.text(x + 10, ty, "no centroid.csv in this run", FontAtlas.Size.SMALL, Palette.TEXT_DIM);
         }
+        if (curve) {
+            lightCurve(o, x + 12, (int) (ty + lh + 16), w - 24, curveH, tObs);
+        }
+    }
+
+    /** Total flux against observer time, the part up to tObs bright, with a marker at tObs. */
+    private void lightCurve(Overlay o, int x, int y, int w, int h, double tObs) {
+        FontAtlas font = o.font();
+        float lh = font.lineHeight(FontAtlas.Size.SMALL);
+        o.text(x, y - 2, "total flux (centroid.csv, relative units)", FontAtlas.Size.SMALL, Palette.TEXT);
+        int py = (int) (y + lh + 2);
+        int ph = (int) (h - lh - 2 - lh);
+        o.rect(x, py, w, ph, 0x070a10ff);
+        o.frame(x - 1, py - 1, w + 2, ph + 2, Palette.PANEL_EDGE);
+        int n = track.size();
+        double t0 = track.t(0);
+        double t1 = track.t(n - 1);
+        double fmax = track.maxFlux();
+        if (!(t1 > t0) || !(fmax > 0)) {
+            return;
+        }
+        double sx = w / (t1 - t0);
+        double sy = (ph - 4) / fmax;
+        float px = Float.NaN;
+        float pyy = Float.NaN;
+        for (int i = 0; i < n; i++) {
+            double fl = track.flux(i);
+            if (!Double.isFinite(fl)) {
+                px = Float.NaN;
+                continue;
+            }
+            float qx = (float) (x + (track.t(i) - t0) * sx);
+            float qy = (float) (py + ph - 2 - fl * sy);
+            if (!Float.isNaN(px)) {
+                boolean past = track.t(i) <= tObs;
+                o.line(px, pyy, qx, qy, past ? 1.5f : 1f, past ? Palette.TRACK : Palette.alpha(Palette.TRACK, 0x50));
+            }
+            px = qx;
+            pyy = qy;
+        }
+        if (tObs >= t0 && tObs <= t1) {
+            float mx = (float) (x + (tObs - t0) * sx);
+            o.rect(mx, py, 1, ph, 0xffffffa0);
+        }
+        text.clear().fixed(t0 * minutesPerM, 1).add(" min");
+        o.text(x, py + ph + 2, text, FontAtlas.Size.SMALL, Palette.TEXT_DIM);
+        text.clear().add("observer time");
+        o.textCentred(x + w / 2f, py + ph + 2, text, FontAtlas.Size.SMALL, Palette.TEXT_DIM);
+        text.clear().fixed(t1 * minutesPerM, 1).add(" min");
+        o.textRight(x + w, py + ph + 2, text, FontAtlas.Size.SMALL, Palette.TEXT_DIM);
     }
 
     static double niceLength(double x) {
