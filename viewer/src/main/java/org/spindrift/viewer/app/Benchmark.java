@@ -42,7 +42,7 @@ public final class Benchmark {
 
     public static int run(ViewerSession.Options o, int frames, PrintStream out) {
         try (ViewerSession session = new ViewerSession(o, false);
-             Framebuffer fb = new Framebuffer(o.width(), o.height(), o.samples())) {
+             Framebuffer fb = new Framebuffer(o.width(), o.height(), session.samples(false))) {
             Playback p = session.playback();
             int snapshots = session.info().snapshots();
             FrameComposer c = session.composer();
@@ -85,9 +85,9 @@ public final class Benchmark {
             long[] parts2 = c.profileNanos().clone();
             c.profile(false);
             out.println(String.format(Locale.ROOT, "view bench: %s", session.gl().renderer()));
-            out.println(String.format(Locale.ROOT, "view bench: %d particles, %d snapshots, %dx%d, %d frames each,"
-                    + " %d cores", session.info().particles(), snapshots, o.width(), o.height(), frames,
-                    Runtime.getRuntime().availableProcessors()));
+            out.println(String.format(Locale.ROOT, "view bench: %d particles, %d snapshots, %dx%d, %d samples per pixel,"
+                    + " %d frames each, %d cores", session.info().particles(), snapshots, o.width(), o.height(),
+                    session.samples(false), frames, Runtime.getRuntime().availableProcessors()));
             out.println(String.format(Locale.ROOT, "view bench: streaming (new snapshot every frame): %.1f fps (%.2f ms/frame)%s",
                     frames / streaming, 1e3 * streaming / frames, parts(parts1, frames)));
             out.println(String.format(Locale.ROOT, "view bench: between snapshots, camera turning:  %.1f fps (%.2f ms/frame)%s",

@@ -24,7 +24,7 @@ public final class FrameExport {
 
     public static int run(ViewerSession.Options o, Path dir, int every, PrintStream out) {
         try (ViewerSession session = new ViewerSession(o, false);
-             Framebuffer fb = new Framebuffer(o.width(), o.height(), o.samples());
+             Framebuffer fb = new Framebuffer(o.width(), o.height(), session.samples(true));
              PixelWriter pixels = new PixelWriter()) {
             try {
                 Files.createDirectories(dir);
