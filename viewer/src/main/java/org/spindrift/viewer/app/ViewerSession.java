@@ -65,6 +65,7 @@ public final class ViewerSession implements AutoCloseable {
         GlContext ctx = null;
         SnapshotStream s = null;
         FrameComposer c = null;
+        SkyPanel sky = null;
         try {
             RunInfo info = r.info();
             if (!o.bare() && !o.noSky()) {
@@ -86,8 +87,10 @@ public final class ViewerSession implements AutoCloseable {
                 ctx = GlContext.open(o.width(), o.height(), title, true, 0);
             }
             s = new SnapshotStream(r);
-            SkyPanel sky = o.bare() || o.noSky() || (cube == null && track == null) ? null : new SkyPanel(cube, track, info.mSeconds() / 60.0);
-            cube = null; // owned by the panel now
+            if (!o.bare() && !o.noSky() && (cube != null || track != null)) {
+                sky = new SkyPanel(cube, track, info.mSeconds() / 60.0);
+                cube = null; // owned by the panel now
+            }
             c = new FrameComposer(info, s, sky, o.bare());
             c.scene().quantity(o.colour());
             c.layout().update(o.width(), o.height(), o.bare(), sky != null);
@@ -96,7 +99,9 @@ public final class ViewerSession implements AutoCloseable {
             playback = new Playback(info.times());
         } catch (RuntimeException e) {
             if (c != null) {
-                c.close();
+                c.close(); // closes the sky panel too
+            } else if (sky != null) {
+                sky.close();
             }
             if (s != null) {
                 s.close();
