@@ -64,10 +64,11 @@ public final class ViewCommand implements Callable<Integer> {
             description = "camera distance from the black hole, M (default: the whole scene in view)")
     Double cameraDistance;
 
-    @Option(names = "--samples", paramLabel = "N", defaultValue = "4",
-            description = "multisample anti-aliasing samples per pixel, 0 for none (faster on software OpenGL;"
-                    + " default: ${DEFAULT-VALUE})")
-    int samples;
+    @Option(names = "--samples", paramLabel = "N",
+            description = "multisample anti-aliasing samples per pixel, 0 for none (default: 4 for exported frames"
+                    + " and on graphics hardware, 0 in the window and benchmark on software OpenGL, where it halves"
+                    + " the frame time)")
+    Integer samples;
 
     @Option(names = "--bare", description = "3D view only, filling the frame: no sky panel, bars or labels")
     boolean bare;
@@ -109,7 +110,7 @@ public final class ViewCommand implements Callable<Integer> {
         if (w < 64 || h < 64 || w > 8192 || h > 8192) {
             throw new UserInputException("option --size: " + w + "x" + h + " outside 64..8192 in each direction");
         }
-        if (samples < 0 || samples > 16) {
+        if (samples != null && (samples < 0 || samples > 16)) {
             throw new UserInputException("option --samples: " + samples + " outside 0..16");
         }
         if (every < 1) {

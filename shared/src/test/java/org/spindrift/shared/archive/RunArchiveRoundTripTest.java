@@ -95,6 +95,8 @@ class RunArchiveRoundTripTest {
                 }
                 assertEquals(s == 2 ? ArchiveLayout.CAPTURED : ArchiveLayout.ALIVE, a.states(s)[4]);
                 assertArrayEquals(new double[] {s, 3, 4}, a.centres(s)[1]);
+                assertArrayEquals(a.centres(s)[0], a.centreTracks()[s][0]);
+                assertArrayEquals(new double[] {s, 3, 4}, a.centreTracks()[s][1]);
             }
             a.verifyChecksums();
         }

@@ -13,27 +13,25 @@ import org.spindrift.sim.spacetime.Spacetime;
  * estimates the emitter-frame density (a point source then brightens as g^(3+alpha)). The Cartesian velocity is kept so that a
  * sample at a nearby time t_e moves the particle by v (t_e - tau).
  *
- * <p>Particles are stored sorted by cell (counting sort); the cell size covers the kernel support
- * 2h plus the largest drift within half a slice spacing, so a query visits 3 x 3 x 3 cells.
+ * <p>Particles are stored sorted by cell (counting sort); a query visits the cells overlapping the
+ * box of half-width R = 2h + (largest drift within half a slice spacing), cells being R/2 wide.
  */
 final class EmissionSlice {
     final double tau;
-    final float[] x, y, z, vx, vy, vz, ut, ur, uth, uph, w, expo;
+    final float[] ut, ur, uth, uph, w, expo;
     final int count;
     final int[] cellStart;
     final double ox, oy, oz, cell, invCell;
     final int nx, ny, nz;
+    /** search radius: kernel support plus the largest drift within half a slice spacing */
+    final double reach;
+    /** positions and velocities interleaved (x, y, z, vx, vy, vz) per particle, for locality */
+    private final float[] pv;
 
     private EmissionSlice(double tau, int count, float[][] cols, int[] cellStart, double ox, double oy,
-                          double oz, double cell, int nx, int ny, int nz) {
+                          double oz, double cell, int nx, int ny, int nz, double reach) {
         this.tau = tau;
         this.count = count;
-        x = cols[0];
-        y = cols[1];
-        z = cols[2];
-        vx = cols[3];
-        vy = cols[4];
-        vz = cols[5];
         ut = cols[6];
         ur = cols[7];
         uth = cols[8];
@@ -49,6 +47,13 @@ final class EmissionSlice {
         this.nx = nx;
         this.ny = ny;
         this.nz = nz;
+        this.reach = reach;
+        pv = new float[6 * count];
+        for (int p = 0; p < count; p++) {
+            for (int c = 0; c < 6; c++) {
+                pv[6 * p + c] = cols[c][p];
+            }
+        }
     }
 
     /**
@@ -157,10 +162,13 @@ final class EmissionSlice {
         if (m == 0) {
             return null;
         }
-        double cell = support + vmax * halfSpacing;
-        // cap the grid at 64^3 cells; bigger cells only cost more candidates
+        // search radius: kernel support plus the largest drift within half a slice spacing;
+        // cells of half that size: a query box covers about (2.5 R)^3 instead of (3 R)^3 of candidates
+        double reach = support + vmax * halfSpacing;
+        double cell = 0.5 * reach;
+        // cap the grid at 96^3 cells; bigger cells only cost more candidates
         double span = FastMath.max(maxX - minX, FastMath.max(maxY - minY, maxZ - minZ));
-        cell = FastMath.max(cell, span / 64.0);
+        cell = FastMath.max(cell, span / 96.0);
         int gx = (int) ((maxX - minX) / cell) + 1;
         int gy = (int) ((maxY - minY) / cell) + 1;
         int gz = (int) ((maxZ - minZ) / cell) + 1;
@@ -187,7 +195,7 @@ final class EmissionSlice {
                 cols[q][dst] = tmp[q][p];
             }
         }
-        return new EmissionSlice(tau, m, cols, start, minX, minY, minZ, cell, gx, gy, gz);
+        return new EmissionSlice(tau, m, cols, start, minX, minY, minZ, cell, gx, gy, gz, reach);
     }
 
     /**
@@ -196,25 +204,32 @@ final class EmissionSlice {
      */
     double emissivity(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
                       double invH, double norm, double support2) {
-        int cx = (int) FastMath.floor((sx - ox) * invCell);
-        int cy = (int) FastMath.floor((sy - oy) * invCell);
-        int cz = (int) FastMath.floor((sz - oz) * invCell);
-        if (cx < -1 || cy < -1 || cz < -1 || cx > nx || cy > ny || cz > nz) {
+        int x0 = (int) FastMath.floor((sx - reach - ox) * invCell);
+        int x1 = (int) FastMath.floor((sx + reach - ox) * invCell);
+        int y0 = (int) FastMath.floor((sy - reach - oy) * invCell);
+        int y1 = (int) FastMath.floor((sy + reach - oy) * invCell);
+        int z0 = (int) FastMath.floor((sz - reach - oz) * invCell);
+        int z1 = (int) FastMath.floor((sz + reach - oz) * invCell);
+        if (x1 < 0 || y1 < 0 || z1 < 0 || x0 >= nx || y0 >= ny || z0 >= nz) {
             return 0.0;
         }
+        x0 = FastMath.max(0, x0);
+        y0 = FastMath.max(0, y0);
+        z0 = FastMath.max(0, z0);
+        x1 = FastMath.min(nx - 1, x1);
+        y1 = FastMath.min(ny - 1, y1);
+        z1 = FastMath.min(nz - 1, z1);
         double sum = 0.0;
-        int x0 = FastMath.max(0, cx - 1), x1 = FastMath.min(nx - 1, cx + 1);
-        int y0 = FastMath.max(0, cy - 1), y1 = FastMath.min(ny - 1, cy + 1);
-        int z0 = FastMath.max(0, cz - 1), z1 = FastMath.min(nz - 1, cz + 1);
         for (int ix = x0; ix <= x1; ix++) {
             for (int iy = y0; iy <= y1; iy++) {
                 int base = (ix * ny + iy) * nz;
                 int from = cellStart[base + z0];
                 int to = cellStart[base + z1 + 1];        // cells along z are contiguous
                 for (int p = from; p < to; p++) {
-                    double ddx = sx - (x[p] + vx[p] * dtE);
-                    double ddy = sy - (y[p] + vy[p] * dtE);
-                    double ddz = sz - (z[p] + vz[p] * dtE);
+                    int q = 6 * p;
+                    double ddx = sx - (pv[q] + pv[q + 3] * dtE);
+                    double ddy = sy - (pv[q + 1] + pv[q + 4] * dtE);
+                    double ddz = sz - (pv[q + 2] + pv[q + 5] * dtE);
                     double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
                     if (d2 >= support2) {
                         continue;

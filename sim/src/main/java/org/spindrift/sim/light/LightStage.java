@@ -23,7 +23,7 @@ import org.spindrift.sim.spacetime.Spacetime;
  */
 public final class LightStage {
     /** Sample spacing along rays in units of the smoothing length. */
-    static final double SAMPLES_PER_H = 0.5;
+    public static final double SAMPLES_PER_H = 1.0;
 
     private LightStage() {
     }
@@ -39,8 +39,9 @@ public final class LightStage {
         Camera cam = s.camera();
         double h = smoothingLength(cam);
         double rEm = emissionRadius(history, h, s.fieldOfViewM(), stopRadius);
+        EmissionMask mask = EmissionMask.of(history, st.spin(), rEm, 2.0 * h);
         TraceSettings ts = TraceSettings.of(rEm, stopRadius, SAMPLES_PER_H * h, s.lensing())
-                .withTolerance(1.0e-8, 1.0e-10);
+                .withTolerance(1.0e-8, 1.0e-10).withMask(mask);
         long t0 = System.nanoTime();
         RayTable table = RayTable.trace(st, cam, ts, threads);
         double secs = (System.nanoTime() - t0) * 1e-9;
@@ -122,7 +123,7 @@ public final class LightStage {
     }
 
     /** Kernel smoothing length: one pixel, at least 0.1 M. */
-    static double smoothingLength(Camera cam) {
+    public static double smoothingLength(Camera cam) {
         return FastMath.max(0.1, cam.pixelSize());
     }
 
@@ -131,7 +132,7 @@ public final class LightStage {
      * a margin, at least 3 M beyond the stop radius and at most the larger of the field of view
      * and 20 M (farther particles rarely lens into the field).
      */
-    static double emissionRadius(EmitterHistory h, double smoothing, double fov, double stopRadius) {
+    public static double emissionRadius(EmitterHistory h, double smoothing, double fov, double stopRadius) {
         double rMax = 0;
         for (int s = 0; s < h.snapshots(); s++) {
             for (int p = 0; p < h.particles(); p++) {

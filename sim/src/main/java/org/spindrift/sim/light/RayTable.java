@@ -23,6 +23,8 @@ public final class RayTable {
     private final int[] start;
     final float[] x, y, z, delay, pr, pth, pph, dl;
     private final long steps;
+    private int refinedPixels;
+    private long subRays;
 
     private RayTable(Camera camera, TraceSettings settings, double[] angularMomentum, byte[] end, int[] start,
                      SampleBuffer[] rows, long steps) {
@@ -59,16 +61,16 @@ public final class RayTable {
     /** Largest number of sub-pixel rays per side in refined pixels. */
     public static final int MAX_REFINE = 4;
     /** Neighbour separation of closest-approach points (in pixels) above which a pixel is refined. */
-    static final double STRETCH_THRESHOLD = 2.0;
+    static final double STRETCH_THRESHOLD = 3.0;
 
     /**
      * Traces the table in two passes. First one ray per pixel centre; then pixels where the map
      * from the screen to the hole's surroundings is strongly stretched (secondary images and the
      * photon ring, where a pixel-centre ray would sample a thin, demagnified image badly), or
      * where neighbouring rays end differently (the shadow edge), are traced again with k x k
-     * sub-pixel rays, k = min(MAX_REFINE, ceil(stretch / 2)), each with weight 1 / k^2. The
+     * sub-pixel rays, k = min(MAX_REFINE, ceil(stretch / 3)), each with weight 1 / k^2. The
      * stretch is the largest distance, in pixels, between the closest-approach points of a ray
-     * and its four neighbours (adaptive supersampling, common practice, no source).
+     * and its four neighbours that also escape (adaptive supersampling, common practice, no source).
      *
      * @param threads worker threads (the result does not depend on it)
      */
@@ -81,6 +83,7 @@ public final class RayTable {
         final double[] closest = new double[3 * n * n];
         final SampleBuffer[] base = new SampleBuffer[n];
         final SampleBuffer[] rows = new SampleBuffer[n];
+        final int[][] refineOut = new int[1][];
         ForkJoinPool pool = new ForkJoinPool(Math.max(1, threads));
         try {
             run(pool, () -> IntStream.range(0, n).parallel().forEach(row -> {
@@ -94,6 +97,7 @@ public final class RayTable {
             }));
             if (settings.lensing()) {
                 final int[] refine = refinement(camera, ends, closest);
+                refineOut[0] = refine;
                 run(pool, () -> IntStream.range(0, n).parallel().forEach(row -> {
                     rows[row] = refineRow(spacetime, camera, settings, row, base[row], refine, counts, rowSteps);
                     base[row] = null;
@@ -109,7 +113,26 @@ public final class RayTable {
             start[k + 1] = start[k] + counts[k];
         }
         long total = Arrays.stream(rowSteps).sum();
-        return new RayTable(camera, settings, lz, ends, start, rows, total);
+        RayTable t = new RayTable(camera, settings, lz, ends, start, rows, total);
+        if (refineOut[0] != null) {
+            for (int k : refineOut[0]) {
+                if (k > 1) {
+                    t.refinedPixels++;
+                    t.subRays += (long) k * k;
+                }
+            }
+        }
+        return t;
+    }
+
+    /** @return pixels traced again with sub-pixel rays */
+    public int refinedPixels() {
+        return refinedPixels;
+    }
+
+    /** @return sub-pixel rays traced in refined pixels */
+    public long subRays() {
+        return subRays;
     }
 
     private static void run(ForkJoinPool pool, Runnable job) {
@@ -142,6 +165,9 @@ public final class RayTable {
                     if (ends[q] != ends[p]) {
                         stretch = Double.POSITIVE_INFINITY;
                         break;
+                    }
+                    if (ends[p] == RayEnd.CAPTURED.code()) {
+                        continue;       // both end on the hole: no demagnified higher-order image between them
                     }
                     double dx = closest[3 * p] - closest[3 * q];
                     double dy = closest[3 * p + 1] - closest[3 * q + 1];
@@ -274,6 +300,9 @@ public final class RayTable {
                     if (r < rStop) {
                         e = RayEnd.CAPTURED;
                         break;
+                    }
+                    if (settings.mask() != null && !settings.mask().occupied(px, py, pz)) {
+                        continue;
                     }
                     double rho = FastMath.sqrt(px * px + py * py);
                     double st = rho / r, ct = pz / r;

@@ -11,12 +11,13 @@ import org.spindrift.sim.spacetime.Spacetime;
  * from the observer towards the source while the coordinate time decreases; the elapsed
  * coordinate time to a sample is -t.
  *
- * <p>Inside the emission region the step is limited so that samples are at most
- * {@link TraceSettings#sampleSpacing} apart (coordinate length), and outside it so that a ray
- * does not overshoot the boundary by more than that. Each sample keeps the Cartesian position,
+ * <p>Steps are chosen by the error control (and at most a quarter of r near the hole); samples
+ * are placed inside each accepted step by dense output, at most
+ * {@link TraceSettings#sampleSpacing} apart, and kept where gas may be ({@link EmissionMask},
+ * or the sphere r &lt; emissionRadius without a mask). Each sample keeps the Cartesian position,
  * the delay (elapsed time minus d - 2 M ln(d/M), removing the flat travel time from the start
  * plane and the leading Shapiro logarithm, Shapiro 1964, Phys. Rev. Lett. 13, 789), the physical
- * p_r and p_theta, and its trapezoid-rule share of d(lambda).
+ * p_r and p_theta, p_phi, and its midpoint-rule share of d(lambda).
  *
  * <p>One instance per thread; {@link #trace} allocates nothing except when the sample buffer grows.
  */
@@ -26,10 +27,13 @@ public final class RayTracer implements DormandPrince54.Rhs {
     private final TraceSettings settings;
     private final DormandPrince54 stepper = new DormandPrince54(GeodesicEquations.DIM_AFFINE);
     private final double a2;
-    private final double[] y = new double[6], dy = new double[6], yNew = new double[6], dyNew = new double[6];
+    private final double[] y = new double[6], dy = new double[6], yNew = new double[6], dyNew = new double[6],
+            ys = new double[6];
     private double qt;
     private double weightScale = 1.0;
     private double rMin, thMin, phMin;
+    private final EmissionMask mask;
+    private double cx, cy, cz;
     private double qphi;
     private int steps;
 
@@ -38,6 +42,17 @@ public final class RayTracer implements DormandPrince54.Rhs {
         this.equations = new GeodesicEquations(spacetime);
         this.settings = settings;
         this.a2 = spacetime.spin() * spacetime.spin();
+        this.mask = settings.mask();
+    }
+
+    /** Cartesian position of state s (DESIGN section 3 map) into cx, cy, cz. */
+    private void cartesian(double[] s) {
+        double r = s[1];
+        double st = FastMath.sin(s[2]);
+        double rho = FastMath.sqrt(r * r + a2) * st;
+        cx = rho * FastMath.cos(s[3]);
+        cy = rho * FastMath.sin(s[3]);
+        cz = r * FastMath.cos(s[2]);
     }
 
     @Override public void derivative(double[] state, double[] out) {
@@ -90,12 +105,12 @@ public final class RayTracer implements DormandPrince54.Rhs {
         final double rEm = settings.emissionRadius();
         final double rEnd = FastMath.max(rEm, settings.endRadius());
         final double rStop = settings.stopRadius();
-        final double ds = settings.sampleSpacing();
         final double rtol = settings.relativeTolerance();
         final double atol = settings.absoluteTolerance();
+        // radius of the sphere holding every possible sample (the mask's cube, or the emission sphere)
+        final double rSample = mask != null ? FastMath.min(rEm, mask.radius() * FastMath.sqrt(3.0)) : rEm;
         derivative(y, dy);
         double h = 0.01 * y[1];
-        boolean inside = false;
         boolean periapsisPassed = false;
         steps = 0;
         rMin = y[1];
@@ -104,9 +119,9 @@ public final class RayTracer implements DormandPrince54.Rhs {
         while (true) {
             double r = y[1];
             double speed = speed(r, y[2], dy);
-            double hMax = r < rEm ? ds / speed : FastMath.max(ds, 0.5 * (r - rEm)) / speed;
-            // never step further than a fraction of r (keeps the step near the hole resolved)
-            hMax = FastMath.min(hMax, 0.25 * r / speed);
+            // outside the sampling sphere: do not overshoot into it by more than 1 M; inside and
+            // near the hole: at most a quarter of r per step (samples come from dense output)
+            double hMax = r > rSample ? FastMath.max(1.0, 0.5 * (r - rSample)) / speed : 0.25 * r / speed;
             h = FastMath.min(h, hMax);
             double err = stepper.step(this, y, dy, h, rtol, atol, yNew, dyNew);
             steps++;
@@ -126,16 +141,21 @@ public final class RayTracer implements DormandPrince54.Rhs {
             }
             double hTaken = h;
             h *= DormandPrince54.factor(err);
+            double rn = yNew[1];
+            if (rn < rStop) {
+                System.arraycopy(yNew, 0, y, 0, 6);
+                System.arraycopy(dyNew, 0, dy, 0, 6);
+                return RayEnd.CAPTURED;
+            }
+            if (out != null && FastMath.min(r, rn) < rSample) {
+                sampleStep(out, hTaken, speed, speed(rn, yNew[2], dyNew), rEm, delayOffset);
+            }
             System.arraycopy(yNew, 0, y, 0, 6);
             System.arraycopy(dyNew, 0, dy, 0, 6);
-            double rn = y[1];
             if (rn < rMin) {
                 rMin = rn;
                 thMin = y[2];
                 phMin = y[3];
-            }
-            if (rn < rStop) {
-                return RayEnd.CAPTURED;
             }
             boolean outward = dy[1] > 0.0;
             if (outward) {
@@ -144,32 +164,33 @@ public final class RayTracer implements DormandPrince54.Rhs {
             if (periapsisPassed && outward && rn > rEnd) {
                 return RayEnd.ESCAPED;
             }
-            if (rn < rEm) {
-                if (out != null) {
-                    if (inside) {
-                        out.addWeightToLast(0.5 * hTaken * weightScale);
-                    }
-                    record(out, 0.5 * hTaken * weightScale, delayOffset);
-                }
-                inside = true;
-            } else {
-                if (inside && out != null) {
-                    out.addWeightToLast(0.5 * hTaken * weightScale);
-                }
-                inside = false;
-            }
         }
     }
 
-    private void record(SampleBuffer out, double weight, double delayOffset) {
-        double r = y[1];
-        double st = FastMath.sin(y[2]);
-        double ct = FastMath.cos(y[2]);
-        double sp = FastMath.sin(y[3]);
-        double cp = FastMath.cos(y[3]);
-        double rho = FastMath.sqrt(r * r + a2) * st;
-        // DESIGN section 3 Cartesian map; physical p = -q
-        out.add(rho * cp, rho * sp, r * ct, -y[0] - delayOffset, -y[4], -y[5], -qphi, weight);
+    /**
+     * Samples the accepted step from (y, dy) to (yNew, dyNew) at the midpoints of k equal parts,
+     * k = ceil(length / sampleSpacing), with cubic Hermite interpolation of the state from the end
+     * values and derivatives (dense output of order 3, e.g. Hairer, Norsett &amp; Wanner 1993,
+     * II.6); keeps the samples where gas may be, each with weight h / k (midpoint rule).
+     */
+    private void sampleStep(SampleBuffer out, double h, double speed0, double speed1, double rEm, double delayOffset) {
+        double length = 0.5 * (speed0 + speed1) * h;
+        int k = (int) FastMath.max(1, FastMath.ceil(length / settings.sampleSpacing()));
+        double w = h / k * weightScale;
+        for (int j = 0; j < k; j++) {
+            double s = (j + 0.5) / k;
+            double s2 = s * s, s3 = s2 * s;
+            double h00 = 2 * s3 - 3 * s2 + 1, h10 = (s3 - 2 * s2 + s) * h, h01 = -2 * s3 + 3 * s2, h11 = (s3 - s2) * h;
+            for (int c = 0; c < 6; c++) {
+                ys[c] = h00 * y[c] + h10 * dy[c] + h01 * yNew[c] + h11 * dyNew[c];
+            }
+            cartesian(ys);
+            boolean emitting = mask != null ? mask.occupied(cx, cy, cz) : ys[1] < rEm;
+            if (emitting) {
+                // physical p = -q; delay = elapsed coordinate time -t minus the offset
+                out.add(cx, cy, cz, -ys[0] - delayOffset, -ys[4], -ys[5], -qphi, w);
+            }
+        }
     }
 
     /** Coordinate speed |dx/dlambda| in the flat-space sense, for step limits. */

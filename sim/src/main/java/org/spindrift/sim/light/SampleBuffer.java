@@ -32,11 +32,6 @@ final class SampleBuffer {
         size++;
     }
 
-    /** Adds w to the affine weight of the last sample (trapezoid rule). */
-    void addWeightToLast(double w) {
-        dl[size - 1] += (float) w;
-    }
-
     /** Appends samples from..to-1 of another buffer. */
     void append(SampleBuffer o, int from, int to) {
         int m = to - from;

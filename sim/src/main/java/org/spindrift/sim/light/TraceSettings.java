@@ -13,24 +13,31 @@ package org.spindrift.sim.light;
  * @param absoluteTolerance absolute tolerance of the step control
  * @param maxSteps step budget per ray (the ray fails beyond it)
  * @param lensing false for straight lines (no bending, no redshift from the photon path; delays kept)
+ * @param mask where gas may be (samples only there, long steps elsewhere); null: the whole sphere
+ *     r &lt; emissionRadius
  */
 public record TraceSettings(double emissionRadius, double stopRadius, double endRadius,
                             double sampleSpacing, double relativeTolerance, double absoluteTolerance,
-                            int maxSteps, boolean lensing) {
+                            int maxSteps, boolean lensing, EmissionMask mask) {
     /** Default tolerances: tight enough for the validation checks (relative 1e-9). */
     public static TraceSettings of(double emissionRadius, double stopRadius, double sampleSpacing,
                                    boolean lensing) {
         return new TraceSettings(emissionRadius, stopRadius, 0.0, sampleSpacing, 1.0e-9, 1.0e-11,
-                200_000, lensing);
+                200_000, lensing, null);
     }
 
     public TraceSettings withEndRadius(double r) {
         return new TraceSettings(emissionRadius, stopRadius, r, sampleSpacing, relativeTolerance,
-                absoluteTolerance, maxSteps, lensing);
+                absoluteTolerance, maxSteps, lensing, mask);
     }
 
     public TraceSettings withTolerance(double rtol, double atol) {
         return new TraceSettings(emissionRadius, stopRadius, endRadius, sampleSpacing, rtol, atol,
-                maxSteps, lensing);
+                maxSteps, lensing, mask);
+    }
+
+    public TraceSettings withMask(EmissionMask m) {
+        return new TraceSettings(emissionRadius, stopRadius, endRadius, sampleSpacing, relativeTolerance,
+                absoluteTolerance, maxSteps, lensing, m);
     }
 }

@@ -11,6 +11,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.spindrift.shared.archive.LightArchive;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /** The light files in a run folder, read back by an independent reader (astropy). */
@@ -46,6 +47,19 @@ class LightOutputsTest {
         try (var s = Files.list(dir)) {
             assertTrue(s.noneMatch(p -> p.getFileName().toString().endsWith(".partial")), "no partial files left");
         }
+
+        // the shared reader (for the viewer) gets back what was written
+        LightArchive.Track tr = LightArchive.readTrack(dir);
+        assertEquals(r.timesM().length, tr.size());
+        int mid = tr.size() / 2;
+        assertEquals(r.moments().get(mid).x() * r.settings().uasPerM(), tr.x()[mid], 1e-5);
+        assertEquals(r.steadyY()[mid] * r.settings().uasPerM(), tr.ySteady()[mid], 1e-5);
+        LightArchive.Cube cube = LightArchive.readCube(dir);
+        assertEquals(r.images().length, cube.frames().length);
+        assertEquals(r.camera().pixels(), cube.pixels());
+        assertEquals(r.images()[mid][5 * r.camera().pixels() + 7], cube.frames()[mid][5][7]);
+        assertEquals(r.camera().pixelSize() * r.settings().uasPerM(), cube.pixelUas(), 1e-9);
+        assertEquals(20.0, cube.beamFwhmUas(), 1e-9);
 
         double pixDeg = r.camera().pixelSize() * r.settings().uasPerM() / 3.6e9;
         String py = String.join("\n",

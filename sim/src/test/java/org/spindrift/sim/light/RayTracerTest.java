@@ -83,7 +83,7 @@ class RayTracerTest {
         Spacetime st = LightTestSupport.kerr(0.0);
         double far = 1.0e7;
         TraceSettings s = new TraceSettings(0.0, LightTestSupport.stopRadius(0.0), far, 1.0, 1.0e-12, 1.0e-14,
-                100_000, true);
+                100_000, true, null);
         RayTracer tr = new RayTracer(st, s);
         double[] y0 = new double[6];
         double[] g = new double[Spacetime.SIZE];

@@ -26,6 +26,15 @@ public final class Benchmark {
         return -1;
     }
 
+    /** @return bytes allocated on the heap by this thread so far, or -1 where the JVM does not tell */
+    private static long threadAllocatedBytes() {
+        java.lang.management.ThreadMXBean t = java.lang.management.ManagementFactory.getThreadMXBean();
+        if (t instanceof com.sun.management.ThreadMXBean sun && sun.isThreadAllocatedMemorySupported()) {
+            return sun.getThreadAllocatedBytes(Thread.currentThread().getId());
+        }
+        return -1;
+    }
+
     private static String parts(long[] ns, int frames) {
         return String.format(Locale.ROOT, "; per frame: snapshot wait+upload %.1f ms, 3D %.1f ms, panels+text %.1f ms",
                 ns[0] * 1e-6 / frames, ns[1] * 1e-6 / frames, ns[2] * 1e-6 / frames);
@@ -33,7 +42,7 @@ public final class Benchmark {
 
     public static int run(ViewerSession.Options o, int frames, PrintStream out) {
         try (ViewerSession session = new ViewerSession(o, false);
-             Framebuffer fb = new Framebuffer(o.width(), o.height(), o.samples())) {
+             Framebuffer fb = new Framebuffer(o.width(), o.height(), session.samples(false))) {
             Playback p = session.playback();
             int snapshots = session.info().snapshots();
             FrameComposer c = session.composer();
@@ -61,6 +70,7 @@ public final class Benchmark {
             double t1 = p.start();
             double dt = snapshots > 1 ? (session.info().times()[1] - t1) / (frames + 1) : 0;
             long cpu2 = processCpuNanos();
+            long alloc0 = threadAllocatedBytes();
             long t2 = System.nanoTime();
             for (int i = 0; i < frames; i++) {
                 p.seek(t1 + i * dt);
@@ -71,12 +81,13 @@ public final class Benchmark {
             }
             double replay = (System.nanoTime() - t2) * 1e-9;
             long cpu3 = processCpuNanos();
+            long alloc1 = threadAllocatedBytes();
             long[] parts2 = c.profileNanos().clone();
             c.profile(false);
             out.println(String.format(Locale.ROOT, "view bench: %s", session.gl().renderer()));
-            out.println(String.format(Locale.ROOT, "view bench: %d particles, %d snapshots, %dx%d, %d frames each,"
-                    + " %d cores", session.info().particles(), snapshots, o.width(), o.height(), frames,
-                    Runtime.getRuntime().availableProcessors()));
+            out.println(String.format(Locale.ROOT, "view bench: %d particles, %d snapshots, %dx%d, %d samples per pixel,"
+                    + " %d frames each, %d cores", session.info().particles(), snapshots, o.width(), o.height(),
+                    session.samples(false), frames, Runtime.getRuntime().availableProcessors()));
             out.println(String.format(Locale.ROOT, "view bench: streaming (new snapshot every frame): %.1f fps (%.2f ms/frame)%s",
                     frames / streaming, 1e3 * streaming / frames, parts(parts1, frames)));
             out.println(String.format(Locale.ROOT, "view bench: between snapshots, camera turning:  %.1f fps (%.2f ms/frame)%s",
@@ -85,6 +96,10 @@ public final class Benchmark {
                 out.println(String.format(Locale.ROOT, "view bench: CPU time of this process (all its threads, including"
                         + " Mesa's) per frame: streaming %.1f ms, between snapshots %.1f ms",
                         (cpu1 - cpu0) * 1e-6 / frames, (cpu3 - cpu2) * 1e-6 / frames));
+            }
+            if (alloc0 >= 0) {
+                out.println(String.format(Locale.ROOT, "view bench: heap allocated by the render thread between snapshots:"
+                        + " %.1f bytes per frame", (alloc1 - alloc0) / (double) frames));
             }
             out.println(String.format(Locale.ROOT, "view bench: load average %.2f over %d cores (the machine may be shared)",
                     java.lang.management.ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage(),

@@ -24,7 +24,7 @@ public final class FrameExport {
 
     public static int run(ViewerSession.Options o, Path dir, int every, PrintStream out) {
         try (ViewerSession session = new ViewerSession(o, false);
-             Framebuffer fb = new Framebuffer(o.width(), o.height(), o.samples());
+             Framebuffer fb = new Framebuffer(o.width(), o.height(), session.samples(true));
              PixelWriter pixels = new PixelWriter()) {
             try {
                 Files.createDirectories(dir);
@@ -49,6 +49,10 @@ public final class FrameExport {
                 n++;
             }
             out.println("view: wrote " + n + " frames (" + o.width() + "x" + o.height() + ") to " + dir);
+            if (Files.exists(dir.resolve(frameName(n)))) {
+                out.println("view: note: " + dir + " also holds " + frameName(n) + " and perhaps more from an earlier"
+                        + " export; remove them before making a movie");
+            }
             out.println("view: make a movie with: ffmpeg -framerate 30 -i " + dir.resolve("frame_%05d.png")
                     + " -c:v libx264 -pix_fmt yuv420p -crf 18 replay.mp4");
             return 0;

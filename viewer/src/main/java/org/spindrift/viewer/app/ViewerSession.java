@@ -37,8 +37,15 @@ public final class ViewerSession implements AutoCloseable {
 
     /** Parsed command-line options. */
     public record Options(Path runDir, int width, int height, Quantity colour, CameraStart camera,
-                          Double cameraDistance, boolean bare, boolean noSky, int samples) {
+                          Double cameraDistance, boolean bare, boolean noSky, Integer samples) {
+        /** Multisampling chosen by the user, else 4 (software renderers: see {@link ViewerSession#samples}). */
+        public int samplesOr(int fallback) {
+            return samples != null ? samples : fallback;
+        }
     }
+
+    /** Samples per pixel when the user gave none (4 with exported frames). */
+    static final int DEFAULT_SAMPLES = 4;
 
     private final RunData run;
     private final GlContext gl;
@@ -58,6 +65,7 @@ public final class ViewerSession implements AutoCloseable {
         GlContext ctx = null;
         SnapshotStream s = null;
         FrameComposer c = null;
+        SkyPanel sky = null;
         try {
             RunInfo info = r.info();
             if (!o.bare() && !o.noSky()) {
@@ -70,17 +78,30 @@ public final class ViewerSession implements AutoCloseable {
                     track = CentroidTrack.read(csv, info.mSeconds());
                 }
             }
-            ctx = GlContext.open(o.width(), o.height(), "Spindrift replay - " + info.title(), visible, visible ? o.samples() : 0);
+            String title = "Spindrift replay - " + info.title();
+            ctx = GlContext.open(o.width(), o.height(), title, visible, visible ? o.samplesOr(DEFAULT_SAMPLES) : 0);
+            if (visible && o.samples() == null && ctx.software()) {
+                // software OpenGL: multisampling roughly doubles the frame time; trade it for speed
+                ctx.close();
+                ctx = null;
+                ctx = GlContext.open(o.width(), o.height(), title, true, 0);
+            }
             s = new SnapshotStream(r);
-            SkyPanel sky = o.bare() || o.noSky() || (cube == null && track == null) ? null : new SkyPanel(cube, track, info.mSeconds() / 60.0);
-            cube = null; // owned by the panel now
+            if (!o.bare() && !o.noSky() && (cube != null || track != null)) {
+                sky = new SkyPanel(cube, track, info.mSeconds() / 60.0);
+                cube = null; // owned by the panel now
+            }
             c = new FrameComposer(info, s, sky, o.bare());
             c.scene().quantity(o.colour());
+            c.layout().update(o.width(), o.height(), o.bare(), sky != null);
+            c.scene().aspect(c.layout().viewW / (float) Math.max(1, c.layout().viewH));
             applyCamera(c.scene(), o);
             playback = new Playback(info.times());
         } catch (RuntimeException e) {
             if (c != null) {
-                c.close();
+                c.close(); // closes the sky panel too
+            } else if (sky != null) {
+                sky.close();
             }
             if (s != null) {
                 s.close();
@@ -110,6 +131,17 @@ public final class ViewerSession implements AutoCloseable {
         if (o.cameraDistance() != null) {
             scene.camera().zoom(o.cameraDistance() / scene.camera().distance());
         }
+    }
+
+    /**
+     * @param offscreenExport true for exported frames (always 4 samples unless the user chose)
+     * @return samples per pixel for an offscreen framebuffer
+     */
+    public int samples(boolean offscreenExport) {
+        if (options.samples() != null) {
+            return options.samples();
+        }
+        return offscreenExport || !gl.software() ? DEFAULT_SAMPLES : 0;
     }
 
     public Options options() {

@@ -4,11 +4,9 @@ import static org.lwjgl.glfw.GLFW.*;
 import static org.lwjgl.opengl.GL33C.*;
 
 import java.io.IOException;
-import java.nio.IntBuffer;
 import java.nio.file.Path;
 import java.time.LocalDateTime;
 import java.time.format.DateTimeFormatter;
-import org.lwjgl.system.MemoryStack;
 import org.spindrift.viewer.gl.PixelWriter;
 import org.spindrift.viewer.ui.Hud;
 import org.spindrift.viewer.ui.Layout;
@@ -16,7 +14,7 @@ import org.spindrift.viewer.ui.Layout;
 /**
  * The interactive window: keys and mouse drive the {@link Playback} and the camera; every frame
  * is drawn by the {@link FrameComposer}. Event callbacks are created once; the loop allocates
- * nothing per frame (sizes come from a {@link MemoryStack}).
+ * nothing per frame (window sizes go into int arrays held in fields).
  */
 public final class ViewerWindow {
     private final ViewerSession session;
@@ -32,6 +30,8 @@ public final class ViewerWindow {
     private boolean screenshotRequested;
     private boolean help = true;
     private double helpUntil;
+    private final int[] sizeW = new int[1];
+    private final int[] sizeH = new int[1];
     private boolean dirty = true;
     private int lastFbW = -1;
     private int lastFbH = -1;
@@ -79,16 +79,12 @@ public final class ViewerWindow {
                 helpUntil = 0;
                 composer.help(false);
             }
-            try (MemoryStack stack = MemoryStack.stackPush()) {
-                IntBuffer w = stack.mallocInt(1);
-                IntBuffer h = stack.mallocInt(1);
-                glfwGetFramebufferSize(window, w, h);
-                fbW = Math.max(1, w.get(0));
-                fbH = Math.max(1, h.get(0));
-                glfwGetWindowSize(window, w, h);
-                winW = Math.max(1, w.get(0));
-                winH = Math.max(1, h.get(0));
-            }
+            glfwGetFramebufferSize(window, sizeW, sizeH);
+            fbW = Math.max(1, sizeW[0]);
+            fbH = Math.max(1, sizeH[0]);
+            glfwGetWindowSize(window, sizeW, sizeH);
+            winW = Math.max(1, sizeW[0]);
+            winH = Math.max(1, sizeH[0]);
             if (!frameDue && !sizeChanged()) {
                 continue;
             }

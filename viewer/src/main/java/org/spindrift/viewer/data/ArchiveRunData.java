@@ -99,8 +99,12 @@ public final class ArchiveRunData implements RunData {
             }
         }
         float[][] centres = new float[s][3 * k];
+        double[][][] all = k > 0 ? a.centreTracks() : new double[s][0][];
+        if (all.length != s) {
+            throw new UserInputException(where + ": /centre has " + all.length + " snapshots, /r has " + s);
+        }
         for (int i = 0; i < s && k > 0; i++) {
-            double[][] c = a.centres(i);
+            double[][] c = all[i];
             if (c.length != k) {
                 throw new UserInputException(where + ": /centre has " + c.length + " sources, manifest.json lists " + k);
             }

@@ -111,6 +111,13 @@ public final class GlContext implements AutoCloseable {
         return glGetString(GL_RENDERER) + ", OpenGL " + glGetString(GL_VERSION);
     }
 
+    /** @return whether the renderer is a software rasteriser (Mesa llvmpipe/softpipe/swrast, SwiftShader...) */
+    public boolean software() {
+        String r = String.valueOf(glGetString(GL_RENDERER)).toLowerCase(java.util.Locale.ROOT);
+        return r.contains("llvmpipe") || r.contains("softpipe") || r.contains("swrast") || r.contains("swiftshader")
+                || r.contains("software");
+    }
+
     public String lastError() {
         return lastError;
     }

@@ -7,7 +7,7 @@ import java.io.InputStream;
 import java.nio.FloatBuffer;
 import java.nio.charset.StandardCharsets;
 import org.joml.Matrix4fc;
-import org.lwjgl.system.MemoryStack;
+import org.lwjgl.system.MemoryUtil;
 
 /** A linked vertex + fragment program loaded from classpath resources under {@code shaders/}. */
 public final class Shader implements AutoCloseable {
@@ -57,13 +57,16 @@ public final class Shader implements AutoCloseable {
         return glGetUniformLocation(program, name);
     }
 
-    /** Sets a mat4 uniform without allocating (MemoryStack). */
+    /**
+     * Scratch for matrix uniforms, allocated once (off-heap). Even a MemoryStack buffer costs a small
+     * heap object per call; this one costs nothing per frame. Render thread only.
+     */
+    private static final FloatBuffer MATRIX = MemoryUtil.memAllocFloat(16);
+
+    /** Sets a mat4 uniform without allocating. Render thread only. */
     public static void setMatrix(int location, Matrix4fc m) {
-        try (MemoryStack stack = MemoryStack.stackPush()) {
-            FloatBuffer fb = stack.mallocFloat(16);
-            m.get(fb);
-            glUniformMatrix4fv(location, false, fb);
-        }
+        m.get(0, MATRIX);
+        glUniformMatrix4fv(location, false, MATRIX);
     }
 
     @Override public void close() {

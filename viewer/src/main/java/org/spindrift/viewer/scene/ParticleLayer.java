@@ -3,7 +3,6 @@ package org.spindrift.viewer.scene;
 import static org.lwjgl.opengl.GL33C.*;
 
 import java.nio.FloatBuffer;
-import org.lwjgl.system.MemoryStack;
 import org.lwjgl.system.MemoryUtil;
 import org.spindrift.viewer.data.RunData;
 
@@ -22,7 +21,6 @@ public final class ParticleLayer implements AutoCloseable {
     private final int[] vao = new int[2]; // vao[k]: slot k is A, slot 1-k is B
     private final int[] slotSnapshot = {-1, -1};
     private final int uViewProjection;
-    private final int uView;
     private final int uMix;
     private final int uQuantity;
     private final int uRange;
@@ -30,6 +28,7 @@ public final class ParticleLayer implements AutoCloseable {
     private final int uSize;
     private final int uMap;
     private final float[] mapPoints = new float[15];
+    private final float[] sourceColours = new float[32];
     private final int uSources;
 
     public ParticleLayer(int[] sourceOf) {
@@ -66,7 +65,6 @@ public final class ParticleLayer implements AutoCloseable {
         }
         glBindVertexArray(0);
         uViewProjection = shader.uniform("u_viewProjection");
-        uView = shader.uniform("u_view");
         uMix = shader.uniform("u_mix");
         uQuantity = shader.uniform("u_quantity");
         uRange = shader.uniform("u_range");
@@ -74,6 +72,13 @@ public final class ParticleLayer implements AutoCloseable {
         uSize = shader.uniform("u_size");
         uMap = shader.uniform("u_map");
         uSources = shader.uniform("u_sources");
+        for (int k = 0; k < 8; k++) {
+            int rgba = Palette.source(k);
+            sourceColours[4 * k] = ((rgba >>> 24) & 0xff) / 255f;
+            sourceColours[4 * k + 1] = ((rgba >>> 16) & 0xff) / 255f;
+            sourceColours[4 * k + 2] = ((rgba >>> 8) & 0xff) / 255f;
+            sourceColours[4 * k + 3] = 1f;
+        }
     }
 
     /** @return the slot (0 or 1) holding snapshot s, or -1 */
@@ -110,7 +115,6 @@ public final class ParticleLayer implements AutoCloseable {
         }
         shader.use();
         org.spindrift.viewer.gl.Shader.setMatrix(uViewProjection, camera.viewProjection());
-        org.spindrift.viewer.gl.Shader.setMatrix(uView, camera.view());
         glUniform1f(uMix, mix);
         glUniform1i(uQuantity, q.ordinal());
         glUniform2f(uRange, lo, hi);
@@ -120,16 +124,7 @@ public final class ParticleLayer implements AutoCloseable {
             Palette.controlPoints(q.ordinal(), mapPoints);
             glUniform3fv(uMap, mapPoints);
         }
-        try (MemoryStack stack = MemoryStack.stackPush()) {
-            FloatBuffer c = stack.mallocFloat(32);
-            for (int k = 0; k < 8; k++) {
-                int rgba = Palette.source(k);
-                c.put(((rgba >>> 24) & 0xff) / 255f).put(((rgba >>> 16) & 0xff) / 255f)
-                        .put(((rgba >>> 8) & 0xff) / 255f).put(1f);
-            }
-            c.flip();
-            glUniform4fv(uSources, c);
-        }
+        glUniform4fv(uSources, sourceColours);
         glEnable(GL_PROGRAM_POINT_SIZE);
         glEnable(GL_DEPTH_TEST);
         glDepthMask(false);

@@ -33,6 +33,7 @@ public final class SceneView implements AutoCloseable {
     private final double extent;
     private final Uploader uploader = new Uploader();
     private float spriteSize;
+    private float aspect = 1.3f;
     private int shownA = -1;
     private int shownB = -1;
     private Quantity quantity = Quantity.REDSHIFT;
@@ -105,8 +106,17 @@ public final class SceneView implements AutoCloseable {
         return r[(int) (0.95 * (c - 1))] * 1.15;
     }
 
+    /** Distance at which the extent fills the smaller of the view's two directions. */
     private double defaultDistance() {
-        return extent / Math.tan(Math.toRadians(OrbitCamera.FOV_DEG) / 2) * 0.9;
+        double tanHalf = Math.tan(Math.toRadians(OrbitCamera.FOV_DEG) / 2) * Math.min(1.0, aspect);
+        return extent / tanHalf * 0.9;
+    }
+
+    /** Sets the width/height of the 3D view used by the camera presets before the first frame. */
+    public void aspect(float a) {
+        if (a > 0) {
+            aspect = a;
+        }
     }
 
     /** The default camera: 25 degrees above the equatorial plane, the whole scene in view. */
@@ -209,7 +219,8 @@ public final class SceneView implements AutoCloseable {
         glClearColor(((Palette.BACKGROUND >>> 24) & 0xff) / 255f, ((Palette.BACKGROUND >>> 16) & 0xff) / 255f,
                 ((Palette.BACKGROUND >>> 8) & 0xff) / 255f, 1f);
         glClear(GL_COLOR_BUFFER_BIT | GL_DEPTH_BUFFER_BIT);
-        camera.update(w / (float) Math.max(1, h));
+        aspect = w / (float) Math.max(1, h);
+        camera.update(aspect);
         landmarks.drawBody(camera);
         landmarks.drawLines(camera, showGrid, showRings);
         if (showTrails) {

@@ -208,8 +208,8 @@ public final class SkyPanel implements AutoCloseable {
             o.text(x + 10, ty, "no image yet at this observer time (first frame later)", FontAtlas.Size.SMALL,
                     Palette.TEXT_DIM);
         } else if (cube != null) {
-            text.clear().add("image frame ").add(f + 1).add('/').add(cube.frames())
-                    .add(",  sqrt stretch, peak ").sig3(cube.max());
+            text.clear().add("frame ").add(f + 1).add('/').add(cube.frames())
+                    .add("  \u00b7  sqrt stretch  \u00b7  peak ").sig3(cube.max());
             o.text(x + 10, ty, text, FontAtlas.Size.SMALL, Palette.TEXT_DIM);
         } else {
             o.text(x + 10, ty, "no images.fits in this run", FontAtlas.Size.SMALL, Palette.TEXT_DIM);

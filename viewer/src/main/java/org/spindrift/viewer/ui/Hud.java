@@ -40,6 +40,7 @@ public final class Hud {
     private final RunInfo info;
     private final Text t1 = new Text();
     private final Text t2 = new Text();
+    private final Text t3 = new Text();
     private String message = "";
     private double messageUntil;
     private String sourceNote = "";
@@ -231,20 +232,30 @@ public final class Hud {
         o.rect(sx, sy - 2, (float) (sw * fraction), 4, Palette.ACCENT);
         float kx = (float) (sx + sw * fraction);
         o.rect(kx - 5, sy - 8, 10, 16, 0xe6edf5ff);
-        // times
+        // times: emitter | observer (with its note if there is room) ... snapshot and speed on the right
         t1.clear().add("emitter time  t = ").fixed(tEmit, 1).add(" M  (").fixed(info.minutes(tEmit), 2).add(" min)");
         o.text(sx, y0 + 34, t1, FontAtlas.Size.SMALL, Palette.TEXT);
+        float ox = sx + Math.max(330, f.width(t1, FontAtlas.Size.SMALL) + 30);
+        t3.clear().add("snapshot ").add(snapshot + 1).add('/').add(info.snapshots()).add("   speed ").sig3(speed)
+                .add(" M/s   H: help");
+        float rightW = f.width(t3, FontAtlas.Size.SMALL);
+        float room = l.width - 14 - rightW - 20 - ox;
         if (Double.isFinite(tObs)) {
             t2.clear().add("observer time  t = ").fixed(tObs, 1).add(" M  (").fixed(info.minutes(tObs), 2).add(" min)");
-            if (!sourceNote.isEmpty()) {
+            float base = f.width(t2, FontAtlas.Size.SMALL);
+            if (!sourceNote.isEmpty() && base + f.width(sourceNote, FontAtlas.Size.SMALL) + 10 <= room) {
                 t2.add("  ").add(sourceNote);
             }
-            o.text(sx + Math.max(330, f.width(t1, FontAtlas.Size.SMALL) + 30), y0 + 34, t2, FontAtlas.Size.SMALL,
-                    Palette.TEXT);
+            if (ox + base > l.width - 14) {
+                ox = sx; // very narrow window: observer time on its own line
+                o.text(ox, y0 + 34 + f.lineHeight(FontAtlas.Size.SMALL), t2, FontAtlas.Size.SMALL, Palette.TEXT);
+            } else {
+                o.text(ox, y0 + 34, t2, FontAtlas.Size.SMALL, Palette.TEXT);
+            }
+            room -= base;
         }
-        t1.clear().add("snapshot ").add(snapshot + 1).add('/').add(info.snapshots()).add("   speed ").sig3(speed)
-                .add(" M/s   H: help");
-        o.textRight(l.width - 14, y0 + 34, t1, FontAtlas.Size.SMALL, Palette.TEXT_DIM);
+        float ry = room >= 0 ? y0 + 34 : y0 + 34 + f.lineHeight(FontAtlas.Size.SMALL);
+        o.textRight(l.width - 14, ry, t3, FontAtlas.Size.SMALL, Palette.TEXT_DIM);
         if (!message.isEmpty() && wallNow < messageUntil) {
             float w = f.width(message, FontAtlas.Size.SMALL) + 24;
             float mx = l.viewX + (l.viewW - w) / 2;

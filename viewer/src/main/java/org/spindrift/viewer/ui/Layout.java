@@ -6,7 +6,7 @@ package org.spindrift.viewer.ui;
  */
 public final class Layout {
     public static final int TOP = 30;
-    public static final int BOTTOM = 66;
+    public static final int BOTTOM = 74;
     public static final int GAP = 8;
 
     public int width;

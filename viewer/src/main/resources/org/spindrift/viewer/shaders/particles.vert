@@ -6,7 +6,6 @@ layout(location = 2) in vec3 a_posB;
 layout(location = 3) in vec4 a_qB;
 layout(location = 4) in float a_source;
 uniform mat4 u_viewProjection;
-uniform mat4 u_view;
 uniform float u_mix;          // 0 = snapshot A, 1 = snapshot B
 uniform int u_quantity;       // 0 redshift, 1 emission, 2 radius, 3 source
 uniform vec2 u_range;         // colour range of the quantity
@@ -19,9 +18,8 @@ void main() {
     vec3 p = mix(a_posA, a_posB, u_mix);
     vec4 q = mix(a_qA, a_qB, u_mix);
     float alive = u_mix < 0.5 ? a_qA.w : a_qB.w;
-    vec4 eyePos = u_view * vec4(p, 1.0);
     gl_Position = u_viewProjection * vec4(p, 1.0);
-    float depth = max(-eyePos.z, 1e-3);
+    float depth = max(gl_Position.w, 1e-3); // perspective projection: clip w = -z in eye space
     gl_PointSize = alive > 0.5 ? clamp(u_size * u_pixelsPerUnit / depth, 3.0, 48.0) : 0.0;
     if (alive < 0.5) {
         gl_Position = vec4(2.0, 2.0, 2.0, 1.0); // outside the clip volume

@@ -1,0 +1,157 @@
+package org.spindrift.sim.cli;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import java.util.stream.Stream;
+import org.spindrift.shared.UserInputException;
+import org.spindrift.shared.scenario.BlackHole;
+import org.spindrift.shared.scenario.Observer;
+import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.shared.scenario.Source;
+import org.spindrift.sim.light.Camera;
+import org.spindrift.sim.light.EmissionMask;
+import org.spindrift.sim.light.EmissionRenderer;
+import org.spindrift.sim.light.EmitterHistory;
+import org.spindrift.sim.light.HistoryEmitters;
+import org.spindrift.sim.light.LightSettings;
+import org.spindrift.sim.light.LightStage;
+import org.spindrift.sim.light.RayTable;
+import org.spindrift.sim.light.TraceSettings;
+import org.spindrift.sim.run.ScenarioRun;
+import org.spindrift.sim.scenario.LoadedScenario;
+import org.spindrift.sim.scenario.ScenarioChecks;
+import org.spindrift.sim.scenario.ScenarioLoader;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+
+/**
+ * {@code spindrift bench light}: the demo hot spot with more particles, evolved once (not timed
+ * as part of the light figures), then a large ray table at spin 0.9 and inclination 60 deg (rays
+ * per second), and a sequence of frames at a smaller image size (frames per second).
+ */
+@Command(name = "light", mixinStandardHelpOptions = true,
+        description = {"Time the light layer: the demo hot spot (configs/hotspot-kerr.yaml) with --particles particles,"
+                + " spin 0.9, inclination 60 deg; a --table-pixels^2 ray table, then --frames frames of"
+                + " --frame-pixels^2 over the run."})
+public final class BenchLightCommand implements Callable<Integer> {
+    @Option(names = "--config", paramLabel = "FILE", defaultValue = "configs/hotspot-kerr.yaml",
+            description = "Scenario with the hot spot (default: ${DEFAULT-VALUE}).")
+    Path config;
+
+    @Option(names = "--particles", paramLabel = "N", defaultValue = "20000",
+            description = "Particles of the hot spot, 100..1000000 (default: ${DEFAULT-VALUE}).")
+    int particles;
+
+    @Option(names = "--table-pixels", paramLabel = "N", defaultValue = "256",
+            description = "Pixels per side of the timed ray table, 16..2048 (default: ${DEFAULT-VALUE}).")
+    int tablePixels;
+
+    @Option(names = "--frame-pixels", paramLabel = "N", defaultValue = "128",
+            description = "Pixels per side of the rendered frames, 16..1024 (default: ${DEFAULT-VALUE}).")
+    int framePixels;
+
+    @Option(names = "--frames", paramLabel = "N", defaultValue = "240",
+            description = "Frames to render, 1..100000 (default: ${DEFAULT-VALUE}).")
+    int frames;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
+    Integer threads;
+
+    private static final double SPIN = 0.9;
+    private static final double INCLINATION = 60.0;
+
+    @Override public Integer call() throws IOException {
+        check(particles >= 100 && particles <= 1_000_000, "--particles must be in 100..1000000, got " + particles);
+        check(tablePixels >= 16 && tablePixels <= 2048, "--table-pixels must be in 16..2048, got " + tablePixels);
+        check(framePixels >= 16 && framePixels <= 1024, "--frame-pixels must be in 16..1024, got " + framePixels);
+        check(frames >= 1 && frames <= 100_000, "--frames must be in 1..100000, got " + frames);
+        int nt = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
+        check(nt >= 1 && nt <= 1024, "--threads must be in 1..1024, got " + nt);
+        LoadedScenario ls = ScenarioLoader.load(config);
+        Scenario sc = ls.scenario();
+        BlackHole bh = sc.blackHole().withSpin(SPIN);
+        List<Source> src = sc.sources().stream().map(s -> s.withParticles(particles)).toList();
+        sc = new Scenario(sc.name(), sc.description(), bh, new Observer(INCLINATION, sc.observer().positionAngleDeg()),
+                src, sc.run().withDuration(sc.run().duration()), sc.imaging(), sc.instrument());
+        ls = ls.with(sc);
+        Path tmp = Files.createTempDirectory("spindrift-bench-light");
+        try {
+            long t0 = System.nanoTime();
+            ScenarioRun.Prepared p = ScenarioRun.prepare(ls);
+            ScenarioRun.Outcome o = ScenarioRun.run(p, new ScenarioRun.Options(tmp.resolve("run"), nt, false), List.of());
+            double motion = seconds(t0);
+            EmitterHistory h = new HistoryEmitters(o.history(), sc.sources());
+            LightSettings s = LightSettings.of(sc);
+            double stop = ScenarioChecks.captureRadius(p.spacetime(), p.landmarks());
+            System.out.printf(Locale.ROOT, "light bench: %s, a = %.1f, i = %.0f deg, %d particles, %d snapshots,"
+                    + " %d threads (machine: %d cores)%n", config, SPIN, INCLINATION, particles, h.snapshots(), nt,
+                    Runtime.getRuntime().availableProcessors());
+            System.out.printf(Locale.ROOT, "  motion (set-up, not part of the light figures): %.1f s%n", motion);
+
+            for (int n : new int[] {tablePixels, framePixels}) {
+                Camera cam = s.withPixels(n).camera();
+                double hK = LightStage.smoothingLength(cam);
+                double rEm = LightStage.emissionRadius(h, hK, s.fieldOfViewM(), stop);
+                t0 = System.nanoTime();
+                double c0 = cpu();
+                EmissionMask mask = EmissionMask.of(h, SPIN, rEm, 2 * hK);
+                TraceSettings ts = TraceSettings.of(rEm, stop, LightStage.SAMPLES_PER_H * hK, true).withTolerance(1e-8, 1e-10).withMask(mask);
+                RayTable table = RayTable.trace(p.spacetime(), cam, ts, nt);
+                double secs = seconds(t0);
+                System.out.printf(Locale.ROOT, "  ray table %d x %d (fov %.0f M, emission mask %.1f%% of cells): %.2f s"
+                        + " (%.1f CPU s), %.0f pixels/s, %d samples, %d pixels refined with %d sub-rays, %.0f steps per pixel%n",
+                        n, n, s.fieldOfViewM(), 100 * mask.filling(), secs, cpu() - c0, table.rays() / secs,
+                        table.samples(), table.refinedPixels(), table.subRays(), table.steps() / (double) table.rays());
+                if (n != framePixels) {
+                    continue;
+                }
+                double[] d = table.delayRange();
+                double tA = h.time(0) + d[1];
+                double tB = h.time(h.snapshots() - 1) + d[0];
+                float[] img = new float[n * n];
+                t0 = System.nanoTime();
+                c0 = cpu();
+                try (EmissionRenderer r = new EmissionRenderer(table, h, p.spacetime(), hK, nt)) {
+                    for (int f = 0; f < frames; f++) {
+                        double t = frames == 1 ? tA : tA + (tB - tA) * f / (frames - 1);
+                        r.render(t, img);
+                    }
+                    secs = seconds(t0);
+                    System.out.printf(Locale.ROOT, "  %d frames of %d x %d: %.2f s (%.1f CPU s), %.1f frames/s"
+                            + " (%d emission slices)%n", frames, n, n, secs, cpu() - c0, frames / secs, r.slicesBuilt());
+                }
+            }
+        } finally {
+            deleteTree(tmp);
+        }
+        return 0;
+    }
+
+    private static double seconds(long t0) {
+        return (System.nanoTime() - t0) * 1e-9;
+    }
+
+    /** @return CPU seconds used by this process so far (all threads), NaN where unavailable */
+    private static double cpu() {
+        return ProcessHandle.current().info().totalCpuDuration().map(d -> d.toNanos() * 1e-9).orElse(Double.NaN);
+    }
+
+    private static void check(boolean ok, String message) {
+        if (!ok) {
+            throw new UserInputException(message);
+        }
+    }
+
+    private static void deleteTree(Path root) throws IOException {
+        try (Stream<Path> w = Files.walk(root)) {
+            for (Path q : w.sorted(Comparator.reverseOrder()).toList()) {
+                Files.deleteIfExists(q);
+            }
+        }
+    }
+}

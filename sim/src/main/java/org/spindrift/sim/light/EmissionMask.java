@@ -1,0 +1,137 @@
+package org.spindrift.sim.light;
+
+import java.util.Arrays;
+import org.hipparchus.util.FastMath;
+
+/**
+ * Where emission can possibly come from: a uniform grid over the cube [-R, R]^3 whose cells are
+ * marked when any alive particle is in them at any snapshot, dilated by the kernel support plus
+ * the largest drift between snapshots; and, for every cell, the Chebyshev (L-infinity) distance in
+ * cells to the nearest marked cell, from a breadth-first sweep over the 26 neighbours, which gives
+ * the dilation. Rays keep samples only where gas may be (empty-space skipping, common practice in
+ * volume rendering, no source); the L-infinity dilation contains the Euclidean one.
+ */
+public final class EmissionMask {
+    private final double half;
+    private final double cell;
+    private final double inv;
+    private final int n;
+    private final short[] dist;
+
+    private EmissionMask(double half, double cell, int n, short[] dist) {
+        this.half = half;
+        this.cell = cell;
+        this.inv = 1.0 / cell;
+        this.n = n;
+        this.dist = dist;
+    }
+
+    /**
+     * @param radius half-width R of the cube, M
+     * @param support kernel support 2h plus any extra dilation, M
+     */
+    public static EmissionMask of(EmitterHistory h, double spin, double radius, double support) {
+        int n = (int) FastMath.min(160, FastMath.max(16, FastMath.ceil(2 * radius / 0.25)));
+        double cell = 2 * radius / n;
+        boolean[] mark = new boolean[n * n * n];
+        double a2 = spin * spin;
+        double vmax = 0;
+        for (int s = 0; s < h.snapshots(); s++) {
+            for (int p = 0; p < h.particles(); p++) {
+                if (h.state(s, p) != EmitterHistory.ALIVE) {
+                    continue;
+                }
+                double r = h.r(s, p), th = h.theta(s, p), ph = h.phi(s, p);
+                double rho = FastMath.sqrt(r * r + a2) * FastMath.sin(th);
+                int ix = (int) FastMath.floor((rho * FastMath.cos(ph) + radius) / cell);
+                int iy = (int) FastMath.floor((rho * FastMath.sin(ph) + radius) / cell);
+                int iz = (int) FastMath.floor((r * FastMath.cos(th) + radius) / cell);
+                if (ix >= 0 && iy >= 0 && iz >= 0 && ix < n && iy < n && iz < n) {
+                    mark[(ix * n + iy) * n + iz] = true;
+                }
+                double ut = h.u(s, p, 0);
+                double v = (FastMath.abs(h.u(s, p, 1)) + r * (FastMath.abs(h.u(s, p, 2)) + FastMath.abs(h.u(s, p, 3)))) / ut;
+                vmax = FastMath.max(vmax, v);
+            }
+        }
+        double dt = 0;
+        for (int s = 1; s < h.snapshots(); s++) {
+            dt = FastMath.max(dt, h.time(s) - h.time(s - 1));
+        }
+        // a particle is within v dt / 2 of a snapshot position at any time between snapshots
+        double dilation = support + 0.5 * vmax * dt + cell;
+        short[] d = distances(mark, n);
+        int cells = (int) FastMath.ceil(dilation / cell);
+        for (int i = 0; i < d.length; i++) {
+            d[i] = (short) FastMath.max(0, d[i] - cells);
+        }
+        return new EmissionMask(radius, cell, n, d);
+    }
+
+    /** Breadth-first L-infinity distance (in cells, capped at 30000) to the nearest marked cell. */
+    private static short[] distances(boolean[] mark, int n) {
+        short[] d = new short[mark.length];
+        Arrays.fill(d, Short.MAX_VALUE);
+        int[] queue = new int[mark.length];
+        int head = 0, tail = 0;
+        for (int i = 0; i < mark.length; i++) {
+            if (mark[i]) {
+                d[i] = 0;
+                queue[tail++] = i;
+            }
+        }
+        while (head < tail) {
+            int c = queue[head++];
+            int ix = c / (n * n), iy = (c / n) % n, iz = c % n;
+            short next = (short) FastMath.min(30000, d[c] + 1);
+            for (int dx = -1; dx <= 1; dx++) {
+                for (int dy = -1; dy <= 1; dy++) {
+                    for (int dz = -1; dz <= 1; dz++) {
+                        int jx = ix + dx, jy = iy + dy, jz = iz + dz;
+                        if (jx < 0 || jy < 0 || jz < 0 || jx >= n || jy >= n || jz >= n) {
+                            continue;
+                        }
+                        int j = (jx * n + jy) * n + jz;
+                        if (d[j] > next) {
+                            d[j] = next;
+                            queue[tail++] = j;
+                        }
+                    }
+                }
+            }
+        }
+        return d;
+    }
+
+    /** @return true when the point may hold emission */
+    public boolean occupied(double x, double y, double z) {
+        int ix = (int) FastMath.floor((x + half) * inv);
+        int iy = (int) FastMath.floor((y + half) * inv);
+        int iz = (int) FastMath.floor((z + half) * inv);
+        if (ix < 0 || iy < 0 || iz < 0 || ix >= n || iy >= n || iz >= n) {
+            return false;
+        }
+        return dist[(ix * n + iy) * n + iz] == 0;
+    }
+
+    /** @return the half-width R of the cube, M */
+    public double radius() {
+        return half;
+    }
+
+    /** @return the cell size, M */
+    public double cellSize() {
+        return cell;
+    }
+
+    /** @return the fraction of cells that may hold emission */
+    public double filling() {
+        int c = 0;
+        for (short v : dist) {
+            if (v == 0) {
+                c++;
+            }
+        }
+        return c / (double) dist.length;
+    }
+}
