@@ -40,7 +40,17 @@ class ValidateCommandTest {
                 new double[] {SchwarzschildPrecession.exact(10, 0.3), SchwarzschildPrecession.exact(100, 0.3)});
         java.util.List<Check> checks = java.util.List.of(new Check("g", "deliberately wrong", 1.0, "test", 2.0, 0.1),
                 new Check("g", "right", 1.0, "test", 1.0, 0.1));
-        assertEquals(1, ValidateCommand.report(dir, new ValidationSuite.Run(checks, series)));
+        java.io.PrintStream old = System.out;
+        java.io.ByteArrayOutputStream buf = new java.io.ByteArrayOutputStream();
+        int code;
+        try {
+            System.setOut(new java.io.PrintStream(buf, true, java.nio.charset.StandardCharsets.UTF_8));
+            code = ValidateCommand.report(dir, new ValidationSuite.Run(checks, series));
+        } finally {
+            System.setOut(old);
+        }
+        assertEquals(1, code);
+        assertTrue(buf.toString(java.nio.charset.StandardCharsets.UTF_8).contains("deliberately wrong"));
         String md = Files.readString(dir.resolve("report.md"));
         assertTrue(md.contains("**FAIL**") && md.contains("1 failed"), md);
     }
