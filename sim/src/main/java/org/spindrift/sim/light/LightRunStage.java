@@ -16,12 +16,33 @@ public final class LightRunStage implements RunStage {
     /** Key of the {@link LightResult} in the run's products. */
     public static final String RESULT = "light";
 
+    /** Largest image cube kept in memory, in pixels (frames x N^2), about 2 GB of floats. */
+    public static final long MAX_CUBE_PIXELS = 500_000_000L;
+
+    /**
+     * Refuses frame cadences and image sizes whose cube would not fit in memory (estimated from
+     * the run span plus a generous delay spread of 200 M).
+     */
+    static void checkBudget(LightSettings s, double t0, double t1, int snapshots) {
+        double cadence = Double.isNaN(s.frameCadenceM()) ? (t1 - t0) / Math.max(1, snapshots - 1) : s.frameCadenceM();
+        double frames = (t1 - t0 + 200.0) / cadence + 1;
+        double cube = frames * s.pixels() * (double) s.pixels() * (s.beamFwhmUas() > 0 ? 2 : 1);
+        if (cube > MAX_CUBE_PIXELS) {
+            throw new org.spindrift.shared.UserInputException(String.format(java.util.Locale.ROOT,
+                    "imaging.frame_cadence / imaging.pixels: about %.3g frames of %d x %d pixels exceed the image"
+                            + " budget of %d pixels; use a longer frame_cadence or fewer pixels", frames, s.pixels(),
+                    s.pixels(), MAX_CUBE_PIXELS));
+        }
+    }
+
     @Override public String name() {
         return "light";
     }
 
     @Override public void run(RunContext ctx) throws IOException {
         LightSettings s = LightSettings.of(ctx.scenario());
+        checkBudget(s, ctx.history().time(0), ctx.history().time(ctx.history().snapshots() - 1),
+                ctx.history().snapshots());
         // rays stop where particles are captured: outer horizon plus margin, or the surface
         double stop = ScenarioChecks.captureRadius(ctx.spacetime(), ctx.landmarks());
         EmitterHistory h = new HistoryEmitters(ctx.history(), ctx.scenario().sources());

@@ -51,9 +51,10 @@ public record LightSettings(double inclinationDeg, double positionAngleDeg, doub
         return Units.timeUnitSeconds(massSolar) / 60.0;
     }
 
-    /** @return the camera */
+    /** @return the camera (start plane at 1e4 M, or 100 fields of view for very wide fields) */
     public Camera camera() {
-        return new Camera(inclinationDeg, positionAngleDeg, fieldOfViewM, pixels, CAMERA_DISTANCE_M);
+        return new Camera(inclinationDeg, positionAngleDeg, fieldOfViewM, pixels,
+                Math.max(CAMERA_DISTANCE_M, 100.0 * fieldOfViewM));
     }
 
     /** @return a copy with another image size */
