@@ -24,7 +24,11 @@ public final class ValidateCommand implements Callable<Integer> {
         if (Files.exists(output) && !Files.isDirectory(output)) {
             throw new UserInputException("-o " + output + ": exists and is not a folder");
         }
-        ValidationSuite.Run run = ValidationSuite.run();
+        return report(output, ValidationSuite.run());
+    }
+
+    /** Writes the report of a run and prints the failures; @return the exit status (1 if a check failed) */
+    static int report(Path output, ValidationSuite.Run run) throws IOException {
         ValidationReport.write(output, run.checks(), run.series());
         long failed = run.checks().stream().filter(c -> !c.passed()).count();
         for (Check c : run.checks()) {

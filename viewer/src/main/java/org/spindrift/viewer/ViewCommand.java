@@ -23,6 +23,7 @@ import picocli.CommandLine.Parameters;
  * stderr, no stack trace).
  */
 @Command(name = "view", mixinStandardHelpOptions = true, sortOptions = false,
+        versionProvider = ViewCommand.VersionProvider.class,
         description = {"Replay a run folder in 3D (particles, horizon, landmark circles, source paths) beside the"
                 + " sky image and centroid track; or export the replay as PNG frames.",
             "Needs OpenGL 3.3: a desktop session, or a virtual X server:",
@@ -30,6 +31,13 @@ import picocli.CommandLine.Parameters;
         footer = {"", "Turn exported frames into a movie, for example:",
             "  ffmpeg -framerate 30 -i DIR/frame_%%05d.png -c:v libx264 -pix_fmt yuv420p \\", "         -crf 18 replay.mp4"})
 public final class ViewCommand implements Callable<Integer> {
+    /** Version string for {@code view --version}. */
+    public static final class VersionProvider implements CommandLine.IVersionProvider {
+        @Override public String[] getVersion() {
+            return new String[] {"spindrift view " + org.spindrift.shared.Version.get()};
+        }
+    }
+
     /** Exit status for bad input, no display or no OpenGL. */
     public static final int EXIT_USAGE = 2;
 

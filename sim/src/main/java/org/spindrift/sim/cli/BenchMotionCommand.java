@@ -186,6 +186,9 @@ public final class BenchMotionCommand implements Callable<Integer> {
                 cpu2, cpu2 / s2);
         System.out.printf(Locale.ROOT, "speed-up 1 -> 2 threads %.2fx (target >= 1.7x; needs 2 idle cores);"
                 + " results bitwise identical: %s%n", s1 / s2, identical);
+        System.out.printf(Locale.ROOT, "CPU time for the same work, 1 thread / 2 threads = %.2f (parallel overhead;"
+                + " 1.00 = none): on two otherwise idle cores the speed-up would be about %.2fx%n", cpu1 / cpu2,
+                2 * cpu1 / cpu2);
         System.out.printf(Locale.ROOT, "state: %d bytes per particle in the batch + %d bytes snapshot buffer = %d"
                 + " (target < 200)%n", ParticleBatch.BYTES_PER_PARTICLE, 5 * Double.BYTES + 1,
                 ParticleBatch.BYTES_PER_PARTICLE + 5 * Double.BYTES + 1);

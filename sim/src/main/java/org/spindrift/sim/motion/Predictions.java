@@ -31,6 +31,6 @@ public final class Predictions {
      * Lense-Thirring effect).
      */
     public static double advanceSpin(double a, double p, boolean prograde) {
-        return (prograde ? -8.0 : 8.0) * FastMath.PI * a / FastMath.pow(p, 1.5);
+        return (prograde ? -8.0 : 8.0) * FastMath.PI * a / FastMath.pow(p, 1.5) + 0.0; // + 0.0: no -0.0 at a = 0
     }
 }

@@ -146,4 +146,46 @@ class OrbitElementsTest {
         assertTrue(m.massShellDriftMax() < 1e-11);
         assertTrue(m.carterDriftMax() < 1e-9 * s.carter());
     }
+
+    @Test
+    void closedFormAgreesWithHipparchusLeastSquaresOnTheMassFunctionFamily() {
+        // second route: solve R(r_p) = R(r_a) = 0 for (E, J) numerically with Hipparchus'
+        // Levenberg-Marquardt optimizer on the Carter-form potential, L = J cos(iota), Q = J^2 sin^2(iota)
+        MassFunctionSpacetime st = new MassFunctionSpacetime("hayward", 0.7, MassFunctions.hayward(0.6));
+        double p = 9;
+        double e = 0.4;
+        double iota = Math.toRadians(55);
+        double rp = p / (1 + e);
+        double ra = p / (1 - e);
+        double c = Math.cos(iota);
+        double s2 = Math.sin(iota) * Math.sin(iota);
+        java.util.function.BiFunction<double[], Double, Double> rr = (x, r) ->
+                OrbitElements.radialPotential(st, r, x[0], c * x[1], s2 * x[1] * x[1]) / Math.pow(r, 4);
+        org.hipparchus.optim.nonlinear.vector.leastsquares.MultivariateJacobianFunction model = point -> {
+            double[] x = point.toArray();
+            double[] v = {rr.apply(x, rp), rr.apply(x, ra)};
+            double[][] jac = new double[2][2];
+            for (int k = 0; k < 2; k++) {
+                double h = 1e-7 * Math.max(1, Math.abs(x[k]));
+                double[] xp = x.clone();
+                double[] xm = x.clone();
+                xp[k] += h;
+                xm[k] -= h;
+                jac[0][k] = (rr.apply(xp, rp) - rr.apply(xm, rp)) / (2 * h);
+                jac[1][k] = (rr.apply(xp, ra) - rr.apply(xm, ra)) / (2 * h);
+            }
+            return new org.hipparchus.util.Pair<>(new org.hipparchus.linear.ArrayRealVector(v),
+                    new org.hipparchus.linear.Array2DRowRealMatrix(jac));
+        };
+        var problem = new org.hipparchus.optim.nonlinear.vector.leastsquares.LeastSquaresBuilder()
+                .start(new double[] {0.96, 3.4}).model(model).target(new double[] {0, 0})
+                .maxEvaluations(10_000).maxIterations(10_000).build();
+        var opt = new org.hipparchus.optim.nonlinear.vector.leastsquares.LevenbergMarquardtOptimizer()
+                .withCostRelativeTolerance(1e-15).withParameterRelativeTolerance(1e-15).optimize(problem);
+        double[] x = opt.getPoint().toArray();
+        OrbitElements.Solution sol = OrbitElements.solve(st, p, e, iota);
+        assertEquals(x[0], sol.energy(), 1e-10);
+        assertEquals(x[1] * c, sol.angularMomentum(), 1e-9);
+        assertEquals(s2 * x[1] * x[1], sol.carter(), 1e-8);
+    }
 }

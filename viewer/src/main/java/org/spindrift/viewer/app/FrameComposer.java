@@ -21,12 +21,13 @@ public final class FrameComposer implements AutoCloseable {
     private final RunInfo info;
     private final SceneView scene;
     private final SkyPanel sky;
-    private final FontAtlas font;
+    private FontAtlas font;
     private final Overlay overlay;
     private final Hud hud;
     private final Layout layout = new Layout();
     private final boolean bare;
     private boolean help;
+    private float scale = 1f;
     private boolean profile;
     private long prepareNanos;
     private long sceneNanos;
@@ -41,7 +42,7 @@ public final class FrameComposer implements AutoCloseable {
         this.bare = bare;
         this.scene = new SceneView(info, stream);
         this.sky = sky;
-        this.font = new FontAtlas();
+        this.font = new FontAtlas(1f);
         this.overlay = new Overlay(font);
         this.hud = new Hud(info);
         if (!info.sourceNames().isEmpty()) {
@@ -63,6 +64,20 @@ public final class FrameComposer implements AutoCloseable {
 
     public FontAtlas font() {
         return font;
+    }
+
+    /**
+     * Interface scale for a framebuffer: 1 up to 720 pixels high (or 1280 wide), growing in steps
+     * of a quarter with the size (1.5 at 1920 x 1080, 2 on a HiDPI 1280 x 720 window), at most 3.
+     */
+    public static float uiScale(int fbW, int fbH) {
+        double s = Math.min(fbH / 720.0, fbW / 1280.0);
+        return (float) Math.max(1.0, Math.min(3.0, Math.floor(s * 4 + 0.25) / 4));
+    }
+
+    /** @return the interface scale of the last frame (framebuffer pixels per layout pixel) */
+    public float scale() {
+        return scale;
     }
 
     public void toggleHelp() {
@@ -99,7 +114,17 @@ public final class FrameComposer implements AutoCloseable {
      * @return false when the snapshots for this time were not in memory yet (an older pair was shown)
      */
     public boolean render(int fbW, int fbH, Playback p, boolean block, double wallNow) {
-        layout.update(fbW, fbH, bare, sky != null);
+        float sc = uiScale(fbW, fbH);
+        if (!bare && sc != font.scale()) {
+            FontAtlas old = font;
+            font = new FontAtlas(sc); // sharp glyphs at the new scale (only when the size class changes)
+            overlay.font(font);
+            old.close();
+        }
+        scale = bare ? 1f : sc;
+        int vw = Math.max(1, Math.round(fbW / scale));
+        int vh = Math.max(1, Math.round(fbH / scale));
+        layout.update(vw, vh, bare, sky != null);
         glDisable(GL_SCISSOR_TEST);
         glViewport(0, 0, fbW, fbH);
         glClearColor(((Palette.BACKGROUND >>> 24) & 0xff) / 255f, ((Palette.BACKGROUND >>> 16) & 0xff) / 255f,
@@ -119,8 +144,11 @@ public final class FrameComposer implements AutoCloseable {
             prepareNanos += t1 - t0;
             t0 = t1;
         }
-        scene.draw(layout.viewX, layout.glY(layout.viewY, layout.viewH), layout.viewW, layout.viewH, p.now(), a, b,
-                p.mix());
+        int x0 = Math.round(layout.viewX * scale);
+        int x1 = bare ? fbW : Math.round((layout.viewX + layout.viewW) * scale);
+        int y0 = Math.round(layout.viewY * scale);
+        int y1 = bare ? fbH : Math.round((layout.viewY + layout.viewH) * scale);
+        scene.draw(x0, fbH - y1, Math.max(1, x1 - x0), Math.max(1, y1 - y0), p.now(), a, b, p.mix());
         if (profile) {
             glFinish();
             sceneNanos += System.nanoTime() - t0;
@@ -132,10 +160,10 @@ public final class FrameComposer implements AutoCloseable {
             t0 = System.nanoTime();
         }
         glViewport(0, 0, fbW, fbH);
-        overlay.begin(fbW, fbH);
+        overlay.begin(vw, vh);
         double tObs = observerTime(p);
         if (sky != null) {
-            sky.draw(overlay, scene.maps(), layout.skyX, layout.skyY, layout.skyW, layout.skyH, fbW, fbH, tObs);
+            sky.draw(overlay, scene.maps(), layout.skyX, layout.skyY, layout.skyW, layout.skyH, fbW, fbH, scale, tObs);
         }
         hud.titleBar(overlay, layout, info.particles());
         hud.colourBar(overlay, layout, scene);

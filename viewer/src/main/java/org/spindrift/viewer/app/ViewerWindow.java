@@ -132,12 +132,14 @@ public final class ViewerWindow {
         }
     }
 
+    /** Interface pixels per window (cursor) unit, horizontally. */
     private double scaleX() {
-        return fbW / (double) winW;
+        return fbW / (double) winW / composer.scale();
     }
 
+    /** Interface pixels per window (cursor) unit, vertically. */
     private double scaleY() {
-        return fbH / (double) winH;
+        return fbH / (double) winH / composer.scale();
     }
 
     private void scrubTo(double xWin) {

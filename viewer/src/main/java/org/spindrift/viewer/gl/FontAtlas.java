@@ -28,8 +28,6 @@ public final class FontAtlas implements AutoCloseable {
 
     static final int FIRST = 32;
     static final int COUNT = 224; // 32..255: ASCII and Latin-1 (for the micro sign and the degree sign)
-    static final int W = 512;
-    static final int H = 512;
     private static final float[] PIXELS = {14f, 19f};
 
     private static final List<String> CANDIDATES = List.of(
@@ -47,14 +45,25 @@ public final class FontAtlas implements AutoCloseable {
             "C:/Windows/Fonts/segoeui.ttf",
             "C:/Windows/Fonts/arial.ttf");
 
-    /** per size, per glyph: x0, y0, x1, y1 (atlas pixels), xoff, yoff, xadvance */
+    /** per size, per glyph: x0, y0, x1, y1 (atlas pixels), xoff, yoff, xadvance (atlas pixels) */
     private final float[][] metrics = new float[2][COUNT * 7];
     private final float[] lineHeight = new float[2];
     private final float[] ascent = new float[2];
     private final int texture;
     private final String source;
+    private final float scale;
+    /** Atlas size in pixels (square). */
+    final int size;
 
-    public FontAtlas() {
+    /**
+     * @param scale interface scale: glyphs are baked at scale times their nominal pixel size, so
+     *              text stays sharp when the overlay is drawn scaled (large frames, HiDPI screens)
+     */
+    public FontAtlas(float scale) {
+        this.scale = scale;
+        this.size = scale > 1.25f ? 1024 : 512;
+        final int W = size;
+        final int H = size;
         ByteBuffer bitmap = MemoryUtil.memCalloc(W * H);
         try {
             String used = bakeTrueType(bitmap);
@@ -76,6 +85,8 @@ public final class FontAtlas implements AutoCloseable {
     }
 
     private String bakeTrueType(ByteBuffer bitmap) {
+        final int W = size;
+        final int H = size;
         for (String c : CANDIDATES) {
             Path p = Path.of(c);
             if (!Files.isReadable(p)) {
@@ -94,7 +105,7 @@ public final class FontAtlas implements AutoCloseable {
                 for (int s = 0; s < 2 && ok; s++) {
                     int rowOffset = s * (H / 2);
                     ByteBuffer half = MemoryUtil.memSlice(bitmap, rowOffset * W, (H / 2) * W);
-                    int r = STBTruetype.stbtt_BakeFontBitmap(ttf, PIXELS[s], half, W, H / 2, FIRST, cdata);
+                    int r = STBTruetype.stbtt_BakeFontBitmap(ttf, PIXELS[s] * scale, half, W, H / 2, FIRST, cdata);
                     if (r == 0) {
                         ok = false;
                         break;
@@ -125,13 +136,15 @@ public final class FontAtlas implements AutoCloseable {
     }
 
     private String bakeAwt(ByteBuffer bitmap) {
+        final int W = size;
+        final int H = size;
         try {
             for (int s = 0; s < 2; s++) {
                 int rowOffset = s * (H / 2);
                 BufferedImage img = new BufferedImage(W, H / 2, BufferedImage.TYPE_BYTE_GRAY);
                 Graphics2D g2 = img.createGraphics();
                 g2.setRenderingHint(RenderingHints.KEY_TEXT_ANTIALIASING, RenderingHints.VALUE_TEXT_ANTIALIAS_ON);
-                g2.setFont(new java.awt.Font(java.awt.Font.SANS_SERIF, java.awt.Font.PLAIN, Math.round(PIXELS[s])));
+                g2.setFont(new java.awt.Font(java.awt.Font.SANS_SERIF, java.awt.Font.PLAIN, Math.round(PIXELS[s] * scale)));
                 g2.setColor(Color.WHITE);
                 FontMetrics fm = g2.getFontMetrics();
                 int cell = fm.getHeight() + 2;
@@ -161,7 +174,7 @@ public final class FontAtlas implements AutoCloseable {
                     bitmap.put(rowOffset * W + i, data[i]);
                 }
                 lineHeight[s] = Math.round(PIXELS[s] * 1.3f);
-                ascent[s] = fm.getAscent();
+                ascent[s] = Math.round(fm.getAscent() / scale);
             }
             return "Java sans-serif";
         } catch (RuntimeException | Error e) {
@@ -182,6 +195,7 @@ public final class FontAtlas implements AutoCloseable {
         return metrics[size.ordinal()];
     }
 
+    /** @return line height in interface pixels */
     public float lineHeight(Size size) {
         return lineHeight[size.ordinal()];
     }
@@ -190,7 +204,12 @@ public final class FontAtlas implements AutoCloseable {
         return ascent[size.ordinal()];
     }
 
-    /** @return the advance width of the text in pixels */
+    /** @return the interface scale the glyphs were baked for */
+    public float scale() {
+        return scale;
+    }
+
+    /** @return the advance width of the text in interface pixels */
     public float width(CharSequence s, Size size) {
         float[] m = metrics[size.ordinal()];
         float w = 0;
@@ -201,7 +220,7 @@ public final class FontAtlas implements AutoCloseable {
             }
             w += m[g * 7 + 6];
         }
-        return w;
+        return w / scale;
     }
 
     @Override public void close() {

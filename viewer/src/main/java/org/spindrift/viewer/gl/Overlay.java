@@ -6,7 +6,8 @@ import java.nio.FloatBuffer;
 import org.lwjgl.system.MemoryUtil;
 
 /**
- * Batched 2D drawing in pixel coordinates (origin top-left): filled rectangles, gradient
+ * Batched 2D drawing in interface pixels (framebuffer pixels divided by the interface scale,
+ * origin top-left): filled rectangles, gradient
  * rectangles, 1-pixel lines and text. Vertices go into one preallocated buffer that is uploaded
  * by orphaning ({@code glBufferData(NULL)} then {@code glBufferSubData}) when flushed; drawing
  * allocates nothing.
@@ -21,7 +22,7 @@ public final class Overlay implements AutoCloseable {
     private final int vao;
     private final int vbo;
     private final FloatBuffer data = MemoryUtil.memAllocFloat(CAPACITY * FLOATS);
-    private final FontAtlas font;
+    private FontAtlas font;
     private int count;
     private float viewportW = 1;
     private float viewportH = 1;
@@ -48,7 +49,13 @@ public final class Overlay implements AutoCloseable {
         return font;
     }
 
-    /** Starts a batch for a framebuffer of the given size (pixels). */
+    /** Replaces the glyph atlas (when the interface scale changes); the caller closes the old one. */
+    public void font(FontAtlas f) {
+        flush();
+        font = f;
+    }
+
+    /** Starts a batch for a framebuffer of the given size in interface pixels (framebuffer / scale). */
     public void begin(int width, int height) {
         viewportW = width;
         viewportH = height;
@@ -138,25 +145,28 @@ public final class Overlay implements AutoCloseable {
      */
     public float text(float x, float y, CharSequence s, FontAtlas.Size size, int rgba) {
         float[] m = font.metrics(size);
-        float baseline = Math.round(y + font.ascent(size));
-        float pen = Math.round(x);
-        float iw = 1f / FontAtlas.W;
-        float ih = 1f / FontAtlas.H;
+        float sc = font.scale();
+        float inv = 1f / sc;
+        // snap the baseline and pen to framebuffer pixels so the glyphs stay sharp
+        float baseline = Math.round((y + font.ascent(size)) * sc) * inv;
+        float pen = Math.round(x * sc) * inv;
+        float iw = 1f / font.size;
+        float ih = 1f / font.size;
         for (int i = 0; i < s.length(); i++) {
             int g = s.charAt(i) - FontAtlas.FIRST;
             if (g < 0 || g >= FontAtlas.COUNT) {
                 g = '?' - FontAtlas.FIRST;
             }
             int o = g * 7;
-            float gx0 = pen + m[o + 4];
-            float gy0 = baseline + m[o + 5];
-            float gx1 = gx0 + (m[o + 2] - m[o]);
-            float gy1 = gy0 + (m[o + 3] - m[o + 1]);
+            float gx0 = pen + m[o + 4] * inv;
+            float gy0 = baseline + m[o + 5] * inv;
+            float gx1 = gx0 + (m[o + 2] - m[o]) * inv;
+            float gy1 = gy0 + (m[o + 3] - m[o + 1]) * inv;
             if (m[o + 2] > m[o]) {
                 quad(gx0, gy0, gx1, gy1, m[o] * iw, m[o + 1] * ih, m[o + 2] * iw, m[o + 3] * ih,
                         rgba, rgba, rgba, rgba);
             }
-            pen += m[o + 6];
+            pen += m[o + 6] * inv;
         }
         return pen;
     }

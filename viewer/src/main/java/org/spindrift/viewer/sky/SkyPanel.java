@@ -93,9 +93,11 @@ public final class SkyPanel implements AutoCloseable {
      * Draws the panel. The image is drawn immediately; the lines and labels go into the overlay
      * batch (flushed by the caller).
      *
+     * @param fbW   framebuffer size, pixels; x, y, w, h are interface pixels (framebuffer / scale)
      * @param tObs observer time, M
      */
-    public void draw(Overlay o, ColourMaps maps, int x, int y, int w, int h, int fbW, int fbH, double tObs) {
+    public void draw(Overlay o, ColourMaps maps, int x, int y, int w, int h, int fbW, int fbH, float scale,
+                     double tObs) {
         o.rect(x, y, w, h, Palette.PANEL);
         o.frame(x, y, w, h, Palette.PANEL_EDGE);
         FontAtlas font = o.font();
@@ -132,9 +134,10 @@ public final class SkyPanel implements AutoCloseable {
             o.flush();
             glViewport(0, 0, fbW, fbH);
             glEnable(GL_SCISSOR_TEST);
-            glScissor(ix, fbH - iy - side, side, side);
+            glScissor(Math.round(ix * scale), fbH - Math.round((iy + side) * scale), Math.round(side * scale),
+                    Math.round(side * scale));
             shader.use();
-            glUniform2f(uViewport, fbW, fbH);
+            glUniform2f(uViewport, fbW / scale, fbH / scale); // rectangle below in interface pixels
             // rectangle from min to max on screen; u runs from pixel 1 at sx0 to the last at sx1
             float left = Math.min(sx0, sx1);
             float top = Math.min(sy0, sy1);
