@@ -26,11 +26,6 @@ public record TraceSettings(double emissionRadius, double stopRadius, double end
                 200_000, lensing, null);
     }
 
-    public TraceSettings withEndRadius(double r) {
-        return new TraceSettings(emissionRadius, stopRadius, r, sampleSpacing, relativeTolerance,
-                absoluteTolerance, maxSteps, lensing, mask);
-    }
-
     public TraceSettings withTolerance(double rtol, double atol) {
         return new TraceSettings(emissionRadius, stopRadius, endRadius, sampleSpacing, rtol, atol,
                 maxSteps, lensing, mask);
