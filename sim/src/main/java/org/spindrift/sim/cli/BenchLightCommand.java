@@ -96,11 +96,10 @@ public final class BenchLightCommand implements Callable<Integer> {
             for (int n : new int[] {tablePixels, framePixels}) {
                 Camera cam = s.withPixels(n).camera();
                 double hK = LightStage.smoothingLength(cam);
-                double rEm = LightStage.emissionRadius(h, hK, s.fieldOfViewM(), stop);
                 t0 = System.nanoTime();
                 double c0 = cpu();
-                EmissionMask mask = EmissionMask.of(h, SPIN, rEm, 2 * hK);
-                TraceSettings ts = TraceSettings.of(rEm, stop, LightStage.SAMPLES_PER_H * hK, true).withTolerance(1e-8, 1e-10).withMask(mask);
+                TraceSettings ts = LightStage.traceSettings(h, p.spacetime(), cam, stop, s.fieldOfViewM(), true);
+                EmissionMask mask = ts.mask();
                 RayTable table = RayTable.trace(p.spacetime(), cam, ts, nt);
                 double secs = seconds(t0);
                 System.out.printf(Locale.ROOT, "  ray table %d x %d (fov %.0f M, emission mask %.1f%% of cells): %.2f s"

@@ -21,15 +21,15 @@ import org.spindrift.sim.spacetime.Spacetime;
  * {@code sliceSpacing} apart, each built once and kept while frames need it, so frames should be
  * rendered in increasing observer time for the cache to slide.
  *
- * <p>Work is done slice by slice: the samples are kept sorted by delay, so the samples that see
- * one slice in a frame are one contiguous range, and one slice's particles stay in cache while
- * they are processed. Slices are grouped into fixed chunks (their boundaries depend on the frame
- * only), each chunk adds into its own image, and the chunk images are summed in chunk order, so
- * images do not depend on the thread count. The per-sample loop allocates nothing.
+ * <p>The samples are kept sorted by delay, so consecutive samples see the same slice and its
+ * particles stay in cache. A frame's samples are split into a fixed number of equal blocks (the
+ * boundaries depend on the frame only), each block adds into its own image, and the block images
+ * are summed in block order, so images do not depend on the thread count. The per-sample loop
+ * allocates nothing.
  */
 public final class EmissionRenderer implements AutoCloseable {
-    /** Slices per chunk of work. */
-    private static final int SLICES_PER_CHUNK = 8;
+    /** Fixed number of blocks of samples per frame (independent of the thread count). */
+    private static final int BLOCKS = 16;
 
     private final EmitterHistory history;
     private final Spacetime spacetime;
@@ -143,40 +143,45 @@ public final class EmissionRenderer implements AutoCloseable {
         }
         slicesBuilt += built.length;
         int count = (int) (jHi - jLo + 1);
-        int chunks = (count + SLICES_PER_CHUNK - 1) / SLICES_PER_CHUNK;
-        while (chunkImages.size() < chunks) {
+        EmissionSlice[] window = new EmissionSlice[count];
+        for (int i = 0; i < count; i++) {
+            window[i] = cache.get(jLo + i);
+        }
+        // the samples that see any slice of the window, split into BLOCKS equal blocks
+        int from = firstAbove(tObs - sliceOrigin - (jHi + 0.5) * sliceSpacing);
+        int to = firstAbove(tObs - sliceOrigin - (jLo - 0.5) * sliceSpacing);
+        int size = (to - from + BLOCKS - 1) / BLOCKS;
+        while (chunkImages.size() < BLOCKS) {
             chunkImages.add(new double[pixels * pixels]);
         }
-        run(() -> IntStream.range(0, chunks).parallel().forEach(c -> {
-            double[] acc = chunkImages.get(c);
+        run(() -> IntStream.range(0, BLOCKS).parallel().forEach(b -> {
+            double[] acc = chunkImages.get(b);
             Arrays.fill(acc, 0.0);
-            long from = jLo + (long) c * SLICES_PER_CHUNK;
-            long to = FastMath.min(jHi, from + SLICES_PER_CHUNK - 1);
-            for (long j = from; j <= to; j++) {
-                EmissionSlice sl = cache.get(j);
-                if (sl != null) {
-                    renderSlice(sl, j, tObs, acc);
-                }
-            }
+            int i0 = from + b * size;
+            int i1 = Math.min(to, i0 + size);
+            renderSamples(i0, i1, tObs, jLo, window, acc);
         }));
         for (int k = 0; k < image.length; k++) {
             double v = 0.0;
-            for (int c = 0; c < chunks; c++) {
-                v += chunkImages.get(c)[k];
+            for (int b = 0; b < BLOCKS; b++) {
+                v += chunkImages.get(b)[k];
             }
             image[k] = (float) v;
         }
     }
 
-    /** Adds the emission of slice j to the samples whose emission time t_o - d rounds to it. */
-    private void renderSlice(EmissionSlice sl, long j, double tObs, double[] acc) {
-        // rint((tObs - d - origin) / spacing) == j  <=>  d in (tObs - origin - (j + 1/2) s, tObs - origin - (j - 1/2) s]
-        double dHi = tObs - sliceOrigin - (j - 0.5) * sliceSpacing;
-        double dLo = tObs - sliceOrigin - (j + 0.5) * sliceSpacing;
-        int from = firstAbove(dLo);
-        int to = firstAbove(dHi);
-        for (int i = from; i < to; i++) {
+    /** Adds the emission seen by sorted samples i0..i1-1 (each from the slice its emission time rounds to). */
+    private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
+        for (int i = i0; i < i1; i++) {
             double tE = tObs - sd[i];
+            int w = (int) (sliceIndex(tE) - jLo);
+            if (w < 0 || w >= window.length) {
+                continue;
+            }
+            EmissionSlice sl = window[w];
+            if (sl == null) {
+                continue;
+            }
             double e = sl.emissivity(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm, support2);
             if (e != 0.0) {
                 acc[pix[i]] += sdl[i] * e;

@@ -18,26 +18,24 @@ import org.spindrift.sim.spacetime.Spacetime;
  */
 final class EmissionSlice {
     final double tau;
-    final float[] ut, ur, uth, uph, w, expo;
     final int count;
     final int[] cellStart;
     final double ox, oy, oz, cell, invCell;
     final int nx, ny, nz;
     /** search radius: kernel support plus the largest drift within half a slice spacing */
     final double reach;
-    /** positions and velocities interleaved (x, y, z, vx, vy, vz) per particle, for locality */
+    /** Floats per particle record. */
+    private static final int REC = 12;
+    /**
+     * One record per particle, sorted by cell, for locality: x, y, z, vx, vy, vz, u^t, u^r,
+     * u^theta, u^phi, weight / u^t, exponent 2 + alpha.
+     */
     private final float[] pv;
 
     private EmissionSlice(double tau, int count, float[][] cols, int[] cellStart, double ox, double oy,
                           double oz, double cell, int nx, int ny, int nz, double reach) {
         this.tau = tau;
         this.count = count;
-        ut = cols[6];
-        ur = cols[7];
-        uth = cols[8];
-        uph = cols[9];
-        w = cols[10];
-        expo = cols[11];
         this.cellStart = cellStart;
         this.ox = ox;
         this.oy = oy;
@@ -48,10 +46,10 @@ final class EmissionSlice {
         this.ny = ny;
         this.nz = nz;
         this.reach = reach;
-        pv = new float[6 * count];
+        pv = new float[REC * count];
         for (int p = 0; p < count; p++) {
-            for (int c = 0; c < 6; c++) {
-                pv[6 * p + c] = cols[c][p];
+            for (int c = 0; c < REC; c++) {
+                pv[REC * p + c] = cols[c][p];
             }
         }
     }
@@ -226,7 +224,7 @@ final class EmissionSlice {
                 int from = cellStart[base + z0];
                 int to = cellStart[base + z1 + 1];        // cells along z are contiguous
                 for (int p = from; p < to; p++) {
-                    int q = 6 * p;
+                    int q = REC * p;
                     double ddx = sx - (pv[q] + pv[q + 3] * dtE);
                     double ddy = sy - (pv[q + 1] + pv[q + 4] * dtE);
                     double ddz = sz - (pv[q + 2] + pv[q + 5] * dtE);
@@ -234,14 +232,14 @@ final class EmissionSlice {
                     if (d2 >= support2) {
                         continue;
                     }
-                    double gInv = Redshift.inverse(pr, pth, pphi, ut[p], ur[p], uth[p], uph[p]);
+                    double gInv = Redshift.inverse(pr, pth, pphi, pv[q + 6], pv[q + 7], pv[q + 8], pv[q + 9]);
                     if (!(gInv > 0)) {
                         continue;
                     }
-                    double e = expo[p];
+                    double e = pv[q + 11];
                     // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
                     double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
-                    sum += w[p] * Kernel.w(d2, invH, norm) * gp;
+                    sum += pv[q + 10] * Kernel.w(d2, invH, norm) * gp;
                 }
             }
         }

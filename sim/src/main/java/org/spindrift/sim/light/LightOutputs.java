@@ -129,6 +129,10 @@ public final class LightOutputs {
         try (Fits fits = new Fits()) {
             BasicHDU<?> hdu = Fits.makeHDU(cube);
             Header h = hdu.getHeader();
+            nom.tam.fits.HeaderCard simple = h.findCard("SIMPLE");
+            if (simple != null) {
+                simple.setComment("conforms to FITS standard");   // no write time: files reproducible
+            }
             h.addValue("BUNIT", "", "relative intensity (arbitrary units, see COMMENT)");
             h.addValue("WCSAXES", 3, "celestial offsets and observer time");
             h.addValue("CTYPE1", "RA---TAN", "offset from the black hole (CRVAL = 0,0 is the hole)");

@@ -160,16 +160,30 @@ public final class LightPlots {
         LightSettings s = r.settings();
         double uas = s.uasPerM();
         double min = s.minutesPerM();
-        XYChart c = new XYChartBuilder().width(900).height(450).title("Centroid offsets versus observer time")
+        XYChart c = new XYChartBuilder().width(900).height(450)
+                .title("Centroid offsets versus observer time (frames below 1% of peak flux omitted)")
                 .xAxisTitle("observer time (min)").yAxisTitle("offset (uas)").build();
         style(c);
-        int n = r.timesM().length;
-        double[] t = new double[n], x = new double[n], y = new double[n];
-        for (int f = 0; f < n; f++) {
+        // frames fainter than 1% of the peak flux are left out: their centroid is noise
+        double peak = 0;
+        for (FrameMoments m : r.moments()) {
+            peak = Math.max(peak, m.flux());
+        }
+        List<Integer> keep = new ArrayList<>();
+        for (int f = 0; f < r.timesM().length; f++) {
             FrameMoments m = r.moments().get(f);
-            t[f] = r.timesM()[f] * min;
-            x[f] = m.x() * uas;
-            y[f] = m.y() * uas;
+            if (m.flux() >= 0.01 * peak && !Double.isNaN(m.x())) {
+                keep.add(f);
+            }
+        }
+        int n = Math.max(1, keep.size());
+        double[] t = new double[n], x = new double[n], y = new double[n];
+        for (int i = 0; i < keep.size(); i++) {
+            int f = keep.get(i);
+            FrameMoments m = r.moments().get(f);
+            t[i] = r.timesM()[f] * min;
+            x[i] = m.x() * uas;
+            y[i] = m.y() * uas;
         }
         XYSeries sx = c.addSeries("x (east)", t, x);
         sx.setMarker(SeriesMarkers.NONE);
@@ -179,9 +193,9 @@ public final class LightPlots {
         sy.setLineColor(new Color(0.10f, 0.35f, 0.75f));
         if (s.steadyFluxRatio() > 0) {
             double[] x2 = new double[n], y2 = new double[n];
-            for (int f = 0; f < n; f++) {
-                x2[f] = r.steadyX()[f] * uas;
-                y2[f] = r.steadyY()[f] * uas;
+            for (int i = 0; i < keep.size(); i++) {
+                x2[i] = r.steadyX()[keep.get(i)] * uas;
+                y2[i] = r.steadyY()[keep.get(i)] * uas;
             }
             XYSeries a = c.addSeries("x with steady source", t, x2);
             a.setMarker(SeriesMarkers.NONE);

@@ -38,10 +38,7 @@ public final class LightStage {
                                   int threads) {
         Camera cam = s.camera();
         double h = smoothingLength(cam);
-        double rEm = emissionRadius(history, h, s.fieldOfViewM(), stopRadius);
-        EmissionMask mask = EmissionMask.of(history, st.spin(), rEm, 2.0 * h);
-        TraceSettings ts = TraceSettings.of(rEm, stopRadius, SAMPLES_PER_H * h, s.lensing())
-                .withTolerance(1.0e-8, 1.0e-10).withMask(mask);
+        TraceSettings ts = traceSettings(history, st, cam, stopRadius, s.fieldOfViewM(), s.lensing());
         long t0 = System.nanoTime();
         RayTable table = RayTable.trace(st, cam, ts, threads);
         double secs = (System.nanoTime() - t0) * 1e-9;
@@ -99,9 +96,22 @@ public final class LightStage {
             sy[f] = tot > 0 && m.flux() > 0 ? m.flux() * m.y() / tot : 0.0;
         }
         LightResult.MockAstrometry mock = s.noiseUas() > 0 ? mock(s, times, sx, sy) : null;
-        return new LightResult(s, cam, times, moments, images, raw, fs, sx, sy, mock, h, rEm,
+        return new LightResult(s, cam, times, moments, images, raw, fs, sx, sy, mock, h, ts.emissionRadius(),
                 new LightResult.TableStats(table.rays(), table.samples(), table.steps(), secs),
                 coveredFrom, coveredTo);
+    }
+
+    /**
+     * The ray settings of a run: emission radius and mask from the particle history, sample
+     * spacing from the smoothing length, relative tolerance 1e-8.
+     */
+    public static TraceSettings traceSettings(EmitterHistory history, Spacetime st, Camera cam, double stopRadius,
+                                              double fov, boolean lensing) {
+        double h = smoothingLength(cam);
+        double rEm = emissionRadius(history, h, fov, stopRadius);
+        EmissionMask mask = EmissionMask.of(history, st.spin(), rEm, 2.0 * h);
+        return TraceSettings.of(rEm, stopRadius, SAMPLES_PER_H * h, lensing).withTolerance(1.0e-8, 1.0e-10)
+                .withMask(mask);
     }
 
     private static boolean beamOn(LightSettings s) {

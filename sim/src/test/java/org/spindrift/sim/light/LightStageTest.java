@@ -174,4 +174,41 @@ class LightStageTest {
         assertEquals(kerrPeriod, period, 1e-9 * period);
         assertEquals(kerrPeriod, (last - first) / crossings, 0.02 * kerrPeriod, "centroid period");
     }
+
+    @Test
+    void straightLinesShowTheRingUnbentWithDelaysKept() {
+        Spacetime st = LightTestSupport.kerr(0.0);
+        double re = 10.0;
+        double period = 2 * FastMath.PI * FastMath.pow(re, 1.5);
+        CircularSpotHistory h = new CircularSpotHistory(st, re, 0.0, 0.3, 200, 0.0, 1.2 * period, 150, 1.0, 4L);
+        LightSettings s = new LightSettings(0.0, 0.0, 30.0, 64, period / 30.0, false, 4.0e6, 8.0, 0.0, 0.0, 0.0, 1.0, 7L);
+        LightResult res = LightStage.run(s, st, LightTestSupport.stopRadius(0.0), h, 2);
+        int checked = 0;
+        for (int f = 0; f < res.timesM().length; f++) {
+            if (res.covered(f)) {
+                FrameMoments m = res.moments().get(f);
+                // no bending: the face-on image of a ring of radius r is a circle of radius r
+                // (flat space, common practice); the lensed image is larger (Darwin 1959)
+                assertEquals(re, FastMath.hypot(m.x(), m.y()), 0.02 * re, "straight-line image radius");
+                checked++;
+            }
+        }
+        assertTrue(checked > 10, "covered frames");
+        // delays kept: on straight lines the delay of a point x is the Roemer delay -n.x, n the unit
+        // vector towards the observer (flat-space light travel time, common practice)
+        LightSettings s2 = new LightSettings(60.0, 0.0, 30.0, 32, 5.0, false, 4.0e6, 8.0, 0.0, 0.0, 0.0, 1.0, 7L);
+        Camera cam = s2.camera();
+        TraceSettings ts = LightStage.traceSettings(h, st, cam, LightTestSupport.stopRadius(0.0), 30.0, false);
+        RayTable t = RayTable.trace(st, cam, ts, 1);
+        double[] p = new double[6];
+        cam.startPoint(0.0, 0.0, p);
+        assertTrue(t.samples() > 100, "samples on the orbit");
+        double spread = t.delayRange()[1] - t.delayRange()[0];
+        for (int i = 0; i < t.samples(); i++) {
+            double roemer = -(t.x[i] * p[3] + t.y[i] * p[4] + t.z[i] * p[5]);
+            assertEquals(roemer, t.delay[i], 1e-4, "Roemer delay of sample " + i);
+        }
+        // across the ring the delays span about 2 r sin(i)
+        assertTrue(spread > 2 * (re - 1) * FastMath.sin(FastMath.toRadians(60.0)), "delay spread " + spread);
+    }
 }
