@@ -77,11 +77,14 @@ public final class LightRunStage implements RunStage {
         }
         double maxOff = 0, mean = 0, peak = 0;
         for (FrameMoments fm : r.moments()) {
-            if (!Double.isNaN(fm.x())) {
-                maxOff = FastMath.max(maxOff, FastMath.hypot(fm.x(), fm.y()));
-            }
             mean += fm.flux() / r.moments().size();
             peak = FastMath.max(peak, fm.flux());
+        }
+        // largest offset among frames brighter than 1% of the peak (fainter centroids are noise)
+        for (FrameMoments fm : r.moments()) {
+            if (!Double.isNaN(fm.x()) && fm.flux() >= 0.01 * peak) {
+                maxOff = FastMath.max(maxOff, FastMath.hypot(fm.x(), fm.y()));
+            }
         }
         sm.put("max_centroid_offset_uas", maxOff * s.uasPerM());
         sm.put("peak_over_mean_flux", mean > 0 ? peak / mean : 0.0);
