@@ -94,39 +94,42 @@ public final class MassFunctionSpacetime implements Spacetime {
         final double d = sig * del;
         final double dR = sigR * del + sig * delR;
         final double dT = sigT * del;
-        final double d2 = d * d;
-        final double sig2 = sig * sig;
+        // three reciprocals instead of two dozen divisions (this is the integrators' hot path)
+        final double id = 1.0 / d;
+        final double id2 = id * id;
+        final double is = 1.0 / sig;
+        final double is2 = is * is;
         final double rho = r * r + a2;
         final double rho2 = rho * rho;
 
         // g^tt = -(r^2+a^2)^2 / D + a^2 sin^2 / Sigma
-        out[TT] = -rho2 / d + a2 * s2 / sig;
-        out[DR + TT] = -4.0 * r * rho / d + rho2 * dR / d2 - a2 * s2 * sigR / sig2;
-        out[DTH + TT] = rho2 * dT / d2 + a2 * (2.0 * s * c * sig - s2 * sigT) / sig2;
+        out[TT] = -rho2 * id + a2 * s2 * is;
+        out[DR + TT] = -4.0 * r * rho * id + rho2 * dR * id2 - a2 * s2 * sigR * is2;
+        out[DTH + TT] = rho2 * dT * id2 + a2 * (2.0 * s * c * sig - s2 * sigT) * is2;
 
         // g^tphi = -B / D with B = 2 a m r
         final double b = 2.0 * a * m * r;
         final double bR = 2.0 * a * (m + r * mr);
-        out[TP] = -b / d;
-        out[DR + TP] = -bR / d + b * dR / d2;
-        out[DTH + TP] = b * dT / d2;
+        out[TP] = -b * id;
+        out[DR + TP] = -bR * id + b * dR * id2;
+        out[DTH + TP] = b * dT * id2;
 
         // g^phiphi = 1 / (Sigma sin^2) - a^2 / D
-        final double q = sig * s2;
-        final double q2 = q * q;
-        out[PP] = 1.0 / q - a2 / d;
-        out[DR + PP] = -sigR * s2 / q2 + a2 * dR / d2;
-        out[DTH + PP] = -(sigT * s2 + sig * 2.0 * s * c) / q2 + a2 * dT / d2;
+        final double iq = 1.0 / (sig * s2);
+        final double iq2 = iq * iq;
+        out[PP] = iq - a2 * id;
+        out[DR + PP] = -sigR * s2 * iq2 + a2 * dR * id2;
+        out[DTH + PP] = -(sigT * s2 + sig * 2.0 * s * c) * iq2 + a2 * dT * id2;
 
         // g^rr = Delta / Sigma
-        out[RR] = del / sig;
-        out[DR + RR] = delR / sig - del * sigR / sig2;
-        out[DTH + RR] = -del * sigT / sig2;
+        out[RR] = del * is;
+        out[DR + RR] = delR * is - del * sigR * is2;
+        out[DTH + RR] = -del * sigT * is2;
 
         // g^thth = 1 / Sigma
-        out[HH] = 1.0 / sig;
-        out[DR + HH] = -sigR / sig2;
-        out[DTH + HH] = -sigT / sig2;
+        out[HH] = is;
+        out[DR + HH] = -sigR * is2;
+        out[DTH + HH] = -sigT * is2;
     }
 
     @Override public void covariant(double r, double theta, double[] out) {
