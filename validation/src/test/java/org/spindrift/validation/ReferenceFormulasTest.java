@@ -1,5 +1,7 @@
 package org.spindrift.validation;
 
+import org.spindrift.shared.testing.ExternalPython;
+
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assumptions.assumeTrue;
@@ -29,10 +31,7 @@ class ReferenceFormulasTest {
         for (double x : m) {
             py.append("print(repr(float(ellipk(").append(x).append("))))\n");
         }
-        List<String> out = python(py.toString());
-        if (out == null) {
-            return;
-        }
+        List<String> out = ExternalPython.run(ExternalPython.require("scipy.special", "python3-scipy"), py.toString());
         for (int i = 0; i < m.length; i++) {
             // scipy.special.ellipk (Cephes) as an independent calculator
             double ref = Double.parseDouble(out.get(i));
@@ -83,32 +82,4 @@ class ReferenceFormulasTest {
         assertEquals(b.advance(), a.advance(), 1e-10);
     }
 
-    /** @return the lines python3 printed, or null (test skipped) when python3-scipy is missing locally */
-    static List<String> python(String script) throws Exception {
-        Process pr;
-        try {
-            pr = new ProcessBuilder("python3", "-c", script).redirectErrorStream(true).start();
-        } catch (java.io.IOException e) {
-            return skip("python3 not found");
-        }
-        List<String> lines = new ArrayList<>();
-        try (BufferedReader r = new BufferedReader(new InputStreamReader(pr.getInputStream(), StandardCharsets.UTF_8))) {
-            String l;
-            while ((l = r.readLine()) != null) {
-                lines.add(l);
-            }
-        }
-        if (pr.waitFor() != 0) {
-            return skip("python3-scipy not available: " + String.join(" ", lines));
-        }
-        return lines;
-    }
-
-    private static List<String> skip(String why) {
-        if ("1".equals(System.getenv("SPINDRIFT_REQUIRE_EXTERNAL"))) {
-            throw new AssertionError(why + " (SPINDRIFT_REQUIRE_EXTERNAL=1)");
-        }
-        assumeTrue(false, why);
-        return null;
-    }
 }

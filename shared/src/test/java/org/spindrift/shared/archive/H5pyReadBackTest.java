@@ -1,5 +1,7 @@
 package org.spindrift.shared.archive;
 
+import org.spindrift.shared.testing.ExternalPython;
+
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assertions.fail;
@@ -21,28 +23,8 @@ import org.junit.jupiter.api.io.TempDir;
 class H5pyReadBackTest {
     @TempDir Path tmp;
 
-    /** @return a python3 that imports h5py and numpy, or null */
-    static String python() throws Exception {
-        for (String exe : List.of("/usr/bin/python3", "python3")) {
-            try {
-                Process p = new ProcessBuilder(exe, "-c", "import h5py, numpy").redirectErrorStream(true).start();
-                p.getInputStream().readAllBytes();
-                if (p.waitFor(60, TimeUnit.SECONDS) && p.exitValue() == 0) {
-                    return exe;
-                }
-            } catch (java.io.IOException e) {
-                // try the next one
-            }
-        }
-        if ("1".equals(System.getenv("SPINDRIFT_REQUIRE_EXTERNAL"))) {
-            fail("python3-h5py is required (SPINDRIFT_REQUIRE_EXTERNAL=1) but python3 cannot import h5py and numpy");
-        }
-        return null;
-    }
-
     @Test void h5pyReadsTheSameNumbers() throws Exception {
-        String py = python();
-        assumeTrue(py != null, "python3-h5py not installed: skipping the independent HDF5 reader check");
+        String py = ExternalPython.require("h5py, numpy", "python3-h5py");
         int s = 2;
         int n = 3;
         SnapshotWriter w = new SnapshotWriter(s, new int[] {0, 1, 1}, 2, 0.5, 6.5e6, 12.0);
@@ -68,11 +50,7 @@ class H5pyReadBackTest {
                 "x = np.sqrt(f['r'][:]**2 + 0.5**2) * np.sin(f['theta'][:]) * np.cos(f['phi'][:])",
                 "print(float(np.max(np.abs(x - f['x'][:]))))",
                 "print(float(f.attrs['spin']), int(f.attrs['format_version']))");
-        Process p = new ProcessBuilder(py, "-c", script, file.toString()).redirectErrorStream(true).start();
-        String out = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
-        assertTrue(p.waitFor(60, TimeUnit.SECONDS), "python timed out");
-        assertEquals(0, p.exitValue(), out);
-        String[] lines = out.strip().split("\n");
+        String[] lines = ExternalPython.run(py, script, file.toString()).toArray(new String[0]);
         assertEquals("[0.0, 5.0]", lines[0]);
         assertEquals("(2, 3) (2, 3, 4) (2, 2, 3)", lines[1]);
         assertEquals("float64 float32 int8 int32", lines[2]);

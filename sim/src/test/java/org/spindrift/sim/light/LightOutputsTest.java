@@ -1,5 +1,7 @@
 package org.spindrift.sim.light;
 
+import org.spindrift.shared.testing.ExternalPython;
+
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assumptions.assumeTrue;
@@ -78,10 +80,9 @@ class LightOutputsTest {
                 "s = proj_plane_pixel_scales(c)",
                 "ra, dec = c.wcs_pix2world([[(h.header['NAXIS1'] - 1) / 2.0, (h.header['NAXIS2'] - 1) / 2.0]], 0)[0]",
                 "print(w.naxis, h.data.shape[0], s[0], s[1], c.wcs.cdelt[0], ra, dec, w.wcs.ctype[2])");
-        String out = python(py, dir.resolve("images.fits").toString());
-        if (out == null) {
-            return;
-        }
+        String exe = ExternalPython.require("astropy.wcs", "python3-astropy");
+        List<String> lines = ExternalPython.run(exe, py, dir.resolve("images.fits").toString());
+        String out = lines.get(lines.size() - 1);
         String[] f = out.trim().split("\\s+");
         assertEquals(3, Integer.parseInt(f[0]), "three WCS axes");
         assertEquals(r.images().length, Integer.parseInt(f[1]), "frames along NAXIS3");
@@ -98,36 +99,4 @@ class LightOutputsTest {
         assertEquals("TIME", f[7]);
     }
 
-    /**
-     * The Debian interpreter /usr/bin/python3 when present (the python3-astropy package installs
-     * there; a python3 earlier on PATH, e.g. from pyenv, may lack it), else python3 from PATH.
-     */
-    static String interpreter() {
-        return Files.isExecutable(Path.of("/usr/bin/python3")) ? "/usr/bin/python3" : "python3";
-    }
-
-    /** Runs python3 with a script; null (test skipped) when astropy is missing, unless required. */
-    static String python(String script, String arg) throws IOException, InterruptedException {
-        boolean required = "1".equals(System.getenv("SPINDRIFT_REQUIRE_EXTERNAL"));
-        Process probe;
-        try {
-            probe = new ProcessBuilder(interpreter(), "-c", "import astropy.wcs").redirectErrorStream(true).start();
-        } catch (IOException e) {
-            probe = null;
-        }
-        boolean ok = probe != null && probe.waitFor() == 0;
-        if (!ok) {
-            if (required) {
-                throw new AssertionError("python3-astropy is required (SPINDRIFT_REQUIRE_EXTERNAL=1) but missing");
-            }
-            System.out.println("skipping: python3-astropy not installed");
-            assumeTrue(false, "python3-astropy not installed");
-            return null;
-        }
-        Process p = new ProcessBuilder(interpreter(), "-c", script, arg).redirectErrorStream(true).start();
-        String text = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
-        assertEquals(0, p.waitFor(), "python3 failed: " + text);
-        String[] lines = text.trim().split("\n");
-        return lines[lines.length - 1];
-    }
 }

@@ -1,5 +1,7 @@
 package org.spindrift.sim.run;
 
+import org.spindrift.shared.testing.ExternalPython;
+
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assertions.fail;
@@ -23,27 +25,8 @@ import org.spindrift.sim.scenario.LoadedScenario;
 class H5pyRunArchiveTest {
     @TempDir Path tmp;
 
-    static String python() throws Exception {
-        for (String exe : List.of("/usr/bin/python3", "python3")) {
-            try {
-                Process p = new ProcessBuilder(exe, "-c", "import h5py, numpy").redirectErrorStream(true).start();
-                p.getInputStream().readAllBytes();
-                if (p.waitFor(60, TimeUnit.SECONDS) && p.exitValue() == 0) {
-                    return exe;
-                }
-            } catch (java.io.IOException e) {
-                // next
-            }
-        }
-        if ("1".equals(System.getenv("SPINDRIFT_REQUIRE_EXTERNAL"))) {
-            fail("python3-h5py is required (SPINDRIFT_REQUIRE_EXTERNAL=1) but python3 cannot import h5py and numpy");
-        }
-        return null;
-    }
-
     @Test void h5pyReadsTheRunsSnapshots() throws Exception {
-        String py = python();
-        assumeTrue(py != null, "python3-h5py not installed: skipping the independent HDF5 reader check");
+        String py = ExternalPython.require("h5py, numpy", "python3-h5py");
         LoadedScenario ls = TestScenarios.scenario(TestScenarios.kerr(0.3),
                 List.of(TestScenarios.hotSpot(30, 6.0, 0.5, new VelocityModel(VelocityModel.Kind.SHEAR, 0)),
                         TestScenarios.ring(20, 8, 9, 5)), 40, 8, 4, 0);
@@ -61,12 +44,8 @@ class H5pyRunArchiveTest {
                 "print(' '.join(repr(float(v)) for v in f['u'][s, i, :]))",
                 "print(repr(float(f['weight'][s, i])), int(f['state'][s, i]), int(f['source_index'][i]))",
                 "print(f['r'].shape[0], f['r'].shape[1], f['centre'].shape[1])");
-        Process p = new ProcessBuilder(py, "-c", script, o.folder().resolve(ArchiveLayout.SNAPSHOTS).toString(),
-                Integer.toString(s), Integer.toString(i)).redirectErrorStream(true).start();
-        String out = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
-        assertTrue(p.waitFor(60, TimeUnit.SECONDS));
-        assertEquals(0, p.exitValue(), out);
-        String[] l = out.strip().split("\n");
+        String[] l = ExternalPython.run(py, script, o.folder().resolve(ArchiveLayout.SNAPSHOTS).toString(),
+                Integer.toString(s), Integer.toString(i)).toArray(new String[0]);
         // python's repr of a float round-trips exactly: the numbers must be bit-identical
         assertEquals(h.time(s), Double.parseDouble(l[0]));
         String[] pos = l[1].split(" ");
