@@ -96,7 +96,7 @@ public final class ViewCommand implements Callable<Integer> {
             }
             return ViewerWindow.run(o);
         } catch (UserInputException e) {
-            err.println("view: " + e.getMessage());
+            err.println("spindrift view: " + e.getMessage());
             err.flush();
             return EXIT_USAGE;
         }
@@ -155,7 +155,7 @@ public final class ViewCommand implements Callable<Integer> {
     public static void main(String[] args) {
         CommandLine cl = new CommandLine(new ViewCommand());
         cl.setParameterExceptionHandler((ex, a) -> {
-            System.err.println("view: " + ex.getMessage() + " (see --help)");
+            System.err.println("spindrift view: " + ex.getMessage() + " (see --help)");
             return EXIT_USAGE;
         });
         System.exit(cl.execute(args));
