@@ -47,6 +47,9 @@ public final class EmissionRenderer implements AutoCloseable {
     // samples sorted by delay (structure of arrays) and the pixel each belongs to
     private final float[] sx, sy, sz, sd, spr, spth, spph, sdl;
     private final int[] pix;
+    /** first sorted sample of each delay bin (bins one slice spacing wide from binOrigin) */
+    private final int[] binStart;
+    private final double binOrigin;
     private final List<double[]> chunkImages = new ArrayList<>();
     private int slicesBuilt;
 
@@ -81,6 +84,40 @@ public final class EmissionRenderer implements AutoCloseable {
             keys[i] = ((long) sortable(table.delay[i]) << 32) | i;
         }
         Arrays.sort(keys);
+        // delay bins one slice spacing wide: a frame sees each bin through at most two adjacent
+        // slices. Within a bin the samples go in Morton (Z-order) of their position, so that
+        // consecutive samples query neighbouring cells of the same slice (cache locality).
+        binOrigin = m == 0 ? 0.0 : table.delay[(int) (keys[0] & 0xffffffffL)];
+        int bins = m == 0 ? 0 : binOf(table.delay[(int) (keys[m - 1] & 0xffffffffL)]) + 1;
+        binStart = new int[bins + 1];
+        for (int j = 0; j < m; j++) {
+            binStart[binOf(table.delay[(int) (keys[j] & 0xffffffffL)]) + 1]++;
+        }
+        for (int b = 0; b < bins; b++) {
+            binStart[b + 1] += binStart[b];
+        }
+        // Morton grid over the sample cloud, cells at least h wide, 10 bits per axis
+        double lo = Double.POSITIVE_INFINITY, hi = Double.NEGATIVE_INFINITY;
+        for (int i = 0; i < m; i++) {
+            lo = Math.min(lo, Math.min(table.x[i], Math.min(table.y[i], table.z[i])));
+            hi = Math.max(hi, Math.max(table.x[i], Math.max(table.y[i], table.z[i])));
+        }
+        double mc = Math.max(h, (hi - lo) / 1023.0);
+        long[] local = new long[0];
+        for (int b = 0; b < bins; b++) {
+            int b0 = binStart[b], n = binStart[b + 1] - b0;
+            if (local.length < n) {
+                local = new long[Math.max(n, 2 * local.length)];
+            }
+            for (int k = 0; k < n; k++) {
+                int i = (int) (keys[b0 + k] & 0xffffffffL);
+                long code = morton(cellIndex(table.x[i], lo, mc), cellIndex(table.y[i], lo, mc),
+                        cellIndex(table.z[i], lo, mc));
+                local[k] = (code << 32) | i;          // ties (same cell) keep table order
+            }
+            Arrays.sort(local, 0, n);
+            System.arraycopy(local, 0, keys, b0, n);
+        }
         sx = new float[m];
         sy = new float[m];
         sz = new float[m];
@@ -102,6 +139,29 @@ public final class EmissionRenderer implements AutoCloseable {
             sdl[j] = table.dl[i];
             pix[j] = owner[i];
         }
+    }
+
+    /** @return the delay bin (one slice spacing wide) of delay d; monotone in d */
+    private int binOf(double d) {
+        return (int) Math.floor((d - binOrigin) / sliceSpacing);
+    }
+
+    private static int cellIndex(double v, double lo, double cell) {
+        return Math.min(1023, Math.max(0, (int) ((v - lo) / cell)));
+    }
+
+    /** @return the 30-bit Morton code interleaving three 10-bit cell indices */
+    private static long morton(int x, int y, int z) {
+        return spread(x) | (spread(y) << 1) | (spread(z) << 2);
+    }
+
+    private static long spread(int v) {
+        long x = v & 0x3ff;
+        x = (x | (x << 16)) & 0x30000ffL;
+        x = (x | (x << 8)) & 0x300f00fL;
+        x = (x | (x << 4)) & 0x30c30c3L;
+        x = (x | (x << 2)) & 0x9249249L;
+        return x;
     }
 
     /** @return an int whose signed order is the order of the float (IEEE 754 trick) */
@@ -148,8 +208,9 @@ public final class EmissionRenderer implements AutoCloseable {
             window[i] = cache.get(jLo + i);
         }
         // the samples that see any slice of the window, split into BLOCKS equal blocks
-        int from = firstAbove(tObs - sliceOrigin - (jHi + 0.5) * sliceSpacing);
-        int to = firstAbove(tObs - sliceOrigin - (jLo - 0.5) * sliceSpacing);
+        // (whole delay bins: a superset; samples outside the window are skipped per sample)
+        int from = binFloor(tObs - sliceOrigin - (jHi + 0.5) * sliceSpacing);
+        int to = binCeil(tObs - sliceOrigin - (jLo - 0.5) * sliceSpacing);
         int size = (to - from + BLOCKS - 1) / BLOCKS;
         while (chunkImages.size() < BLOCKS) {
             chunkImages.add(new double[pixels * pixels]);
@@ -189,18 +250,18 @@ public final class EmissionRenderer implements AutoCloseable {
         }
     }
 
-    /** @return the first index of the sorted delays with value greater than d */
-    private int firstAbove(double d) {
-        int lo = 0, hi = sd.length;
-        while (lo < hi) {
-            int mid = (lo + hi) >>> 1;
-            if (sd[mid] > d) {
-                hi = mid;
-            } else {
-                lo = mid + 1;
-            }
-        }
-        return lo;
+    /** @return the start of the bin holding delay d: no sample before it has a delay above d */
+    private int binFloor(double d) {
+        int bins = binStart.length - 1;
+        double b = Math.floor((d - binOrigin) / sliceSpacing);
+        return binStart[(int) Math.max(0, Math.min(bins, b))];
+    }
+
+    /** @return the end of the bin holding delay d: no sample after it has a delay at or below d */
+    private int binCeil(double d) {
+        int bins = binStart.length - 1;
+        double b = Math.floor((d - binOrigin) / sliceSpacing) + 1;
+        return binStart[(int) Math.max(0, Math.min(bins, b))];
     }
 
     private long sliceIndex(double t) {

@@ -22,18 +22,23 @@ final class EmissionSlice {
     final int[] cellStart;
     final double ox, oy, oz, cell, invCell;
     final int nx, ny, nz;
-    /** search radius: kernel support plus the largest drift within half a slice spacing */
+    /** search radius the cells are sized for: kernel support plus the largest drift within half a slice spacing */
     final double reach;
-    /** Floats per particle record. */
-    private static final int REC = 12;
+    /** Values per particle record in {@link #pos} and in {@link #att}. */
+    private static final int REC = 6;
     /**
-     * One record per particle, sorted by cell, for locality: x, y, z, vx, vy, vz, u^t, u^r,
-     * u^theta, u^phi, weight / u^t, exponent 2 + alpha.
+     * Records sorted by cell, for locality, split so that the distance test reads only the first:
+     * pos = x, y, z, vx, vy, vz; att = u^t, u^r, u^theta, u^phi, weight / u^t, exponent 2 + alpha.
+     * pos holds the float-rounded values in doubles: the same numbers as before, but the
+     * distance test (the hottest loop of rendering) needs no float-to-double conversions.
      */
-    private final float[] pv;
+    private final double[] pos;
+    private final float[] att;
+    /** largest particle speed |dx/dt| in the slice (bounds the drift over |t_e - tau|) */
+    final double vmax;
 
     private EmissionSlice(double tau, int count, float[][] cols, int[] cellStart, double ox, double oy,
-                          double oz, double cell, int nx, int ny, int nz, double reach) {
+                          double oz, double cell, int nx, int ny, int nz, double reach, double vmax) {
         this.tau = tau;
         this.count = count;
         this.cellStart = cellStart;
@@ -46,10 +51,13 @@ final class EmissionSlice {
         this.ny = ny;
         this.nz = nz;
         this.reach = reach;
-        pv = new float[REC * count];
+        this.vmax = vmax;
+        pos = new double[REC * count];
+        att = new float[REC * count];
         for (int p = 0; p < count; p++) {
             for (int c = 0; c < REC; c++) {
-                pv[REC * p + c] = cols[c][p];
+                pos[REC * p + c] = cols[c][p];
+                att[REC * p + c] = cols[REC + c][p];
             }
         }
     }
@@ -193,7 +201,7 @@ final class EmissionSlice {
                 cols[q][dst] = tmp[q][p];
             }
         }
-        return new EmissionSlice(tau, m, cols, start, minX, minY, minZ, cell, gx, gy, gz, reach);
+        return new EmissionSlice(tau, m, cols, start, minX, minY, minZ, cell, gx, gy, gz, reach, vmax);
     }
 
     /**
@@ -202,12 +210,18 @@ final class EmissionSlice {
      */
     double emissivity(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
                       double invH, double norm, double support2) {
-        int x0 = (int) FastMath.floor((sx - reach - ox) * invCell);
-        int x1 = (int) FastMath.floor((sx + reach - ox) * invCell);
-        int y0 = (int) FastMath.floor((sy - reach - oy) * invCell);
-        int y1 = (int) FastMath.floor((sy + reach - oy) * invCell);
-        int z0 = (int) FastMath.floor((sz - reach - oz) * invCell);
-        int z1 = (int) FastMath.floor((sz + reach - oz) * invCell);
+        // a particle within the support at t_e is within 2h + vmax |t_e - tau| of the sample at tau
+        double rs = Math.sqrt(support2) + vmax * Math.abs(dtE);
+        double fx = (sx - ox) * invCell, fy = (sy - oy) * invCell, fz = (sz - oz) * invCell;
+        // search radius in cell units, widened by a relative 1e-6 against float/double rounding
+        // of the stored positions and velocities (never narrower than needed)
+        double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
+        int x0 = (int) FastMath.floor(fx - rc);
+        int x1 = (int) FastMath.floor(fx + rc);
+        int y0 = (int) FastMath.floor(fy - rc);
+        int y1 = (int) FastMath.floor(fy + rc);
+        int z0 = (int) FastMath.floor(fz - rc);
+        int z1 = (int) FastMath.floor(fz + rc);
         if (x1 < 0 || y1 < 0 || z1 < 0 || x0 >= nx || y0 >= ny || z0 >= nz) {
             return 0.0;
         }
@@ -225,21 +239,21 @@ final class EmissionSlice {
                 int to = cellStart[base + z1 + 1];        // cells along z are contiguous
                 for (int p = from; p < to; p++) {
                     int q = REC * p;
-                    double ddx = sx - (pv[q] + pv[q + 3] * dtE);
-                    double ddy = sy - (pv[q + 1] + pv[q + 4] * dtE);
-                    double ddz = sz - (pv[q + 2] + pv[q + 5] * dtE);
+                    double ddx = sx - (pos[q] + pos[q + 3] * dtE);
+                    double ddy = sy - (pos[q + 1] + pos[q + 4] * dtE);
+                    double ddz = sz - (pos[q + 2] + pos[q + 5] * dtE);
                     double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
                     if (d2 >= support2) {
                         continue;
                     }
-                    double gInv = Redshift.inverse(pr, pth, pphi, pv[q + 6], pv[q + 7], pv[q + 8], pv[q + 9]);
+                    double gInv = Redshift.inverse(pr, pth, pphi, att[q], att[q + 1], att[q + 2], att[q + 3]);
                     if (!(gInv > 0)) {
                         continue;
                     }
-                    double e = pv[q + 11];
+                    double e = att[q + 5];
                     // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
                     double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
-                    sum += pv[q + 10] * Kernel.w(d2, invH, norm) * gp;
+                    sum += att[q + 4] * Kernel.w(d2, invH, norm) * gp;
                 }
             }
         }
