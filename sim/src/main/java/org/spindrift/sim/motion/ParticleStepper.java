@@ -11,6 +11,34 @@ import org.hipparchus.util.FastMath;
 final class ParticleStepper implements DenseStep {
     private static final int N = GeodesicEquations.DIM_T;
 
+    /**
+     * The non-zero entries of each row of {@link Dop853#A} and {@link Dop853#D}, as offsets
+     * i N into the stage scratch and the coefficients: the stage sums then run without a test
+     * for zero per term, in the same order and with the same roundings as over the full rows.
+     */
+    private static final int[][] A_OFF = offsets(Dop853.A);
+    private static final double[][] A_VAL = values(Dop853.A);
+    private static final int[][] D_OFF = offsets(Dop853.D);
+    private static final double[][] D_VAL = values(Dop853.D);
+
+    private static int[][] offsets(double[][] rows) {
+        int[][] out = new int[rows.length][];
+        for (int s = 0; s < rows.length; s++) {
+            final double[] row = rows[s];
+            out[s] = java.util.stream.IntStream.range(0, row.length).filter(i -> row[i] != 0.0)
+                    .map(i -> i * N).toArray();
+        }
+        return out;
+    }
+
+    private static double[][] values(double[][] rows) {
+        double[][] out = new double[rows.length][];
+        for (int s = 0; s < rows.length; s++) {
+            out[s] = java.util.Arrays.stream(rows[s]).filter(v -> v != 0.0).toArray();
+        }
+        return out;
+    }
+
     private final GeodesicEquations eq;
     private final double atol;
     private final double rtol;
@@ -201,7 +229,8 @@ final class ParticleStepper implements DenseStep {
 
     /** yt = y0 + h sum_i a_{s,i} k_i, skipping zero coefficients, five independent sums. */
     private void stageInput(int s) {
-        final double[] a = Dop853.A[s];
+        final double[] a = A_VAL[s];
+        final int[] off = A_OFF[s];
         double s0 = 0;
         double s1 = 0;
         double s2 = 0;
@@ -209,10 +238,7 @@ final class ParticleStepper implements DenseStep {
         double s4 = 0;
         for (int i = 0; i < a.length; i++) {
             final double ai = a[i];
-            if (ai == 0.0) {
-                continue;
-            }
-            final int o = i * N;
+            final int o = off[i];
             s0 += ai * k[o];
             s1 += ai * k[o + 1];
             s2 += ai * k[o + 2];
@@ -280,18 +306,16 @@ final class ParticleStepper implements DenseStep {
             rhs(yt, s);
         }
         for (int m = 0; m < 7; m++) {
-            final double[] d = Dop853.D[m];
+            final double[] d = D_VAL[m];
+            final int[] off = D_OFF[m];
             double s0 = 0;
             double s1 = 0;
             double s2 = 0;
             double s3 = 0;
             double s4 = 0;
-            for (int i = 0; i < Dop853.ALL_STAGES; i++) {
+            for (int i = 0; i < d.length; i++) {
                 final double di = d[i];
-                if (di == 0.0) {
-                    continue;
-                }
-                final int o = i * N;
+                final int o = off[i];
                 s0 += di * k[o];
                 s1 += di * k[o + 1];
                 s2 += di * k[o + 2];
