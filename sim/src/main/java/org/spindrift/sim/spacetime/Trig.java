@@ -48,8 +48,32 @@ public final class Trig {
         return (int) (Double.doubleToRawLongBits(x) >>> 32);
     }
 
-    /** @return sin(x), equal to StrictMath.sin(x) */
+    /**
+     * @return sin(x), equal to StrictMath.sin(x). The common cases |x| &lt; 3 pi/4 (polar angles
+     *     of the geodesic code) are kept short here so that the JIT inlines them (HotSpot's
+     *     FreqInlineSize: 325 bytecodes); the rest is in {@link #sinRest}.
+     */
     public static double sin(double x) {
+        final int hx = high(x);
+        final int ix = hx & 0x7fffffff;
+        if (ix <= 0x3fe921fb) {
+            return kernelSin(x, 0.0, false);
+        }
+        if (hx > 0 && ix < 0x4002d97c) {
+            // e_rem_pio2.c, |x| < 3 pi/4 with n = 1: sin(x) = cos(x - pi/2)
+            double z = x - PIO2_1;
+            double t = PIO2_1T;
+            if (ix == 0x3ff921fb) { // near pi/2: 33 + 33 + 53 bit pi/2
+                z -= PIO2_2;
+                t = PIO2_2T;
+            }
+            final double y0 = z - t;
+            return kernelCos(y0, (z - y0) - t);
+        }
+        return sinRest(x);
+    }
+
+    private static double sinRest(double x) {
         final int hx = high(x);
         final int ix = hx & 0x7fffffff;
         if (ix <= 0x3fe921fb) {
@@ -134,8 +158,28 @@ public final class Trig {
         }
     }
 
-    /** @return cos(x), equal to StrictMath.cos(x); cos(x) = sin(x + pi/2) is not used (rounding) */
+    /** @return cos(x), equal to StrictMath.cos(x); short common path as in {@link #sin} */
     public static double cos(double x) {
+        final int hx = high(x);
+        final int ix = hx & 0x7fffffff;
+        if (ix <= 0x3fe921fb) {
+            return kernelCos(x, 0.0);
+        }
+        if (hx > 0 && ix < 0x4002d97c) {
+            // n = 1: cos(x) = -sin(x - pi/2)
+            double z = x - PIO2_1;
+            double t = PIO2_1T;
+            if (ix == 0x3ff921fb) {
+                z -= PIO2_2;
+                t = PIO2_2T;
+            }
+            final double y0 = z - t;
+            return -kernelSin(y0, (z - y0) - t, true);
+        }
+        return cosRest(x);
+    }
+
+    private static double cosRest(double x) {
         final int hx = high(x);
         final int ix = hx & 0x7fffffff;
         if (ix <= 0x3fe921fb) {
