@@ -64,6 +64,30 @@ final class ParticleStepper implements DenseStep {
         return f == Failure.NONE && !derivativeFinite(0) ? Failure.NON_FINITE : f;
     }
 
+    /**
+     * Loads a particle with the derivative at its start point already known (the first-same-as-last
+     * stage of its previous accepted step, from {@link #storeDerivative}): no evaluation, and
+     * bitwise the state {@link #load} would produce, since that derivative was evaluated at this
+     * very state and passed the same checks.
+     */
+    void loadWithDerivative(double t, double r, double th, double ph, double pr, double pth, double pT, double pPhi,
+                            double[] dy, int off) {
+        this.t0 = t;
+        this.pt = pT;
+        this.pphi = pPhi;
+        y0[0] = r;
+        y0[1] = th;
+        y0[2] = ph;
+        y0[3] = pr;
+        y0[4] = pth;
+        System.arraycopy(dy, off, k, 0, N);
+    }
+
+    /** Copies the derivative at the current start point (after {@link #advance}) to dy[off ..]. */
+    void storeDerivative(double[] dy, int off) {
+        System.arraycopy(k, 0, dy, off, N);
+    }
+
     private double rhs(double[] y, int stage) {
         evaluations++;
         return eq.coordinateTime(pt, pphi, y, 0, k, stage * N);
