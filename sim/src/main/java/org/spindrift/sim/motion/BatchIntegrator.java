@@ -284,13 +284,21 @@ public final class BatchIntegrator {
                 throw new IllegalArgumentException("particle " + i + " is at t = " + t
                         + ", after the snapshot time " + target);
             }
-            Failure f0 = st.load(t, b.r[i], b.th[i], b.ph[i], b.pr[i], b.pth[i], b.pt[i], b.pphi[i]);
-            if (f0 != Failure.NONE) {
-                end(i, EndState.FAILED, f0, t);
-                writeState(i);
-                return;
+            double hh;
+            if (b.h[i] > 0) {
+                // continuing: the derivative at the start is the last step's first-same-as-last stage
+                st.loadWithDerivative(t, b.r[i], b.th[i], b.ph[i], b.pr[i], b.pth[i], b.pt[i], b.pphi[i], b.dy,
+                        i * GeodesicEquations.DIM_T);
+                hh = b.h[i];
+            } else {
+                Failure f0 = st.load(t, b.r[i], b.th[i], b.ph[i], b.pr[i], b.pth[i], b.pt[i], b.pphi[i]);
+                if (f0 != Failure.NONE) {
+                    end(i, EndState.FAILED, f0, t);
+                    writeState(i);
+                    return;
+                }
+                hh = st.initialStep();
             }
-            double hh = b.h[i] > 0 ? b.h[i] : st.initialStep();
             final double rCap = config.captureRadius();
             final double rEsc = config.escapeRadius();
             long steps = 0;
@@ -365,6 +373,7 @@ public final class BatchIntegrator {
                         b.t[i] = tNew;
                     }
                     b.h[i] = hh;
+                    st.storeDerivative(b.dy, i * GeodesicEquations.DIM_T);
                     return;
                 }
                 st.advance();

@@ -6,14 +6,16 @@ import java.util.Arrays;
  * Structure-of-arrays state of N test masses for {@link BatchIntegrator}: per particle the
  * coordinate-time state (r, theta, phi, p_r, p_theta), the constants p_t = -E and p_phi = L,
  * the particle's own current time t (the end of its last step, which may lie beyond the last
- * snapshot), its next step size and its end state. That is {@value #BYTES_PER_PARTICLE} bytes
+ * snapshot), its next step size, the derivative d/dt of the state there (kept so that the next
+ * {@link BatchIntegrator#integrate} interval starts without re-evaluating it: valid exactly when
+ * the step size is set, h &gt; 0) and its end state. That is {@value #BYTES_PER_PARTICLE} bytes
  * per particle; the stage scratch of the Runge-Kutta method lives in the worker threads, not
  * here. When a particle has ended, t is the time at which it ended and the state is the state
  * there.
  */
 public final class ParticleBatch {
-    /** Bytes of integrator state per particle: 9 doubles and 2 bytes. */
-    public static final int BYTES_PER_PARTICLE = 9 * Double.BYTES + 2;
+    /** Bytes of integrator state per particle: 14 doubles and 2 bytes. */
+    public static final int BYTES_PER_PARTICLE = (9 + GeodesicEquations.DIM_T) * Double.BYTES + 2;
 
     final double[] r;
     final double[] th;
@@ -24,6 +26,8 @@ public final class ParticleBatch {
     final double[] pphi;
     final double[] t;
     final double[] h;
+    /** d/dt of (r, theta, phi, p_r, p_theta) at time t, particle i at [5 i .. 5 i + 4]; valid when h[i] &gt; 0. */
+    final double[] dy;
     final byte[] state;
     final byte[] failure;
 
@@ -38,6 +42,7 @@ public final class ParticleBatch {
         pphi = new double[n];
         t = new double[n];
         h = new double[n];
+        dy = new double[GeodesicEquations.DIM_T * n];
         state = new byte[n];
         failure = new byte[n];
     }
@@ -133,6 +138,7 @@ public final class ParticleBatch {
         System.arraycopy(pphi, 0, b.pphi, 0, size());
         System.arraycopy(t, 0, b.t, 0, size());
         System.arraycopy(h, 0, b.h, 0, size());
+        System.arraycopy(dy, 0, b.dy, 0, dy.length);
         System.arraycopy(state, 0, b.state, 0, size());
         System.arraycopy(failure, 0, b.failure, 0, size());
         return b;
@@ -143,6 +149,7 @@ public final class ParticleBatch {
         return Arrays.equals(r, o.r) && Arrays.equals(th, o.th) && Arrays.equals(ph, o.ph)
                 && Arrays.equals(pr, o.pr) && Arrays.equals(pth, o.pth) && Arrays.equals(pt, o.pt)
                 && Arrays.equals(pphi, o.pphi) && Arrays.equals(t, o.t) && Arrays.equals(h, o.h)
+                && Arrays.equals(dy, o.dy)
                 && Arrays.equals(state, o.state) && Arrays.equals(failure, o.failure);
     }
 }

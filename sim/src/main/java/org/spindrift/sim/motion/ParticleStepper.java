@@ -64,6 +64,30 @@ final class ParticleStepper implements DenseStep {
         return f == Failure.NONE && !derivativeFinite(0) ? Failure.NON_FINITE : f;
     }
 
+    /**
+     * Loads a particle with the derivative at its start point already known (the first-same-as-last
+     * stage of its previous accepted step, from {@link #storeDerivative}): no evaluation, and
+     * bitwise the state {@link #load} would produce, since that derivative was evaluated at this
+     * very state and passed the same checks.
+     */
+    void loadWithDerivative(double t, double r, double th, double ph, double pr, double pth, double pT, double pPhi,
+                            double[] dy, int off) {
+        this.t0 = t;
+        this.pt = pT;
+        this.pphi = pPhi;
+        y0[0] = r;
+        y0[1] = th;
+        y0[2] = ph;
+        y0[3] = pr;
+        y0[4] = pth;
+        System.arraycopy(dy, off, k, 0, N);
+    }
+
+    /** Copies the derivative at the current start point (after {@link #advance}) to dy[off ..]. */
+    void storeDerivative(double[] dy, int off) {
+        System.arraycopy(k, 0, dy, off, N);
+    }
+
     private double rhs(double[] y, int stage) {
         evaluations++;
         return eq.coordinateTime(pt, pphi, y, 0, k, stage * N);
@@ -136,41 +160,54 @@ final class ParticleStepper implements DenseStep {
                 return Double.NaN;
             }
         }
-        // 8th-order solution and the two embedded error estimates (Hipparchus' estimateError form);
-        // loops run over stages outside and the five components inside, so the five sums are
-        // independent chains (no dependency on the previous addition of the same sum)
-        final double[] b = Dop853.B;
-        final double[] w5 = Dop853.E5;
-        final double[] w3 = Dop853.E3;
-        double b0 = 0, b1 = 0, b2 = 0, b3 = 0, b4 = 0;
-        double f0 = 0, f1 = 0, f2 = 0, f3 = 0, f4 = 0;
-        double g0 = 0, g1 = 0, g2 = 0, g3 = 0, g4 = 0;
-        for (int i = 0; i < Dop853.STEP_STAGES; i++) {
-            final int o = i * N;
-            final double k0 = k[o];
-            final double k1 = k[o + 1];
-            final double k2 = k[o + 2];
-            final double k3 = k[o + 3];
-            final double k4 = k[o + 4];
-            final double bi = b[i];
-            final double fi = w5[i];
-            final double gi = w3[i];
-            b0 += bi * k0;
-            b1 += bi * k1;
-            b2 += bi * k2;
-            b3 += bi * k3;
-            b4 += bi * k4;
-            f0 += fi * k0;
-            f1 += fi * k1;
-            f2 += fi * k2;
-            f3 += fi * k3;
-            f4 += fi * k4;
-            g0 += gi * k0;
-            g1 += gi * k1;
-            g2 += gi * k2;
-            g3 += gi * k3;
-            g4 += gi * k4;
-        }
+        // 8th-order solution and the two embedded error estimates (Hipparchus' estimateError form),
+        // over the non-zero weights (stages 0 and 5..11), five independent sums per quantity
+        final double[] k = this.k;
+        final double b0 = Dop853Sums.B0 * k[0] + Dop853Sums.B5 * k[25] + Dop853Sums.B6 * k[30]
+                + Dop853Sums.B7 * k[35] + Dop853Sums.B8 * k[40] + Dop853Sums.B9 * k[45] + Dop853Sums.B10 * k[50]
+                + Dop853Sums.B11 * k[55];
+        final double b1 = Dop853Sums.B0 * k[1] + Dop853Sums.B5 * k[26] + Dop853Sums.B6 * k[31]
+                + Dop853Sums.B7 * k[36] + Dop853Sums.B8 * k[41] + Dop853Sums.B9 * k[46] + Dop853Sums.B10 * k[51]
+                + Dop853Sums.B11 * k[56];
+        final double b2 = Dop853Sums.B0 * k[2] + Dop853Sums.B5 * k[27] + Dop853Sums.B6 * k[32]
+                + Dop853Sums.B7 * k[37] + Dop853Sums.B8 * k[42] + Dop853Sums.B9 * k[47] + Dop853Sums.B10 * k[52]
+                + Dop853Sums.B11 * k[57];
+        final double b3 = Dop853Sums.B0 * k[3] + Dop853Sums.B5 * k[28] + Dop853Sums.B6 * k[33]
+                + Dop853Sums.B7 * k[38] + Dop853Sums.B8 * k[43] + Dop853Sums.B9 * k[48] + Dop853Sums.B10 * k[53]
+                + Dop853Sums.B11 * k[58];
+        final double b4 = Dop853Sums.B0 * k[4] + Dop853Sums.B5 * k[29] + Dop853Sums.B6 * k[34]
+                + Dop853Sums.B7 * k[39] + Dop853Sums.B8 * k[44] + Dop853Sums.B9 * k[49] + Dop853Sums.B10 * k[54]
+                + Dop853Sums.B11 * k[59];
+        final double f0 = Dop853Sums.E5_0 * k[0] + Dop853Sums.E5_5 * k[25] + Dop853Sums.E5_6 * k[30]
+                + Dop853Sums.E5_7 * k[35] + Dop853Sums.E5_8 * k[40] + Dop853Sums.E5_9 * k[45]
+                + Dop853Sums.E5_10 * k[50] + Dop853Sums.E5_11 * k[55];
+        final double f1 = Dop853Sums.E5_0 * k[1] + Dop853Sums.E5_5 * k[26] + Dop853Sums.E5_6 * k[31]
+                + Dop853Sums.E5_7 * k[36] + Dop853Sums.E5_8 * k[41] + Dop853Sums.E5_9 * k[46]
+                + Dop853Sums.E5_10 * k[51] + Dop853Sums.E5_11 * k[56];
+        final double f2 = Dop853Sums.E5_0 * k[2] + Dop853Sums.E5_5 * k[27] + Dop853Sums.E5_6 * k[32]
+                + Dop853Sums.E5_7 * k[37] + Dop853Sums.E5_8 * k[42] + Dop853Sums.E5_9 * k[47]
+                + Dop853Sums.E5_10 * k[52] + Dop853Sums.E5_11 * k[57];
+        final double f3 = Dop853Sums.E5_0 * k[3] + Dop853Sums.E5_5 * k[28] + Dop853Sums.E5_6 * k[33]
+                + Dop853Sums.E5_7 * k[38] + Dop853Sums.E5_8 * k[43] + Dop853Sums.E5_9 * k[48]
+                + Dop853Sums.E5_10 * k[53] + Dop853Sums.E5_11 * k[58];
+        final double f4 = Dop853Sums.E5_0 * k[4] + Dop853Sums.E5_5 * k[29] + Dop853Sums.E5_6 * k[34]
+                + Dop853Sums.E5_7 * k[39] + Dop853Sums.E5_8 * k[44] + Dop853Sums.E5_9 * k[49]
+                + Dop853Sums.E5_10 * k[54] + Dop853Sums.E5_11 * k[59];
+        final double g0 = Dop853Sums.E3_0 * k[0] + Dop853Sums.E3_5 * k[25] + Dop853Sums.E3_6 * k[30]
+                + Dop853Sums.E3_7 * k[35] + Dop853Sums.E3_8 * k[40] + Dop853Sums.E3_9 * k[45]
+                + Dop853Sums.E3_10 * k[50] + Dop853Sums.E3_11 * k[55];
+        final double g1 = Dop853Sums.E3_0 * k[1] + Dop853Sums.E3_5 * k[26] + Dop853Sums.E3_6 * k[31]
+                + Dop853Sums.E3_7 * k[36] + Dop853Sums.E3_8 * k[41] + Dop853Sums.E3_9 * k[46]
+                + Dop853Sums.E3_10 * k[51] + Dop853Sums.E3_11 * k[56];
+        final double g2 = Dop853Sums.E3_0 * k[2] + Dop853Sums.E3_5 * k[27] + Dop853Sums.E3_6 * k[32]
+                + Dop853Sums.E3_7 * k[37] + Dop853Sums.E3_8 * k[42] + Dop853Sums.E3_9 * k[47]
+                + Dop853Sums.E3_10 * k[52] + Dop853Sums.E3_11 * k[57];
+        final double g3 = Dop853Sums.E3_0 * k[3] + Dop853Sums.E3_5 * k[28] + Dop853Sums.E3_6 * k[33]
+                + Dop853Sums.E3_7 * k[38] + Dop853Sums.E3_8 * k[43] + Dop853Sums.E3_9 * k[48]
+                + Dop853Sums.E3_10 * k[53] + Dop853Sums.E3_11 * k[58];
+        final double g4 = Dop853Sums.E3_0 * k[4] + Dop853Sums.E3_5 * k[29] + Dop853Sums.E3_6 * k[34]
+                + Dop853Sums.E3_7 * k[39] + Dop853Sums.E3_8 * k[44] + Dop853Sums.E3_9 * k[49]
+                + Dop853Sums.E3_10 * k[54] + Dop853Sums.E3_11 * k[59];
         y1[0] = y0[0] + h * b0;
         y1[1] = y0[1] + h * b1;
         y1[2] = y0[2] + h * b2;
@@ -199,31 +236,9 @@ final class ParticleStepper implements DenseStep {
         return atol + rtol * FastMath.max(FastMath.abs(y0[j]), FastMath.abs(y1[j]));
     }
 
-    /** yt = y0 + h sum_i a_{s,i} k_i, skipping zero coefficients, five independent sums. */
+    /** yt = y0 + h sum_i a_{s,i} k_i (stage s), the unrolled sums of {@link Dop853Sums}. */
     private void stageInput(int s) {
-        final double[] a = Dop853.A[s];
-        double s0 = 0;
-        double s1 = 0;
-        double s2 = 0;
-        double s3 = 0;
-        double s4 = 0;
-        for (int i = 0; i < a.length; i++) {
-            final double ai = a[i];
-            if (ai == 0.0) {
-                continue;
-            }
-            final int o = i * N;
-            s0 += ai * k[o];
-            s1 += ai * k[o + 1];
-            s2 += ai * k[o + 2];
-            s3 += ai * k[o + 3];
-            s4 += ai * k[o + 4];
-        }
-        yt[0] = y0[0] + h * s0;
-        yt[1] = y0[1] + h * s1;
-        yt[2] = y0[2] + h * s2;
-        yt[3] = y0[3] + h * s3;
-        yt[4] = y0[4] + h * s4;
+        Dop853Sums.stageInput(s, h, y0, k, yt);
     }
 
     /**
@@ -279,32 +294,7 @@ final class ParticleStepper implements DenseStep {
             stageInput(s);
             rhs(yt, s);
         }
-        for (int m = 0; m < 7; m++) {
-            final double[] d = Dop853.D[m];
-            double s0 = 0;
-            double s1 = 0;
-            double s2 = 0;
-            double s3 = 0;
-            double s4 = 0;
-            for (int i = 0; i < Dop853.ALL_STAGES; i++) {
-                final double di = d[i];
-                if (di == 0.0) {
-                    continue;
-                }
-                final int o = i * N;
-                s0 += di * k[o];
-                s1 += di * k[o + 1];
-                s2 += di * k[o + 2];
-                s3 += di * k[o + 3];
-                s4 += di * k[o + 4];
-            }
-            final int o = m * N;
-            rc[o] = h * s0;
-            rc[o + 1] = h * s1;
-            rc[o + 2] = h * s2;
-            rc[o + 3] = h * s3;
-            rc[o + 4] = h * s4;
-        }
+        Dop853Sums.dense(h, k, rc);
         denseReady = true;
     }
 

@@ -81,10 +81,10 @@ public final class JohannsenPsaltisSpacetime implements Spacetime {
     }
 
     @Override public void inverse(double r, double theta, double[] out) {
-        // StrictMath: FastMath.sin/cos allocate a reduction object for theta > pi/2 (Hipparchus 4.0.2),
-        // which the hot loops must not; StrictMath (fdlibm) is allocation-free and platform-independent
-        final double s = StrictMath.sin(theta);
-        final double c = StrictMath.cos(theta);
+        // Trig = StrictMath bit for bit, without JDK 17's JNI call; FastMath.sin/cos would allocate a
+        // reduction object for theta > pi/2 (Hipparchus 4.0.2), which the hot loops must not
+        final double s = Trig.sin(theta);
+        final double c = Trig.cos(theta);
         final double s2 = s * s;
         final double sc2 = 2.0 * s * c;          // d(sin^2)/dtheta
         final double a2 = a * a;
@@ -162,10 +162,10 @@ public final class JohannsenPsaltisSpacetime implements Spacetime {
     }
 
     @Override public void covariant(double r, double theta, double[] out) {
-        // StrictMath: FastMath.sin/cos allocate a reduction object for theta > pi/2 (Hipparchus 4.0.2),
-        // which the hot loops must not; StrictMath (fdlibm) is allocation-free and platform-independent
-        final double s = StrictMath.sin(theta);
-        final double c = StrictMath.cos(theta);
+        // Trig = StrictMath bit for bit, without JDK 17's JNI call; FastMath.sin/cos would allocate a
+        // reduction object for theta > pi/2 (Hipparchus 4.0.2), which the hot loops must not
+        final double s = Trig.sin(theta);
+        final double c = Trig.cos(theta);
         final double s2 = s * s;
         final double sc2 = 2.0 * s * c;
         final double a2 = a * a;

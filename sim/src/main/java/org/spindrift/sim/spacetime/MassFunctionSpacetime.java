@@ -69,18 +69,18 @@ public final class MassFunctionSpacetime implements Spacetime {
 
     @Override public double carter(double theta, double pTheta, double energy, double angularMomentum,
                                    double mu2) {
-        double c = StrictMath.cos(theta); // allocation-free, see inverse()
-        double s = StrictMath.sin(theta);
+        double c = Trig.cos(theta); // allocation-free, see inverse()
+        double s = Trig.sin(theta);
         // Carter 1968, Phys. Rev. 174, 1559: Q = p_th^2 + cos^2 th (a^2 (mu^2 - E^2) + L^2 / sin^2 th)
         return pTheta * pTheta + c * c * (a * a * (mu2 - energy * energy)
                 + angularMomentum * angularMomentum / (s * s));
     }
 
     @Override public void inverse(double r, double theta, double[] out) {
-        // StrictMath: FastMath.sin/cos allocate a reduction object for theta > pi/2 (Hipparchus 4.0.2),
-        // which the hot loops must not; StrictMath (fdlibm) is allocation-free and platform-independent
-        final double s = StrictMath.sin(theta);
-        final double c = StrictMath.cos(theta);
+        // Trig = StrictMath bit for bit, without JDK 17's JNI call; FastMath.sin/cos would allocate a
+        // reduction object for theta > pi/2 (Hipparchus 4.0.2), which the hot loops must not
+        final double s = Trig.sin(theta);
+        final double c = Trig.cos(theta);
         final double s2 = s * s;
         final double a2 = a * a;
         final double m = mass.value(r);
@@ -133,10 +133,10 @@ public final class MassFunctionSpacetime implements Spacetime {
     }
 
     @Override public void covariant(double r, double theta, double[] out) {
-        // StrictMath: FastMath.sin/cos allocate a reduction object for theta > pi/2 (Hipparchus 4.0.2),
-        // which the hot loops must not; StrictMath (fdlibm) is allocation-free and platform-independent
-        final double s = StrictMath.sin(theta);
-        final double c = StrictMath.cos(theta);
+        // Trig = StrictMath bit for bit, without JDK 17's JNI call; FastMath.sin/cos would allocate a
+        // reduction object for theta > pi/2 (Hipparchus 4.0.2), which the hot loops must not
+        final double s = Trig.sin(theta);
+        final double c = Trig.cos(theta);
         final double s2 = s * s;
         final double a2 = a * a;
         final double m = mass.value(r);
