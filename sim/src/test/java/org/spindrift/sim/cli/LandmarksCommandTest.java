@@ -6,9 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -21,20 +18,7 @@ import org.junit.jupiter.params.provider.CsvSource;
 class LandmarksCommandTest {
     /** @return {stdout, stderr} */
     private static String[] run(int expectedExit, String... args) {
-        PrintStream old = System.out;
-        PrintStream oldErr = System.err;
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        try {
-            System.setOut(new PrintStream(out, true, StandardCharsets.UTF_8));
-            System.setErr(new PrintStream(err, true, StandardCharsets.UTF_8));
-            int code = Main.execute(args);
-            assertEquals(expectedExit, code, "exit status; stderr: " + err.toString(StandardCharsets.UTF_8));
-        } finally {
-            System.setOut(old);
-            System.setErr(oldErr);
-        }
-        return new String[] {out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8)};
+        return CliCapture.run(expectedExit, args);
     }
 
     @Test

@@ -5,9 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -17,20 +14,8 @@ import org.junit.jupiter.api.io.TempDir;
 
 class OrbitCommandTest {
     private static String run(int expectedExit, String... args) {
-        PrintStream old = System.out;
-        PrintStream oldErr = System.err;
-        ByteArrayOutputStream buf = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        try {
-            System.setOut(new PrintStream(buf, true, StandardCharsets.UTF_8));
-            System.setErr(new PrintStream(err, true, StandardCharsets.UTF_8));
-            int code = Main.execute(args);
-            assertEquals(expectedExit, code, "exit status; stderr: " + err.toString(StandardCharsets.UTF_8));
-        } finally {
-            System.setOut(old);
-            System.setErr(oldErr);
-        }
-        return buf.toString(StandardCharsets.UTF_8) + err.toString(StandardCharsets.UTF_8);
+        String[] r = CliCapture.run(expectedExit, args);
+        return r[0] + r[1];
     }
 
     @Test
