@@ -26,11 +26,11 @@ import org.spindrift.shared.UserInputException;
  * (Jackson streaming parser; {@code .json} files with the JSON parser, everything else with the
  * YAML one). Rejects empty files, binary content and duplicate keys.
  */
-final class ConfigTreeReader {
+public final class ConfigTreeReader {
     private ConfigTreeReader() {
     }
 
-    static ConfigNode read(Path file) {
+    public static ConfigNode read(Path file) {
         byte[] bytes;
         try {
             bytes = Files.readAllBytes(file);

@@ -1,0 +1,194 @@
+package org.spindrift.sim.sweep;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.sim.run.ScenarioRun;
+import org.spindrift.sim.run.SnapshotStage;
+import org.spindrift.sim.scenario.ConfigNode;
+import org.spindrift.sim.scenario.ScenarioLoader;
+
+/**
+ * Scenario files as sweep tasks: checked with {@link ScenarioLoader} and
+ * {@link ScenarioRun#prepare} (everything {@code check} does), run with {@link ScenarioRun#run}
+ * (the run folder of {@code run}), summarised from {@code summary.json}, {@code centroid.csv},
+ * {@code lightcurve.csv} and the manifest.
+ */
+public final class ScenarioTaskKind implements TaskKind {
+    /** Heap of the JVM itself, the plots and the light stage's fixed buffers (our estimate). */
+    static final long BASE_HEAP = 256L << 20;
+
+    @Override public String name() {
+        return "scenario";
+    }
+
+    @Override public Estimate check(Path label, ConfigNode tree) {
+        ScenarioRun.Prepared p = ScenarioRun.prepare(ScenarioLoader.load(label, tree));
+        return estimate(p);
+    }
+
+    /**
+     * Memory and disk of a run from its sizes: the particle history (7 doubles, a float and a
+     * byte per particle and snapshot), the archive writer's copy of the kept particles (about 110
+     * bytes per kept particle and snapshot, see SnapshotWriter), the image cube (float frames,
+     * twice with a beam) and the ray table (about 100 samples of 32 bytes per pixel); doubled
+     * for the garbage collector's headroom. Our own estimate, checked against {@code bench run}.
+     */
+    static Estimate estimate(ScenarioRun.Prepared p) {
+        Scenario sc = p.loaded().scenario();
+        long n = p.placed().batch().size();
+        long s = p.times().length;
+        long kept = 0;
+        for (int k : SnapshotStage.keptPerSource(sc)) {
+            kept += k;
+        }
+        long pix = (long) sc.imaging().pixels() * sc.imaging().pixels();
+        double cadence = sc.imaging().frameCadence() == null ? p.times()[1] - p.times()[0]
+                : sc.imaging().frameCadence().toM(p.secondsPerM());
+        long frames = (long) Math.ceil(p.durationM() / cadence) + 2;
+        boolean beam = sc.instrument() != null && sc.instrument().beamFwhmUas() > 0;
+        long live = n * s * 61 + kept * s * 110 + frames * pix * 4 * (beam ? 2 : 1) + pix * 100 * 32;
+        long heap = BASE_HEAP + 2 * live;
+        long disk = kept * s * 85 + s * sc.sources().size() * 24 + frames * pix * 4 + n * 120 + s * 400 + frames * 300
+                + (3L << 20);
+        return new Estimate(heap, disk);
+    }
+
+    @Override public void run(Path taskFile, Path runFolder, int threads) throws IOException {
+        ScenarioRun.Prepared p = ScenarioRun.prepare(ScenarioLoader.load(taskFile));
+        ScenarioRun.run(p, new ScenarioRun.Options(runFolder, threads, false));
+    }
+
+    @Override public Map<String, Double> outputs(Path runFolder) throws IOException {
+        ObjectMapper json = new ObjectMapper();
+        JsonNode summary = json.readTree(runFolder.resolve(ArchiveLayout.SUMMARY).toFile());
+        JsonNode manifest = json.readTree(runFolder.resolve(ArchiveLayout.MANIFEST).toFile());
+        Map<String, Double> out = new LinkedHashMap<>();
+        JsonNode sources = summary.path("sources");
+        boolean prefix = sources.size() > 1;
+        for (JsonNode s : sources) {
+            String p = prefix ? s.path("name").asText() + "." : "";
+            JsonNode per = s.path("periods");
+            out.put(p + "period_phi_M", num(per.path("azimuthal").path("median_M")));
+            out.put(p + "period_phi_min", num(per.path("azimuthal").path("median_min")));
+            out.put(p + "period_r_M", num(per.path("radial").path("median_M")));
+            out.put(p + "period_r_min", num(per.path("radial").path("median_min")));
+            out.put(p + "period_theta_M", num(per.path("vertical").path("median_M")));
+            out.put(p + "period_theta_min", num(per.path("vertical").path("median_min")));
+            out.put(p + "advance_deg", num(per.path("periastron_advance_deg").path("median")));
+            out.put(p + "shear_aspect_ratio", num(s.path("shape_at_end").path("aspect_ratio")));
+            out.put(p + "azimuthal_extent_deg", num(s.path("shape_at_end").path("azimuthal_extent_deg")));
+            out.put(p + "alive_fraction", s.path("particles").asDouble() > 0
+                    ? s.path("alive_at_end").asDouble() / s.path("particles").asDouble() : Double.NaN);
+        }
+        double[] track = centroidTrack(runFolder.resolve(ArchiveLayout.CENTROID));
+        out.put("centroid_extent_uas", track[0]);
+        out.put("centroid_wander_uas", track[1]);
+        out.put("centroid_max_offset_uas", num(summary.path("light").path("max_centroid_offset_uas")));
+        double[] flux = column(runFolder.resolve(ArchiveLayout.LIGHTCURVE), "flux");
+        double peak = Double.NaN;
+        double sum = 0;
+        int m = 0;
+        for (double f : flux) {
+            if (Double.isFinite(f)) {
+                peak = Double.isNaN(peak) ? f : Math.max(peak, f);
+                sum += f;
+                m++;
+            }
+        }
+        out.put("flux_peak", peak);
+        out.put("flux_mean", m > 0 ? sum / m : Double.NaN);
+        out.put("flux_peak_over_mean", num(summary.path("light").path("peak_over_mean_flux")));
+        out.put("hamiltonian_error_max", num(manifest.path("diagnostics").path("hamiltonian_error_max")));
+        return out;
+    }
+
+    /**
+     * Extent (largest distance between two centroid positions) and wander (flux-weighted rms
+     * distance from the flux-weighted mean position) of the centroid track as observed, with the
+     * steady source, over frames brighter than 1 % of the brightest (as the track plot shows).
+     */
+    static double[] centroidTrack(Path csv) throws IOException {
+        if (!Files.isRegularFile(csv)) {
+            return new double[] {Double.NaN, Double.NaN};
+        }
+        double[] x = column(csv, "x_with_steady_uas");
+        double[] y = column(csv, "y_with_steady_uas");
+        double[] f = column(csv, "flux");
+        double peak = 0;
+        for (double v : f) {
+            if (Double.isFinite(v)) {
+                peak = Math.max(peak, v);
+            }
+        }
+        List<Integer> keep = new ArrayList<>();
+        for (int i = 0; i < f.length; i++) {
+            if (Double.isFinite(f[i]) && f[i] > 0.01 * peak && Double.isFinite(x[i]) && Double.isFinite(y[i])) {
+                keep.add(i);
+            }
+        }
+        if (keep.isEmpty()) {
+            return new double[] {Double.NaN, Double.NaN};
+        }
+        double extent = 0;
+        double w = 0;
+        double mx = 0;
+        double my = 0;
+        for (int a : keep) {
+            for (int b : keep) {
+                extent = Math.max(extent, Math.hypot(x[a] - x[b], y[a] - y[b]));
+            }
+            w += f[a];
+            mx += f[a] * x[a];
+            my += f[a] * y[a];
+        }
+        mx /= w;
+        my /= w;
+        double var = 0;
+        for (int a : keep) {
+            var += f[a] * ((x[a] - mx) * (x[a] - mx) + (y[a] - my) * (y[a] - my));
+        }
+        return new double[] {extent, Math.sqrt(var / w)};
+    }
+
+    /** @return one numeric column of a CSV file with a header line (NaN for empty or non-numeric cells) */
+    static double[] column(Path csv, String name) throws IOException {
+        if (!Files.isRegularFile(csv)) {
+            return new double[0];
+        }
+        List<String> lines = Files.readAllLines(csv, StandardCharsets.UTF_8);
+        if (lines.isEmpty()) {
+            return new double[0];
+        }
+        String[] head = lines.get(0).split(",", -1);
+        int c = -1;
+        for (int i = 0; i < head.length; i++) {
+            if (head[i].strip().equals(name)) {
+                c = i;
+            }
+        }
+        double[] out = new double[lines.size() - 1];
+        for (int k = 1; k < lines.size(); k++) {
+            String[] cells = lines.get(k).split(",", -1);
+            try {
+                out[k - 1] = c >= 0 && c < cells.length ? Double.parseDouble(cells[c].strip()) : Double.NaN;
+            } catch (NumberFormatException e) {
+                out[k - 1] = Double.NaN;
+            }
+        }
+        return out;
+    }
+
+    private static double num(JsonNode n) {
+        return n.isNumber() ? n.asDouble() : Double.NaN;
+    }
+}
