@@ -123,6 +123,7 @@ public final class SweepPlanner {
     private static void checkAll(SweepFile sf, List<ConfigNode[]> points, TaskKind.Estimate[] est, String[] sha,
             int threads) throws IOException {
         int total = points.size();
+        sf.taskTree(points.get(0)); // key paths that do not fit the base file: reported at the axis
         AtomicInteger next = new AtomicInteger();
         AtomicInteger firstBad = new AtomicInteger(Integer.MAX_VALUE);
         UserInputException[] errors = new UserInputException[total];
@@ -140,8 +141,8 @@ public final class SweepPlanner {
                         if (i > firstBad.get()) {
                             return null;
                         }
+                        ConfigNode tree = sf.taskTree(points.get(i)); // same structure for every task: checked first
                         try {
-                            ConfigNode tree = sf.taskTree(points.get(i));
                             est[i] = sf.kind().check(sf.base(), tree);
                             sha[i] = sha256(taskBytes(tree));
                         } catch (UserInputException e) {
