@@ -97,7 +97,7 @@ public final class SweepCommand implements Runnable {
 
         @Override public Integer call() throws IOException {
             int n = threadsOrDefault(threads, 1);
-            SweepPlanner.Result r = SweepPlanner.plan(file, output, force, n);
+            SweepPlanner.Result r = SweepPlanner.plan(file, output, force, n, System.console() != null);
             PrintWriter out = spec.commandLine().getOut();
             if (r.unchanged()) {
                 out.println(output + ": already holds this sweep (" + r.tasks() + " tasks); nothing changed");

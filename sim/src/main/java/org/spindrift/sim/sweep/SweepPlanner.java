@@ -23,6 +23,10 @@ import java.util.concurrent.atomic.AtomicInteger;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
+import me.tongfei.progressbar.ConsoleProgressBarConsumer;
+import me.tongfei.progressbar.ProgressBar;
+import me.tongfei.progressbar.ProgressBarBuilder;
+import me.tongfei.progressbar.ProgressBarStyle;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.Version;
 import org.spindrift.shared.archive.AtomicFiles;
@@ -60,6 +64,13 @@ public final class SweepPlanner {
      * @param threads workers for the checks (results do not depend on it)
      */
     public static Result plan(Path sweepFile, Path dir, boolean force, int threads) throws IOException {
+        return plan(sweepFile, dir, force, threads, false);
+    }
+
+    /**
+     * Plans a sweep into a folder, with a progress bar over the task checks when asked.
+     */
+    public static Result plan(Path sweepFile, Path dir, boolean force, int threads, boolean progress) throws IOException {
         SweepFile sf = SweepFile.load(sweepFile);
         long n = sf.taskCount();
         if (n > SweepFile.FORCE_LIMIT && !force) {
@@ -73,7 +84,11 @@ public final class SweepPlanner {
         // every task's tree: axis paths are put in (errors name the axis), then checked by its kind
         TaskKind.Estimate[] est = new TaskKind.Estimate[total];
         String[] sha = new String[total];
-        checkAll(sf, points, est, sha, Math.max(1, threads));
+        try (ProgressBar bar = progress && total >= 20 ? new ProgressBarBuilder().setTaskName("checking tasks")
+                .setInitialMax(total).setStyle(ProgressBarStyle.ASCII)
+                .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(500).build() : null) {
+            checkAll(sf, points, est, sha, Math.max(1, threads), bar);
+        }
         long heapMax = 0;
         long diskMax = 0;
         long diskTotal = 0;
@@ -121,7 +136,7 @@ public final class SweepPlanner {
     }
 
     private static void checkAll(SweepFile sf, List<ConfigNode[]> points, TaskKind.Estimate[] est, String[] sha,
-            int threads) throws IOException {
+            int threads, ProgressBar bar) throws IOException {
         int total = points.size();
         sf.taskTree(points.get(0)); // key paths that do not fit the base file: reported at the axis
         AtomicInteger next = new AtomicInteger();
@@ -145,6 +160,9 @@ public final class SweepPlanner {
                         try {
                             est[i] = sf.kind().check(sf.base(), tree);
                             sha[i] = sha256(taskBytes(tree));
+                            if (bar != null) {
+                                bar.step();
+                            }
                         } catch (UserInputException e) {
                             errors[i] = e;
                             firstBad.accumulateAndGet(i, Math::min);
