@@ -128,4 +128,20 @@ class SweepPlanTest {
         assertEquals(String.format(Locale.ROOT, "%.12f", ((ConfigNode.Num) pts.get(5)[1]).value()),
                 String.format(Locale.ROOT, "%.12f", ((ConfigNode.Num) SweepFile.load(f).points().get(5)[1]).value()));
     }
+
+    @Test void demoSweepsPlanCleanlyAndAreListed() throws Exception {
+        Path configs = Files.isDirectory(Path.of("..", "configs")) ? Path.of("..", "configs") : Path.of("configs");
+        String readme = Files.readString(configs.resolve("README.md"));
+        List<Path> files;
+        try (java.util.stream.Stream<Path> st = Files.list(configs.resolve("sweeps"))) {
+            files = st.filter(p -> p.toString().endsWith(".yaml")).sorted().toList();
+        }
+        assertFalse(files.isEmpty());
+        for (Path f : files) {
+            assertTrue(Files.readString(f).contains("INVENTED"), f + " says it is invented");
+            assertTrue(readme.contains("sweeps/" + f.getFileName()), f + " is listed in configs/README.md");
+            SweepPlanner.Result r = SweepPlanner.plan(f, tmp.resolve(f.getFileName().toString()), false, 2);
+            assertTrue(r.tasks() > 1 && r.tasks() <= 50, f + ": " + r.tasks() + " tasks");
+        }
+    }
 }
