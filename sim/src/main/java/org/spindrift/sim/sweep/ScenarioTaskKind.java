@@ -3,7 +3,6 @@ package org.spindrift.sim.sweep;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -11,6 +10,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.archive.LightArchive;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.run.SnapshotStage;
@@ -20,8 +20,8 @@ import org.spindrift.sim.scenario.ScenarioLoader;
 /**
  * Scenario files as sweep tasks: checked with {@link ScenarioLoader} and
  * {@link ScenarioRun#prepare} (everything {@code check} does), run with {@link ScenarioRun#run}
- * (the run folder of {@code run}), summarised from {@code summary.json}, {@code centroid.csv},
- * {@code lightcurve.csv} and the manifest.
+ * (the run folder of {@code run}), summarised from {@code summary.json}, {@code centroid.csv}
+ * (through {@link LightArchive}; its frame flux is the light curve's) and the manifest.
  */
 public final class ScenarioTaskKind implements TaskKind {
     /** Heap of the JVM itself, the plots and the light stage's fixed buffers (our estimate). */
@@ -90,15 +90,16 @@ public final class ScenarioTaskKind implements TaskKind {
             out.put(p + "alive_fraction", s.path("particles").asDouble() > 0
                     ? s.path("alive_at_end").asDouble() / s.path("particles").asDouble() : Double.NaN);
         }
-        double[] track = centroidTrack(runFolder.resolve(ArchiveLayout.CENTROID));
-        out.put("centroid_extent_uas", track[0]);
-        out.put("centroid_wander_uas", track[1]);
+        LightArchive.Track track = Files.isRegularFile(runFolder.resolve(ArchiveLayout.CENTROID))
+                ? LightArchive.readTrack(runFolder) : null;
+        double[] extent = track == null ? new double[] {Double.NaN, Double.NaN} : centroidTrack(track);
+        out.put("centroid_extent_uas", extent[0]);
+        out.put("centroid_wander_uas", extent[1]);
         out.put("centroid_max_offset_uas", num(summary.path("light").path("max_centroid_offset_uas")));
-        double[] flux = column(runFolder.resolve(ArchiveLayout.LIGHTCURVE), "flux");
         double peak = Double.NaN;
         double sum = 0;
         int m = 0;
-        for (double f : flux) {
+        for (double f : track == null ? new double[0] : track.flux()) {
             if (Double.isFinite(f)) {
                 peak = Double.isNaN(peak) ? f : Math.max(peak, f);
                 sum += f;
@@ -117,13 +118,10 @@ public final class ScenarioTaskKind implements TaskKind {
      * distance from the flux-weighted mean position) of the centroid track as observed, with the
      * steady source, over frames brighter than 1 % of the brightest (as the track plot shows).
      */
-    static double[] centroidTrack(Path csv) throws IOException {
-        if (!Files.isRegularFile(csv)) {
-            return new double[] {Double.NaN, Double.NaN};
-        }
-        double[] x = column(csv, "x_with_steady_uas");
-        double[] y = column(csv, "y_with_steady_uas");
-        double[] f = column(csv, "flux");
+    static double[] centroidTrack(LightArchive.Track track) {
+        double[] x = track.xSteady();
+        double[] y = track.ySteady();
+        double[] f = track.flux();
         double peak = 0;
         for (double v : f) {
             if (Double.isFinite(v)) {
@@ -158,34 +156,6 @@ public final class ScenarioTaskKind implements TaskKind {
             var += f[a] * ((x[a] - mx) * (x[a] - mx) + (y[a] - my) * (y[a] - my));
         }
         return new double[] {extent, Math.sqrt(var / w)};
-    }
-
-    /** @return one numeric column of a CSV file with a header line (NaN for empty or non-numeric cells) */
-    static double[] column(Path csv, String name) throws IOException {
-        if (!Files.isRegularFile(csv)) {
-            return new double[0];
-        }
-        List<String> lines = Files.readAllLines(csv, StandardCharsets.UTF_8);
-        if (lines.isEmpty()) {
-            return new double[0];
-        }
-        String[] head = lines.get(0).split(",", -1);
-        int c = -1;
-        for (int i = 0; i < head.length; i++) {
-            if (head[i].strip().equals(name)) {
-                c = i;
-            }
-        }
-        double[] out = new double[lines.size() - 1];
-        for (int k = 1; k < lines.size(); k++) {
-            String[] cells = lines.get(k).split(",", -1);
-            try {
-                out[k - 1] = c >= 0 && c < cells.length ? Double.parseDouble(cells[c].strip()) : Double.NaN;
-            } catch (NumberFormatException e) {
-                out[k - 1] = Double.NaN;
-            }
-        }
-        return out;
     }
 
     private static double num(JsonNode n) {
