@@ -57,7 +57,9 @@ public final class ScenarioTaskKind implements TaskKind {
         long frames = (long) Math.ceil(p.durationM() / cadence) + 2;
         boolean beam = sc.instrument() != null && sc.instrument().beamFwhmUas() > 0;
         long live = n * s * 61 + kept * s * 110 + frames * pix * 4 * (beam ? 2 : 1) + pix * 100 * 32;
-        long heap = BASE_HEAP + 2 * live;
+        // at least 1.3 x (history + archive copy) = 1.3 x 149 bytes per particle and snapshot, so that
+        // a run's own memory check (80 % of the heap) passes under the -Xmx the array job sets
+        long heap = Math.max(BASE_HEAP + 2 * live, BASE_HEAP + (long) (1.3 * 149 * n * s));
         long disk = kept * s * 85 + s * sc.sources().size() * 24 + frames * pix * 4 + n * 120 + s * 400 + frames * 300
                 + (3L << 20);
         return new Estimate(heap, disk);
