@@ -61,8 +61,15 @@ public final class SweepCollector {
         Set<String> names = new LinkedHashSet<>();
         for (int t = 0; t < n; t++) {
             states[t] = TaskState.of(plan.layout(), t, false);
-            Map<String, Double> row = states[t] == TaskState.DONE ? plan.kind().outputs(plan.layout().runFolder(t))
-                    : Map.of();
+            Map<String, Double> row = Map.of();
+            if (states[t] == TaskState.DONE) {
+                try {
+                    row = plan.kind().outputs(plan.layout().runFolder(t));
+                } catch (IOException | RuntimeException e) {
+                    throw new UserInputException("run folder " + plan.layout().runFolder(t) + ": its outputs cannot be read ("
+                            + e.getMessage() + "); 'sweep status --verify' finds damaged tasks, 'sweep run' redoes them");
+                }
+            }
             names.addAll(row.keySet());
             rows.add(row);
         }
