@@ -77,21 +77,4 @@ public final class ConfigTrees {
         }
         return "";
     }
-
-    /** @return the JSON scalar as a tree node (for values read back from sweep.json) */
-    public static ConfigNode fromJsonScalar(JsonNode j) {
-        if (j.isIntegralNumber()) {
-            return new ConfigNode.Num(j.asDouble(), true, j.asText(), 0);
-        }
-        if (j.isNumber()) {
-            return new ConfigNode.Num(j.asDouble(), false, j.asText(), 0);
-        }
-        if (j.isBoolean()) {
-            return new ConfigNode.Bool(j.asBoolean(), 0);
-        }
-        if (j.isTextual()) {
-            return new ConfigNode.Str(j.asText(), 0);
-        }
-        return new ConfigNode.Null(0);
-    }
 }

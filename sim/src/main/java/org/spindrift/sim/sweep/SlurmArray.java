@@ -193,9 +193,4 @@ public final class SlurmArray {
     static String shell(String s) {
         return "'" + s.replace("'", "'\\''") + "'";
     }
-
-    /** @return memory as Slurm writes it, from MiB */
-    static String mib(long m) {
-        return String.format(Locale.ROOT, "%dM", m);
-    }
 }

@@ -3,7 +3,6 @@ package org.spindrift.sim.sweep;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import org.spindrift.shared.UserInputException;
 import org.spindrift.sim.scenario.ConfigNode;
 import org.spindrift.sim.scenario.ConfigSection;
 import org.spindrift.sim.scenario.ConfigSection.Range;
@@ -32,14 +31,12 @@ public final class SweepFile {
     private final List<SweepAxis> axes;
     private final int samples;
     private final long seed;
-    private final int kindLine;
 
-    private SweepFile(Path file, String name, TaskKind kind, int kindLine, Path base, ConfigNode baseTree,
+    private SweepFile(Path file, String name, TaskKind kind, Path base, ConfigNode baseTree,
             List<SweepAxis> axes, int samples, long seed) {
         this.file = file;
         this.name = name;
         this.kind = kind;
-        this.kindLine = kindLine;
         this.base = base;
         this.baseTree = baseTree;
         this.axes = List.copyOf(axes);
@@ -91,7 +88,7 @@ public final class SweepFile {
         if (lhs != null && !anySampled) {
             throw top.error("latin_hypercube", "no axis to sample: give at least one axis as {from, to} without count");
         }
-        SweepFile sf = new SweepFile(file, name, kind, top.line("kind"), base, baseTree, axes, samples, seed);
+        SweepFile sf = new SweepFile(file, name, kind, base, baseTree, axes, samples, seed);
         long n = sf.taskCount();
         if (n > HARD_LIMIT) {
             throw top.error("axes", "the axes give " + n + " tasks; at most " + HARD_LIMIT + " are allowed");
@@ -232,11 +229,6 @@ public final class SweepFile {
             }
         }
         return t;
-    }
-
-    /** @return a user-input error at the line of the sweep file's {@code kind} key */
-    UserInputException kindError(String problem) {
-        return ConfigSection.error(file, kindLine, "kind", problem);
     }
 
     public Path file() {
