@@ -49,6 +49,7 @@ public final class RunArchiveWriter {
     private final FolderLock lock;
     private final List<Path> createdParents;
     private final Map<String, String> sums = new LinkedHashMap<>();
+    private final Thread cleanup = new Thread(this::abandon, "spindrift-cleanup");
     private boolean finished;
     private boolean abandoned;
 
@@ -58,6 +59,19 @@ public final class RunArchiveWriter {
         this.overwrite = overwrite;
         this.lock = lock;
         this.createdParents = createdParents;
+        // stopped (Ctrl-C, SIGTERM) from here on: the build folder goes, the run folder stays as it was
+        Runtime.getRuntime().addShutdownHook(cleanup);
+    }
+
+    private void removeHook() {
+        if (Thread.currentThread() == cleanup) {
+            return;
+        }
+        try {
+            Runtime.getRuntime().removeShutdownHook(cleanup);
+        } catch (IllegalStateException e) {
+            // shutting down already: the hook is running or has run
+        }
     }
 
     /** @return the JSON mapper used for the manifest (indenting) */
@@ -99,9 +113,15 @@ public final class RunArchiveWriter {
                 }
                 deleteTree(staging); // left by a run that was killed
             }
-            Files.createDirectory(staging);
-            Files.writeString(staging.resolve(RunFolders.BUILD_MARK), "spindrift run being built; removed when done\n");
-            return new RunArchiveWriter(target, staging, overwrite, lock, created);
+            RunArchiveWriter w = new RunArchiveWriter(target, staging, overwrite, lock, created);
+            try {
+                Files.createDirectory(staging);
+                Files.writeString(staging.resolve(RunFolders.BUILD_MARK), "spindrift run being built; removed when done\n");
+            } catch (IOException | RuntimeException e) {
+                w.abandon();
+                throw e;
+            }
+            return w;
         } catch (IOException | RuntimeException e) {
             if (lock != null) {
                 lock.close();
@@ -260,6 +280,7 @@ public final class RunArchiveWriter {
             finished = true;
         }
         lock.close();
+        removeHook();
         return target.resolve(ArchiveLayout.MANIFEST);
     }
 
@@ -302,6 +323,7 @@ public final class RunArchiveWriter {
         }
         removeCreated(createdParents);
         lock.close();
+        removeHook();
     }
 
     /** Removes the parent folders a writer created, innermost first, while they are empty. */

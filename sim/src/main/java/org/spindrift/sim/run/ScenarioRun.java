@@ -148,7 +148,7 @@ public final class ScenarioRun {
                     + " snapshot cadences (" + fmt(cadence) + " M): the run ends at the last whole one, "
                     + fmt(times[s - 1]) + " M").getMessage());
         }
-        checkMemory(ls, sc.totalParticles(), s);
+        checkMemory(ls, sc.totalParticles(), s, Runtime.getRuntime().maxMemory());
         checkImaging(ls, sc, uasPerM, times, capture, warnings);
         return new Prepared(ls, st, landmarks, capture, placed, times, secondsPerM, uasPerM, List.copyOf(warnings));
     }
@@ -157,9 +157,8 @@ public final class ScenarioRun {
     static final double HISTORY_BYTES = 61 + 88;
 
     /** Refuses a run whose particle history cannot fit in the Java heap (it would fail after the work). */
-    private static void checkMemory(LoadedScenario ls, long particles, int snapshots) {
+    static void checkMemory(LoadedScenario ls, long particles, int snapshots, double have) {
         double need = HISTORY_BYTES * particles * snapshots;
-        double have = Runtime.getRuntime().maxMemory();
         if (need > 0.8 * have) {
             throw ls.error("run.snapshot_cadence", String.format(java.util.Locale.ROOT, "%d particles at %d snapshots"
                     + " need about %.3g GB of memory, more than the %.3g GB this Java process may use; use fewer"
@@ -230,10 +229,9 @@ public final class ScenarioRun {
      */
     public static Outcome run(Prepared p, Options o, List<RunStage> stages) throws IOException {
         RunArchiveWriter.checkUsable(o.output(), o.overwrite()); // before the work, so a bad -o fails at once
+        // failed: remove the new run's folder, the old run stays (the writer's own shutdown hook
+        // does the same when the run is stopped with Ctrl-C or SIGTERM)
         RunArchiveWriter archive = RunArchiveWriter.create(o.output(), o.overwrite());
-        // stopped (Ctrl-C, SIGTERM) or failed: remove the new run's folder; the old run stays
-        Thread cleanup = new Thread(archive::abandon, "spindrift-cleanup");
-        Runtime.getRuntime().addShutdownHook(cleanup);
         boolean done = false;
         try {
             Outcome out = evolveAndWrite(p, o, stages, archive);
@@ -242,11 +240,6 @@ public final class ScenarioRun {
         } finally {
             if (!done) {
                 archive.abandon();
-            }
-            try {
-                Runtime.getRuntime().removeShutdownHook(cleanup);
-            } catch (IllegalStateException e) {
-                // shutting down already
             }
         }
     }

@@ -152,7 +152,7 @@ class BadConfigTest {
         Files.writeString(out.resolve("chapter1.tex"), "precious");
         String[] err = new String[1];
         assertEquals(2, cli(err, "run", f.toString(), "-o", out.toString(), "--quiet"));
-        assertTrue(err[0].contains("not part of a run") && err[0].contains("chapter1.tex"), err[0]);
+        assertTrue(err[0].contains("Spindrift did not write") && err[0].contains("chapter1.tex"), err[0]);
         assertEquals("precious", Files.readString(out.resolve("chapter1.tex")));
         assertEquals(2, cli(err, "run", f.toString(), "-o", out.resolve("chapter1.tex").toString(), "--quiet"));
         assertTrue(err[0].contains("not a folder"), err[0]);
