@@ -79,10 +79,12 @@ public final class ScenarioRun {
      * @param microarcsecPerM angular size of 1 M, micro-arcseconds
      * @param warnings things the run does that the user may not expect, one line each
      *     ({@code FILE:LINE: key: problem}); printed and recorded in the manifest
+     * @param requestedDurationM the duration the scenario asks for, M (the run ends at the last
+     *     whole snapshot cadence within it, {@link #durationM})
      */
     public record Prepared(LoadedScenario loaded, Spacetime spacetime, Map<String, Double> landmarks,
             double captureRadius, SourceSetup.Placed placed, double[] times, double secondsPerM,
-            double microarcsecPerM, List<String> warnings) {
+            double microarcsecPerM, List<String> warnings, double requestedDurationM) {
         /** @return run duration, M */
         public double durationM() {
             return times[times.length - 1];
@@ -143,15 +145,21 @@ public final class ScenarioRun {
             times[k] = k * cadence;
         }
         List<String> warnings = new ArrayList<>();
-        if (Math.abs(times[s - 1] - duration) > 1e-9 * duration) {
+        // the grid ends at the last whole cadence: the manifest records both durations; a cut of more
+        // than 1 % of the run is worth a warning (durations in orbits are rarely whole cadences)
+        if (duration - times[s - 1] > DURATION_CUT_WARNING * duration) {
             warnings.add(ls.error("run.duration", "the duration of " + fmt(duration) + " M is not a whole number of"
                     + " snapshot cadences (" + fmt(cadence) + " M): the run ends at the last whole one, "
                     + fmt(times[s - 1]) + " M").getMessage());
         }
         checkMemory(ls, sc.totalParticles(), s, Runtime.getRuntime().maxMemory());
         checkImaging(ls, sc, uasPerM, times, capture, warnings);
-        return new Prepared(ls, st, landmarks, capture, placed, times, secondsPerM, uasPerM, List.copyOf(warnings));
+        return new Prepared(ls, st, landmarks, capture, placed, times, secondsPerM, uasPerM, List.copyOf(warnings),
+                duration);
     }
+
+    /** Fraction of the requested duration lost to whole cadences above which the run warns. */
+    static final double DURATION_CUT_WARNING = 0.01;
 
     /** Bytes of the particle history per particle and snapshot (see {@link ParticleHistory}), with the archive copy. */
     static final double HISTORY_BYTES = 61 + 88;
@@ -466,6 +474,7 @@ public final class ScenarioRun {
         ObjectNode time = m.putObject("time");
         time.put("origin", "coordinate time t = 0 at the start of the run (emitter time)");
         time.put("duration_M", p.durationM());
+        time.put("duration_requested_M", p.requestedDurationM());
         time.put("duration_min", p.durationM() * p.secondsPerM() / 60.0);
         time.put("snapshots", p.times().length);
         time.put("cadence_M", p.times()[1] - p.times()[0]);

@@ -183,6 +183,8 @@ class RunFolderCliTest {
         try (RunArchive a = RunArchive.open(out, true)) {
             String warnings = a.manifest().get(RunNotes.WARNINGS).toString();
             assertTrue(warnings.contains("run.duration"), warnings);
+            assertEquals(41.0, a.manifest().path("time").path("duration_requested_M").asDouble());
+            assertEquals(40.0, a.manifest().path("time").path("duration_M").asDouble(), 1e-12);
             // a 24 M field: light delays across it span more than the 40 M run, so no frame is fully covered
             assertTrue(warnings.contains("no frame is fully covered"), warnings);
             assertTrue(a.manifest().path("light").path("fully_covered_min").isNull());
