@@ -73,7 +73,7 @@ class ViewCommandErrorsTest {
 
     @Test void damagedImages() throws Exception {
         Path d = tmp.resolve("badfits");
-        SyntheticRun.writeHotSpot(d, 50, 4, 3);
+        SyntheticRun.writeHotSpot(d, 50, 4, 3, true);
         Files.writeString(d.resolve(ArchiveLayout.IMAGES), "SIMPLE  = not really a FITS file");
         assertOneLine(run(d.toString()), "images.fits");
         assertOneLine(run(d.toString(), "--no-verify"), "images.fits");
@@ -81,9 +81,10 @@ class ViewCommandErrorsTest {
 
     @Test void badCentroidTable() throws Exception {
         Path d = tmp.resolve("badcsv");
-        SyntheticRun.writeHotSpot(d, 50, 4, 3);
+        SyntheticRun.writeHotSpot(d, 50, 4, 3, true);
         Files.writeString(d.resolve(ArchiveLayout.CENTROID), "time,flux\n0,1\n");
-        assertOneLine(run(d.toString()), "centroid.csv", "x_uas");
+        assertOneLine(run(d.toString()), "centroid.csv", "sha256");
+        assertOneLine(run(d.toString(), "--no-verify"), "centroid.csv", "x_uas");
     }
 
     /** A byte flip that gives an absurd radius, written with valid checksums: refused by its range. */

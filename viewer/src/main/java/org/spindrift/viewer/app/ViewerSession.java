@@ -77,10 +77,11 @@ public final class ViewerSession implements AutoCloseable {
             if (!o.bare() && !o.noSky()) {
                 Path img = o.runDir().resolve(ArchiveLayout.IMAGES);
                 Path csv = o.runDir().resolve(ArchiveLayout.CENTROID);
-                if (Files.isRegularFile(img)) {
+                // only the run's own files: those its manifest lists (and the verification covered)
+                if (Files.isRegularFile(img) && listed(r, ArchiveLayout.IMAGES)) {
                     cube = ImageCube.open(img, info.mSeconds(), info.mMicroarcsec());
                 }
-                if (Files.isRegularFile(csv)) {
+                if (Files.isRegularFile(csv) && listed(r, ArchiveLayout.CENTROID)) {
                     track = CentroidTrack.read(csv, info.mSeconds());
                 }
             }
@@ -125,6 +126,10 @@ public final class ViewerSession implements AutoCloseable {
         this.gl = ctx;
         this.stream = s;
         this.composer = c;
+    }
+
+    private static boolean listed(RunData r, String name) {
+        return !(r instanceof ArchiveRunData a) || a.archive().has(name);
     }
 
     /** Puts the camera where the options ask. */
