@@ -313,7 +313,7 @@ public final class SweepCommand implements Runnable {
             PrintWriter out = spec.commandLine().getOut();
             TaskState[] st = new TaskState[plan.tasks()];
             for (int t = 0; t < st.length; t++) {
-                st[t] = TaskState.of(plan.layout(), t, verify);
+                st[t] = TaskState.of(plan.layout(), plan.kind(), t, verify);
             }
             Map<TaskState, Integer> c = SweepCollector.counts(st);
             out.printf(Locale.ROOT, "%s: %d tasks: %d done, %d failed, %d started (running, or stopped without a trace),"

@@ -11,6 +11,8 @@ import java.util.List;
 import java.util.Map;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.LightArchive;
+import org.spindrift.shared.archive.RunArchive;
+import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.run.SnapshotStage;
@@ -67,7 +69,24 @@ public final class ScenarioTaskKind implements TaskKind {
 
     @Override public void run(Path taskFile, Path runFolder, int threads) throws IOException {
         ScenarioRun.Prepared p = ScenarioRun.prepare(ScenarioLoader.load(taskFile));
-        ScenarioRun.run(p, new ScenarioRun.Options(runFolder, threads, false));
+        // the folder is the sweep's own: a damaged earlier run there is replaced (once the new one is complete)
+        ScenarioRun.run(p, new ScenarioRun.Options(runFolder, threads, false, true));
+    }
+
+    /**
+     * A finished run folder: quick = the manifest opens and lists only files that exist;
+     * verified = the shared archive verifier (checksums, manifest ranges, snapshots.h5 origin,
+     * complete light files).
+     */
+    @Override public boolean complete(Path runFolder, boolean verify) {
+        if (!verify) {
+            return TaskState.manifestComplete(runFolder, false);
+        }
+        try (RunArchive a = RunArchive.open(runFolder, true)) {
+            return a != null;
+        } catch (UserInputException | java.io.UncheckedIOException e) {
+            return false;
+        }
     }
 
     @Override public Map<String, Double> outputs(Path runFolder) throws IOException {

@@ -60,7 +60,7 @@ public final class SweepCollector {
         List<Map<String, Double>> rows = new ArrayList<>();
         Set<String> names = new LinkedHashSet<>();
         for (int t = 0; t < n; t++) {
-            states[t] = TaskState.of(plan.layout(), t, false);
+            states[t] = TaskState.of(plan.layout(), plan.kind(), t, false);
             Map<String, Double> row = Map.of();
             if (states[t] == TaskState.DONE) {
                 try {

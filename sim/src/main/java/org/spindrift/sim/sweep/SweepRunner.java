@@ -116,7 +116,7 @@ public final class SweepRunner {
     private static String runOne(SweepPlan plan, int t, int threads) throws IOException {
         SweepLayout layout = plan.layout();
         Path folder = layout.runFolder(t);
-        if (TaskState.complete(folder, true)) {
+        if (plan.kind().complete(folder, true)) {
             return "skip";
         }
         Files.deleteIfExists(layout.failedRecord(t));

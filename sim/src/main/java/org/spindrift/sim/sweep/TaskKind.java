@@ -44,6 +44,16 @@ public interface TaskKind {
     void run(Path taskFile, Path runFolder, int threads) throws IOException;
 
     /**
+     * @return whether a run folder holds a finished run of this kind: by default a manifest whose
+     *     listed files all exist (and, when verifying, match their SHA-256); kinds with their own
+     *     archive verifier use it
+     * @param verify compare checksums (reads every byte)
+     */
+    default boolean complete(Path runFolder, boolean verify) {
+        return TaskState.manifestComplete(runFolder, verify);
+    }
+
+    /**
      * @return the headline numbers of a finished task's run folder, in a fixed order (NaN where a
      *     quantity was not measured)
      */

@@ -12,8 +12,8 @@ import org.spindrift.shared.archive.ArchiveLayout;
 
 /**
  * The state of one task, read from the sweep folder only (never from a scheduler's accounting):
- * done = its run folder has a manifest and every file the manifest lists (with the right
- * SHA-256 when verifying); failed = a failure record and no finished run; started = a start
+ * done = its run folder holds a finished run ({@link TaskKind#complete}: manifest present, every
+ * listed file there, checksums valid when verifying); failed = a failure record and no finished run; started = a start
  * record only (running, or stopped without a trace, for example by a time limit); pending =
  * nothing yet.
  */
@@ -28,8 +28,8 @@ public enum TaskState {
     /**
      * @param verify compare every file's SHA-256 with the manifest (reads every byte)
      */
-    public static TaskState of(SweepLayout layout, int task, boolean verify) {
-        if (complete(layout.runFolder(task), verify)) {
+    public static TaskState of(SweepLayout layout, TaskKind kind, int task, boolean verify) {
+        if (kind.complete(layout.runFolder(task), verify)) {
             return DONE;
         }
         if (Files.isRegularFile(layout.failedRecord(task))) {
@@ -42,10 +42,10 @@ public enum TaskState {
     }
 
     /**
-     * @return whether a run folder is complete: a readable manifest whose files all exist (and,
-     *     when verifying, have the SHA-256 it lists)
+     * @return whether a run folder is complete in the generic sense: a readable manifest whose
+     *     files all exist (and, when verifying, have the SHA-256 it lists)
      */
-    public static boolean complete(Path folder, boolean verify) {
+    public static boolean manifestComplete(Path folder, boolean verify) {
         Path mf = folder.resolve(ArchiveLayout.MANIFEST);
         if (!Files.isRegularFile(mf)) {
             return false;

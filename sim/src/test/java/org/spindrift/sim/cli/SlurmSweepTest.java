@@ -17,6 +17,7 @@ import java.util.regex.Pattern;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.spindrift.sim.sweep.ScenarioTaskKind;
 import org.spindrift.sim.sweep.SlurmArray;
 import org.spindrift.sim.sweep.SweepFixtures;
 import org.spindrift.sim.sweep.SweepLayout;
@@ -52,7 +53,7 @@ class SlurmSweepTest {
         assertTrue(script.contains("#SBATCH --array=0-5%2"), script);
         waitFor(job, cluster);
         for (int t = 0; t < 6; t++) {
-            assertEquals(TaskState.DONE, TaskState.of(new SweepLayout(cluster), t, true), "task " + t + "; logs:\n" + logs(cluster));
+            assertEquals(TaskState.DONE, TaskState.of(new SweepLayout(cluster), new ScenarioTaskKind(), t, true), "task " + t + "; logs:\n" + logs(cluster));
         }
         String status = CliCapture.run(0, "sweep", "status", cluster.toString())[0];
         assertTrue(status.contains("6 done, 0 failed"), status);
@@ -107,7 +108,7 @@ class SlurmSweepTest {
             boolean queued = p.exitValue() == 0 && !q.isBlank();
             boolean settled = true;
             for (int t = 0; t < 6; t++) {
-                TaskState s = TaskState.of(l, t, false);
+                TaskState s = TaskState.of(l, new ScenarioTaskKind(), t, false);
                 settled &= s == TaskState.DONE || s == TaskState.FAILED;
             }
             if (!queued && settled) {

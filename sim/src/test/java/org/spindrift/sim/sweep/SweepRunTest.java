@@ -34,8 +34,8 @@ class SweepRunTest {
         Files.writeString(l.taskFile(1), Files.readString(l.taskFile(1)).replace("\"seed\" : 7", "\"seed\" : 8"));
         SweepRunner.Summary s = SweepRunner.run(plan, List.of(0, 1, 2), 2, 1, false, QUIET);
         assertEquals(new SweepRunner.Summary(2, 0, 1), s);
-        assertEquals(TaskState.DONE, TaskState.of(l, 0, true));
-        assertEquals(TaskState.FAILED, TaskState.of(l, 1, true));
+        assertEquals(TaskState.DONE, TaskState.of(l, plan.kind(), 0, true));
+        assertEquals(TaskState.FAILED, TaskState.of(l, plan.kind(), 1, true));
         assertTrue(TaskState.reason(l, 1).contains("changed since the sweep was planned"), TaskState.reason(l, 1));
         assertFalse(Files.exists(l.runFolder(1).resolve("manifest.json")));
         assertFalse(Files.exists(l.startedRecord(0)));
@@ -44,15 +44,15 @@ class SweepRunTest {
         FileTime t2 = Files.getLastModifiedTime(l.runFolder(2).resolve("manifest.json"));
         Path csv = l.runFolder(0).resolve("centroid.csv");
         Files.writeString(csv, Files.readString(csv) + "0,0,0\n");
-        assertEquals(TaskState.DONE, TaskState.of(l, 0, false), "quick status looks only at the files' presence");
-        assertFalse(TaskState.complete(l.runFolder(0), true), "the damaged file no longer matches its checksum");
+        assertEquals(TaskState.DONE, TaskState.of(l, plan.kind(), 0, false), "quick status looks only at the files' presence");
+        assertFalse(plan.kind().complete(l.runFolder(0), true), "the damaged file no longer matches its checksum");
         Files.writeString(l.taskFile(1), Files.readString(l.taskFile(1)).replace("\"seed\" : 8", "\"seed\" : 7"));
         s = SweepRunner.run(plan, List.of(0, 1, 2), 1, 2, false, QUIET);
         assertEquals(new SweepRunner.Summary(2, 1, 0), s);
         assertEquals(t2, Files.getLastModifiedTime(l.runFolder(2).resolve("manifest.json")));
         assertFalse(Files.exists(l.failedRecord(1)), "a task that succeeds on a re-run loses its failure record");
         for (int t = 0; t < 3; t++) {
-            assertEquals(TaskState.DONE, TaskState.of(l, t, true));
+            assertEquals(TaskState.DONE, TaskState.of(l, plan.kind(), t, true));
         }
 
         SweepCollector.Table table = SweepCollector.read(plan);
@@ -101,8 +101,8 @@ class SweepRunTest {
         SweepPlan a = plan("a", "observer.inclination_deg: [20, 70]");
         SweepPlan b = plan("b", "observer.inclination_deg: [20, 70]");
         SweepRunner.run(a, SweepRunner.shard(2, 1, 2), 1, 1, false, QUIET);
-        assertEquals(TaskState.PENDING, TaskState.of(a.layout(), 0, true));
-        assertEquals(TaskState.DONE, TaskState.of(a.layout(), 1, true));
+        assertEquals(TaskState.PENDING, TaskState.of(a.layout(), a.kind(), 0, true));
+        assertEquals(TaskState.DONE, TaskState.of(a.layout(), a.kind(), 1, true));
         SweepRunner.run(a, SweepRunner.shard(2, 0, 2), 1, 1, false, QUIET);
         SweepRunner.run(b, List.of(0, 1), 2, 2, false, QUIET);
         SweepCollector.write(a, SweepCollector.read(a));
