@@ -43,7 +43,7 @@ class SlurmSweepTest {
         Path cluster = tmp.resolve("cluster");
         CliCapture.run(0, "sweep", "plan", f.toString(), "-o", local.toString());
         CliCapture.run(0, "sweep", "plan", f.toString(), "-o", cluster.toString());
-        CliCapture.run(0, "sweep", "run", local.toString(), "--jobs", "2", "--threads", "1", "--quiet");
+        CliCapture.run(0, "sweep", "run", local.toString(), "--shard", "0/1", "--jobs", "2", "--threads", "1", "--quiet");
 
         String out = CliCapture.run(0, "sweep", "slurm", cluster.toString(), "--max-parallel", "2", "--cpus", "1")[0];
         Matcher m = Pattern.compile("submitted array job (\\d+)").matcher(out);
