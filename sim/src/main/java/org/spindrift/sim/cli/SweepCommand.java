@@ -141,6 +141,9 @@ public final class SweepCommand implements Runnable {
         @Option(names = "--quiet", description = "No progress bar.")
         private boolean quiet;
 
+        @Option(names = "--skip-failed", description = "Leave tasks that failed before alone (default: try them again).")
+        private boolean skipFailed;
+
         @Spec
         CommandSpec spec;
 
@@ -183,7 +186,7 @@ public final class SweepCommand implements Runnable {
                 what = "all tasks";
             }
             boolean progress = !quiet && System.console() != null;
-            SweepRunner.Summary s = SweepRunner.run(plan, tasks, jobs, t, progress, out);
+            SweepRunner.Summary s = SweepRunner.run(plan, tasks, jobs, t, progress, skipFailed, out);
             out.println(plan.name() + " (" + what + ", " + tasks.size() + " task(s)): " + SweepRunner.describe(s));
             out.flush();
             return s.failed() > 0 ? 1 : 0;

@@ -32,12 +32,22 @@ import org.spindrift.shared.archive.AtomicFiles;
 public final class SweepRunner {
     private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 
+    /** What happened to one task. */
+    private enum Kind { RAN, SKIPPED, SKIPPED_FAILED, FAILED }
+
+    private record Outcome(Kind kind, String reason) {
+    }
+
     /**
      * @param ran tasks run to completion now
      * @param skipped tasks found complete
      * @param failed tasks that failed now
+     * @param skippedFailed tasks left alone because they had failed before (with skipFailed)
      */
-    public record Summary(int ran, int skipped, int failed) {
+    public record Summary(int ran, int skipped, int failed, int skippedFailed) {
+        public Summary(int ran, int skipped, int failed) {
+            this(ran, skipped, failed, 0);
+        }
     }
 
     private SweepRunner() {
@@ -61,12 +71,23 @@ public final class SweepRunner {
     /** Runs the selected tasks. */
     public static Summary run(SweepPlan plan, List<Integer> tasks, int jobs, int threads, boolean progress,
             PrintWriter log) throws IOException {
+        return run(plan, tasks, jobs, threads, progress, false, log);
+    }
+
+    /**
+     * Runs the selected tasks.
+     *
+     * @param skipFailed leave tasks that failed before alone (their failure record stays)
+     */
+    public static Summary run(SweepPlan plan, List<Integer> tasks, int jobs, int threads, boolean progress,
+            boolean skipFailed, PrintWriter log) throws IOException {
         SweepLayout layout = plan.layout();
         Files.createDirectories(layout.dir().resolve(SweepLayout.RUNS));
         Files.createDirectories(layout.dir().resolve(SweepLayout.STATUS));
         AtomicInteger ran = new AtomicInteger();
         AtomicInteger skipped = new AtomicInteger();
         AtomicInteger failed = new AtomicInteger();
+        AtomicInteger skippedFailed = new AtomicInteger();
         ExecutorService pool = Executors.newFixedThreadPool(Math.max(1, jobs), r -> {
             Thread t = new Thread(r, "spindrift-sweep-task");
             t.setDaemon(true);
@@ -78,17 +99,23 @@ public final class SweepRunner {
             List<Future<?>> fs = new ArrayList<>();
             for (int t : tasks) {
                 fs.add(pool.submit(() -> {
-                    String outcome = runOne(plan, t, threads);
-                    switch (outcome) {
-                        case "" -> ran.incrementAndGet();
-                        case "skip" -> skipped.incrementAndGet();
+                    long t0 = System.nanoTime();
+                    Outcome outcome = runOne(plan, t, threads, skipFailed);
+                    switch (outcome.kind()) {
+                        case RAN -> ran.incrementAndGet();
+                        case SKIPPED -> skipped.incrementAndGet();
+                        case SKIPPED_FAILED -> skippedFailed.incrementAndGet();
                         default -> failed.incrementAndGet();
                     }
                     synchronized (log) {
-                        if (!outcome.isEmpty() && !outcome.equals("skip")) {
-                            log.println(SweepLayout.taskName(t) + ": failed: " + outcome);
-                            log.flush();
+                        if (outcome.kind() == Kind.RAN && bar == null) {
+                            // one line per task where no progress bar shows (array job logs, pipes)
+                            log.printf(Locale.ROOT, "%s: done in %.1f s%n", SweepLayout.taskName(t),
+                                    (System.nanoTime() - t0) * 1e-9);
+                        } else if (outcome.kind() == Kind.FAILED) {
+                            log.println(SweepLayout.taskName(t) + ": failed: " + outcome.reason());
                         }
+                        log.flush();
                     }
                     if (bar != null) {
                         bar.step();
@@ -109,15 +136,18 @@ public final class SweepRunner {
         } finally {
             pool.shutdownNow();
         }
-        return new Summary(ran.get(), skipped.get(), failed.get());
+        return new Summary(ran.get(), skipped.get(), failed.get(), skippedFailed.get());
     }
 
-    /** @return "" when run, "skip" when already complete, else the reason of the failure */
-    private static String runOne(SweepPlan plan, int t, int threads) throws IOException {
+    /** Runs one task unless it is complete (or failed before, with skipFailed). */
+    private static Outcome runOne(SweepPlan plan, int t, int threads, boolean skipFailed) throws IOException {
         SweepLayout layout = plan.layout();
         Path folder = layout.runFolder(t);
         if (plan.kind().complete(folder, true)) {
-            return "skip";
+            return new Outcome(Kind.SKIPPED, "");
+        }
+        if (skipFailed && Files.isRegularFile(layout.failedRecord(t))) {
+            return new Outcome(Kind.SKIPPED_FAILED, "");
         }
         Files.deleteIfExists(layout.failedRecord(t));
         AtomicFiles.write(layout.startedRecord(t), tmp -> JSON.writeValue(tmp.toFile(), record(t, null)));
@@ -133,7 +163,7 @@ public final class SweepRunner {
                 reason = "";
             }
         } catch (UserInputException e) {
-            reason = e.getMessage();
+            reason = e.getMessage() == null || e.getMessage().isBlank() ? "bad input" : e.getMessage();
         } catch (OutOfMemoryError e) {
             reason = "out of memory (" + e.getMessage() + "): give the task more memory (sweep slurm --mem, or"
                     + " SPINDRIFT_JAVA_OPTS=-Xmx... for a local run)";
@@ -145,7 +175,7 @@ public final class SweepRunner {
             AtomicFiles.write(layout.failedRecord(t), tmp -> JSON.writeValue(tmp.toFile(), record(t, why)));
         }
         Files.deleteIfExists(layout.startedRecord(t));
-        return reason;
+        return new Outcome(reason.isEmpty() ? Kind.RAN : Kind.FAILED, reason);
     }
 
     private static ObjectNode record(int t, String reason) {
@@ -173,6 +203,7 @@ public final class SweepRunner {
 
     /** @return a one-line summary */
     public static String describe(Summary s) {
-        return String.format(Locale.ROOT, "%d run, %d already done, %d failed", s.ran(), s.skipped(), s.failed());
+        return String.format(Locale.ROOT, "%d run, %d already done, %d failed", s.ran(), s.skipped(), s.failed())
+                + (s.skippedFailed() > 0 ? ", " + s.skippedFailed() + " failed before and left alone" : "");
     }
 }

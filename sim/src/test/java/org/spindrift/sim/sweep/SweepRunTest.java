@@ -39,6 +39,9 @@ class SweepRunTest {
         assertTrue(TaskState.reason(l, 1).contains("changed since the sweep was planned"), TaskState.reason(l, 1));
         assertFalse(Files.exists(l.runFolder(1).resolve("manifest.json")));
         assertFalse(Files.exists(l.startedRecord(0)));
+        // --skip-failed leaves the failed task and its record alone
+        assertEquals(new SweepRunner.Summary(0, 2, 0, 1), SweepRunner.run(plan, List.of(0, 1, 2), 1, 1, false, true, QUIET));
+        assertEquals(TaskState.FAILED, TaskState.of(l, plan.kind(), 1, true));
 
         // resume: finished tasks are skipped (their files untouched); a damaged one runs again
         FileTime t2 = Files.getLastModifiedTime(l.runFolder(2).resolve("manifest.json"));
