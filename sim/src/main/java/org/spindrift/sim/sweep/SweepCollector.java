@@ -50,6 +50,14 @@ public final class SweepCollector {
         }
     }
 
+    /** Most lines in one plot (one per combination of the other axes); beyond, a cloud of points. */
+    static final int MAX_LINES = 8;
+
+    /** Okabe & Ito (2008) colour-blind-safe palette. */
+    private static final Color[] COLOURS = {new Color(0, 114, 178), new Color(230, 159, 0), new Color(0, 158, 115),
+        new Color(204, 121, 167), new Color(86, 180, 233), new Color(213, 94, 0), new Color(240, 228, 66),
+        new Color(0, 0, 0)};
+
     private SweepCollector() {
     }
 
@@ -174,29 +182,56 @@ public final class SweepCollector {
         Files.createDirectories(dir);
         List<String> keys = plan.axisKeys();
         for (int j = 0; j < keys.size(); j++) {
-            List<Double> xs = new ArrayList<>();
-            List<Double> ys = new ArrayList<>();
             boolean numeric = true;
+            boolean grid = !plan.axisSampled(j);
+            // one line per combination of the other axes' values (grid sweeps), else one cloud of points
+            Map<String, List<double[]>> groups = new LinkedHashMap<>();
             for (int t = 0; t < plan.tasks(); t++) {
                 JsonNode v = plan.values(t).get(j);
                 numeric &= v.isNumber();
+                StringBuilder label = new StringBuilder();
+                for (int o = 0; o < keys.size(); o++) {
+                    if (o != j) {
+                        grid &= !plan.axisSampled(o);
+                        label.append(label.length() == 0 ? "" : ", ").append(keys.get(o)).append(" = ")
+                                .append(plan.values(t).get(o).asText());
+                    }
+                }
                 if (v.isNumber() && Double.isFinite(y[t]) && table.states()[t] == TaskState.DONE) {
-                    xs.add(v.asDouble());
-                    ys.add(y[t]);
+                    groups.computeIfAbsent(label.toString(), k -> new ArrayList<>()).add(new double[] {v.asDouble(), y[t]});
                 }
             }
-            if (!numeric || xs.isEmpty()) {
+            if (!numeric || groups.isEmpty()) {
                 continue;
             }
+            boolean lines = grid && groups.size() <= MAX_LINES;
             XYChart chart = new XYChartBuilder().width(800).height(560)
                     .title(plan.name() + ": " + output + " against " + keys.get(j))
                     .xAxisTitle(keys.get(j)).yAxisTitle(output).build();
-            chart.getStyler().setLegendVisible(false);
-            chart.getStyler().setXAxisLogarithmic(plan.axisLog(j) && xs.stream().allMatch(v -> v > 0));
-            XYSeries s = chart.addSeries("tasks", xs, ys);
-            s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
-            s.setMarker(SeriesMarkers.CIRCLE);
-            s.setMarkerColor(new Color(0, 114, 178));
+            chart.getStyler().setLegendVisible(lines && groups.size() > 1);
+            chart.getStyler().setLegendPosition(org.knowm.xchart.style.Styler.LegendPosition.OutsideS);
+            boolean allPositive = groups.values().stream().flatMap(List::stream).allMatch(p -> p[0] > 0);
+            chart.getStyler().setXAxisLogarithmic(plan.axisLog(j) && allPositive);
+            int c = 0;
+            if (lines) {
+                for (Map.Entry<String, List<double[]>> g : groups.entrySet()) {
+                    List<double[]> pts = new ArrayList<>(g.getValue());
+                    pts.sort(java.util.Comparator.comparingDouble(p -> p[0]));
+                    XYSeries s = chart.addSeries(g.getKey().isEmpty() ? "tasks" : g.getKey(),
+                            pts.stream().map(p -> p[0]).toList(), pts.stream().map(p -> p[1]).toList());
+                    s.setMarker(SeriesMarkers.CIRCLE);
+                    s.setLineColor(COLOURS[c % COLOURS.length]);
+                    s.setMarkerColor(COLOURS[c % COLOURS.length]);
+                    c++;
+                }
+            } else {
+                List<double[]> pts = groups.values().stream().flatMap(List::stream).toList();
+                XYSeries s = chart.addSeries("tasks", pts.stream().map(p -> p[0]).toList(),
+                        pts.stream().map(p -> p[1]).toList());
+                s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+                s.setMarker(SeriesMarkers.CIRCLE);
+                s.setMarkerColor(COLOURS[0]);
+            }
             Path target = dir.resolve(safe(output) + "_vs_" + safe(keys.get(j)) + ".png");
             AtomicFiles.write(target, tmp -> {
                 try (OutputStream os = Files.newOutputStream(tmp)) {

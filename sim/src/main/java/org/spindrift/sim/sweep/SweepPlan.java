@@ -16,6 +16,7 @@ public final class SweepPlan {
     private final TaskKind kind;
     private final List<String> axisKeys = new ArrayList<>();
     private final List<Boolean> axisLog = new ArrayList<>();
+    private final List<Boolean> axisSampled = new ArrayList<>();
 
     private SweepPlan(SweepLayout layout, JsonNode json, TaskKind kind) {
         this.layout = layout;
@@ -25,6 +26,7 @@ public final class SweepPlan {
             axisKeys.add(a.path("key").asText());
             String sp = a.path("spacing").asText();
             axisLog.add(sp.endsWith("log"));
+            axisSampled.add(sp.startsWith("sampled"));
         }
     }
 
@@ -84,6 +86,11 @@ public final class SweepPlan {
     /** @return whether axis j lies on a logarithmic scale */
     public boolean axisLog(int j) {
         return axisLog.get(j);
+    }
+
+    /** @return whether axis j is sampled by the Latin hypercube */
+    public boolean axisSampled(int j) {
+        return axisSampled.get(j);
     }
 
     /** @return the axis values of a task, in axis order */
