@@ -185,6 +185,11 @@ public final class SweepCommand implements Runnable {
                 }
                 what = "all tasks";
             }
+            String planned = plan.json().path("code_version").asText();
+            if (!planned.equals(org.spindrift.shared.Version.get())) {
+                out.println("note: the sweep was planned with code version " + planned + "; this is "
+                        + org.spindrift.shared.Version.get() + " (tasks run now may differ from earlier ones)");
+            }
             boolean progress = !quiet && System.console() != null;
             SweepRunner.Summary s = SweepRunner.run(plan, tasks, jobs, t, progress, skipFailed, out);
             out.println(plan.name() + " (" + what + ", " + tasks.size() + " task(s)): " + SweepRunner.describe(s));
