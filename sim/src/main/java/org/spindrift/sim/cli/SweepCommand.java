@@ -59,11 +59,16 @@ public final class SweepCommand implements Runnable {
         return m >= 1024 ? String.format(Locale.ROOT, "%.1f GiB", m / 1024) : String.format(Locale.ROOT, "%.0f MiB", m);
     }
 
+    /** Refuses an option value outside lo..hi, naming the option. */
+    static void range(String option, long v, long lo, long hi) {
+        if (v < lo || v > hi) {
+            throw new UserInputException(option + " " + v + ": allowed " + lo + ".." + hi);
+        }
+    }
+
     static int threadsOrDefault(Integer threads, int jobs) {
         if (threads != null) {
-            if (threads < 1 || threads > 1024) {
-                throw new UserInputException("--threads " + threads + ": allowed 1..1024");
-            }
+            range("--threads", threads, 1, 1024);
             return threads;
         }
         String slurm = System.getenv("SLURM_CPUS_PER_TASK");
@@ -148,9 +153,7 @@ public final class SweepCommand implements Runnable {
         CommandSpec spec;
 
         @Override public Integer call() throws IOException {
-            if (jobs < 1 || jobs > 256) {
-                throw new UserInputException("--jobs " + jobs + ": allowed 1..256");
-            }
+            range("--jobs", jobs, 1, 256);
             if (task != null && shard != null) {
                 throw new UserInputException("--task and --shard: give at most one of them");
             }
@@ -247,9 +250,7 @@ public final class SweepCommand implements Runnable {
         CommandSpec spec;
 
         @Override public Integer call() throws IOException {
-            if (cpus < 1 || cpus > 1024) {
-                throw new UserInputException("--cpus " + cpus + ": allowed 1..1024");
-            }
+            range("--cpus", cpus, 1, 1024);
             if (maxParallel < 0 || maxParallel > 1_000_000) {
                 throw new UserInputException("--max-parallel " + maxParallel + ": allowed 1..1000000 (0: no throttle)");
             }
