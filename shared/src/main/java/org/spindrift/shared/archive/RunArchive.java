@@ -108,8 +108,8 @@ public final class RunArchive implements AutoCloseable {
     }
 
     /** @return the distance in kpc */
-    public double distanceKpc() {
-        return manifest.path("black_hole").path("distance_kpc").asDouble(Double.NaN);
+    public double distanceMpc() {
+        return manifest.path("black_hole").path("distance_Mpc").asDouble(Double.NaN);
     }
 
     /** @return the spacetime family */
@@ -138,8 +138,8 @@ public final class RunArchive implements AutoCloseable {
     }
 
     /** @return micro-arcseconds subtended by 1 M at the distance */
-    public double mMicroarcsec() {
-        return manifest.path("units").path("M_microarcsec").asDouble(Double.NaN);
+    public double mUas() {
+        return manifest.path("units").path("M_uas").asDouble(Double.NaN);
     }
 
     /** @return inclination in degrees */

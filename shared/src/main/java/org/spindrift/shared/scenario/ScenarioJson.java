@@ -22,7 +22,7 @@ public final class ScenarioJson {
         BlackHole b = s.blackHole();
         ObjectNode bh = o.putObject("black_hole");
         bh.put("mass_solar", b.massSolar());
-        bh.put("distance_kpc", b.distanceKpc());
+        bh.put("distance", distance(b.distanceMpc()));
         bh.put("family", b.family());
         bh.put("spin", b.spin());
         ObjectNode par = bh.putObject("parameters");
@@ -59,6 +59,11 @@ public final class ScenarioJson {
                 .put("astrometric_noise_uas", in.astrometricNoiseUas())
                 .put("noise_cadence_min", in.noiseCadenceMin());
         return o;
+    }
+
+    /** @return a distance in Mpc as the scenario-file string, for example {@code "40.0 Mpc"} (exact repr) */
+    public static String distance(double mpc) {
+        return Double.toString(mpc) + " Mpc";
     }
 
     private static String lower(Enum<?> e) {
@@ -101,7 +106,7 @@ public final class ScenarioJson {
         } else if (em.flare() instanceof Flare.Gaussian g) {
             f.put("kind", "gaussian").put("peak", g.peak().toString()).put("width", g.width().toString());
         } else if (em.flare() instanceof Flare.Exponential x) {
-            f.put("kind", "exponential").put("start", x.start().toString()).put("rise", x.rise().toString())
+            f.put("kind", "exponential").put("peak", x.peak().toString()).put("rise", x.rise().toString())
                     .put("decay", x.decay().toString());
         }
         return o;

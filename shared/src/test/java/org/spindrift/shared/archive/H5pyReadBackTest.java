@@ -27,7 +27,7 @@ class H5pyReadBackTest {
         String py = ExternalPython.require("h5py, numpy", "python3-h5py");
         int s = 2;
         int n = 3;
-        SnapshotWriter w = new SnapshotWriter(s, new int[] {0, 1, 1}, 2, 0.5, 6.5e6, 12.0);
+        SnapshotWriter w = new SnapshotWriter(s, new int[] {0, 1, 1}, 2, 0.5, 1.0e6, 1.0e-3);
         for (int k = 0; k < s; k++) {
             double[] r = {6 + k, 7 + k, 8 + k};
             double[] th = {1.5, 1.6, 1.4};

@@ -71,11 +71,11 @@ public final class ScenarioRun {
      * @param placed initial particles
      * @param times snapshot times, M
      * @param secondsPerM GM/c^3, s
-     * @param microarcsecPerM angular size of 1 M, micro-arcseconds
+     * @param uasPerM angular size of 1 M, micro-arcseconds
      */
     public record Prepared(LoadedScenario loaded, Spacetime spacetime, Map<String, Double> landmarks,
             double captureRadius, SourceSetup.Placed placed, double[] times, double secondsPerM,
-            double microarcsecPerM) {
+            double uasPerM) {
         /** @return run duration, M */
         public double durationM() {
             return times[times.length - 1];
@@ -112,7 +112,7 @@ public final class ScenarioRun {
         double capture = ScenarioChecks.captureRadius(st, landmarks);
         ScenarioChecks.checkSources(ls, st, capture);
         double secondsPerM = Units.timeUnitSeconds(sc.blackHole().massSolar());
-        double uasPerM = Units.microarcsecPerM(sc.blackHole().massSolar(), sc.blackHole().distanceKpc());
+        double uasPerM = Units.uasPerM(sc.blackHole().massSolar(), sc.blackHole().distanceMpc());
         SourceSetup.Placed placed = SourceSetup.place(sc, st, capture);
         RunSettings run = sc.run();
         double duration = run.duration().toM(secondsPerM, placed.centres()[0].periodM());
@@ -196,7 +196,7 @@ public final class ScenarioRun {
         try {
             ObjectNode manifest = RunArchiveWriter.json().createObjectNode();
             ObjectNode summary = RunArchiveWriter.json().createObjectNode();
-            RunContext ctx = new RunContext(p.loaded(), st, p.landmarks(), p.secondsPerM(), p.microarcsecPerM(),
+            RunContext ctx = new RunContext(p.loaded(), st, p.landmarks(), p.secondsPerM(), p.uasPerM(),
                     p.placed(), history, archive, manifest, summary, Math.max(1, o.threads()), o.progress(),
                     new java.util.HashMap<>());
             ctx.products().put(TURNING_POINTS, turning);
@@ -377,7 +377,7 @@ public final class ScenarioRun {
         m.put("seed", sc.run().seed());
         ObjectNode bh = m.putObject("black_hole");
         bh.put("mass_solar", sc.blackHole().massSolar());
-        bh.put("distance_kpc", sc.blackHole().distanceKpc());
+        bh.put("distance_Mpc", sc.blackHole().distanceMpc());
         bh.put("family", sc.blackHole().family());
         bh.put("spin", sc.blackHole().spin());
         ObjectNode par = bh.putObject("parameters");
@@ -385,7 +385,7 @@ public final class ScenarioRun {
         ObjectNode u = m.putObject("units");
         u.put("M_seconds", p.secondsPerM());
         u.put("M_metres", Units.lengthUnitMetres(sc.blackHole().massSolar()));
-        u.put("M_microarcsec", p.microarcsecPerM());
+        u.put("M_uas", p.uasPerM());
         m.putObject("observer").put("inclination_deg", sc.observer().inclinationDeg())
                 .put("position_angle_deg", sc.observer().positionAngleDeg());
         ObjectNode lm = m.putObject("landmarks");

@@ -32,6 +32,8 @@ import org.spindrift.sim.scenario.ConfigSection.Range;
 public final class ScenarioLoader {
     /** Largest number of particles per source. */
     public static final int MAX_PARTICLES = 5_000_000;
+    /** Largest distance, Mpc. */
+    public static final double MAX_DISTANCE_MPC = 1.0e4;
 
     private ScenarioLoader() {
     }
@@ -72,9 +74,11 @@ public final class ScenarioLoader {
     }
 
     private static BlackHole blackHole(ConfigSection s) {
-        s.allow("mass_solar", "distance_kpc", "family", "spin", "parameters", "allow_horizonless");
+        s.renamed("distance_kpc", "distance", "a string with a unit, for example distance: \"40 Mpc\" (kpc and pc"
+                + " also accepted)");
+        s.allow("mass_solar", "distance", "family", "spin", "parameters", "allow_horizonless");
         double mass = s.number("mass_solar", Range.closed(1.0, 1.0e11));
-        double dist = s.number("distance_kpc", new Range(0.0, false, 1.0e7, true));
+        double dist = s.distanceMpc("distance", MAX_DISTANCE_MPC);
         String family = s.string("family", "kerr").toLowerCase(Locale.ROOT);
         double spin = s.number("spin", 0.0, Range.closed(-100, 100)); // family range: ScenarioChecks
         ConfigSection p = s.section("parameters", false);
@@ -216,8 +220,9 @@ public final class ScenarioLoader {
                 s.allow("kind", "peak", "width");
                 return new Flare.Gaussian(s.time("peak", null, false, false, false), s.time("width", null, false, false, true));
             default:
-                s.allow("kind", "start", "rise", "decay");
-                return new Flare.Exponential(s.time("start", null, false, false, false), s.time("rise", null, false, false, true),
+                s.renamed("start", "peak", "the time of the maximum");
+                s.allow("kind", "peak", "rise", "decay");
+                return new Flare.Exponential(s.time("peak", null, false, false, false), s.time("rise", null, false, false, true),
                         s.time("decay", null, false, false, true));
         }
     }

@@ -24,7 +24,7 @@ class LightOutputsTest {
     private static LightResult smallRun() {
         Spacetime st = LightTestSupport.kerr(0.3);
         CircularSpotHistory h = new CircularSpotHistory(st, 7.0, 0.0, 0.4, 200, 0.0, 300.0, 100, 1.0, 11L);
-        LightSettings s = new LightSettings(50.0, 30.0, 24.0, 40, 3.0, true, 4.0e6, 8.0, 20.0, 0.5, 5.0, 1.0, 3L);
+        LightSettings s = new LightSettings(50.0, 30.0, 24.0, 40, 3.0, true, 1.0e6, 1.0e-3, 30.0, 0.5, 3.0, 1.0, 3L);
         return LightStage.run(s, st, LightTestSupport.stopRadius(0.3), h, 2);
     }
 
@@ -66,7 +66,7 @@ class LightOutputsTest {
         assertEquals(r.camera().pixels(), cube.pixels());
         assertEquals(r.images()[mid][5 * r.camera().pixels() + 7], cube.frames()[mid][5][7]);
         assertEquals(r.camera().pixelSize() * r.settings().uasPerM(), cube.pixelUas(), 1e-9);
-        assertEquals(20.0, cube.beamFwhmUas(), 1e-9);
+        assertEquals(30.0, cube.beamFwhmUas(), 1e-9);
 
         double pixDeg = r.camera().pixelSize() * r.settings().uasPerM() / 3.6e9;
         String py = String.join("\n",

@@ -12,7 +12,7 @@ import org.spindrift.sim.spacetime.Spacetime;
 /** End-to-end checks of rays, slow-light emission, frames and instrument effects. */
 class LightStageTest {
     private static LightSettings settings(double inc, double fov, int n, double cadence, double steady) {
-        return new LightSettings(inc, 0.0, fov, n, cadence, true, 4.0e6, 8.0, 0.0, steady, 0.0, 1.0, 7L);
+        return new LightSettings(inc, 0.0, fov, n, cadence, true, 1.0e6, 1.0e-3, 0.0, steady, 0.0, 1.0, 7L);
     }
 
     @Test
@@ -181,7 +181,7 @@ class LightStageTest {
         double re = 10.0;
         double period = 2 * FastMath.PI * FastMath.pow(re, 1.5);
         CircularSpotHistory h = new CircularSpotHistory(st, re, 0.0, 0.3, 200, 0.0, 1.2 * period, 150, 1.0, 4L);
-        LightSettings s = new LightSettings(0.0, 0.0, 30.0, 64, period / 30.0, false, 4.0e6, 8.0, 0.0, 0.0, 0.0, 1.0, 7L);
+        LightSettings s = new LightSettings(0.0, 0.0, 30.0, 64, period / 30.0, false, 1.0e6, 1.0e-3, 0.0, 0.0, 0.0, 1.0, 7L);
         LightResult res = LightStage.run(s, st, LightTestSupport.stopRadius(0.0), h, 2);
         int checked = 0;
         for (int f = 0; f < res.timesM().length; f++) {
@@ -196,7 +196,7 @@ class LightStageTest {
         assertTrue(checked > 10, "covered frames");
         // delays kept: on straight lines the delay of a point x is the Roemer delay -n.x, n the unit
         // vector towards the observer (flat-space light travel time, common practice)
-        LightSettings s2 = new LightSettings(60.0, 0.0, 30.0, 32, 5.0, false, 4.0e6, 8.0, 0.0, 0.0, 0.0, 1.0, 7L);
+        LightSettings s2 = new LightSettings(60.0, 0.0, 30.0, 32, 5.0, false, 1.0e6, 1.0e-3, 0.0, 0.0, 0.0, 1.0, 7L);
         Camera cam = s2.camera();
         TraceSettings ts = LightStage.traceSettings(h, st, cam, LightTestSupport.stopRadius(0.0), 30.0, false);
         RayTable t = RayTable.trace(st, cam, ts, 1);

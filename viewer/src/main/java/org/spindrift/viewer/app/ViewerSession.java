@@ -72,7 +72,7 @@ public final class ViewerSession implements AutoCloseable {
                 Path img = o.runDir().resolve(ArchiveLayout.IMAGES);
                 Path csv = o.runDir().resolve(ArchiveLayout.CENTROID);
                 if (Files.isRegularFile(img)) {
-                    cube = ImageCube.open(img, info.mSeconds(), info.mMicroarcsec());
+                    cube = ImageCube.open(img, info.mSeconds(), info.mUas());
                 }
                 if (Files.isRegularFile(csv)) {
                     track = CentroidTrack.read(csv, info.mSeconds());

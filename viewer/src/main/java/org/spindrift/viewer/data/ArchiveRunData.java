@@ -126,7 +126,7 @@ public final class ArchiveRunData implements RunData {
         String title = a.scenarioName().isEmpty() ? String.valueOf(folder.toAbsolutePath().normalize().getFileName())
                 : a.scenarioName();
         return new RunInfo(title, times, List.copyOf(names), sourceOf, centres, landmarks, a.mSeconds(),
-                a.mMicroarcsec(), a.inclinationDeg(), a.positionAngleDeg());
+                a.mUas(), a.inclinationDeg(), a.positionAngleDeg());
     }
 
     private static double pick(Map<String, Double> lm, String[] keys) {
