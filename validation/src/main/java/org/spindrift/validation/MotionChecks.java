@@ -1,5 +1,6 @@
 package org.spindrift.validation;
 
+import org.spindrift.sim.spacetime.Landmarks;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -91,7 +92,7 @@ public final class MotionChecks {
     }
 
     static BatchIntegrator.Config config(Spacetime st, double tol) {
-        return BatchIntegrator.Config.of(OrbitSetup.captureRadius(st)).withTolerance(tol, tol).withEscapeRadius(1e5);
+        return BatchIntegrator.Config.of(Landmarks.captureRadius(st)).withTolerance(tol, tol).withEscapeRadius(1e5);
     }
 
     static OrbitMeasurement.Result measure(Spacetime st, OrbitElements.Solution s, int orbits) {

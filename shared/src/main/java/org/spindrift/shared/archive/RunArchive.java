@@ -153,7 +153,7 @@ public final class RunArchive implements AutoCloseable {
     }
 
     /**
-     * @return the numeric landmarks (horizon, ISCO, Omega maximum, surface_radius, ...); a JSON null
+     * @return the numeric landmarks (horizon, ISCO, Omega maximum, capture_radius, ...); a JSON null
      *     (landmark absent, for example no horizon) reads as NaN
      */
     public Map<String, Double> landmarks() {

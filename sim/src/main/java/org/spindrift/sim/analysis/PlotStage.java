@@ -223,8 +223,9 @@ public final class PlotStage implements RunStage {
                 ser.setMarker(SeriesMarkers.CIRCLE);
                 ser.setMarkerColor(RAMP[b]);
             }
-            double cap = captureRadius(ctx);
-            circle(c, (Double.isFinite(ctx.landmark("horizon_outer")) ? "horizon " : "surface ") + fmt(cap) + " M", cap,
+            double rh = ctx.landmark("horizon_outer");
+            double inner = Double.isFinite(rh) ? rh : ctx.landmark("capture_radius");
+            circle(c, (Double.isFinite(rh) ? "horizon " : "surface (capture radius) ") + fmt(inner) + " M", inner,
                     Color.BLACK, false);
             circle(c, "ISCO " + fmt(ctx.landmark("isco_prograde")) + " M", ctx.landmark("isco_prograde"), Color.GRAY, true);
             circle(c, "Omega max " + fmt(ctx.landmark("omega_max_radius")) + " M", ctx.landmark("omega_max_radius"),
@@ -232,11 +233,6 @@ public final class PlotStage implements RunStage {
             charts.add(c);
         }
         return charts;
-    }
-
-    private static double captureRadius(RunContext ctx) {
-        double h = ctx.landmark("horizon_outer");
-        return Double.isFinite(h) ? h : ctx.landmark("surface_radius");
     }
 
     private static XYChart shape(RunContext ctx, List<ShearShape> shapes) {

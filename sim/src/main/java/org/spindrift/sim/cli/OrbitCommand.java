@@ -1,5 +1,6 @@
 package org.spindrift.sim.cli;
 
+import org.spindrift.sim.spacetime.Landmarks;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.IOException;
@@ -86,7 +87,7 @@ public final class OrbitCommand implements Callable<Integer> {
         double iotaDeg = retrograde ? 180.0 - inclinationDeg : inclinationDeg;
         double iota = FastMath.toRadians(iotaDeg);
         OrbitElements.Solution sol = OrbitSetup.elements(st, p, e, iota);
-        BatchIntegrator.Config cfg = BatchIntegrator.Config.of(OrbitSetup.captureRadius(st))
+        BatchIntegrator.Config cfg = BatchIntegrator.Config.of(Landmarks.captureRadius(st))
                 .withTolerance(tolerance, tolerance).withEscapeRadius(FastMath.max(1e4, 10 * sol.apoapsis()));
         OrbitMeasurement.Result m = OrbitMeasurement.measure(st, sol.start(), orbits, cfg, 200,
                 OrbitMeasurement.keplerPeriod(p, e), e == 0.0);

@@ -262,7 +262,7 @@ public final class RayTable {
 
     /**
      * Straight-line rays (no lensing): the line through the pixel parallel to the line of sight,
-     * sampled uniformly inside the emission region, stopped at the stop radius (the hole stays
+     * sampled uniformly inside the emission region, stopped at the capture radius (the hole stays
      * opaque). Delays are the flat travel-time differences (Roemer delay), and p_mu is the flat
      * direction in spherical components, so Doppler factors are kept.
      */
@@ -271,7 +271,7 @@ public final class RayTable {
         int n = camera.pixels();
         double[] p = new double[6];
         double rEm = settings.emissionRadius();
-        double rStop = settings.stopRadius();
+        double rStop = settings.captureRadius();
         double ds = settings.sampleSpacing();
         double d = camera.distance();
         for (int col = 0; col < n; col++) {

@@ -104,7 +104,7 @@ public final class RayTracer implements DormandPrince54.Rhs {
         qphi = -angularMomentum;
         final double rEm = settings.emissionRadius();
         final double rEnd = FastMath.max(rEm, settings.endRadius());
-        final double rStop = settings.stopRadius();
+        final double rStop = settings.captureRadius();
         final double rtol = settings.relativeTolerance();
         final double atol = settings.absoluteTolerance();
         // radius of the sphere holding every possible sample (the mask's cube, or the emission sphere)

@@ -109,7 +109,7 @@ public final class ScenarioRun {
         Landmarks lm = Landmarks.of(st);
         Map<String, Double> landmarks = new LinkedHashMap<>();
         lm.toMap().forEach((k, v) -> landmarks.put(k, v == null ? Double.NaN : v));
-        double capture = ScenarioChecks.captureRadius(st, landmarks);
+        double capture = lm.captureRadius();
         ScenarioChecks.checkSources(ls, st, capture);
         double secondsPerM = Units.timeUnitSeconds(sc.blackHole().massSolar());
         double uasPerM = Units.uasPerM(sc.blackHole().massSolar(), sc.blackHole().distanceMpc());
@@ -390,7 +390,6 @@ public final class ScenarioRun {
                 .put("position_angle_deg", sc.observer().positionAngleDeg());
         ObjectNode lm = m.putObject("landmarks");
         p.landmarks().forEach((k, v) -> put(lm, k, v));
-        put(lm, "capture_radius", p.captureRadius());
         ObjectNode time = m.putObject("time");
         time.put("origin", "coordinate time t = 0 at the start of the run (emitter time)");
         time.put("duration_M", p.durationM());

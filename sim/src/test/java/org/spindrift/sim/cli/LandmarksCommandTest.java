@@ -22,16 +22,16 @@ class LandmarksCommandTest {
     }
 
     @Test
-    void jsonHasTheKeysOfTheIssue(@TempDir Path dir) throws Exception {
+    void jsonHasTheDocumentedKeys(@TempDir Path dir) throws Exception {
         Path png = dir.resolve("kerr.png");
         String out = run(0, "landmarks", "--family", "kerr", "--spin", "0.9", "--json", "--plot", png.toString())[0];
         JsonNode j = new ObjectMapper().readTree(out);
         List<String> keys = new ArrayList<>();
         j.fieldNames().forEachRemaining(keys::add);
-        // keys fixed by issue 2, plus surface_radius (run-archive manifest, DEVELOPERS.md)
+        // the keys documented in README.md (landmarks --json)
         assertEquals(List.of("horizon_outer", "ergosurface_equator", "isco_prograde", "isco_retrograde",
                 "photon_orbit_prograde", "photon_orbit_retrograde", "marginally_bound_prograde", "omega_max_radius",
-                "omega_max_value", "surface_radius"), keys);
+                "omega_max_value", "capture_radius"), keys);
         // BPT 1972 eq. 2.21 at a = 0.9 (value computed from the closed form, see LandmarksTest)
         assertEquals(2.3208830417618, j.get("isco_prograde").asDouble(), 1e-9);
         assertTrue(j.get("omega_max_radius").isNull());

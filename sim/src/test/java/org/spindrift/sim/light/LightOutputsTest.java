@@ -25,7 +25,7 @@ class LightOutputsTest {
         Spacetime st = LightTestSupport.kerr(0.3);
         CircularSpotHistory h = new CircularSpotHistory(st, 7.0, 0.0, 0.4, 200, 0.0, 300.0, 100, 1.0, 11L);
         LightSettings s = new LightSettings(50.0, 30.0, 24.0, 40, 3.0, true, 1.0e6, 1.0e-3, 30.0, 0.5, 3.0, 1.0, 3L);
-        return LightStage.run(s, st, LightTestSupport.stopRadius(0.3), h, 2);
+        return LightStage.run(s, st, LightTestSupport.captureRadius(0.3), h, 2);
     }
 
     @Test

@@ -1,5 +1,6 @@
 package org.spindrift.sim.motion;
 
+import org.spindrift.sim.spacetime.Landmarks;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -132,7 +133,7 @@ class OrbitElementsTest {
         MassFunctionSpacetime st = new MassFunctionSpacetime("bardeen", 0.5, MassFunctions.bardeen(0.6));
         OrbitElements.Solution s = OrbitElements.solve(st, 9.5, 0.35, Math.toRadians(50));
         OrbitMeasurement.Result m = OrbitMeasurement.measure(st, s.start(), 5,
-                BatchIntegrator.Config.of(OrbitSetup.captureRadius(st)), 400, OrbitMeasurement.keplerPeriod(9.5, 0.35));
+                BatchIntegrator.Config.of(Landmarks.captureRadius(st)), 400, OrbitMeasurement.keplerPeriod(9.5, 0.35));
         assertEquals(5, m.orbits());
         double[] rPeri = m.periapses()[1];
         for (double r : rPeri) {

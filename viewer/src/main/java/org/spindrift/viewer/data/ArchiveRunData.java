@@ -18,7 +18,7 @@ import org.spindrift.shared.archive.RunArchive;
 public final class ArchiveRunData implements RunData {
     /** Manifest landmark keys (those of {@code landmarks --json}); the first present wins. */
     private static final String[] HORIZON = {"horizon_outer", "horizon"};
-    private static final String[] SURFACE = {"surface_radius"};
+    private static final String[] CAPTURE = {"capture_radius"};
     private static final String[] ISCO = {"isco_prograde", "isco"};
     private static final String[] OMEGA_MAX = {"omega_max_radius"};
     private static final String[] ERGO = {"ergosurface_equator"};
@@ -121,7 +121,7 @@ public final class ArchiveRunData implements RunData {
         if (!Double.isFinite(spin)) {
             throw new UserInputException("run folder " + folder + ": manifest.json: key 'black_hole.spin' is missing");
         }
-        Landmarks landmarks = new Landmarks(spin, pick(lm, HORIZON), pick(lm, SURFACE), pick(lm, ISCO),
+        Landmarks landmarks = new Landmarks(spin, pick(lm, HORIZON), pick(lm, CAPTURE), pick(lm, ISCO),
                 pick(lm, OMEGA_MAX), pick(lm, ERGO));
         String title = a.scenarioName().isEmpty() ? String.valueOf(folder.toAbsolutePath().normalize().getFileName())
                 : a.scenarioName();
