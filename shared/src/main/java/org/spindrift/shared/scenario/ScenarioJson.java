@@ -90,8 +90,8 @@ public final class ScenarioJson {
             orb.putObject("elements").put("p_M", e.semiLatusRectumM()).put("e", e.eccentricity())
                     .put("inclination_deg", e.inclinationDeg()).put("sense", lower(e.sense()))
                     .put("start", lower(e.start())).put("phi_deg", e.phiDeg());
-        } else if (s.orbit() instanceof CentreOrbit.Local l) {
-            orb.putObject("local").put("r_M", l.radiusM()).put("theta_deg", l.thetaDeg()).put("phi_deg", l.phiDeg())
+        } else if (s.orbit() instanceof CentreOrbit.ZamoVelocity l) {
+            orb.putObject("zamo_velocity").put("r_M", l.radiusM()).put("theta_deg", l.thetaDeg()).put("phi_deg", l.phiDeg())
                     .put("v_r", l.vR()).put("v_theta", l.vTheta()).put("v_phi", l.vPhi());
         }
         ObjectNode v = o.putObject("velocity").put("model", lower(s.velocity().kind()));

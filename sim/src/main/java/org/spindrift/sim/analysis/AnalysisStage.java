@@ -91,7 +91,7 @@ public final class AnalysisStage implements RunStage {
         if (o instanceof CentreOrbit.Elements e) {
             return e.semiLatusRectumM();
         }
-        return ((CentreOrbit.Local) o).radiusM();
+        return ((CentreOrbit.ZamoVelocity) o).radiusM();
     }
 
     private static void summary(RunContext ctx, ParticlePeriods p, List<ShearShape> shapes) {

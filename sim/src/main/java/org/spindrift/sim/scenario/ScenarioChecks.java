@@ -95,9 +95,9 @@ public final class ScenarioChecks {
                             .replace("(--p, --e)", "(orbit.elements)").replace("--inclination-deg", "inclination_deg");
                     throw ls.error(base + ".elements.p_M", msg);
                 }
-            } else if (o instanceof CentreOrbit.Local l) {
+            } else if (o instanceof CentreOrbit.ZamoVelocity l) {
                 if (l.radiusM() <= captureRadius) {
-                    throw ls.error(base + ".local.r_M", "r = " + l.radiusM() + " M is inside the capture radius "
+                    throw ls.error(base + ".zamo_velocity.r_M", "r = " + l.radiusM() + " M is inside the capture radius "
                             + fmt(captureRadius) + " M");
                 }
             }

@@ -79,7 +79,7 @@ public final class ScenarioLoader {
         s.allow("mass_solar", "distance", "family", "spin", "parameters", "allow_horizonless");
         double mass = s.number("mass_solar", Range.closed(1.0, 1.0e11));
         double dist = s.distanceMpc("distance", MAX_DISTANCE_MPC);
-        String family = s.string("family", "kerr").toLowerCase(Locale.ROOT);
+        String family = org.spindrift.sim.spacetime.Spacetimes.canonical(s.string("family", "kerr").toLowerCase(Locale.ROOT));
         double spin = s.number("spin", 0.0, Range.closed(-100, 100)); // family range: ScenarioChecks
         ConfigSection p = s.section("parameters", false);
         Map<String, Double> params = p == null ? Map.of() : p.numberMap(Range.closed(-1e6, 1e6));
@@ -135,11 +135,13 @@ public final class ScenarioLoader {
     }
 
     private static CentreOrbit orbit(ConfigSection s, Source.Kind kind, SourceShape shape) {
-        s.allow("circular", "elements", "local");
-        int given = (s.has("circular") ? 1 : 0) + (s.has("elements") ? 1 : 0) + (s.has("local") ? 1 : 0);
+        s.renamed("local", "zamo_velocity", "the same keys (r_M, theta_deg, phi_deg, v_r, v_theta, v_phi; velocities"
+                + " measured by the zero-angular-momentum observer)");
+        s.allow("circular", "elements", "zamo_velocity");
+        int given = (s.has("circular") ? 1 : 0) + (s.has("elements") ? 1 : 0) + (s.has("zamo_velocity") ? 1 : 0);
         if (given != 1) {
             throw s.error(s.keys().isEmpty() ? "circular" : s.keys().iterator().next(),
-                    "give exactly one of circular, elements or local (got " + given + ")");
+                    "give exactly one of circular, elements or zamo_velocity (got " + given + ")");
         }
         if (kind == Source.Kind.RING && !s.has("circular")) {
             throw s.error(s.keys().iterator().next(), "a ring's centre moves on a circular orbit: use orbit.circular");
@@ -168,7 +170,7 @@ public final class ScenarioLoader {
                     .toUpperCase(Locale.ROOT));
             return new CentreOrbit.Elements(p, ecc, inc, sense, start, e.number("phi_deg", 0.0, Range.closed(-360, 360)));
         }
-        ConfigSection l = s.section("local", true).allow("r_M", "theta_deg", "phi_deg", "v_r", "v_theta", "v_phi");
+        ConfigSection l = s.section("zamo_velocity", true).allow("r_M", "theta_deg", "phi_deg", "v_r", "v_theta", "v_phi");
         double r = l.number("r_M", Range.positive(1e5));
         double th = l.number("theta_deg", 90.0, new Range(0, false, 180, false));
         double ph = l.number("phi_deg", 0.0, Range.closed(-360, 360));
@@ -177,10 +179,10 @@ public final class ScenarioLoader {
         double vp = l.number("v_phi", 0.0, Range.closed(-1, 1));
         double v2 = vr * vr + vt * vt + vp * vp;
         if (!(v2 < 1.0)) {
-            throw l.error("v_phi", "the local speed sqrt(v_r^2 + v_theta^2 + v_phi^2) = " + Math.sqrt(v2)
+            throw l.error("v_phi", "the speed sqrt(v_r^2 + v_theta^2 + v_phi^2) = " + Math.sqrt(v2)
                     + " must be below 1 (units of c)");
         }
-        return new CentreOrbit.Local(r, th, ph, vr, vt, vp);
+        return new CentreOrbit.ZamoVelocity(r, th, ph, vr, vt, vp);
     }
 
     private static VelocityModel velocity(ConfigSection s, Source.Kind kind) {

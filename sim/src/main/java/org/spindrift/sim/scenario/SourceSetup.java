@@ -49,7 +49,7 @@ public final class SourceSetup {
      * @param phi azimuth
      * @param velocity ZAMO-frame 3-velocity (v_r, v_theta, v_phi), units of c
      * @param periodM the centre's orbital period in coordinate time, M (what "1 orbit" means):
-     *     circular orbits 2 pi / |Omega|, orbit elements the measured radial period, local starts a
+     *     circular orbits 2 pi / |Omega|, orbit elements the measured radial period, ZAMO-velocity starts a
      *     Keplerian estimate
      * @param prediction the metric's prediction of the periods for this centre
      */
@@ -155,7 +155,7 @@ public final class SourceSetup {
         if (o instanceof CentreOrbit.Elements e) {
             return ElementsStart.centre(e, st, zamo, captureRadius);
         }
-        CentreOrbit.Local l = (CentreOrbit.Local) o;
+        CentreOrbit.ZamoVelocity l = (CentreOrbit.ZamoVelocity) o;
         double th = Math.toRadians(l.thetaDeg());
         boolean pro = l.vPhi() >= 0;
         double om = CircularOrbits.omega(st, l.radiusM(), pro);

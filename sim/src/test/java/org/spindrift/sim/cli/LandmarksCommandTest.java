@@ -48,7 +48,8 @@ class LandmarksCommandTest {
     @CsvSource(delimiter = ';', value = {
         "--family kerr --spin 0.5", "--family kerr-newman --spin 0.5 --charge 0.6",
         "--family hayward --spin 0.5 --core-length 0.4", "--family bardeen --spin 0.5 --core-charge 0.3",
-        "--family mass-series --spin 0.5 --series 2=0.5,3=-0.1", "--family jp --spin 0.5 --epsilon3 1.5"})
+        "--family mass-series --spin 0.5 --series 2=0.5,3=-0.1", "--family jp --spin 0.5 --epsilon3 1.5",
+        "--family johannsen-psaltis --spin 0.5 --epsilon3 1.5"})
     void everyFamilyAnswers(String args) throws Exception {
         List<String> argv = new ArrayList<>(List.of("landmarks", "--json", "--at", "8"));
         argv.addAll(List.of(args.split(" ")));
@@ -88,7 +89,7 @@ class LandmarksCommandTest {
         "--family jp --spin 0.5 --epsilon3 -7;--epsilon3 = -7 is out of range: epsilon3 > -(1 + sqrt(1 - a^2))^3"
                 + " = -6.4976 at --spin = 0.5 (use --allow-horizonless for a horizonless object)",
         "--family schwarzschild;--family = schwarzschild is not a known family: one of kerr, kerr-newman, hayward,"
-                + " bardeen, mass-series, jp",
+                + " bardeen, mass-series, johannsen-psaltis (alias jp)",
         "--at -3;--at radius -3.0 is out of range: 0 < r <= 1e6 M",
     })
     void badParametersExitWithStatusTwoAndOneLine(String args, String message) {

@@ -102,8 +102,13 @@ class BadConfigTest {
                         "inner_radius_M: 9\n      outer_radius_M: 7"), "sources[0].shape.outer_radius_M", "larger than"),
                 Arguments.of("tolerance.yaml", swap("tolerance: 1.0e-8", "tolerance: 0.5"), "run.tolerance",
                         "out of range"),
-                Arguments.of("superluminal.yaml", swap(circ, "      local:\n        r_M: 8\n        v_phi: 0.8\n"
-                        + "        v_r: 0.7\n"), "sources[0].orbit.local", "below 1"),
+                Arguments.of("superluminal.yaml", swap(circ, "      zamo_velocity:\n        r_M: 8\n        v_phi: 0.8\n"
+                        + "        v_r: 0.7\n"), "sources[0].orbit.zamo_velocity", "below 1"),
+                Arguments.of("old-local-key.yaml", swap(circ, "      local:\n        r_M: 8\n"),
+                        "sources[0].orbit.local", "use 'sources[0].orbit.zamo_velocity'"),
+                Arguments.of("old-flare-start.yaml", swap("kind: gaussian\n        peak: 10 min\n        width: 3 min",
+                        "kind: exponential\n        start: 10 min\n        rise: 3 min\n        decay: 3 min"),
+                        "sources[0].emission.flare.start", "use 'sources[0].emission.flare.peak'"),
                 Arguments.of("no-horizon.yaml", swap("family: kerr", "family: hayward\n  parameters:\n"
                         + "    core_length: 1.5"), "black_hole.parameters.core_length", "no horizon"),
                 Arguments.of("below-separatrix.yaml", swap(circ, ELEMENTS.replace("p_M: 10", "p_M: 3.5")),
