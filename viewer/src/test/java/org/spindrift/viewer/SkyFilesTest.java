@@ -44,8 +44,8 @@ class SkyFilesTest {
         try (Fits fits = new Fits()) {
             BasicHDU<?> hdu = Fits.makeHDU(cube);
             Header h = hdu.getHeader();
-            h.addValue("CTYPE1", "RA---TAN", "");
-            h.addValue("CTYPE2", "DEC--TAN", "");
+            h.addValue("CTYPE1", "OFLN-TAN", "");
+            h.addValue("CTYPE2", "OFLT-TAN", "");
             h.addValue("CTYPE3", "TIME", "");
             h.addValue("CUNIT1", "deg", "");
             h.addValue("CUNIT2", "deg", "");

@@ -79,7 +79,9 @@ class LightOutputsTest {
                 "c = w.celestial",
                 "s = proj_plane_pixel_scales(c)",
                 "ra, dec = c.wcs_pix2world([[(h.header['NAXIS1'] - 1) / 2.0, (h.header['NAXIS2'] - 1) / 2.0]], 0)[0]",
-                "print(w.naxis, h.data.shape[0], s[0], s[1], c.wcs.cdelt[0], ra, dec, w.wcs.ctype[2])");
+                "print(w.naxis, h.data.shape[0], s[0], s[1], c.wcs.cdelt[0], ra, dec, w.wcs.ctype[2],",
+                "      'RADESYS' in h.header, 'EQUINOX' in h.header, 'PA' in h.header, h.header['SPINPA'],",
+                "      w.wcs.name.replace(' ', '_'), w.has_celestial)");
         String exe = ExternalPython.require("astropy.wcs", "python3-astropy");
         List<String> lines = ExternalPython.run(exe, py, dir.resolve("images.fits").toString());
         String out = lines.get(lines.size() - 1);
@@ -92,11 +94,18 @@ class LightOutputsTest {
         assertEquals(expected, Double.parseDouble(f[2]), 1e-6 * expected, "x pixel scale");
         assertEquals(expected, Double.parseDouble(f[3]), 1e-6 * expected, "y pixel scale");
         assertTrue(Double.parseDouble(f[4]) < 0, "CDELT1 negative: east to the left");
-        // image centre maps to the reference point (the black hole), RA 0 or 360, Dec 0
+        // image centre maps to the reference point (the black hole), longitude 0 or 360, latitude 0
         double ra = Double.parseDouble(f[5]);
         assertEquals(0.0, Math.min(ra, 360.0 - ra), 1e-12);
         assertEquals(0.0, Double.parseDouble(f[6]), 1e-12);
         assertEquals("TIME", f[7]);
+        // offset frame: no equatorial system claimed, named by WCSNAME; spin PA not confusable with BPA
+        assertEquals("False", f[8], "no RADESYS");
+        assertEquals("False", f[9], "no EQUINOX");
+        assertEquals("False", f[10], "no PA card");
+        assertEquals(r.settings().positionAngleDeg(), Double.parseDouble(f[11]), 1e-12);
+        assertEquals(LightOutputs.OFFSET_FRAME.replace(' ', '_'), f[12]);
+        assertEquals("True", f[13], "astropy reads the offset pair as celestial");
     }
 
 }
