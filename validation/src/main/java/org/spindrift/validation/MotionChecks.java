@@ -22,7 +22,7 @@ import org.spindrift.sim.spacetime.MassFunctions;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * The motion checks of issue 3: periastron advance against the exact Schwarzschild result and
+ * The motion checks: periastron advance against the exact Schwarzschild result and
  * the post-Newtonian expansions (with the slope of the residuals), Kerr periods and advance
  * against quadrature of the potentials, and trajectories against Hipparchus'
  * DormandPrince853Integrator. Tolerances are named constants here, each with its reason.

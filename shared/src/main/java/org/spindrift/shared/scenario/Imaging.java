@@ -1,7 +1,7 @@
 package org.spindrift.shared.scenario;
 
 /**
- * The camera of the light stage (DESIGN section 7). All keys optional in a scenario.
+ * The camera of the light stage. All keys optional in a scenario.
  *
  * @param fieldOfViewM full width of the square field of view on the screen, M
  * @param pixels pixels per side

@@ -75,7 +75,7 @@ public final class PlotStage implements RunStage {
             }
         });
         if (charts.size() == 1) {
-            // a vector twin where XChart offers one (single-panel charts; DESIGN section 8)
+            // a vector twin where XChart offers one (single-panel charts)
             ctx.archive().write(name.replaceFirst("\\.png$", ".svg"), tmp -> {
                 try (OutputStream out = Files.newOutputStream(tmp)) {
                     VectorGraphicsEncoder.saveVectorGraphic(charts.get(0), out,
@@ -150,7 +150,7 @@ public final class PlotStage implements RunStage {
         double[] e1 = new double[3];
         double[] e2 = new double[3];
         if (Math.abs(nrm[2]) > 0.999) {
-            // equatorial: keep the x, y axes of DESIGN section 3
+            // equatorial: keep the display x, y axes
             e1 = new double[] {1, 0, 0};
             e2 = new double[] {0, Math.signum(nrm[2]), 0};
         } else {

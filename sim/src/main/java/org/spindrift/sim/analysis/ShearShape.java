@@ -1,7 +1,7 @@
 package org.spindrift.sim.analysis;
 
 /**
- * The shape of one source at one snapshot (DESIGN section 8). Lengths in M, angles in degrees.
+ * The shape of one source at one snapshot. Lengths in M, angles in degrees.
  *
  * @param source source index
  * @param snapshot snapshot index

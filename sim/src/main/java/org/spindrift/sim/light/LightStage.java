@@ -7,7 +7,7 @@ import org.hipparchus.util.FastMath;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * The light stage of a run (DESIGN section 7): traces the ray table once, renders the frames with
+ * The light stage of a run: traces the ray table once, renders the frames with
  * slow light, measures flux, centroid and moments, and applies the instrument (beam, steady
  * point source, astrometric noise).
  *

@@ -8,8 +8,7 @@ import org.hipparchus.util.FastMath;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * The camera's rays, traced once per run (the observer is fixed and the metric stationary,
- * DESIGN section 7): for every pixel the photon's angular momentum L = p_phi, how the ray ended,
+ * The camera's rays, traced once per run (the observer is fixed and the metric stationary): for every pixel the photon's angular momentum L = p_phi, how the ray ended,
  * and its samples inside the emission region (packed, structure of arrays, each with its own
  * p_phi because refined pixels hold several sub-pixel rays; the samples of pixel k
  * are {@code start[k] .. start[k+1]-1}). Rows of pixels are traced as independent tasks whose

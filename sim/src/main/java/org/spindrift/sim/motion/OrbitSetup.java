@@ -9,7 +9,7 @@ import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * The three ways of starting a test mass (DESIGN section 5): (a) a circular equatorial orbit of
+ * The three ways of starting a test mass: (a) a circular equatorial orbit of
  * given radius and sense ({@link CircularOrbits}), (b) bound orbit elements
  * ({@link OrbitElements}, Schmidt 2002), (c) a position and a local velocity in the ZAMO frame
  * ({@link ZamoFrame}). Trajectories end at {@link Landmarks#captureRadius(Spacetime)}.

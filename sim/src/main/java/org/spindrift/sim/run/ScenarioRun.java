@@ -319,7 +319,7 @@ public final class ScenarioRun {
         return q;
     }
 
-    /** Max and median |H + 1/2|, Carter-constant drift, end states and failure reasons (DESIGN section 5). */
+    /** Max and median |H + 1/2|, Carter-constant drift, end states and failure reasons. */
     private static ObjectNode diagnostics(Spacetime st, ParticleBatch b, double[] q0, BatchIntegrator.Result res) {
         GeodesicEquations eq = new GeodesicEquations(st);
         int n = b.size();

@@ -15,12 +15,12 @@ import org.spindrift.sim.spacetime.CircularOrbits;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * Initial conditions of every source's particles (DESIGN section 6), at coordinate time 0.
+ * Initial conditions of every source's particles, at coordinate time 0.
  *
  * <ul>
  *   <li>Hot spot and cloud: positions Gaussian about the centre along its local radial,
  *       azimuthal and vertical directions (ball: one sigma; ellipsoid: three), in the Cartesian
- *       display coordinates of DESIGN section 3, mapped back with
+ *       display coordinates (x = sqrt(r^2 + a^2) sin(theta) cos(phi), ...), mapped back with
  *       {@link Coordinates#boyerLindquist}; draws that land inside the capture radius are drawn
  *       again (a Gaussian truncated at the horizon).</li>
  *   <li>Ring: radii uniform in [inner, outer], azimuths uniform over the arc, in the equatorial

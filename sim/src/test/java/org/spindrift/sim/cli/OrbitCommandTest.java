@@ -19,14 +19,14 @@ class OrbitCommandTest {
     }
 
     @Test
-    void jsonHasExactlyTheKeysOfTheIssue(@TempDir Path dir) throws Exception {
+    void jsonHasExactlyTheDocumentedKeys(@TempDir Path dir) throws Exception {
         Path png = dir.resolve("orbit.png");
         String out = run(0, "orbit", "--family", "kerr", "--spin", "0.9", "--p", "8", "--e", "0.3",
                 "--orbits", "4", "--json", "--plot", png.toString());
         JsonNode j = new ObjectMapper().readTree(out);
         List<String> keys = new ArrayList<>();
         j.fieldNames().forEachRemaining(keys::add);
-        // key list fixed by issue 3
+        // the key list documented in README.md (orbit --json)
         assertEquals(List.of("energy", "angular_momentum", "carter", "period_radial", "period_azimuthal",
                 "period_polar", "periastron_advance", "mass_shell_drift_max", "carter_drift_max", "advance_1pn",
                 "advance_2pn", "advance_spin"), keys);

@@ -21,7 +21,7 @@ import picocli.CommandLine;
 
 /**
  * A table of broken scenario files: each gives exit status 2 from {@code check} and from
- * {@code run}, one line naming the file and the key, and no output folder (issue 4).
+ * {@code run}, one line naming the file and the key, and no output folder.
  */
 class BadConfigTest {
     @TempDir Path tmp;

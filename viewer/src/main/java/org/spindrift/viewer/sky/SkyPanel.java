@@ -14,7 +14,7 @@ import org.spindrift.viewer.ui.Text;
 /**
  * The sky panel: the image frame at the current observer time (when the run has images.fits),
  * the centroid track up to that time, north up and east left, with a scale bar in micro-arcseconds
- * and a compass. Sky x points east, y north (DESIGN section 3), so a point (x, y) is drawn at
+ * and a compass. Sky x points east, y north, so a point (x, y) is drawn at
  * screen (cx - x s, cy - y s).
  */
 public final class SkyPanel implements AutoCloseable {
