@@ -1,6 +1,5 @@
 package org.spindrift.validation;
 
-import org.spindrift.sim.spacetime.Landmarks;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -17,6 +16,7 @@ import org.spindrift.sim.motion.OrbitMeasurement;
 import org.spindrift.sim.motion.OrbitSetup;
 import org.spindrift.sim.motion.ParticleBatch;
 import org.spindrift.sim.motion.Predictions;
+import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 import org.spindrift.sim.spacetime.MassFunctions;
 import org.spindrift.sim.spacetime.Spacetime;

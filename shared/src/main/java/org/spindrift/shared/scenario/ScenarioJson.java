@@ -53,6 +53,7 @@ public final class ScenarioJson {
             img.put("frame_cadence", im.frameCadence().toString());
         }
         img.put("lensing", im.lensing());
+        img.put("sky_colours", im.skyColours().key());
         Instrument in = s.instrument();
         o.putObject("instrument").put("beam_fwhm_uas", in.beamFwhmUas())
                 .put("steady_source_flux_ratio", in.steadySourceFluxRatio())

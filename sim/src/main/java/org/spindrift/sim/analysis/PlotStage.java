@@ -17,6 +17,7 @@ import org.knowm.xchart.internal.chartpart.Chart;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.shared.Coordinates;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.sim.run.ParticleHistory;
 import org.spindrift.sim.run.RunContext;
@@ -36,9 +37,14 @@ import org.spindrift.sim.run.SnapshotStage;
  * </ul>
  */
 public final class PlotStage implements RunStage {
-    /** Colours from dark blue through teal and green to yellow (perceptually ordered; after matplotlib's viridis). */
-    static final Color[] RAMP = {new Color(68, 1, 84), new Color(65, 68, 135), new Color(42, 120, 142),
-        new Color(34, 168, 132), new Color(122, 209, 81), new Color(253, 231, 37)};
+    /** Six ordered colours from the project's sequential ramp (up to 0.8 of it: visible on white). */
+    static final Color[] RAMP = new Color[6];
+
+    static {
+        for (int i = 0; i < RAMP.length; i++) {
+            RAMP[i] = new Color(ColourRamp.SKY.rgb(0.8 * i / (RAMP.length - 1)));
+        }
+    }
     /** Distinct colours for lines (times, sources). */
     static final Color[] LINES = {new Color(31, 119, 180), new Color(255, 127, 14), new Color(44, 160, 44),
         new Color(214, 39, 40), new Color(148, 103, 189), new Color(140, 86, 75), new Color(23, 190, 207)};

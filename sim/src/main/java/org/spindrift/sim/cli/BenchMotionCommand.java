@@ -1,6 +1,5 @@
 package org.spindrift.sim.cli;
 
-import org.spindrift.sim.spacetime.Landmarks;
 import java.util.Locale;
 import java.util.SplittableRandom;
 import java.util.concurrent.Callable;
@@ -19,6 +18,7 @@ import org.spindrift.sim.motion.OrbitSetup;
 import org.spindrift.sim.motion.ParticleBatch;
 import org.spindrift.sim.motion.ZamoFrame;
 import org.spindrift.sim.spacetime.CircularOrbits;
+import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 import org.spindrift.sim.spacetime.MassFunctions;
 import org.spindrift.sim.spacetime.Spacetime;

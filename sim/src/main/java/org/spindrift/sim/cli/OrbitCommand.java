@@ -1,6 +1,5 @@
 package org.spindrift.sim.cli;
 
-import org.spindrift.sim.spacetime.Landmarks;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.IOException;
@@ -18,6 +17,7 @@ import org.spindrift.sim.motion.OrbitElements;
 import org.spindrift.sim.motion.OrbitMeasurement;
 import org.spindrift.sim.motion.OrbitSetup;
 import org.spindrift.sim.motion.Predictions;
+import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.Spacetime;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;

@@ -20,6 +20,7 @@ import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.lines.SeriesLines;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.colour.ColourRamp;
 
 /**
  * Plots of the light stage (PNG): the centroid track on the sky (north up, east left, time
@@ -55,18 +56,12 @@ public final class LightPlots {
         names.add(ArchiveLayout.PLOTS + "/" + name);
     }
 
-    /** Colour of fraction f in [0, 1]: dark blue through teal and green to yellow (perceptual ramp). */
+    /**
+     * Colour of fraction f in [0, 1] for lines on a white background: the project's sequential
+     * ramp ({@link ColourRamp#SKY}) up to 0.8 of its length, so the lightest colour stays visible.
+     */
     static Color ramp(double f) {
-        double[][] stops = {{0.27, 0.00, 0.33}, {0.23, 0.32, 0.55}, {0.13, 0.57, 0.55}, {0.37, 0.79, 0.38},
-            {0.99, 0.91, 0.14}};
-        double x = Math.max(0, Math.min(1, f)) * (stops.length - 1);
-        int i = Math.min(stops.length - 2, (int) x);
-        double u = x - i;
-        float[] c = new float[3];
-        for (int k = 0; k < 3; k++) {
-            c[k] = (float) (stops[i][k] + u * (stops[i + 1][k] - stops[i][k]));
-        }
-        return new Color(c[0], c[1], c[2]);
+        return new Color(ColourRamp.SKY.rgb(0.8 * Math.max(0, Math.min(1, f))));
     }
 
     private static XYChart track(LightResult r) {
@@ -354,7 +349,7 @@ public final class LightPlots {
                 for (int col = 0; col < n; col++) {
                     double v = peak > 0 ? Math.sqrt(Math.max(0, img[row * n + col]) / peak) : 0;
                     // image row 0 is south: draw it at the bottom; column 0 is east: on the left
-                    tile.setRGB(col, n - 1 - row, heat(v).getRGB());
+                    tile.setRGB(col, n - 1 - row, s.skyColours().rgb(v));
                 }
             }
             g.drawImage(tile, x0, y0, cell, cell, null);
@@ -384,12 +379,4 @@ public final class LightPlots {
         }
     }
 
-    /** Black through red and orange to white (a heat ramp). */
-    static Color heat(double v) {
-        double x = Math.max(0, Math.min(1, v));
-        float rr = (float) Math.min(1, 3 * x);
-        float gg = (float) Math.max(0, Math.min(1, 3 * x - 1));
-        float bb = (float) Math.max(0, Math.min(1, 3 * x - 2));
-        return new Color(rr, gg, bb);
-    }
 }

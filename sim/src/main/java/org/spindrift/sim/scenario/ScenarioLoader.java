@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.shared.scenario.BlackHole;
 import org.spindrift.shared.scenario.CentreOrbit;
 import org.spindrift.shared.scenario.Emission;
@@ -243,10 +244,11 @@ public final class ScenarioLoader {
         if (s == null) {
             return Imaging.defaults();
         }
-        s.allow("field_of_view_M", "pixels", "frame_cadence", "lensing");
+        s.allow("field_of_view_M", "pixels", "frame_cadence", "lensing", "sky_colours");
         return new Imaging(s.number("field_of_view_M", Imaging.DEFAULT_FIELD_OF_VIEW_M, Range.positive(1e5)),
                 (int) s.integer("pixels", (long) Imaging.DEFAULT_PIXELS, 8, 4096),
-                s.time("frame_cadence", null, true, false, true), s.bool("lensing", true));
+                s.time("frame_cadence", null, true, false, true), s.bool("lensing", true),
+                ColourRamp.skyOption(s.choice("sky_colours", "default", "default", "grey")));
     }
 
     private static Instrument instrument(ConfigSection s) {

@@ -1,14 +1,13 @@
 package org.spindrift.sim.motion;
 
+import org.junit.jupiter.api.Test;
+import org.spindrift.shared.UserInputException;
 import org.spindrift.sim.spacetime.Landmarks;
+import org.spindrift.sim.spacetime.MassFunctionSpacetime;
+import org.spindrift.sim.spacetime.MassFunctions;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
-
-import org.junit.jupiter.api.Test;
-import org.spindrift.shared.UserInputException;
-import org.spindrift.sim.spacetime.MassFunctionSpacetime;
-import org.spindrift.sim.spacetime.MassFunctions;
 
 class OrbitElementsTest {
     @Test
