@@ -3,6 +3,7 @@ package org.spindrift.viewer.app;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.viewer.data.ArchiveRunData;
 import org.spindrift.viewer.data.RunData;
 import org.spindrift.viewer.data.RunInfo;
@@ -37,7 +38,7 @@ public final class ViewerSession implements AutoCloseable {
 
     /** Parsed command-line options. */
     public record Options(Path runDir, int width, int height, Quantity colour, CameraStart camera,
-                          Double cameraDistance, boolean bare, boolean noSky, Integer samples) {
+                          Double cameraDistance, boolean bare, boolean noSky, Integer samples, ColourRamp skyColours) {
         /** Multisampling chosen by the user, else 4 (software renderers: see {@link ViewerSession#samples}). */
         public int samplesOr(int fallback) {
             return samples != null ? samples : fallback;
@@ -91,7 +92,7 @@ public final class ViewerSession implements AutoCloseable {
                 sky = new SkyPanel(cube, track, info.mSeconds() / 60.0);
                 cube = null; // owned by the panel now
             }
-            c = new FrameComposer(info, s, sky, o.bare());
+            c = new FrameComposer(info, s, sky, o.bare(), o.skyColours());
             c.scene().quantity(o.colour());
             c.layout().update(o.width(), o.height(), o.bare(), sky != null);
             c.scene().aspect(c.layout().viewW / (float) Math.max(1, c.layout().viewH));

@@ -166,8 +166,8 @@ public final class ArchiveRunData implements RunData {
             dest.put(o + X, (float) pos[0][i]);
             dest.put(o + Y, (float) pos[1][i]);
             dest.put(o + Z, (float) pos[2][i]);
-            // redshift factor of a zero-angular-momentum photon, g = 1/u^t (see Quantity.REDSHIFT)
-            dest.put(o + REDSHIFT, ut[i] > 0 ? (float) (1.0 / ut[i]) : 0f);
+            // time dilation 1/u^t = g of a zero-angular-momentum photon (see Quantity.TIME_DILATION)
+            dest.put(o + TIME_DILATION, ut[i] > 0 ? (float) (1.0 / ut[i]) : 0f);
             dest.put(o + WEIGHT, w[i]);
             dest.put(o + RADIUS, (float) r[i]);
             boolean finite = Double.isFinite(pos[0][i]) && Double.isFinite(pos[1][i]) && Double.isFinite(pos[2][i]);
