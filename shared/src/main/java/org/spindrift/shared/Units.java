@@ -16,8 +16,6 @@ public final class Units {
     public static final double AU = 149_597_870_700.0;
     /** Parsec in m: 648000/pi au (IAU 2015 Resolution B2). */
     public static final double PARSEC = 648_000.0 / Math.PI * AU;
-    /** Kiloparsec in m. */
-    public static final double KILOPARSEC = 1000.0 * PARSEC;
     /** Megaparsec in m. */
     public static final double MEGAPARSEC = 1.0e6 * PARSEC;
     /** Micro-arcseconds per radian. */

@@ -107,7 +107,7 @@ public final class RunArchive implements AutoCloseable {
         return manifest.path("black_hole").path("mass_solar").asDouble(Double.NaN);
     }
 
-    /** @return the distance in kpc */
+    /** @return the distance in Mpc (manifest black_hole.distance_Mpc) */
     public double distanceMpc() {
         return manifest.path("black_hole").path("distance_Mpc").asDouble(Double.NaN);
     }
