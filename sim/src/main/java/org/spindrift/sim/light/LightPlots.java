@@ -75,7 +75,7 @@ public final class LightPlots {
         style(c);
         c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideE);
         // plotted abscissa is -x so that east is on the left; ticks show the true east offset
-        c.getStyler().setxAxisTickLabelsFormattingFunction(v -> String.format(Locale.ROOT, "%.0f", v == 0 ? 0.0 : -v));
+        c.getStyler().setxAxisTickLabelsFormattingFunction(v -> sig(v == 0 ? 0.0 : -v));
         // frames fainter than 1% of the peak flux are left out: their centroid is noise
         double peak = 0;
         for (FrameMoments m : r.moments()) {
@@ -280,6 +280,21 @@ public final class LightPlots {
         c.getStyler().setXAxisMax(Math.ceil(t[t.length - 1] / step) * step);
     }
 
+    /**
+     * @return v with three significant digits, trailing zeros dropped (angles on the sky span many
+     *     decades: an invented nucleus at tens of Mpc subtends well below one micro-arcsecond)
+     */
+    static String sig(double v) {
+        if (v == 0) {
+            return "0";
+        }
+        String s = String.format(Locale.ROOT, "%.3g", v);
+        if (s.contains(".") && !s.contains("e")) {
+            s = s.replaceAll("0+$", "").replaceAll("\\.$", "");
+        }
+        return s;
+    }
+
     /** Tick label with as few decimals as the value needs (at most 2). */
     static String tick(Double v) {
         double a = Math.abs(v);
@@ -321,9 +336,9 @@ public final class LightPlots {
         LightSettings s = r.settings();
         double half = 0.5 * r.camera().fieldOfView() * s.uasPerM();
         g.setColor(Color.BLACK);
-        g.drawString(String.format(Locale.ROOT, "Images (%s), square-root stretch, common scale per row; field %.0f uas = %.0f M;"
+        g.drawString(String.format(Locale.ROOT, "Images (%s), square-root stretch, common scale per row; field %s uas = %s M;"
                 + " north up, east left; + marks the black hole%s",
-                s.lensing() ? "ray traced" : "straight lines", 2 * half, r.camera().fieldOfView(),
+                s.lensing() ? "ray traced" : "straight lines", sig(2 * half), sig(r.camera().fieldOfView()),
                 beamed ? String.format(Locale.ROOT, "; lower row convolved with the beam, FWHM %.3g uas (circle)",
                         s.beamFwhmUas()) : ""), margin, h - 14);
         g.dispose();
@@ -357,11 +372,11 @@ public final class LightPlots {
             g.drawRect(x0, y0, cell, cell);
             g.drawString(String.format(Locale.ROOT, "t = %.1f min%s", r.timesM()[idx[i]] * s.minutesPerM(),
                     beamRow ? ", with beam" : ""), x0, y0 - 10);
-            g.drawString(String.format(Locale.ROOT, "%.0f", half), x0 - 8, y0 + cell + 18);
-            g.drawString(String.format(Locale.ROOT, "%.0f", -half), x0 + cell - 20, y0 + cell + 18);
+            g.drawString(sig(half), x0 - 8, y0 + cell + 18);
+            g.drawString(sig(-half), x0 + cell - 30, y0 + cell + 18);
             g.drawString("east offset (uas)", x0 + cell / 2 - 50, y0 + cell + 18);
-            g.drawString(String.format(Locale.ROOT, "%.0f", half), x0 - 30, y0 + 10);
-            g.drawString(String.format(Locale.ROOT, "%.0f", -half), x0 - 34, y0 + cell);
+            g.drawString(sig(half), x0 - 40, y0 + 10);
+            g.drawString(sig(-half), x0 - 44, y0 + cell);
             g.setColor(Color.CYAN);
             int cx = x0 + cell / 2, cy = y0 + cell / 2;
             g.drawLine(cx - 6, cy, cx + 6, cy);

@@ -42,6 +42,16 @@ class LightOutputsTest {
                 Files.copy(dir.resolve(n), to, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
             }
         }
+        // the image frames use the shared sky ramp: empty sky (intensity 0) is its dark end
+        java.awt.image.BufferedImage img = javax.imageio.ImageIO.read(dir.resolve("plots/light_images.png").toFile());
+        int dark = org.spindrift.shared.colour.ColourRamp.SKY.rgb(0.0);
+        int count = 0;
+        for (int y = 0; y < img.getHeight(); y++) {
+            for (int x = 0; x < img.getWidth(); x++) {
+                count += (img.getRGB(x, y) & 0xffffff) == dark ? 1 : 0;
+            }
+        }
+        assertTrue(count > 1000, "pixels of the sky ramp's dark end in light_images.png: " + count);
         List<String> c = Files.readAllLines(dir.resolve("centroid.csv"), StandardCharsets.UTF_8);
         assertEquals(LightOutputs.CENTROID_HEADER, c.get(0));
         assertEquals(r.timesM().length + 1, c.size());
