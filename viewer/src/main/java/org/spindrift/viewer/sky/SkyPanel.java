@@ -222,7 +222,7 @@ public final class SkyPanel implements AutoCloseable {
             int last = track.indexAt(tObs);
             text.clear().add("centroid");
             if (last >= 0 && Double.isFinite(track.x(last))) {
-                text.add("  x = ").fixed(track.x(last), 2).add("  y = ").fixed(track.y(last), 2).add(" uas");
+                text.add("  x = ").sig3(track.x(last)).add("  y = ").sig3(track.y(last)).add(" uas");
             } else {
                 text.add(": not yet observed");
             }
