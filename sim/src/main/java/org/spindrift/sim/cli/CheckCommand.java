@@ -50,8 +50,8 @@ public final class CheckCommand implements Callable<Integer> {
         double spm = p.secondsPerM();
         out().printf(Locale.ROOT, "%s: ok: scenario '%s', %s a = %s, %d source(s), %d particles%n", file, sc.name(),
                 sc.blackHole().family(), fmt(sc.blackHole().spin()), sc.sources().size(), sc.totalParticles());
-        out().printf(Locale.ROOT, "  1 M = %.4g s = %.4g micro-arcsec; duration %.1f M = %.1f min, %d snapshots%n",
-                spm, p.microarcsecPerM(), p.durationM(), p.durationM() * spm / 60, p.times().length);
+        out().printf(Locale.ROOT, "  1 M = %.4g s = %.4g micro-arcseconds; duration %.1f M = %.1f min, %d snapshots%n",
+                spm, p.uasPerM(), p.durationM(), p.durationM() * spm / 60, p.times().length);
         for (int k = 0; k < sc.sources().size(); k++) {
             Source s = sc.sources().get(k);
             out().printf(Locale.ROOT, "  source %s: %s, %d particles, centre period %.1f M = %.1f min%n", s.name(),
