@@ -14,7 +14,7 @@ public final class SweepFixtures {
             "name: sweep-base",
             "black_hole:",
             "  mass_solar: 1.0e6",
-            "  distance_kpc: 1.0",
+            "  distance: 1 kpc",
             "  family: kerr",
             "  spin: 0.5",
             "observer:",
