@@ -1,6 +1,7 @@
 package org.spindrift.sim.interferometry;
 
 import org.hipparchus.util.FastMath;
+import org.spindrift.sim.spacetime.Trig;
 
 /**
  * Complex visibility of a pixel image at arbitrary (u, v) by a direct Fourier sum,
@@ -10,7 +11,7 @@ import org.hipparchus.util.FastMath;
  *
  * <p>The pixel grid is regular, x_col = x0 + col dx and y_row = y0 + row dy, so the kernel
  * separates: exp(-2 pi i u x_col) and exp(-2 pi i v y_row) are tabulated per (u, v) by the
- * angle-addition recurrence (re-seeded with direct sin/cos every {@value #RESEED} steps, so the
+ * angle-addition recurrence (re-seeded with direct sin/cos of {@link Trig} every {@value #RESEED} steps, so the
  * rounding stays near 1e-15 relative), and the sum runs row by row over the image. Four (u, v)
  * points share each pass over the image. Every point's sum runs in the same order whatever its
  * block mates, so the result does not depend on how points are grouped or threaded. No
@@ -53,12 +54,12 @@ public final class DirectFourier {
     /** Fills c[off..off+n) and s[off..) with cos and sin of 2 pi (a + k d), k = 0..n-1. */
     private void table(double a, double d, double[] c, double[] s, int off) {
         double ca = 0, sa = 0;
-        double cd = FastMath.cos(2 * FastMath.PI * d), sd = FastMath.sin(2 * FastMath.PI * d);
+        double cd = Trig.cos(2 * FastMath.PI * d), sd = Trig.sin(2 * FastMath.PI * d);
         for (int k = 0; k < n; k++) {
             if (k % RESEED == 0) {
                 double ang = 2 * FastMath.PI * (a + k * d);
-                ca = FastMath.cos(ang);
-                sa = FastMath.sin(ang);
+                ca = Trig.cos(ang);
+                sa = Trig.sin(ang);
             } else {
                 double t = ca * cd - sa * sd;
                 sa = sa * cd + ca * sd;
