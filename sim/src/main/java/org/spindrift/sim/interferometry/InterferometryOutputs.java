@@ -63,7 +63,7 @@ public final class InterferometryOutputs {
                 w.newLine();
                 for (int k = 0; k < s.size(); k++) {
                     double t = s.timesM[s.frame[k]];
-                    w.write(String.format(Locale.ROOT, "%.6f,%.6f,%d,%d,%s,%s,%.6e,%.6e,%.6e,%.6e,%.4f,%.4f,%.8e,%.8e,"
+                    w.write(String.format(Locale.ROOT, "%.6f,%.6f,%d,%d,%s,%s,%.9e,%.9e,%.9e,%.9e,%.4f,%.4f,%.8e,%.8e,"
                                     + "%.8e,%.4f,%.8e,%.8e,%.8e", t * min, t, s.frame[k], s.scan[k], a.name(s.station1[k]),
                             a.name(s.station2[k]), s.u[k], s.v[k], s.w[k], FastMath.hypot(s.u[k], s.v[k]),
                             FastMath.toDegrees(s.elevation1[k]), FastMath.toDegrees(s.elevation2[k]), o.re()[k],
