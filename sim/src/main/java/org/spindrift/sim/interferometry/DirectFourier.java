@@ -25,7 +25,8 @@ public final class DirectFourier {
 
     private final int n;
     private final double x0, dx, y0, dy, area;
-    private final double[] cx, sx, cy, sy;
+    /** Per block member b: cos and sin tables along x (cx[b], sx[b]) and y (cy[b], sy[b]). */
+    private final double[][] cx, sx, cy, sy;
 
     /**
      * @param n pixels per side (image index row * n + col)
@@ -40,10 +41,10 @@ public final class DirectFourier {
         this.y0 = y0;
         this.dy = dy;
         this.area = area;
-        cx = new double[BLOCK * n];
-        sx = new double[BLOCK * n];
-        cy = new double[BLOCK * n];
-        sy = new double[BLOCK * n];
+        cx = new double[BLOCK][n];
+        sx = new double[BLOCK][n];
+        cy = new double[BLOCK][n];
+        sy = new double[BLOCK][n];
     }
 
     /** @return a new instance with the same grid (one per worker thread) */
@@ -51,8 +52,8 @@ public final class DirectFourier {
         return new DirectFourier(n, x0, dx, y0, dy, area);
     }
 
-    /** Fills c[off..off+n) and s[off..) with cos and sin of 2 pi (a + k d), k = 0..n-1. */
-    private void table(double a, double d, double[] c, double[] s, int off) {
+    /** Fills c[0..n) and s[0..n) with cos and sin of 2 pi (a + k d), k = 0..n-1. */
+    private void table(double a, double d, double[] c, double[] s) {
         double ca = 0, sa = 0;
         double cd = Trig.cos(2 * FastMath.PI * d), sd = Trig.sin(2 * FastMath.PI * d);
         for (int k = 0; k < n; k++) {
@@ -65,8 +66,8 @@ public final class DirectFourier {
                 sa = sa * cd + ca * sd;
                 ca = t;
             }
-            c[off + k] = ca;
-            s[off + k] = sa;
+            c[k] = ca;
+            s[k] = sa;
         }
     }
 
@@ -82,39 +83,40 @@ public final class DirectFourier {
             int m = FastMath.min(BLOCK, to - p);
             for (int b = 0; b < BLOCK; b++) {
                 int q = p + FastMath.min(b, m - 1);   // pad a short block with its last point
-                table(u[q] * x0, u[q] * dx, cx, sx, b * n);
-                table(v[q] * y0, v[q] * dy, cy, sy, b * n);
+                table(u[q] * x0, u[q] * dx, cx[b], sx[b]);
+                table(v[q] * y0, v[q] * dy, cy[b], sy[b]);
             }
             block(image, p, m, re, im);
         }
     }
 
     private void block(float[] image, int p, int m, double[] re, double[] im) {
-        final int n2 = n, o1 = n, o2 = 2 * n, o3 = 3 * n;
+        final int n2 = n;
+        final double[] c0 = cx[0], s0 = sx[0], c1 = cx[1], s1 = sx[1], c2 = cx[2], s2 = sx[2], c3 = cx[3], s3 = sx[3];
         double r0 = 0, i0 = 0, r1 = 0, i1 = 0, r2 = 0, i2 = 0, r3 = 0, i3 = 0;
         for (int row = 0; row < n2; row++) {
             int base = row * n2;
             double a0 = 0, b0 = 0, a1 = 0, b1 = 0, a2 = 0, b2 = 0, a3 = 0, b3 = 0;
             for (int col = 0; col < n2; col++) {
                 double val = image[base + col];
-                a0 += val * cx[col];
-                b0 += val * sx[col];
-                a1 += val * cx[o1 + col];
-                b1 += val * sx[o1 + col];
-                a2 += val * cx[o2 + col];
-                b2 += val * sx[o2 + col];
-                a3 += val * cx[o3 + col];
-                b3 += val * sx[o3 + col];
+                a0 += val * c0[col];
+                b0 += val * s0[col];
+                a1 += val * c1[col];
+                b1 += val * s1[col];
+                a2 += val * c2[col];
+                b2 += val * s2[col];
+                a3 += val * c3[col];
+                b3 += val * s3[col];
             }
             // (a - i b)(cy - i sy) = (a cy - b sy) - i (a sy + b cy)
-            r0 += a0 * cy[row] - b0 * sy[row];
-            i0 -= a0 * sy[row] + b0 * cy[row];
-            r1 += a1 * cy[o1 + row] - b1 * sy[o1 + row];
-            i1 -= a1 * sy[o1 + row] + b1 * cy[o1 + row];
-            r2 += a2 * cy[o2 + row] - b2 * sy[o2 + row];
-            i2 -= a2 * sy[o2 + row] + b2 * cy[o2 + row];
-            r3 += a3 * cy[o3 + row] - b3 * sy[o3 + row];
-            i3 -= a3 * sy[o3 + row] + b3 * cy[o3 + row];
+            r0 += a0 * cy[0][row] - b0 * sy[0][row];
+            i0 -= a0 * sy[0][row] + b0 * cy[0][row];
+            r1 += a1 * cy[1][row] - b1 * sy[1][row];
+            i1 -= a1 * sy[1][row] + b1 * cy[1][row];
+            r2 += a2 * cy[2][row] - b2 * sy[2][row];
+            i2 -= a2 * sy[2][row] + b2 * cy[2][row];
+            r3 += a3 * cy[3][row] - b3 * sy[3][row];
+            i3 -= a3 * sy[3][row] + b3 * cy[3][row];
         }
         re[p] = area * r0;
         im[p] = area * i0;
