@@ -36,7 +36,8 @@ public final class RunArchiveWriter {
     /** Files of format version 1, allowed in a folder that is about to be re-used. */
     private static final Set<String> KNOWN = Set.of(ArchiveLayout.MANIFEST, ArchiveLayout.SNAPSHOTS,
             ArchiveLayout.SUMMARY, ArchiveLayout.PERIODS, ArchiveLayout.SHEAR, ArchiveLayout.CENTROID,
-            ArchiveLayout.LIGHTCURVE, ArchiveLayout.IMAGES, ArchiveLayout.MOCK_ASTROMETRY, ArchiveLayout.PLOTS);
+            ArchiveLayout.LIGHTCURVE, ArchiveLayout.IMAGES, ArchiveLayout.MOCK_ASTROMETRY, ArchiveLayout.PLOTS,
+            ArchiveLayout.VISIBILITIES, ArchiveLayout.CLOSURE_PHASES, ArchiveLayout.CLOSURE_AMPLITUDES, ArchiveLayout.UVFITS);
 
     private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 

@@ -16,6 +16,7 @@ import nom.tam.fits.Header;
 import nom.tam.fits.RandomGroupsHDU;
 import org.hipparchus.util.FastMath;
 import org.spindrift.shared.Version;
+import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.sim.light.LightOutputs;
 
 /**
@@ -32,8 +33,8 @@ import org.spindrift.sim.light.LightOutputs;
  */
 public final class InterferometryOutputs {
     /** File names. */
-    public static final String VISIBILITIES = "visibilities.csv", CLOSURE_PHASES = "closure_phases.csv",
-            CLOSURE_AMPLITUDES = "closure_amplitudes.csv", UVFITS = "visibilities.uvfits";
+    public static final String VISIBILITIES = ArchiveLayout.VISIBILITIES, CLOSURE_PHASES = ArchiveLayout.CLOSURE_PHASES,
+            CLOSURE_AMPLITUDES = ArchiveLayout.CLOSURE_AMPLITUDES, UVFITS = ArchiveLayout.UVFITS;
     /** Header of visibilities.csv. */
     public static final String VIS_HEADER = "t_obs_min,t_obs_M,frame,scan,station1,station2,u_lambda,v_lambda,w_lambda,"
             + "baseline_lambda,elevation1_deg,elevation2_deg,re_jy,im_jy,amp_jy,phase_deg,sigma_jy,model_re_jy,"

@@ -115,6 +115,43 @@ public final class InterferometryPlots {
         return c;
     }
 
+    /**
+     * @return x and the curves with a NaN inserted where consecutive x are more than three median
+     *     steps apart, so lines break between scans or nights instead of bridging them
+     */
+    static double[][] gaps(double[] x, double[]... ys) {
+        int n = x.length;
+        double[] d = new double[FastMath.max(1, n - 1)];
+        for (int i = 1; i < n; i++) {
+            d[i - 1] = x[i] - x[i - 1];
+        }
+        double[] sorted = d.clone();
+        java.util.Arrays.sort(sorted);
+        double limit = 3 * sorted[sorted.length / 2];
+        List<double[]> rows = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            if (i > 0 && x[i] - x[i - 1] > limit) {
+                double[] gap = new double[ys.length + 1];
+                java.util.Arrays.fill(gap, Double.NaN);
+                gap[0] = 0.5 * (x[i] + x[i - 1]);
+                rows.add(gap);
+            }
+            double[] row = new double[ys.length + 1];
+            row[0] = x[i];
+            for (int k = 0; k < ys.length; k++) {
+                row[k + 1] = ys[k][i];
+            }
+            rows.add(row);
+        }
+        double[][] out = new double[ys.length + 1][rows.size()];
+        for (int i = 0; i < rows.size(); i++) {
+            for (int k = 0; k <= ys.length; k++) {
+                out[k][i] = rows.get(i)[k];
+            }
+        }
+        return out;
+    }
+
     /** A grid of closure-phase panels, one per triangle. */
     private static BufferedImage closurePanel(InterferometryResult r) {
         Closures.Phases p = r.phases();
@@ -163,16 +200,23 @@ public final class InterferometryPlots {
             d.setLineStyle(SeriesLines.NONE);
             d.setMarker(SeriesMarkers.CIRCLE);
             d.setMarkerColor(new Color(40, 90, 160));
-            XYSeries ms = c.addSeries("model", x, m);
+            double[][] mg = gaps(x, m, st);
+            XYSeries ms = c.addSeries("model", mg[0], mg[1]);
             ms.setMarker(SeriesMarkers.NONE);
             ms.setLineColor(new Color(220, 120, 30));
             if (r.steadyPhases() != null) {
-                XYSeries ss = c.addSeries("steady source", x, st);
+                XYSeries ss = c.addSeries("steady source", mg[0], mg[2]);
                 ss.setMarker(SeriesMarkers.NONE);
                 ss.setLineColor(Color.GRAY);
                 ss.setLineStyle(SeriesLines.DASH_DASH);
             }
-            c.getStyler().setYAxisMin(-180.0).setYAxisMax(180.0);
+            // symmetric range around the model and the data, at least +-30 deg, at most +-180 deg
+            double ext = 30;
+            for (int i = 0; i < n; i++) {
+                ext = FastMath.max(ext, 1.15 * FastMath.max(FastMath.abs(m[i]), FastMath.abs(y[i])));
+            }
+            ext = FastMath.min(180.0, 10 * FastMath.ceil(ext / 10));
+            c.getStyler().setYAxisMin(-ext).setYAxisMax(ext);
             g.drawImage(BitmapEncoder.getBufferedImage(c), (t % cols) * w, 40 + (t / cols) * h, null);
         }
         g.dispose();
