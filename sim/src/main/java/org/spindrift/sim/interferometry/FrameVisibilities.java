@@ -26,27 +26,15 @@ public final class FrameVisibilities {
      */
     public static void compute(float[][] images, DirectFourier grid, double[] u, double[] v, int[] frameStart,
                                double[] re, double[] im, int threads) {
-        int frames = images.length;
-        int chunks = (frames + CHUNK - 1) / CHUNK;
-        Runnable job = () -> IntStream.range(0, chunks).parallel().forEach(c -> {
-            DirectFourier ft = grid.copy();
-            for (int f = c * CHUNK; f < Math.min(frames, (c + 1) * CHUNK); f++) {
-                if (frameStart[f + 1] > frameStart[f]) {
-                    ft.transform(images[f], u, v, frameStart[f], frameStart[f + 1], re, im);
-                }
-            }
-        });
+        int chunks = (images.length + CHUNK - 1) / CHUNK;
         if (threads <= 1) {
             for (int c = 0; c < chunks; c++) {
-                DirectFourier ft = grid.copy();
-                for (int f = c * CHUNK; f < Math.min(frames, (c + 1) * CHUNK); f++) {
-                    if (frameStart[f + 1] > frameStart[f]) {
-                        ft.transform(images[f], u, v, frameStart[f], frameStart[f + 1], re, im);
-                    }
-                }
+                chunk(c, images, grid, u, v, frameStart, re, im);
             }
             return;
         }
+        Runnable job = () -> IntStream.range(0, chunks).parallel()
+                .forEach(c -> chunk(c, images, grid, u, v, frameStart, re, im));
         ForkJoinPool pool = new ForkJoinPool(threads);
         try {
             pool.submit(job).get();
@@ -57,6 +45,17 @@ public final class FrameVisibilities {
             throw e.getCause() instanceof RuntimeException r ? r : new IllegalStateException(e.getCause());
         } finally {
             pool.shutdown();
+        }
+    }
+
+    /** Frames c * CHUNK .. (c + 1) * CHUNK - 1, with a transform of its own. */
+    private static void chunk(int c, float[][] images, DirectFourier grid, double[] u, double[] v, int[] frameStart,
+                              double[] re, double[] im) {
+        DirectFourier ft = grid.copy();
+        for (int f = c * CHUNK; f < Math.min(images.length, (c + 1) * CHUNK); f++) {
+            if (frameStart[f + 1] > frameStart[f]) {
+                ft.transform(images[f], u, v, frameStart[f], frameStart[f + 1], re, im);
+            }
         }
     }
 }
