@@ -44,6 +44,15 @@ public final class CheckCommand implements Callable<Integer> {
                     s.kind().key(), s.particles(), p.placed().centres()[k].periodM(),
                     p.placed().centres()[k].periodM() * spm / 60);
         }
+        if (sc.interferometer() != null) {
+            org.spindrift.sim.interferometry.ObservingSetup o = org.spindrift.sim.interferometry.ObservingSetup.of(sc);
+            double fringe = o.wavelength() / o.array().longestBaseline() * org.spindrift.shared.Units.MICROARCSEC_PER_RAD;
+            double pixel = sc.imaging().fieldOfViewM() / sc.imaging().pixels() * p.microarcsecPerM();
+            out().printf(Locale.ROOT, "  interferometer: %d stations%s, %.4g GHz; smallest fringe spacing lambda/B_max"
+                    + " = %.3g micro-arcsec (image pixel %.3g, field %.3g micro-arcsec)%n", o.array().stations(),
+                    sc.interferometer().arrayFile() == null ? "" : " from " + sc.interferometer().arrayFile(),
+                    o.frequencyHz() * 1e-9, fringe, pixel, sc.imaging().fieldOfViewM() * p.microarcsecPerM());
+        }
         out().flush();
         return 0;
     }

@@ -112,4 +112,16 @@ public final class ArrayGeometry {
         out[1] = -sd * ch * lx + sd * sh * ly + cd * lz;
         out[2] = cd * ch * lx - cd * sh * ly + sd * lz;
     }
+
+    /** @return the longest station separation, m (an upper bound of every projected baseline) */
+    public double longestBaseline() {
+        double m = 0;
+        for (int i = 0; i < x.length; i++) {
+            for (int j = i + 1; j < x.length; j++) {
+                m = FastMath.max(m, FastMath.sqrt((x[j] - x[i]) * (x[j] - x[i]) + (y[j] - y[i]) * (y[j] - y[i])
+                        + (z[j] - z[i]) * (z[j] - z[i])));
+            }
+        }
+        return m;
+    }
 }

@@ -183,6 +183,8 @@ public final class InterferometryOutputs {
             h.insertComment("Model visibilities with station gains and thermal noise (radiometer equation).");
             h.insertComment("Time: DATE = 2451545.0 + observer time (days); the calendar epoch is nominal,");
             h.insertComment("the hour angle follows the scenario's start_sidereal_time_h.");
+            h.insertComment("Sign convention: (u, v, w) of the baseline r(a2) - r(a1) in geocentric X, Y, Z;");
+            h.insertComment("V(u, v) = sum I(l, m) exp(-2 pi i (u l + v m)), l east, m north.");
             fits.addHDU(hdu);
             int ns = a.stations();
             String[] anName = new String[ns];
