@@ -13,7 +13,10 @@ import org.spindrift.sim.spacetime.Trig;
  * separates: exp(-2 pi i u x_col) and exp(-2 pi i v y_row) are tabulated per (u, v) by the
  * angle-addition recurrence (re-seeded with direct sin/cos of {@link Trig} every {@value #RESEED} steps, so the
  * rounding stays near 1e-15 relative), and the sum runs row by row over the image. Four (u, v)
- * points share each pass over the image. Every point's sum runs in the same order whatever its
+ * points share each pass over the image. When the columns are symmetric about x = 0 (the
+ * camera's grid), cos is even and sin odd in x, so a row's sum pairs column k with column
+ * n - 1 - k: sum I cos = sum (I_k + I_{n-1-k}) cos_k and sum I sin = sum (I_k - I_{n-1-k}) sin_k
+ * over the left half (half the multiplications). Every point's sum runs in the same order whatever its
  * block mates, so the result does not depend on how points are grouped or threaded. No
  * allocation after construction.
  */
@@ -25,6 +28,8 @@ public final class DirectFourier {
 
     private final int n;
     private final double x0, dx, y0, dy, area;
+    /** Whether the columns are symmetric about x = 0 (x_{n-1-k} = -x_k), as on the camera grid. */
+    private final boolean symmetric;
     /** Per block member b: cos and sin tables along x (cx[b], sx[b]) and y (cy[b], sy[b]). */
     private final double[][] cx, sx, cy, sy;
 
@@ -41,6 +46,7 @@ public final class DirectFourier {
         this.y0 = y0;
         this.dy = dy;
         this.area = area;
+        symmetric = FastMath.abs(x0 + 0.5 * (n - 1) * dx) <= 1e-9 * FastMath.abs(dx);
         cx = new double[BLOCK][n];
         sx = new double[BLOCK][n];
         cy = new double[BLOCK][n];
@@ -97,16 +103,44 @@ public final class DirectFourier {
         for (int row = 0; row < n2; row++) {
             int base = row * n2;
             double a0 = 0, b0 = 0, a1 = 0, b1 = 0, a2 = 0, b2 = 0, a3 = 0, b3 = 0;
-            for (int col = 0; col < n2; col++) {
-                double val = image[base + col];
-                a0 += val * c0[col];
-                b0 += val * s0[col];
-                a1 += val * c1[col];
-                b1 += val * s1[col];
-                a2 += val * c2[col];
-                b2 += val * s2[col];
-                a3 += val * c3[col];
-                b3 += val * s3[col];
+            if (symmetric) {
+                int half = n2 / 2;
+                int mirror = base + n2 - 1;
+                for (int col = 0; col < half; col++) {
+                    double lo = image[base + col], hi = image[mirror - col];
+                    double sum = lo + hi, diff = lo - hi;
+                    a0 += sum * c0[col];
+                    b0 += diff * s0[col];
+                    a1 += sum * c1[col];
+                    b1 += diff * s1[col];
+                    a2 += sum * c2[col];
+                    b2 += diff * s2[col];
+                    a3 += sum * c3[col];
+                    b3 += diff * s3[col];
+                }
+                if ((n2 & 1) == 1) {   // the middle column, x = 0
+                    double val = image[base + half];
+                    a0 += val * c0[half];
+                    b0 += val * s0[half];
+                    a1 += val * c1[half];
+                    b1 += val * s1[half];
+                    a2 += val * c2[half];
+                    b2 += val * s2[half];
+                    a3 += val * c3[half];
+                    b3 += val * s3[half];
+                }
+            } else {
+                for (int col = 0; col < n2; col++) {
+                    double val = image[base + col];
+                    a0 += val * c0[col];
+                    b0 += val * s0[col];
+                    a1 += val * c1[col];
+                    b1 += val * s1[col];
+                    a2 += val * c2[col];
+                    b2 += val * s2[col];
+                    a3 += val * c3[col];
+                    b3 += val * s3[col];
+                }
             }
             // (a - i b)(cy - i sy) = (a cy - b sy) - i (a sy + b cy)
             r0 += a0 * cy[0][row] - b0 * sy[0][row];

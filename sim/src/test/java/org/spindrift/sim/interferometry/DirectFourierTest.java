@@ -69,6 +69,14 @@ class DirectFourierTest {
             assertEquals(FastMath.cos(ph), vis[0][k], 1e-11);
             assertEquals(FastMath.sin(ph), vis[1][k], 1e-11);
         }
+        // the same on a grid not symmetric about x = 0 (general path): columns shifted by 0.3 pixel
+        double c = -(n - 1) / 2.0 * PIX;
+        double[][] shifted = transform(new DirectFourier(n, c + 0.3 * PIX, PIX, c, PIX, 1.0), img, uv);
+        for (int k = 0; k < uv[0].length; k++) {
+            double ph = -2 * FastMath.PI * (uv[0][k] * (x + 0.3 * PIX) + uv[1][k] * y);
+            assertEquals(FastMath.cos(ph), shifted[0][k], 1e-11);
+            assertEquals(FastMath.sin(ph), shifted[1][k], 1e-11);
+        }
     }
 
     @Test void circularGaussianMatchesItsAnalyticTransform() {
