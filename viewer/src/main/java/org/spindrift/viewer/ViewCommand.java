@@ -84,6 +84,10 @@ public final class ViewCommand implements Callable<Integer> {
     @Option(names = "--no-sky", description = "leave out the sky panel even when the run has sky data")
     boolean noSky;
 
+    @Option(names = "--no-verify", description = "skip comparing every file with its sha256 in manifest.json (for"
+            + " huge archives; the manifest, the snapshot file's origin and the values read are still checked)")
+    boolean noVerify;
+
     @Override public Integer call() {
         PrintStream err = System.err;
         try {
@@ -148,7 +152,7 @@ public final class ViewCommand implements Callable<Integer> {
             throw new UserInputException("run folder " + runDir + ": no " + ArchiveLayout.MANIFEST
                     + " (not a run folder, or the run did not complete)");
         }
-        return new ViewerSession.Options(runDir, w, h, q, cam, cameraDistance, bare, noSky, samples);
+        return new ViewerSession.Options(runDir, w, h, q, cam, cameraDistance, bare, noSky, samples, !noVerify);
     }
 
     /** Runs {@code view} on its own (tests start it in a child JVM). */

@@ -61,7 +61,7 @@ public final class SyntheticRun {
             }
             sw.add(times[k], r, th, ph, ut, zero, zero, zero, wt, new byte[n], new double[][] {{cx, cy, 0}});
         }
-        sw.write(dir);
+        sw.write(w.folder());
         w.register(ArchiveLayout.SNAPSHOTS);
         w.finish(manifest("layout test (invented)", 0.0, 2.0, 6.0, Double.NaN, 2.0, incl, pa, n, "probe"));
     }
@@ -148,7 +148,7 @@ public final class SyntheticRun {
                 skyOut.add(t, xs, ys, zs, wt, c[0], k % 3 == 0);
             }
         }
-        sw.write(dir);
+        sw.write(w.folder());
         w.register(ArchiveLayout.SNAPSHOTS);
         if (sky) {
             skyOut.write(w);

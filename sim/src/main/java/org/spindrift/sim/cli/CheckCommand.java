@@ -17,11 +17,19 @@ import picocli.CommandLine.Parameters;
  */
 @Command(name = "check", mixinStandardHelpOptions = true,
         description = {"Check a scenario file without running it: unknown or missing keys, wrong types,"
-                + " out-of-range values, orbits the metric does not allow.",
+                + " out-of-range values, orbits the metric does not allow, and every limit run enforces (image"
+                + " budget, snapshot count, memory). Warnings (one line each) go to stderr.",
             "Exit status 0 when the file is good, 2 with one message naming file, line and key otherwise."})
 public final class CheckCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "FILE", description = "Scenario file (YAML or JSON).")
     private Path file;
+
+    @picocli.CommandLine.Option(names = {"-o", "--output"}, paramLabel = "DIR",
+            description = "Also check that 'run -o DIR' could write this folder (nothing is created).")
+    private Path output;
+
+    @picocli.CommandLine.Option(names = "--overwrite", description = "With -o: as 'run --overwrite'.")
+    private boolean overwrite;
 
     @picocli.CommandLine.Spec
     private picocli.CommandLine.Model.CommandSpec spec;
@@ -30,8 +38,14 @@ public final class CheckCommand implements Callable<Integer> {
         return spec.commandLine().getOut();
     }
 
-    @Override public Integer call() {
+    @Override public Integer call() throws java.io.IOException {
         ScenarioRun.Prepared p = ScenarioRun.prepare(ScenarioLoader.load(file));
+        if (output != null) {
+            org.spindrift.shared.archive.RunArchiveWriter.checkUsable(output, overwrite);
+        }
+        for (String w : p.warnings()) {
+            System.err.println("spindrift: warning: " + w);
+        }
         Scenario sc = p.loaded().scenario();
         double spm = p.secondsPerM();
         out().printf(Locale.ROOT, "%s: ok: scenario '%s', %s a = %s, %d source(s), %d particles%n", file, sc.name(),

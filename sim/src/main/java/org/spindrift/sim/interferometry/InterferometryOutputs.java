@@ -3,8 +3,8 @@ package org.spindrift.sim.interferometry;
 import java.io.BufferedWriter;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.Path;
+import java.io.OutputStream;
+import java.io.OutputStreamWriter;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -58,8 +58,8 @@ public final class InterferometryOutputs {
         Observation o = r.observation();
         ArrayGeometry a = r.setup().array();
         double min = r.minutesPerM();
-        out.write(VISIBILITIES, tmp -> {
-            try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+        out.write(VISIBILITIES, os -> {
+            try (BufferedWriter w = new BufferedWriter(new OutputStreamWriter(os, StandardCharsets.UTF_8))) {
                 w.write(VIS_HEADER);
                 w.newLine();
                 for (int k = 0; k < s.size(); k++) {
@@ -76,8 +76,8 @@ public final class InterferometryOutputs {
             }
         });
         names.add(VISIBILITIES);
-        out.write(CLOSURE_PHASES, tmp -> {
-            try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+        out.write(CLOSURE_PHASES, os -> {
+            try (BufferedWriter w = new BufferedWriter(new OutputStreamWriter(os, StandardCharsets.UTF_8))) {
                 w.write(CP_HEADER);
                 w.newLine();
                 Closures.Phases p = r.phases();
@@ -94,8 +94,8 @@ public final class InterferometryOutputs {
             }
         });
         names.add(CLOSURE_PHASES);
-        out.write(CLOSURE_AMPLITUDES, tmp -> {
-            try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+        out.write(CLOSURE_AMPLITUDES, os -> {
+            try (BufferedWriter w = new BufferedWriter(new OutputStreamWriter(os, StandardCharsets.UTF_8))) {
                 w.write(CA_HEADER);
                 w.newLine();
                 Closures.LogAmplitudes c = r.amplitudes();
@@ -116,7 +116,7 @@ public final class InterferometryOutputs {
         });
         names.add(CLOSURE_AMPLITUDES);
         if (s.size() > 0) {
-            out.write(UVFITS, tmp -> writeUvfits(tmp, r));
+            out.write(UVFITS, os -> writeUvfits(os, r));
             names.add(UVFITS);
         }
         return names;
@@ -131,7 +131,7 @@ public final class InterferometryOutputs {
     }
 
     /** Writes the random-groups UVFITS file. */
-    static void writeUvfits(Path file, InterferometryResult r) throws IOException {
+    static void writeUvfits(OutputStream os, InterferometryResult r) throws IOException {
         UvSampling s = r.sampling();
         Observation o = r.observation();
         ObservingSetup setup = r.setup();
@@ -213,7 +213,9 @@ public final class InterferometryOutputs {
             ah.addValue("FREQ", nu, "");
             ah.addValue("FRAME", "ITRF", "");
             fits.addHDU(an);
-            fits.write(file.toFile());
+            nom.tam.util.FitsOutputStream fo = new nom.tam.util.FitsOutputStream(os);
+            fits.write(fo);
+            fo.flush();
         } catch (FitsException e) {
             throw new IOException("writing " + UVFITS + ": " + e.getMessage(), e);
         }

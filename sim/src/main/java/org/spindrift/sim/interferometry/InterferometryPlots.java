@@ -11,6 +11,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.function.Supplier;
 import javax.imageio.ImageIO;
 import org.hipparchus.util.FastMath;
 import org.knowm.xchart.BitmapEncoder;
@@ -21,6 +22,7 @@ import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.lines.SeriesLines;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.sim.light.LightOutputs;
+import org.spindrift.sim.run.RunNotes;
 
 /**
  * Plots of the interferometry stage (PNG, XChart): (u, v) coverage, visibility amplitude against
@@ -36,18 +38,25 @@ public final class InterferometryPlots {
     }
 
     /** @return names of the plots written */
-    public static List<String> write(LightOutputs.Sink out, InterferometryResult r) throws IOException {
+    public static List<String> write(LightOutputs.Sink out, InterferometryResult r, RunNotes.Guard guard)
+            throws IOException {
         List<String> names = new ArrayList<>();
-        save(out, "uv_coverage.png", toImage(coverage(r)), names);
-        save(out, "visibility_amplitude.png", toImage(amplitude(r)), names);
-        save(out, "closure_phases.png", closurePanel(r), names);
+        save(out, "uv_coverage.png", () -> toImage(coverage(r)), names, guard);
+        save(out, "visibility_amplitude.png", () -> toImage(amplitude(r)), names, guard);
+        save(out, "closure_phases.png", () -> closurePanel(r), names, guard);
         return names;
     }
 
-    private static void save(LightOutputs.Sink out, String name, BufferedImage img, List<String> names)
-            throws IOException {
-        out.write(DIR + name, tmp -> ImageIO.write(img, "png", tmp.toFile()));
-        names.add(DIR + name);
+    /** Draws and writes one plot through the guard (a run records a plot that fails and goes on). */
+    private static void save(LightOutputs.Sink out, String name, Supplier<BufferedImage> img, List<String> names,
+                             RunNotes.Guard guard) throws IOException {
+        String path = DIR + name;
+        if (guard.draw(path, () -> {
+            BufferedImage b = img.get();
+            out.write(path, os -> ImageIO.write(b, "png", os));
+        })) {
+            names.add(path);
+        }
     }
 
     private static BufferedImage toImage(XYChart c) {

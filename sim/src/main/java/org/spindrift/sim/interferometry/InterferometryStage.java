@@ -10,6 +10,7 @@ import org.spindrift.sim.light.LightResult;
 import org.spindrift.sim.light.LightRunStage;
 import org.spindrift.sim.light.LightSettings;
 import org.spindrift.sim.run.RunContext;
+import org.spindrift.sim.run.RunNotes;
 import org.spindrift.sim.run.RunStage;
 
 /**
@@ -83,8 +84,8 @@ public final class InterferometryStage implements RunStage {
         }
         ObservingSetup o = ObservingSetup.of(ctx.scenario());
         InterferometryResult res = observe(o, r, ctx.scenario().name(), ctx.threads());
-        InterferometryOutputs.write((n, w) -> ctx.archive().write(n, w), res);
-        InterferometryPlots.write((n, w) -> ctx.archive().write(n, w), res);
+        InterferometryOutputs.write((n, w) -> ctx.archive().writeStream(n, w), res);
+        InterferometryPlots.write((n, w) -> ctx.archive().writeStream(n, w), res, RunNotes.guard(ctx));
         ctx.products().put(RESULT, res);
         ObjectNode m = ctx.manifest().putObject("interferometer");
         m.put("stations", o.array().stations());

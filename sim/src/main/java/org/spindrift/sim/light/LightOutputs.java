@@ -42,7 +42,7 @@ public final class LightOutputs {
     /** Where files go: the run folder's writer (temporary name, rename, registered for the manifest). */
     @FunctionalInterface
     public interface Sink {
-        void write(String relativeName, AtomicFiles.Writer writer) throws IOException;
+        void write(String relativeName, AtomicFiles.StreamWriter writer) throws IOException;
     }
 
     /** @return a sink writing into a plain folder through {@link AtomicFiles} */
@@ -50,7 +50,7 @@ public final class LightOutputs {
         return (name, w) -> {
             Path target = folder.resolve(name);
             Files.createDirectories(target.getParent());
-            AtomicFiles.write(target, w);
+            AtomicFiles.writeStream(target, w);
         };
     }
 
@@ -61,8 +61,8 @@ public final class LightOutputs {
         double uas = s.uasPerM();
         double min = s.minutesPerM();
         double[] t = r.timesM();
-        out.write(ArchiveLayout.CENTROID, tmp -> {
-            try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+        out.write(ArchiveLayout.CENTROID, os -> {
+            try (BufferedWriter w = text(os)) {
                 w.write(CENTROID_HEADER);
                 w.newLine();
                 for (int f = 0; f < t.length; f++) {
@@ -80,8 +80,8 @@ public final class LightOutputs {
             mean += m.flux() / t.length;
         }
         final double meanFlux = mean;
-        out.write(ArchiveLayout.LIGHTCURVE, tmp -> {
-            try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+        out.write(ArchiveLayout.LIGHTCURVE, os -> {
+            try (BufferedWriter w = text(os)) {
                 w.write(LIGHTCURVE_HEADER);
                 w.newLine();
                 for (int f = 0; f < t.length; f++) {
@@ -95,8 +95,8 @@ public final class LightOutputs {
         names.add(ArchiveLayout.LIGHTCURVE);
         if (r.mock() != null) {
             LightResult.MockAstrometry mk = r.mock();
-            out.write(ArchiveLayout.MOCK_ASTROMETRY, tmp -> {
-                try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+            out.write(ArchiveLayout.MOCK_ASTROMETRY, os -> {
+                try (BufferedWriter w = text(os)) {
                     w.write(MOCK_HEADER);
                     w.newLine();
                     for (int i = 0; i < mk.timesM().length; i++) {
@@ -108,12 +108,16 @@ public final class LightOutputs {
             });
             names.add(ArchiveLayout.MOCK_ASTROMETRY);
         }
-        out.write(ArchiveLayout.IMAGES, tmp -> writeFits(tmp, r));
+        out.write(ArchiveLayout.IMAGES, os -> writeFits(os, r));
         names.add(ArchiveLayout.IMAGES);
         return names;
     }
 
-    private static void writeFits(Path file, LightResult r) throws IOException {
+    private static BufferedWriter text(java.io.OutputStream os) {
+        return new BufferedWriter(new java.io.OutputStreamWriter(os, StandardCharsets.UTF_8));
+    }
+
+    private static void writeFits(java.io.OutputStream os, LightResult r) throws IOException {
         LightSettings s = r.settings();
         int n = r.camera().pixels();
         int frames = r.images().length;
@@ -170,7 +174,9 @@ public final class LightOutputs {
             h.insertComment("= sum of pixels times pixel area in M^2 (lightcurve.csv). Time origin: see");
             h.insertComment("centroid.csv / README (observer time = emission time + ray delay).");
             fits.addHDU(hdu);
-            fits.write(file.toFile());
+            nom.tam.util.FitsOutputStream fo = new nom.tam.util.FitsOutputStream(os);
+            fits.write(fo);
+            fo.flush();
         } catch (FitsException e) {
             throw new IOException("writing " + ArchiveLayout.IMAGES + ": " + e.getMessage(), e);
         }

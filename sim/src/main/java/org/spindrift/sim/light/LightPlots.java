@@ -7,7 +7,6 @@ import java.awt.Graphics2D;
 import java.awt.RenderingHints;
 import java.awt.image.BufferedImage;
 import java.io.IOException;
-import java.nio.file.Files;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -20,6 +19,7 @@ import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.lines.SeriesLines;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.sim.run.RunNotes;
 
 /**
  * Plots of the light stage (PNG): the centroid track on the sky (north up, east left, time
@@ -35,24 +35,39 @@ public final class LightPlots {
 
     /** Writes the plots into plots/ of the run folder; @return their names relative to it */
     public static List<String> write(LightOutputs.Sink out, LightResult r) throws IOException {
+        return write(out, r, RunNotes.STRICT);
+    }
+
+    /**
+     * Writes the plots into plots/ of the run folder, each through the guard (a run records a
+     * plot that cannot be drawn and goes on).
+     *
+     * @return the names of the plots drawn, relative to the run folder
+     */
+    public static List<String> write(LightOutputs.Sink out, LightResult r, RunNotes.Guard guard) throws IOException {
         List<String> names = new ArrayList<>();
-        save(out, "light_track.png", track(r), names);
-        save(out, "light_offsets.png", xy(r), names);
-        save(out, "light_curve.png", lightCurve(r), names);
-        BufferedImage panel = imagePanel(r);
+        save(out, "light_track.png", () -> track(r), names, guard);
+        save(out, "light_offsets.png", () -> xy(r), names, guard);
+        save(out, "light_curve.png", () -> lightCurve(r), names, guard);
         String img = ArchiveLayout.PLOTS + "/light_images.png";
-        out.write(img, tmp -> ImageIO.write(panel, "png", tmp.toFile()));
-        names.add(img);
+        if (guard.draw(img, () -> {
+            BufferedImage panel = imagePanel(r);
+            out.write(img, os -> ImageIO.write(panel, "png", os));
+        })) {
+            names.add(img);
+        }
         return names;
     }
 
-    private static void save(LightOutputs.Sink out, String name, XYChart chart, List<String> names) throws IOException {
-        out.write(ArchiveLayout.PLOTS + "/" + name, tmp -> {
-            try (var os = Files.newOutputStream(tmp)) {
-                BitmapEncoder.saveBitmap(chart, os, BitmapEncoder.BitmapFormat.PNG);
-            }
-        });
-        names.add(ArchiveLayout.PLOTS + "/" + name);
+    private static void save(LightOutputs.Sink out, String name, java.util.function.Supplier<XYChart> chart,
+                             List<String> names, RunNotes.Guard guard) throws IOException {
+        String path = ArchiveLayout.PLOTS + "/" + name;
+        if (guard.draw(path, () -> {
+            XYChart c = chart.get();
+            out.write(path, os -> BitmapEncoder.saveBitmap(c, os, BitmapEncoder.BitmapFormat.PNG));
+        })) {
+            names.add(path);
+        }
     }
 
     /** Colour of fraction f in [0, 1]: dark blue through teal and green to yellow (perceptual ramp). */

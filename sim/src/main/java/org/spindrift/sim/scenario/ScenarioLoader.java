@@ -115,8 +115,9 @@ public final class ScenarioLoader {
             s.allow("inner_radius_M", "outer_radius_M", "arc_deg");
             double in = s.number("inner_radius_M", Range.positive(1e5));
             double out = s.number("outer_radius_M", Range.positive(1e5));
-            if (!(out > in)) {
-                throw s.error("outer_radius_M", "must be larger than inner_radius_M (" + in + "), got " + out);
+            if (out < in) {
+                // equal radii: a ring of zero width (every member on one circular orbit)
+                throw s.error("outer_radius_M", "must be at least inner_radius_M (" + in + "), got " + out);
             }
             return new SourceShape.Ring(in, out, s.number("arc_deg", 10.0, new Range(0, false, 360, true)));
         }

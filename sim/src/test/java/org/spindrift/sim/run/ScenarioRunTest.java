@@ -129,4 +129,13 @@ class ScenarioRunTest {
             assertTrue(files.noneMatch(p -> p.getFileName().toString().endsWith(".partial")));
         }
     }
+
+    @Test void aHistoryThatCannotFitInMemoryIsRefusedBeforeTheWork() {
+        LoadedScenario ls = thermalSpot(10);
+        // 149 bytes per particle and snapshot (history plus archive copy): 1e6 x 1000 needs 149 GB
+        UserInputException e = assertThrows(UserInputException.class,
+                () -> ScenarioRun.checkMemory(ls, 1_000_000, 1000, 8e9));
+        assertTrue(e.getMessage().contains("run.snapshot_cadence") && e.getMessage().contains("149 GB"), e.getMessage());
+        ScenarioRun.checkMemory(ls, 1000, 100, 8e9); // 15 MB: fine
+    }
 }

@@ -99,7 +99,7 @@ class BadConfigTest {
                 Arguments.of("two-shapes.yaml", swap("sigma_M: 0.3", "sigma_M: 0.3\n      axes_M: [1, 1, 1]"),
                         "sources[0].shape", "exactly one of sigma_M"),
                 Arguments.of("ring-radii.yaml", swap("kind: hot_spot", "kind: ring").replace("sigma_M: 0.3",
-                        "inner_radius_M: 9\n      outer_radius_M: 7"), "sources[0].shape.outer_radius_M", "larger than"),
+                        "inner_radius_M: 9\n      outer_radius_M: 7"), "sources[0].shape.outer_radius_M", "at least inner_radius_M"),
                 Arguments.of("tolerance.yaml", swap("tolerance: 1.0e-8", "tolerance: 0.5"), "run.tolerance",
                         "out of range"),
                 Arguments.of("superluminal.yaml", swap(circ, "      local:\n        r_M: 8\n        v_phi: 0.8\n"
@@ -152,7 +152,7 @@ class BadConfigTest {
         Files.writeString(out.resolve("chapter1.tex"), "precious");
         String[] err = new String[1];
         assertEquals(2, cli(err, "run", f.toString(), "-o", out.toString(), "--quiet"));
-        assertTrue(err[0].contains("not part of a run") && err[0].contains("chapter1.tex"), err[0]);
+        assertTrue(err[0].contains("Spindrift did not write") && err[0].contains("chapter1.tex"), err[0]);
         assertEquals("precious", Files.readString(out.resolve("chapter1.tex")));
         assertEquals(2, cli(err, "run", f.toString(), "-o", out.resolve("chapter1.tex").toString(), "--quiet"));
         assertTrue(err[0].contains("not a folder"), err[0]);

@@ -37,7 +37,13 @@ public final class ViewerSession implements AutoCloseable {
 
     /** Parsed command-line options. */
     public record Options(Path runDir, int width, int height, Quantity colour, CameraStart camera,
-                          Double cameraDistance, boolean bare, boolean noSky, Integer samples) {
+                          Double cameraDistance, boolean bare, boolean noSky, Integer samples, boolean verify) {
+        /** Options with the run folder verified (checksums included). */
+        public Options(Path runDir, int width, int height, Quantity colour, CameraStart camera, Double cameraDistance,
+                       boolean bare, boolean noSky, Integer samples) {
+            this(runDir, width, height, colour, camera, cameraDistance, bare, noSky, samples, true);
+        }
+
         /** Multisampling chosen by the user, else 4 (software renderers: see {@link ViewerSession#samples}). */
         public int samplesOr(int fallback) {
             return samples != null ? samples : fallback;
@@ -59,7 +65,7 @@ public final class ViewerSession implements AutoCloseable {
      */
     public ViewerSession(Options o, boolean visible) {
         this.options = o;
-        RunData r = ArchiveRunData.open(o.runDir());
+        RunData r = ArchiveRunData.open(o.runDir(), o.verify());
         ImageCube cube = null;
         CentroidTrack track = null;
         GlContext ctx = null;
@@ -71,10 +77,11 @@ public final class ViewerSession implements AutoCloseable {
             if (!o.bare() && !o.noSky()) {
                 Path img = o.runDir().resolve(ArchiveLayout.IMAGES);
                 Path csv = o.runDir().resolve(ArchiveLayout.CENTROID);
-                if (Files.isRegularFile(img)) {
+                // only the run's own files: those its manifest lists (and the verification covered)
+                if (Files.isRegularFile(img) && listed(r, ArchiveLayout.IMAGES)) {
                     cube = ImageCube.open(img, info.mSeconds(), info.mMicroarcsec());
                 }
-                if (Files.isRegularFile(csv)) {
+                if (Files.isRegularFile(csv) && listed(r, ArchiveLayout.CENTROID)) {
                     track = CentroidTrack.read(csv, info.mSeconds());
                 }
             }
@@ -119,6 +126,10 @@ public final class ViewerSession implements AutoCloseable {
         this.gl = ctx;
         this.stream = s;
         this.composer = c;
+    }
+
+    private static boolean listed(RunData r, String name) {
+        return !(r instanceof ArchiveRunData a) || a.archive().has(name);
     }
 
     /** Puts the camera where the options ask. */

@@ -39,11 +39,23 @@ public final class ArchiveRunData implements RunData {
      * @throws UserInputException naming the file and what is wrong
      */
     public static ArchiveRunData open(Path folder) {
+        return open(folder, true);
+    }
+
+    /**
+     * Opens a run folder, verifies it through the shared archive reader (manifest types and
+     * physical ranges, that snapshots.h5 belongs to the run, complete light files, and with
+     * {@code checksums} every file's sha256) and checks what the viewer relies on.
+     *
+     * @param checksums compare every file with its sha256 (reads every byte once)
+     * @throws UserInputException naming the file and what is wrong
+     */
+    public static ArchiveRunData open(Path folder, boolean checksums) {
         if (!Files.isDirectory(folder)) {
             throw new UserInputException("run folder " + folder + ": "
                     + (Files.exists(folder) ? "is not a folder" : "does not exist"));
         }
-        RunArchive a = RunArchive.open(folder);
+        RunArchive a = RunArchive.open(folder, checksums);
         try {
             return new ArchiveRunData(a, readInfo(a, folder));
         } catch (RuntimeException e) {
