@@ -139,7 +139,8 @@ class ViewCommandErrorsTest {
         assertOneLine(run(d.toString(), "--size", "10x10"), "--size", "64..8192");
         assertOneLine(run(d.toString(), "--size", "wide"), "--size");
         assertOneLine(run(d.toString(), "--every", "0"), "--every");
-        assertOneLine(run(d.toString(), "--colour", "purple"), "--colour", "redshift");
+        assertOneLine(run(d.toString(), "--colour", "purple"), "--colour", "time-dilation");
+        assertOneLine(run(d.toString(), "--sky-colours", "heat"), "--sky-colours", "default, grey");
         assertOneLine(run(d.toString(), "--camera", "above"), "--camera");
     }
 

@@ -82,7 +82,7 @@ public final class ArchiveLayout {
     public static final String PARTIAL_SUFFIX = ".partial";
 
     /**
-     * Cartesian coordinates for display and spatial indexing (DESIGN section 3):
+     * Cartesian coordinates for display and spatial indexing:
      * x = sqrt(r^2+a^2) sin(theta) cos(phi), y = sqrt(r^2+a^2) sin(theta) sin(phi), z = r cos(theta)
      * (see {@link org.spindrift.shared.Coordinates}).
      *

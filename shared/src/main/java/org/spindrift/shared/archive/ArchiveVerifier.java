@@ -47,10 +47,10 @@ public final class ArchiveVerifier {
     static void manifest(RunArchive a) {
         JsonNode m = a.manifest();
         number(a, m, "black_hole.mass_solar", 0, false, 1e12);
-        number(a, m, "black_hole.distance_kpc", 0, false, 1e8);
+        number(a, m, "black_hole.distance_Mpc", 0, false, 1e5);
         number(a, m, "black_hole.spin", -100, true, 100);
         number(a, m, "units.M_seconds", 0, false, 1e9);
-        number(a, m, "units.M_microarcsec", 0, false, 1e30);
+        number(a, m, "units.M_uas", 0, false, 1e30);
         number(a, m, "observer.inclination_deg", 0, true, 180);
         number(a, m, "observer.position_angle_deg", -360, true, 360);
         JsonNode sources = m.path("sources");
@@ -105,7 +105,7 @@ public final class ArchiveVerifier {
         String f = ArchiveLayout.SNAPSHOTS + " does not belong to this run: ";
         compare(a, f, "spin", a.spin());
         compare(a, f, "mass_solar", a.massSolar());
-        compare(a, f, "distance_kpc", a.distanceKpc());
+        compare(a, f, "distance_Mpc", a.distanceMpc());
         int s = a.snapshotCount();
         JsonNode ms = m.path("time").path("snapshots");
         if (ms.isNumber() && ms.asInt() != s) {

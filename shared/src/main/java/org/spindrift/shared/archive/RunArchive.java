@@ -189,9 +189,9 @@ public final class RunArchive implements AutoCloseable {
         return manifest.path("black_hole").path("mass_solar").asDouble(Double.NaN);
     }
 
-    /** @return the distance in kpc */
-    public double distanceKpc() {
-        return manifest.path("black_hole").path("distance_kpc").asDouble(Double.NaN);
+    /** @return the distance in Mpc (manifest black_hole.distance_Mpc) */
+    public double distanceMpc() {
+        return manifest.path("black_hole").path("distance_Mpc").asDouble(Double.NaN);
     }
 
     /** @return the spacetime family */
@@ -220,8 +220,8 @@ public final class RunArchive implements AutoCloseable {
     }
 
     /** @return micro-arcseconds subtended by 1 M at the distance */
-    public double mMicroarcsec() {
-        return manifest.path("units").path("M_microarcsec").asDouble(Double.NaN);
+    public double mUas() {
+        return manifest.path("units").path("M_uas").asDouble(Double.NaN);
     }
 
     /** @return inclination in degrees */
@@ -235,7 +235,7 @@ public final class RunArchive implements AutoCloseable {
     }
 
     /**
-     * @return the numeric landmarks (horizon, ISCO, Omega maximum, surface_radius, ...); a JSON null
+     * @return the numeric landmarks (horizon, ISCO, Omega maximum, capture_radius, ...); a JSON null
      *     (landmark absent, for example no horizon) reads as NaN
      */
     public Map<String, Double> landmarks() {

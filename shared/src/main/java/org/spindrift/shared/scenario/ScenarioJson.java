@@ -22,7 +22,7 @@ public final class ScenarioJson {
         BlackHole b = s.blackHole();
         ObjectNode bh = o.putObject("black_hole");
         bh.put("mass_solar", b.massSolar());
-        bh.put("distance_kpc", b.distanceKpc());
+        bh.put("distance", distance(b.distanceMpc()));
         bh.put("family", b.family());
         bh.put("spin", b.spin());
         ObjectNode par = bh.putObject("parameters");
@@ -53,6 +53,7 @@ public final class ScenarioJson {
             img.put("frame_cadence", im.frameCadence().toString());
         }
         img.put("lensing", im.lensing());
+        img.put("sky_colours", im.skyColours().key());
         Instrument in = s.instrument();
         o.putObject("instrument").put("beam_fwhm_uas", in.beamFwhmUas())
                 .put("steady_source_flux_ratio", in.steadySourceFluxRatio())
@@ -86,6 +87,11 @@ public final class ScenarioJson {
         return o;
     }
 
+    /** @return a distance in Mpc as the scenario-file string, for example {@code "40.0 Mpc"} (exact repr) */
+    public static String distance(double mpc) {
+        return Double.toString(mpc) + " Mpc";
+    }
+
     private static String lower(Enum<?> e) {
         return e.name().toLowerCase(Locale.ROOT);
     }
@@ -110,8 +116,8 @@ public final class ScenarioJson {
             orb.putObject("elements").put("p_M", e.semiLatusRectumM()).put("e", e.eccentricity())
                     .put("inclination_deg", e.inclinationDeg()).put("sense", lower(e.sense()))
                     .put("start", lower(e.start())).put("phi_deg", e.phiDeg());
-        } else if (s.orbit() instanceof CentreOrbit.Local l) {
-            orb.putObject("local").put("r_M", l.radiusM()).put("theta_deg", l.thetaDeg()).put("phi_deg", l.phiDeg())
+        } else if (s.orbit() instanceof CentreOrbit.ZamoVelocity l) {
+            orb.putObject("zamo_velocity").put("r_M", l.radiusM()).put("theta_deg", l.thetaDeg()).put("phi_deg", l.phiDeg())
                     .put("v_r", l.vR()).put("v_theta", l.vTheta()).put("v_phi", l.vPhi());
         }
         ObjectNode v = o.putObject("velocity").put("model", lower(s.velocity().kind()));
@@ -126,7 +132,7 @@ public final class ScenarioJson {
         } else if (em.flare() instanceof Flare.Gaussian g) {
             f.put("kind", "gaussian").put("peak", g.peak().toString()).put("width", g.width().toString());
         } else if (em.flare() instanceof Flare.Exponential x) {
-            f.put("kind", "exponential").put("start", x.start().toString()).put("rise", x.rise().toString())
+            f.put("kind", "exponential").put("peak", x.peak().toString()).put("rise", x.rise().toString())
                     .put("decay", x.decay().toString());
         }
         return o;

@@ -16,7 +16,7 @@ class ArchiveVerifierTest {
     /** A one-source run of two particles over two snapshots; state and radius of particle 1 at snapshot 1 given. */
     static Path run(Path dir, byte state, double r) throws Exception {
         RunArchiveWriter w = RunArchiveWriter.create(dir);
-        SnapshotWriter sw = new SnapshotWriter(2, new int[2], 1, 0.0, 1.0e6, 1.0);
+        SnapshotWriter sw = new SnapshotWriter(2, new int[2], 1, 0.0, 1.0e6, 1.0e-3);
         double[] th = {Math.PI / 2, Math.PI / 2};
         double[] zero = new double[2];
         double[] ut = {1.5, 1.5};
@@ -27,8 +27,8 @@ class ArchiveVerifierTest {
         sw.write(w.folder());
         w.register(ArchiveLayout.SNAPSHOTS);
         ObjectNode body = RunArchiveWriter.json().createObjectNode();
-        body.putObject("black_hole").put("mass_solar", 1.0e6).put("distance_kpc", 1.0).put("spin", 0.0);
-        body.putObject("units").put("M_seconds", 4.93).put("M_microarcsec", 0.99);
+        body.putObject("black_hole").put("mass_solar", 1.0e6).put("distance_Mpc", 1.0e-3).put("spin", 0.0);
+        body.putObject("units").put("M_seconds", 4.93).put("M_uas", 0.99);
         body.putObject("observer").put("inclination_deg", 30.0).put("position_angle_deg", 0.0);
         body.putArray("sources").addObject().put("name", "s").put("particles", 2).put("kept", 2).put("first_index", 0);
         body.putObject("time").put("snapshots", 2);

@@ -30,7 +30,7 @@ class RunArchiveRoundTripTest {
         RunArchiveWriter w = RunArchiveWriter.create(run);
         int[] src = {0, 0, 0, 1, 1};
         double spin = 0.7;
-        SnapshotWriter sw = new SnapshotWriter(S, src, 2, spin, 4.0e6, 8.0);
+        SnapshotWriter sw = new SnapshotWriter(S, src, 2, spin, 1.0e6, 1.0e-3);
         for (int s = 0; s < S; s++) {
             double[][] c = new double[9][N];
             for (int k = 0; k < 9; k++) {
@@ -52,7 +52,7 @@ class RunArchiveRoundTripTest {
         w.writeText(ArchiveLayout.PERIODS, "source,particle,period_phi_M\n");
         ObjectNode body = RunArchiveWriter.json().createObjectNode();
         body.put("seed", 42);
-        body.putObject("black_hole").put("mass_solar", 4.0e6).put("distance_kpc", 8.0).put("family", "kerr")
+        body.putObject("black_hole").put("mass_solar", 1.0e6).put("distance_Mpc", 1.0e-3).put("family", "kerr")
                 .put("spin", spin).putObject("parameters");
         body.putObject("landmarks").put("horizon", 1.714).putNull("omega_max_radius");
         body.putArray("sources").addObject().put("name", "a").put("kind", "hot_spot").put("particles", 30)

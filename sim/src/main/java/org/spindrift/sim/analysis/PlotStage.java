@@ -15,6 +15,7 @@ import org.knowm.xchart.internal.chartpart.Chart;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.shared.Coordinates;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.sim.run.ParticleHistory;
 import org.spindrift.sim.run.RunContext;
@@ -35,9 +36,14 @@ import org.spindrift.sim.run.SnapshotStage;
  * </ul>
  */
 public final class PlotStage implements RunStage {
-    /** Colours from dark blue through teal and green to yellow (perceptually ordered; after matplotlib's viridis). */
-    static final Color[] RAMP = {new Color(68, 1, 84), new Color(65, 68, 135), new Color(42, 120, 142),
-        new Color(34, 168, 132), new Color(122, 209, 81), new Color(253, 231, 37)};
+    /** Six ordered colours from the project's sequential ramp (up to 0.8 of it: visible on white). */
+    static final Color[] RAMP = new Color[6];
+
+    static {
+        for (int i = 0; i < RAMP.length; i++) {
+            RAMP[i] = new Color(ColourRamp.SKY.rgb(0.8 * i / (RAMP.length - 1)));
+        }
+    }
     /** Distinct colours for lines (times, sources). */
     static final Color[] LINES = {new Color(31, 119, 180), new Color(255, 127, 14), new Color(44, 160, 44),
         new Color(214, 39, 40), new Color(148, 103, 189), new Color(140, 86, 75), new Color(23, 190, 207)};
@@ -75,7 +81,7 @@ public final class PlotStage implements RunStage {
             }
         });
         if (charts.size() == 1) {
-            // a vector twin where XChart offers one (single-panel charts; DESIGN section 8)
+            // a vector twin where XChart offers one (single-panel charts)
             ctx.archive().writeStream(name.replaceFirst("\\.png$", ".svg"), out -> VectorGraphicsEncoder
                     .saveVectorGraphic(charts.get(0), out, VectorGraphicsEncoder.VectorGraphicsFormat.SVG));
         }
@@ -166,7 +172,7 @@ public final class PlotStage implements RunStage {
         double[] e1 = new double[3];
         double[] e2 = new double[3];
         if (Math.abs(nrm[2]) > 0.999) {
-            // equatorial: keep the x, y axes of DESIGN section 3
+            // equatorial: keep the display x, y axes
             e1 = new double[] {1, 0, 0};
             e2 = new double[] {0, Math.signum(nrm[2]), 0};
         } else {
@@ -191,7 +197,8 @@ public final class PlotStage implements RunStage {
         extent = Math.max(extent * 1.08, 1.3 * ctx.landmark("isco_prograde"));
         if (!(extent > 0) || !Double.isFinite(extent)) {
             // no ISCO and no particle left: a field a few capture radii wide
-            extent = sortedR.length > 0 ? 1.1 * sortedR[sortedR.length - 1] : Math.max(10.0, 3 * captureRadius(ctx));
+            extent = sortedR.length > 0 ? 1.1 * sortedR[sortedR.length - 1]
+                    : Math.max(10.0, 3 * ctx.landmark("capture_radius"));
         }
         List<XYChart> charts = new ArrayList<>();
         int[] at = {0, (s - 1) / 3, 2 * (s - 1) / 3, s - 1};
@@ -241,8 +248,9 @@ public final class PlotStage implements RunStage {
                 none.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
                 none.setMarker(SeriesMarkers.NONE);
             }
-            double cap = captureRadius(ctx);
-            circle(c, (Double.isFinite(ctx.landmark("horizon_outer")) ? "horizon " : "surface ") + fmt(cap) + " M", cap,
+            double rh = ctx.landmark("horizon_outer");
+            double inner = Double.isFinite(rh) ? rh : ctx.landmark("capture_radius");
+            circle(c, (Double.isFinite(rh) ? "horizon " : "surface (capture radius) ") + fmt(inner) + " M", inner,
                     Color.BLACK, false);
             circle(c, "ISCO " + fmt(ctx.landmark("isco_prograde")) + " M", ctx.landmark("isco_prograde"), Color.GRAY, true);
             circle(c, "Omega max " + fmt(ctx.landmark("omega_max_radius")) + " M", ctx.landmark("omega_max_radius"),
@@ -313,11 +321,6 @@ public final class PlotStage implements RunStage {
 
     private static String decimals(double v, int d) {
         return String.format(Locale.ROOT, "%." + d + "f", v);
-    }
-
-    private static double captureRadius(RunContext ctx) {
-        double h = ctx.landmark("horizon_outer");
-        return Double.isFinite(h) ? h : ctx.landmark("surface_radius");
     }
 
     private static XYChart shape(RunContext ctx, List<ShearShape> shapes) {

@@ -99,7 +99,7 @@ public final class BenchLightCommand implements Callable<Integer> {
             double motion = seconds(t0);
             EmitterHistory h = new HistoryEmitters(o.history(), sc.sources());
             LightSettings s = LightSettings.of(sc);
-            double stop = ScenarioChecks.captureRadius(p.spacetime(), p.landmarks());
+            double stop = p.captureRadius();
             System.out.printf(Locale.ROOT, "light bench: %s, a = %.1f, i = %.0f deg, %d particles, %d snapshots,"
                     + " %d threads (machine: %d cores)%n", config, SPIN, INCLINATION, particles, h.snapshots(), nt,
                     Runtime.getRuntime().availableProcessors());

@@ -50,8 +50,8 @@ public final class CheckCommand implements Callable<Integer> {
         double spm = p.secondsPerM();
         out().printf(Locale.ROOT, "%s: ok: scenario '%s', %s a = %s, %d source(s), %d particles%n", file, sc.name(),
                 sc.blackHole().family(), fmt(sc.blackHole().spin()), sc.sources().size(), sc.totalParticles());
-        out().printf(Locale.ROOT, "  1 M = %.4g s = %.4g micro-arcsec; duration %.1f M = %.1f min, %d snapshots%n",
-                spm, p.microarcsecPerM(), p.durationM(), p.durationM() * spm / 60, p.times().length);
+        out().printf(Locale.ROOT, "  1 M = %.4g s = %.4g micro-arcseconds; duration %.1f M = %.1f min, %d snapshots%n",
+                spm, p.uasPerM(), p.durationM(), p.durationM() * spm / 60, p.times().length);
         for (int k = 0; k < sc.sources().size(); k++) {
             Source s = sc.sources().get(k);
             out().printf(Locale.ROOT, "  source %s: %s, %d particles, centre period %.1f M = %.1f min%n", s.name(),
@@ -60,12 +60,12 @@ public final class CheckCommand implements Callable<Integer> {
         }
         if (sc.interferometer() != null) {
             org.spindrift.sim.interferometry.ObservingSetup o = org.spindrift.sim.interferometry.ObservingSetup.of(sc);
-            double fringe = o.wavelength() / o.array().longestBaseline() * org.spindrift.shared.Units.MICROARCSEC_PER_RAD;
-            double pixel = sc.imaging().fieldOfViewM() / sc.imaging().pixels() * p.microarcsecPerM();
+            double fringe = o.wavelength() / o.array().longestBaseline() * org.spindrift.shared.Units.UAS_PER_RAD;
+            double pixel = sc.imaging().fieldOfViewM() / sc.imaging().pixels() * p.uasPerM();
             out().printf(Locale.ROOT, "  interferometer: %d stations%s, %.4g GHz; smallest fringe spacing lambda/B_max"
-                    + " = %.3g micro-arcsec (image pixel %.3g, field %.3g micro-arcsec)%n", o.array().stations(),
+                    + " = %.3g uas (image pixel %.3g uas, field %.3g uas)%n", o.array().stations(),
                     sc.interferometer().arrayFile() == null ? "" : " from " + sc.interferometer().arrayFile(),
-                    o.frequencyHz() * 1e-9, fringe, pixel, sc.imaging().fieldOfViewM() * p.microarcsecPerM());
+                    o.frequencyHz() * 1e-9, fringe, pixel, sc.imaging().fieldOfViewM() * p.uasPerM());
         }
         out().flush();
         return 0;

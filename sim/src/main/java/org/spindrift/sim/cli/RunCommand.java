@@ -18,8 +18,19 @@ import picocli.CommandLine.Parameters;
  * sources and writes the run folder (DEVELOPERS.md, run archive layout).
  */
 @Command(name = "run", mixinStandardHelpOptions = true,
-        description = {"Run a scenario: evolve every source on geodesics and write the run folder"
-                + " (manifest.json, snapshots.h5, summary.json, periods.csv, shear.csv, plots/).",
+        description = {"Run a scenario: evolve every source on geodesics, trace the light to the observer and"
+                + " write the run folder:",
+            "  manifest.json        scenario echo, landmarks, diagnostics, sha256 of every file (written last)",
+            "  snapshots.h5         particle snapshots (HDF5)",
+            "  summary.json         periods, periastron advance, shapes, light summary per source",
+            "  periods.csv          periods and advance of every particle",
+            "  shear.csv            shape, orientation, lag profile per source and snapshot",
+            "  centroid.csv         flux-weighted centroid on the sky (micro-arcseconds) vs observer time",
+            "  lightcurve.csv       total flux vs observer time",
+            "  mock_astrometry.csv  centroid with astrometric noise (only when instrument noise is set)",
+            "  images.fits          image cube (x, y, observer time) with a WCS header",
+            "  plots/               positions.png, shape.png, shape.svg, lag.png, lag.svg, periods.png,",
+            "                       light_track.png, light_offsets.png, light_curve.png, light_images.png",
             "The file is checked first (as by 'check'); nothing is written when it has an error.",
             "",
             "What a run guarantees: the output folder is locked (a second run into it is refused);"

@@ -36,7 +36,7 @@ public final class InterferometryStage implements RunStage {
     public static InterferometryResult observe(ObservingSetup o, LightResult r, String name, int threads) {
         LightSettings s = r.settings();
         UvSampling uv = UvSampling.of(o, r.timesM());
-        DirectFourier grid = grid(r.camera(), s.uasPerM() / Units.MICROARCSEC_PER_RAD);
+        DirectFourier grid = grid(r.camera(), s.uasPerM() / Units.UAS_PER_RAD);
         double[] re = new double[uv.size()], im = new double[uv.size()];
         FrameVisibilities.compute(r.rawImages(), grid, uv.u, uv.v, uv.frameStart, re, im, threads);
         double peak = 0;

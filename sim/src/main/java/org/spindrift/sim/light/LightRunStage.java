@@ -54,13 +54,13 @@ public final class LightRunStage implements RunStage {
         LightSettings s = LightSettings.of(ctx.scenario());
         checkBudget(s, ctx.history().time(0), ctx.history().time(ctx.history().snapshots() - 1),
                 ctx.history().snapshots());
-        // rays stop where particles are captured: outer horizon plus margin, or the surface
-        double stop = ScenarioChecks.captureRadius(ctx.spacetime(), ctx.landmarks());
+        // rays stop where particles do: the capture radius (manifest landmarks.capture_radius)
+        double capture = ctx.landmark("capture_radius");
         EmitterHistory h = new HistoryEmitters(ctx.history(), ctx.scenario().sources());
         if (ctx.progress()) {
             System.err.printf("spindrift: light: tracing %d x %d rays%n", s.pixels(), s.pixels());
         }
-        LightResult r = LightStage.run(s, ctx.spacetime(), stop, h, ctx.threads());
+        LightResult r = LightStage.run(s, ctx.spacetime(), capture, h, ctx.threads());
         LightOutputs.write((name, w) -> ctx.archive().writeStream(name, w), r);
         LightPlots.write((name, w) -> ctx.archive().writeStream(name, w), r, RunNotes.guard(ctx));
         ctx.products().put(RESULT, r);
@@ -70,7 +70,6 @@ public final class LightRunStage implements RunStage {
         m.put("field_of_view_M", s.fieldOfViewM());
         m.put("pixel_uas", r.camera().pixelSize() * s.uasPerM());
         m.put("camera_distance_M", r.camera().distance());
-        m.put("stop_radius_M", stop);
         m.put("emission_radius_M", r.emissionRadius());
         m.put("smoothing_length_M", r.smoothingLength());
         m.put("rays", r.table().rays());

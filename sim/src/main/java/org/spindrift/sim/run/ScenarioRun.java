@@ -76,7 +76,7 @@ public final class ScenarioRun {
      * @param placed initial particles
      * @param times snapshot times, M
      * @param secondsPerM GM/c^3, s
-     * @param microarcsecPerM angular size of 1 M, micro-arcseconds
+     * @param uasPerM angular size of 1 M, micro-arcseconds
      * @param warnings things the run does that the user may not expect, one line each
      *     ({@code FILE:LINE: key: problem}); printed and recorded in the manifest
      * @param requestedDurationM the duration the scenario asks for, M (the run ends at the last
@@ -84,7 +84,7 @@ public final class ScenarioRun {
      */
     public record Prepared(LoadedScenario loaded, Spacetime spacetime, Map<String, Double> landmarks,
             double captureRadius, SourceSetup.Placed placed, double[] times, double secondsPerM,
-            double microarcsecPerM, List<String> warnings, double requestedDurationM) {
+            double uasPerM, List<String> warnings, double requestedDurationM) {
         /** @return run duration, M */
         public double durationM() {
             return times[times.length - 1];
@@ -118,10 +118,10 @@ public final class ScenarioRun {
         Landmarks lm = Landmarks.of(st);
         Map<String, Double> landmarks = new LinkedHashMap<>();
         lm.toMap().forEach((k, v) -> landmarks.put(k, v == null ? Double.NaN : v));
-        double capture = ScenarioChecks.captureRadius(st, landmarks);
+        double capture = lm.captureRadius();
         ScenarioChecks.checkSources(ls, st, capture);
         double secondsPerM = Units.timeUnitSeconds(sc.blackHole().massSolar());
-        double uasPerM = Units.microarcsecPerM(sc.blackHole().massSolar(), sc.blackHole().distanceKpc());
+        double uasPerM = Units.uasPerM(sc.blackHole().massSolar(), sc.blackHole().distanceMpc());
         SourceSetup.Placed placed = SourceSetup.place(sc, st, capture);
         RunSettings run = sc.run();
         double duration = run.duration().toM(secondsPerM, placed.centres()[0].periodM());
@@ -287,7 +287,7 @@ public final class ScenarioRun {
 
         Map<String, Double> stageSeconds = new LinkedHashMap<>();
         ObjectNode summary = RunArchiveWriter.json().createObjectNode();
-        RunContext ctx = new RunContext(p.loaded(), st, p.landmarks(), p.secondsPerM(), p.microarcsecPerM(),
+        RunContext ctx = new RunContext(p.loaded(), st, p.landmarks(), p.secondsPerM(), p.uasPerM(),
                 p.placed(), history, archive, manifest, summary, Math.max(1, o.threads()), o.progress(),
                 new java.util.HashMap<>());
         ctx.products().put(TURNING_POINTS, turning);
@@ -400,7 +400,7 @@ public final class ScenarioRun {
         return q;
     }
 
-    /** Max and median |H + 1/2|, Carter-constant drift, end states and failure reasons (DESIGN section 5). */
+    /** Max and median |H + 1/2|, Carter-constant drift, end states and failure reasons. */
     private static ObjectNode diagnostics(Spacetime st, ParticleBatch b, double[] q0, BatchIntegrator.Result res) {
         GeodesicEquations eq = new GeodesicEquations(st);
         int n = b.size();
@@ -458,7 +458,7 @@ public final class ScenarioRun {
         m.put("seed", sc.run().seed());
         ObjectNode bh = m.putObject("black_hole");
         bh.put("mass_solar", sc.blackHole().massSolar());
-        bh.put("distance_kpc", sc.blackHole().distanceKpc());
+        bh.put("distance_Mpc", sc.blackHole().distanceMpc());
         bh.put("family", sc.blackHole().family());
         bh.put("spin", sc.blackHole().spin());
         ObjectNode par = bh.putObject("parameters");
@@ -466,12 +466,11 @@ public final class ScenarioRun {
         ObjectNode u = m.putObject("units");
         u.put("M_seconds", p.secondsPerM());
         u.put("M_metres", Units.lengthUnitMetres(sc.blackHole().massSolar()));
-        u.put("M_microarcsec", p.microarcsecPerM());
+        u.put("M_uas", p.uasPerM());
         m.putObject("observer").put("inclination_deg", sc.observer().inclinationDeg())
                 .put("position_angle_deg", sc.observer().positionAngleDeg());
         ObjectNode lm = m.putObject("landmarks");
         p.landmarks().forEach((k, v) -> put(lm, k, v));
-        put(lm, "capture_radius", p.captureRadius());
         ObjectNode time = m.putObject("time");
         time.put("origin", "coordinate time t = 0 at the start of the run (emitter time)");
         time.put("duration_M", p.durationM());

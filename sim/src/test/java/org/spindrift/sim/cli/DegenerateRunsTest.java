@@ -35,7 +35,7 @@ class DegenerateRunsTest {
             "name: degenerate",
             "black_hole:",
             "  mass_solar: 1.0e6",
-            "  distance_kpc: 1.0",
+            "  distance: 1 kpc",
             "  family: kerr",
             "  spin: 0.0",
             "observer:",
@@ -85,7 +85,7 @@ class DegenerateRunsTest {
                     "    shape:",
                     "      sigma_M: 0.05",
                     "    orbit:",
-                    "      local:",
+                    "      zamo_velocity:",
                     "        r_M: 2.6",
                     "        v_r: -0.6");
             default -> throw new IllegalArgumentException(kind);

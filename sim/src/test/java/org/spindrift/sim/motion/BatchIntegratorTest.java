@@ -95,7 +95,7 @@ class BatchIntegratorTest {
                 ODEStateAndDerivative out = ref.integrate(ode, state, times[k]);
                 double[] y = out.getPrimaryState();
                 for (int c = 0; c < 5; c++) {
-                    // Hipparchus DormandPrince853Integrator as reference (DESIGN section 5)
+                    // Hipparchus DormandPrince853Integrator as reference
                     assertEquals(y[c], got[k][5 * i + c], 1e-8 * Math.max(1, Math.abs(y[c])),
                             "particle " + i + " component " + c + " at t = " + times[k]);
                 }

@@ -87,6 +87,20 @@ class ScenarioRunTest {
             Path echo = tmp.resolve("echo.json");
             Files.writeString(echo, a.manifest().get("scenario").toString());
             assertEquals(thermalSpot(120).scenario(), org.spindrift.sim.scenario.ScenarioLoader.load(echo).scenario());
+            // run --help names every file the run wrote (common practice, no source: help lists outputs)
+            java.io.StringWriter help = new java.io.StringWriter();
+            picocli.CommandLine cl = org.spindrift.sim.cli.Main.commandLine();
+            cl.setOut(new java.io.PrintWriter(help, true));
+            assertEquals(0, cl.execute("run", "--help"));
+            java.util.Iterator<String> files = a.manifest().get("files").fieldNames();
+            int n = 0;
+            while (files.hasNext()) {
+                String f = files.next();
+                String base = f.substring(f.lastIndexOf('/') + 1);
+                assertTrue(help.toString().contains(base), "run --help names " + f + ":\n" + help);
+                n++;
+            }
+            assertTrue(n >= 12, "files listed in the manifest: " + n);
         }
     }
 

@@ -3,6 +3,7 @@ package org.spindrift.viewer.app;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.viewer.data.ArchiveRunData;
 import org.spindrift.viewer.data.RunData;
 import org.spindrift.viewer.data.RunInfo;
@@ -37,11 +38,12 @@ public final class ViewerSession implements AutoCloseable {
 
     /** Parsed command-line options. */
     public record Options(Path runDir, int width, int height, Quantity colour, CameraStart camera,
-                          Double cameraDistance, boolean bare, boolean noSky, Integer samples, boolean verify) {
-        /** Options with the run folder verified (checksums included). */
+                          Double cameraDistance, boolean bare, boolean noSky, Integer samples, ColourRamp skyColours,
+                          boolean verify) {
+        /** Options with the default sky colours and the run folder verified (checksums included). */
         public Options(Path runDir, int width, int height, Quantity colour, CameraStart camera, Double cameraDistance,
                        boolean bare, boolean noSky, Integer samples) {
-            this(runDir, width, height, colour, camera, cameraDistance, bare, noSky, samples, true);
+            this(runDir, width, height, colour, camera, cameraDistance, bare, noSky, samples, ColourRamp.SKY, true);
         }
 
         /** Multisampling chosen by the user, else 4 (software renderers: see {@link ViewerSession#samples}). */
@@ -79,7 +81,7 @@ public final class ViewerSession implements AutoCloseable {
                 Path csv = o.runDir().resolve(ArchiveLayout.CENTROID);
                 // only the run's own files: those its manifest lists (and the verification covered)
                 if (Files.isRegularFile(img) && listed(r, ArchiveLayout.IMAGES)) {
-                    cube = ImageCube.open(img, info.mSeconds(), info.mMicroarcsec());
+                    cube = ImageCube.open(img, info.mSeconds(), info.mUas());
                 }
                 if (Files.isRegularFile(csv) && listed(r, ArchiveLayout.CENTROID)) {
                     track = CentroidTrack.read(csv, info.mSeconds());
@@ -98,7 +100,7 @@ public final class ViewerSession implements AutoCloseable {
                 sky = new SkyPanel(cube, track, info.mSeconds() / 60.0);
                 cube = null; // owned by the panel now
             }
-            c = new FrameComposer(info, s, sky, o.bare());
+            c = new FrameComposer(info, s, sky, o.bare(), o.skyColours());
             c.scene().quantity(o.colour());
             c.layout().update(o.width(), o.height(), o.bare(), sky != null);
             c.scene().aspect(c.layout().viewW / (float) Math.max(1, c.layout().viewH));
