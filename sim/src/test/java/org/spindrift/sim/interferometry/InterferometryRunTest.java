@@ -50,6 +50,13 @@ class InterferometryRunTest {
             Path echo = tmp.resolve("echo.json");
             Files.writeString(echo, a.manifest().get("scenario").toString());
             assertEquals(withArray().scenario(), ScenarioLoader.load(echo).scenario(), "the echo reads back the same");
+            // run --help names every file this run wrote (common practice, no source: help lists outputs)
+            java.io.StringWriter help = new java.io.StringWriter();
+            picocli.CommandLine cl = org.spindrift.sim.cli.Main.commandLine();
+            cl.setOut(new java.io.PrintWriter(help, true));
+            assertEquals(0, cl.execute("run", "--help"));
+            a.manifest().get("files").fieldNames().forEachRemaining(f -> assertTrue(
+                    help.toString().contains(f.substring(f.lastIndexOf('/') + 1)), "run --help names " + f));
         }
         vis = Files.readAllLines(dir.resolve("visibilities.csv"));
         assertEquals(InterferometryOutputs.VIS_HEADER, vis.get(0));
