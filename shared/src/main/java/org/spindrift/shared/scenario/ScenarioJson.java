@@ -59,6 +59,31 @@ public final class ScenarioJson {
                 .put("steady_source_flux_ratio", in.steadySourceFluxRatio())
                 .put("astrometric_noise_uas", in.astrometricNoiseUas())
                 .put("noise_cadence_min", in.noiseCadenceMin());
+        if (s.interferometer() != null) {
+            o.set("interferometer", interferometer(s.interferometer()));
+        }
+        return o;
+    }
+
+    /** The interferometer with its stations written inline (so the echo needs no array file). */
+    private static ObjectNode interferometer(Interferometer a) {
+        ObjectNode o = JsonNodeFactory.instance.objectNode();
+        var st = o.putArray("stations");
+        for (Interferometer.Station s : a.stations()) {
+            st.addObject().put("name", s.name()).put("x_m", s.xM()).put("y_m", s.yM()).put("z_m", s.zM())
+                    .put("sefd_jy", s.sefdJy()).put("elevation_limit_deg", s.elevationLimitDeg());
+        }
+        o.put("frequency_ghz", a.frequencyGhz());
+        o.put("bandwidth_ghz", a.bandwidthGhz());
+        o.put("right_ascension_deg", a.rightAscensionDeg());
+        o.put("declination_deg", a.declinationDeg());
+        o.put("start_sidereal_time_h", a.startSiderealTimeH());
+        o.put("scan_length", a.scanLength().toString());
+        o.put("scan_cadence", a.scanCadence().toString());
+        o.put("integration_s", a.integrationS());
+        o.put("peak_flux_jy", a.peakFluxJy());
+        o.put("gain_error", a.gainError());
+        o.put("phase_error_deg", a.phaseErrorDeg());
         return o;
     }
 

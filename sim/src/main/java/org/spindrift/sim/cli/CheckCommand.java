@@ -58,6 +58,15 @@ public final class CheckCommand implements Callable<Integer> {
                     s.kind().key(), s.particles(), p.placed().centres()[k].periodM(),
                     p.placed().centres()[k].periodM() * spm / 60);
         }
+        if (sc.interferometer() != null) {
+            org.spindrift.sim.interferometry.ObservingSetup o = org.spindrift.sim.interferometry.ObservingSetup.of(sc);
+            double fringe = o.wavelength() / o.array().longestBaseline() * org.spindrift.shared.Units.UAS_PER_RAD;
+            double pixel = sc.imaging().fieldOfViewM() / sc.imaging().pixels() * p.uasPerM();
+            out().printf(Locale.ROOT, "  interferometer: %d stations%s, %.4g GHz; smallest fringe spacing lambda/B_max"
+                    + " = %.3g uas (image pixel %.3g uas, field %.3g uas)%n", o.array().stations(),
+                    sc.interferometer().arrayFile() == null ? "" : " from " + sc.interferometer().arrayFile(),
+                    o.frequencyHz() * 1e-9, fringe, pixel, sc.imaging().fieldOfViewM() * p.uasPerM());
+        }
         out().flush();
         return 0;
     }

@@ -221,6 +221,7 @@ public final class ScenarioRun {
         stages.add(new SnapshotStage());
         stages.add(new AnalysisStage());
         stages.add(new org.spindrift.sim.light.LightRunStage());
+        stages.add(new org.spindrift.sim.interferometry.InterferometryStage());
         stages.add(new PlotStage());
         return stages;
     }

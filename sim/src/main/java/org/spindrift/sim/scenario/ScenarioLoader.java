@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
+import org.spindrift.shared.Units;
 import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.shared.scenario.BlackHole;
 import org.spindrift.shared.scenario.CentreOrbit;
@@ -14,6 +15,7 @@ import org.spindrift.shared.scenario.Emission;
 import org.spindrift.shared.scenario.Flare;
 import org.spindrift.shared.scenario.Imaging;
 import org.spindrift.shared.scenario.Instrument;
+import org.spindrift.shared.scenario.Interferometer;
 import org.spindrift.shared.scenario.Observer;
 import org.spindrift.shared.scenario.RunSettings;
 import org.spindrift.shared.scenario.Scenario;
@@ -55,7 +57,8 @@ public final class ScenarioLoader {
                     + " sources, run, ...), got " + root.typeName());
         }
         ConfigSection top = new ConfigSection(file, "", obj, lines);
-        top.allow("name", "description", "black_hole", "observer", "sources", "run", "imaging", "instrument");
+        top.allow("name", "description", "black_hole", "observer", "sources", "run", "imaging", "instrument",
+                "interferometer");
         String fileName = file.getFileName().toString();
         String dflt = fileName.replaceFirst("\\.(ya?ml|json)$", "");
         String name = top.string("name", dflt);
@@ -78,7 +81,10 @@ public final class ScenarioLoader {
         RunSettings run = run(top.section("run", true));
         Imaging imaging = imaging(top.section("imaging", false));
         Instrument instrument = instrument(top.section("instrument", false));
-        return new LoadedScenario(file, new Scenario(name, description, bh, obs, sources, run, imaging, instrument), lines);
+        Interferometer array = InterferometerLoader.read(top.section("interferometer", false), file,
+                Units.timeUnitSeconds(bh.massSolar()));
+        return new LoadedScenario(file, new Scenario(name, description, bh, obs, sources, run, imaging, instrument, array),
+                lines);
     }
 
     private static BlackHole blackHole(ConfigSection s) {
