@@ -64,6 +64,9 @@ public final class SweepFile {
         String baseText = top.string("base", null);
         Path dir = file.toAbsolutePath().getParent();
         Path base = dir.resolve(baseText).normalize();
+        if (!java.nio.file.Files.isRegularFile(base)) {
+            throw top.error("base", "no file " + base + " (the base file's path is relative to the sweep file)");
+        }
         ConfigNode baseTree = ConfigTreeReader.read(base);
 
         ConfigSection lhs = top.section("latin_hypercube", false);

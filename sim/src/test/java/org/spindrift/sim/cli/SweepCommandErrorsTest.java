@@ -54,6 +54,14 @@ class SweepCommandErrorsTest {
         assertFalse(Files.exists(dir), "no sweep folder after bad input");
     }
 
+    @Test void aMissingBaseFileIsNamedAtItsKey() throws Exception {
+        Path f = tmp.resolve("nobase.yaml");
+        Files.writeString(f, "name: nobase\nbase: missing.yaml\naxes:\n  black_hole.spin: [0.1]\n");
+        String err = CliCapture.run(2, "sweep", "plan", f.toString(), "-o", tmp.resolve("N").toString())[1];
+        assertTrue(err.contains(f + ":2: base: no file"), err);
+        assertFalse(Files.exists(tmp.resolve("N")));
+    }
+
     @Test void tooManyTasksNeedForce() throws Exception {
         Path f = SweepFixtures.sweep(tmp, "huge", "black_hole.spin: {from: 0, to: 0.5, count: 400}",
                 "observer.inclination_deg: {from: 0, to: 90, count: 300}");
