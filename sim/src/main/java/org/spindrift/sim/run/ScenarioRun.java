@@ -114,8 +114,19 @@ public final class ScenarioRun {
         double secondsPerM = Units.timeUnitSeconds(sc.blackHole().massSolar());
         double uasPerM = Units.microarcsecPerM(sc.blackHole().massSolar(), sc.blackHole().distanceKpc());
         SourceSetup.Placed placed = SourceSetup.place(sc, st, capture);
+        double[] times = snapshotTimes(ls, secondsPerM, placed.centres()[0].periodM());
+        return new Prepared(ls, st, landmarks, capture, placed, times, secondsPerM, uasPerM);
+    }
+
+    /**
+     * The snapshot times of a scenario (0 to the duration at the snapshot cadence), M.
+     *
+     * @param firstPeriodM the first source centre's orbital period (what "1 orbit" means), M
+     */
+    public static double[] snapshotTimes(LoadedScenario ls, double secondsPerM, double firstPeriodM) {
+        Scenario sc = ls.scenario();
         RunSettings run = sc.run();
-        double duration = run.duration().toM(secondsPerM, placed.centres()[0].periodM());
+        double duration = run.duration().toM(secondsPerM, firstPeriodM);
         if (!(duration > 0) || !Double.isFinite(duration)) {
             throw ls.error("run.duration", "gives no positive duration in M (" + duration + ")");
         }
@@ -135,7 +146,7 @@ public final class ScenarioRun {
         for (int k = 0; k < s; k++) {
             times[k] = k * cadence;
         }
-        return new Prepared(ls, st, landmarks, capture, placed, times, secondsPerM, uasPerM);
+        return times;
     }
 
     /**
