@@ -126,6 +126,53 @@ public final class FitModel {
         LoadedScenario ls = scenario(p);
         Scenario sc = ls.scenario();
         BlackHole bh = sc.blackHole();
+        double spm = Units.timeUnitSeconds(bh.massSolar());
+        double uasPerM = Units.microarcsecPerM(bh.massSolar(), bh.distanceKpc());
+        CompactSourceModel.Frames fr = frames(ls, cache, light);
+        double offset = dataParameter(p, FitFile.TIME_OFFSET, fit.data().timeOffsetMin());
+        double scale = dataParameter(p, FitFile.FLUX_SCALE, fit.data().fluxScale());
+        double minPerM = spm / 60.0;
+        int n = data.timeMin().length;
+        double[] x = new double[n], y = new double[n];
+        double t0 = fr.timesM()[0], t1 = fr.timesM()[fr.timesM().length - 1];
+        for (int i = 0; i < n; i++) {
+            double t = (data.timeMin()[i] + offset) / minPerM;
+            if (t < t0 - 1e-9 || t > t1 + 1e-9) {
+                throw new UserInputException(String.format(java.util.Locale.ROOT, "data epoch %.6g min (with the time"
+                        + " offset %.6g min) lies outside the model's time range [%.6g, %.6g] min", data.timeMin()[i],
+                        offset, t0 * minPerM, t1 * minPerM));
+            }
+            x[i] = fr.xAt(t) * uasPerM;
+            y[i] = fr.yAt(t) * uasPerM;
+        }
+        int nf = data.flux().length;
+        double[] f = new double[nf];
+        for (int i = 0; i < nf; i++) {
+            double t = (data.fluxTimeMin()[i] + offset) / minPerM;
+            if (t < t0 - 1e-9 || t > t1 + 1e-9) {
+                throw new UserInputException(String.format(java.util.Locale.ROOT, "flux epoch %.6g min lies outside the"
+                        + " model's time range [%.6g, %.6g] min", data.fluxTimeMin()[i], t0 * minPerM, t1 * minPerM));
+            }
+            f[i] = scale * fr.fluxWithSteadyAt(t);
+        }
+        return new Prediction(x, y, f, fr, uasPerM, minPerM, offset, scale);
+    }
+
+    /**
+     * The compact-source frames of a checked scenario on its run's frame grid (observer time in M,
+     * offsets in M): the fast counterpart of a run's centroid.csv and lightcurve.csv.
+     *
+     * @throws UserInputException when the scenario's orbits are not allowed by its metric
+     */
+    public static CompactSourceModel.Frames frames(LoadedScenario ls, Cache cache, CompactSourceModel light) {
+        return frames(ls, cache, light, null);
+    }
+
+    /** As {@link #frames(LoadedScenario, Cache, CompactSourceModel)} at given observer times (M; null: the run's grid). */
+    public static CompactSourceModel.Frames frames(LoadedScenario ls, Cache cache, CompactSourceModel light,
+                                                   double[] atTimes) {
+        Scenario sc = ls.scenario();
+        BlackHole bh = sc.blackHole();
         String bhKey = bh.family() + "|" + bh.spin() + "|" + bh.parameters() + "|" + bh.allowHorizonless();
         Object[] stc = cache.spacetimes.computeIfAbsent(bhKey, k -> {
             Spacetime st = ScenarioChecks.spacetime(ls);
@@ -137,7 +184,6 @@ public final class FitModel {
         double capture = (Double) stc[1];
         ScenarioChecks.checkSources(ls, st, capture);
         double spm = Units.timeUnitSeconds(bh.massSolar());
-        double uasPerM = Units.microarcsecPerM(bh.massSolar(), bh.distanceKpc());
         SourceSetup.Centre[] centres = SourceSetup.centres(sc, st, capture);
         double[] times = ScenarioRun.snapshotTimes(ls, spm, centres[0].periodM());
         double tEnd = times[times.length - 1];
@@ -174,35 +220,11 @@ public final class FitModel {
             return new CompactSourceModel.Index(RayTable.trace(st, cam, ts, cache.threads), cell);
         });
         double cadence = sc.imaging().frameCadence() == null ? times[1] - times[0] : sc.imaging().frameCadence().toM(spm);
-        CompactSourceModel.Frames fr = light.frames(index, track, spots, sc.observer().positionAngleDeg(), cadence,
-                sc.instrument().steadySourceFluxRatio());
-        double offset = dataParameter(p, FitFile.TIME_OFFSET, fit.data().timeOffsetMin());
-        double scale = dataParameter(p, FitFile.FLUX_SCALE, fit.data().fluxScale());
-        double minPerM = spm / 60.0;
-        int n = data.timeMin().length;
-        double[] x = new double[n], y = new double[n];
-        double t0 = fr.timesM()[0], t1 = fr.timesM()[fr.timesM().length - 1];
-        for (int i = 0; i < n; i++) {
-            double t = (data.timeMin()[i] + offset) / minPerM;
-            if (t < t0 - 1e-9 || t > t1 + 1e-9) {
-                throw new UserInputException(String.format(java.util.Locale.ROOT, "data epoch %.6g min (with the time"
-                        + " offset %.6g min) lies outside the model's time range [%.6g, %.6g] min", data.timeMin()[i],
-                        offset, t0 * minPerM, t1 * minPerM));
-            }
-            x[i] = fr.xAt(t) * uasPerM;
-            y[i] = fr.yAt(t) * uasPerM;
-        }
-        int nf = data.flux().length;
-        double[] f = new double[nf];
-        for (int i = 0; i < nf; i++) {
-            double t = (data.fluxTimeMin()[i] + offset) / minPerM;
-            if (t < t0 - 1e-9 || t > t1 + 1e-9) {
-                throw new UserInputException(String.format(java.util.Locale.ROOT, "flux epoch %.6g min lies outside the"
-                        + " model's time range [%.6g, %.6g] min", data.fluxTimeMin()[i], t0 * minPerM, t1 * minPerM));
-            }
-            f[i] = scale * fr.fluxWithSteadyAt(t);
-        }
-        return new Prediction(x, y, f, fr, uasPerM, minPerM, offset, scale);
+        return atTimes != null
+                ? light.frames(index, track, spots, sc.observer().positionAngleDeg(), atTimes,
+                        sc.instrument().steadySourceFluxRatio())
+                : light.frames(index, track, spots, sc.observer().positionAngleDeg(), cadence,
+                        sc.instrument().steadySourceFluxRatio());
     }
 
     /** Gaussian size of a source per axis: sigma of a ball, the rms of an ellipsoid's axes. */

@@ -262,7 +262,17 @@ public final class CompactSourceModel {
             spread = FastMath.max(spread, 3.0 * s.sigmaM());
         }
         double[] q = index.delayQuantiles(rr[0] - spread - 2 * h, rr[1] + spread + 2 * h, 0.02, 0.98);
-        double[] times = LightStage.frameTimes(track, q, frameCadenceM);
+        return frames(index, track, spots, positionAngleDeg, LightStage.frameTimes(track, q, frameCadenceM), steadyRatio);
+    }
+
+    /**
+     * Frames of the sources at given observer times (M), for example a run's own frame times.
+     *
+     * @see #frames(Index, CentreTrack, Spot[], double, double, double)
+     */
+    public Frames frames(Index index, CentreTrack track, Spot[] spots, double positionAngleDeg, double[] times,
+                         double steadyRatio) {
+        double h = index.smoothing;
         int nf = times.length;
         double[] flux = new double[nf], fx = new double[nf], fy = new double[nf];
         double[] sig2 = new double[spots.length], cut2 = new double[spots.length], norm = new double[spots.length];
