@@ -20,10 +20,10 @@ import org.spindrift.sim.scenario.ScenarioLoader;
  * i = 60 deg, at the run's own frame times (the run is the reference), median and worst frame
  * differences of centroid (relative to the track radius) and flux.
  */
-class CompactModelVsRunTest {
+public class CompactModelVsRunTest {
     @TempDir Path tmp;
 
-    static String scenario(String family, double spin, String params, double inclination) {
+    public static String scenario(String family, double spin, String params, double inclination) {
         return String.join("\n",
                 "name: compact",
                 "black_hole:",
