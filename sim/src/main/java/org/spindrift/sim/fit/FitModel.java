@@ -210,7 +210,7 @@ public final class FitModel {
         double rNeed = rMax + cut + 0.5;
         double rEm = FastMath.min(FastMath.max(2.0 * FastMath.ceil(rNeed / 2.0), capture + 3.0),
                 FastMath.max(ls0.fieldOfViewM(), 20.0));
-        double cell = FastMath.max(0.5, cut);
+        double cell = FastMath.max(0.25, 0.5 * cut);
         String tKey = bhKey + "|" + ls0.inclinationDeg() + "|" + ls0.fieldOfViewM() + "|" + ls0.pixels() + "|"
                 + ls0.lensing() + "|" + rEm + "|" + capture + "|" + cell;
         CompactSourceModel.Index index = cache.tables.computeIfAbsent(tKey, k -> {

@@ -196,6 +196,24 @@ public final class CompactSourceModel {
             return new double[] {va, vb};
         }
 
+        /** @return the smallest and largest delay of the samples with radius in [rLo, rHi] ({dmin, dmax} when none) */
+        double[] delayRange(double rLo, double rHi) {
+            double lo = Double.NaN, hi = Double.NaN;
+            for (int j = 0; j < m; j++) {
+                if (rByDelay[j] >= rLo && rByDelay[j] <= rHi) {
+                    lo = byDelay[j];
+                    break;
+                }
+            }
+            for (int j = m - 1; j >= 0; j--) {
+                if (rByDelay[j] >= rLo && rByDelay[j] <= rHi) {
+                    hi = byDelay[j];
+                    break;
+                }
+            }
+            return Double.isNaN(lo) ? new double[] {dmin, dmax} : new double[] {lo, hi};
+        }
+
         private static int sortable(float f) {
             int b = Float.floatToIntBits(f);
             return b >= 0 ? b : b ^ 0x7fffffff;
@@ -285,13 +303,16 @@ public final class CompactSourceModel {
             // normalised 3-D Gaussian (2 pi sigma^2)^(-3/2)
             norm[k] = FastMath.pow(2 * FastMath.PI * s2, -1.5);
         }
+        // only samples within reach of the centres' radial range can see a blob: their delays bound the window
+        double[] rr = track.radialRange();
+        double[] near = index.delayRange(rr[0] - cutMax - 1e-3, rr[1] + cutMax + 1e-3);
         double v = FastMath.max(1e-3, track.maxSpeed());
         double step = FastMath.max(1e-3, 0.5 * index.cell / v);   // the blob moves at most a quarter cell per half step
         double tEnd = track.time(track.snapshots() - 1);
         for (int f = 0; f < nf; f++) {
             double to = times[f];
-            double e0 = FastMath.max(0.0, to - index.dmax);
-            double e1 = FastMath.min(tEnd, to - index.dmin);
+            double e0 = FastMath.max(0.0, to - near[1]);
+            double e1 = FastMath.min(tEnd, to - near[0]);
             if (!(e1 > e0)) {
                 continue;
             }
@@ -307,6 +328,7 @@ public final class CompactSourceModel {
                     }
                     // samples whose delay maps into [a, b): d in (to - b, to - a]
                     double reach = FastMath.sqrt(cut2[k]) + v * 0.5 * (b - a) + 1e-6;
+                    double reach2 = reach * reach;
                     int x0 = index.clamp((int) FastMath.floor((c[0] - reach - index.lo) * index.inv));
                     int x1 = index.clamp((int) FastMath.floor((c[0] + reach - index.lo) * index.inv));
                     int y0 = index.clamp((int) FastMath.floor((c[1] - reach - index.lo) * index.inv));
@@ -324,6 +346,11 @@ public final class CompactSourceModel {
                                 }
                                 int i = firstAbove(index.d, from, until, dLo);
                                 for (; i < until && index.d[i] <= dHi; i++) {
+                                    // cheap test against the blob at mid-step before interpolating at t_e
+                                    double qx = index.x[i] - c[0], qy = index.y[i] - c[1], qz = index.z[i] - c[2];
+                                    if (qx * qx + qy * qy + qz * qz > reach2) {
+                                        continue;
+                                    }
                                     double te = to - index.d[i];
                                     if (!track.at(k, te, cs)) {
                                         continue;
