@@ -43,7 +43,7 @@ public final class BenchFitCommand implements Callable<Integer> {
     static final String SCENARIO = String.join("\n",
             "name: bench-fit",
             "description: INVENTED compact hot spot for the fit benchmark (round synthetic values)",
-            "black_hole: {mass_solar: 1.0e6, distance_kpc: 1.0, family: kerr, spin: 0.5}",
+            "black_hole: {mass_solar: 1.0e6, distance: 1 kpc, family: kerr, spin: 0.5}",
             "observer: {inclination_deg: 45, position_angle_deg: 20}",
             "sources:",
             "  - name: spot",

@@ -32,7 +32,9 @@ import picocli.CommandLine.Option;
 /**
  * {@code spindrift bench light}: the demo hot spot with more particles, evolved once (not timed
  * as part of the light figures), then a large ray table at spin 0.9 and inclination 60 deg (rays
- * per second), and a sequence of frames at a smaller image size (frames per second).
+ * per second), a sequence of frames at a smaller image size (frames per second), and the direct
+ * Fourier sum of the interferometry stage (--frames frames of --vis-pixels^2 against --vis-points
+ * (u, v) points each).
  */
 @Command(name = "light", mixinStandardHelpOptions = true,
         description = {"Time the light layer: the demo hot spot (configs/hotspot-kerr.yaml) with --particles particles,"
@@ -62,6 +64,14 @@ public final class BenchLightCommand implements Callable<Integer> {
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
     Integer threads;
 
+    @Option(names = "--vis-pixels", paramLabel = "N", defaultValue = "96",
+            description = "Pixels per side of the frames of the visibility timing, 8..1024 (default: ${DEFAULT-VALUE}).")
+    int visPixels;
+
+    @Option(names = "--vis-points", paramLabel = "P", defaultValue = "2000",
+            description = "(u, v) points per frame of the visibility timing, 1..100000 (default: ${DEFAULT-VALUE}).")
+    int visPoints;
+
     private static final double SPIN = 0.9;
     private static final double INCLINATION = 60.0;
 
@@ -70,6 +80,8 @@ public final class BenchLightCommand implements Callable<Integer> {
         check(tablePixels >= 16 && tablePixels <= 2048, "--table-pixels must be in 16..2048, got " + tablePixels);
         check(framePixels >= 16 && framePixels <= 1024, "--frame-pixels must be in 16..1024, got " + framePixels);
         check(frames >= 1 && frames <= 100_000, "--frames must be in 1..100000, got " + frames);
+        check(visPixels >= 8 && visPixels <= 1024, "--vis-pixels must be in 8..1024, got " + visPixels);
+        check(visPoints >= 1 && visPoints <= 100_000, "--vis-points must be in 1..100000, got " + visPoints);
         int nt = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
         check(nt >= 1 && nt <= 1024, "--threads must be in 1..1024, got " + nt);
         LoadedScenario ls = ScenarioLoader.load(config);
@@ -87,7 +99,7 @@ public final class BenchLightCommand implements Callable<Integer> {
             double motion = seconds(t0);
             EmitterHistory h = new HistoryEmitters(o.history(), sc.sources());
             LightSettings s = LightSettings.of(sc);
-            double stop = ScenarioChecks.captureRadius(p.spacetime(), p.landmarks());
+            double stop = p.captureRadius();
             System.out.printf(Locale.ROOT, "light bench: %s, a = %.1f, i = %.0f deg, %d particles, %d snapshots,"
                     + " %d threads (machine: %d cores)%n", config, SPIN, INCLINATION, particles, h.snapshots(), nt,
                     Runtime.getRuntime().availableProcessors());
@@ -125,6 +137,7 @@ public final class BenchLightCommand implements Callable<Integer> {
                             + " (%d emission slices)%n", frames, n, n, secs, cpu() - c0, frames / secs, r.slicesBuilt());
                 }
             }
+            System.out.println(org.spindrift.sim.interferometry.VisibilityBench.run(frames, visPixels, visPoints, nt));
         } finally {
             deleteTree(tmp);
         }

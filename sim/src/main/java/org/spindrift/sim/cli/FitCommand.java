@@ -25,8 +25,11 @@ public final class FitCommand implements Callable<Integer> {
     private Path file;
 
     @Option(names = {"-o", "--output"}, paramLabel = "DIR",
-            description = "Fit folder (default: fits/<fit name>). An earlier fit there is replaced.")
+            description = "Fit folder (default: fits/<fit name>).")
     private Path output;
+
+    @Option(names = "--overwrite", description = "Replace an earlier run or fit in the output folder.")
+    private boolean overwrite;
 
     @Option(names = "--threads", paramLabel = "N",
             description = "Worker threads (default: available processors). Results do not depend on it.")
@@ -46,7 +49,7 @@ public final class FitCommand implements Callable<Integer> {
         FitRun.Prepared p = FitRun.prepare(file, n);
         Path out = output != null ? output : Path.of("fits", p.fit().name());
         boolean terminal = System.console() != null;
-        FitRun.Result r = FitRun.run(p, new FitRun.Options(out, n, !quiet && terminal));
+        FitRun.Result r = FitRun.run(p, new FitRun.Options(out, n, !quiet && terminal, overwrite));
         if (!quiet) {
             var w = spec.commandLine().getOut();
             for (int i = 0; i < r.names().size(); i++) {

@@ -127,7 +127,7 @@ public final class FitModel {
         Scenario sc = ls.scenario();
         BlackHole bh = sc.blackHole();
         double spm = Units.timeUnitSeconds(bh.massSolar());
-        double uasPerM = Units.microarcsecPerM(bh.massSolar(), bh.distanceKpc());
+        double uasPerM = Units.uasPerM(bh.massSolar(), bh.distanceMpc());
         CompactSourceModel.Frames fr = frames(ls, cache, light);
         double offset = dataParameter(p, FitFile.TIME_OFFSET, fit.data().timeOffsetMin());
         double scale = dataParameter(p, FitFile.FLUX_SCALE, fit.data().fluxScale());
@@ -176,9 +176,7 @@ public final class FitModel {
         String bhKey = bh.family() + "|" + bh.spin() + "|" + bh.parameters() + "|" + bh.allowHorizonless();
         Object[] stc = cache.spacetimes.computeIfAbsent(bhKey, k -> {
             Spacetime st = ScenarioChecks.spacetime(ls);
-            Map<String, Double> lm = new java.util.LinkedHashMap<>();
-            Landmarks.of(st).toMap().forEach((kk, v) -> lm.put(kk, v == null ? Double.NaN : v));
-            return new Object[] {st, ScenarioChecks.captureRadius(st, lm)};
+            return new Object[] {st, Landmarks.of(st).captureRadius()};
         });
         Spacetime st = (Spacetime) stc[0];
         double capture = (Double) stc[1];

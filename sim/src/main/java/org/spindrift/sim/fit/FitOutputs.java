@@ -38,8 +38,8 @@ final class FitOutputs {
     }
 
     static void write(FitRun.Prepared pr, FitRun.Result r, FitModel.Prediction best, List<FitModel.Prediction> band,
-                      LeastSquaresFit.Result ls) throws IOException {
-        RunArchiveWriter archive = RunArchiveWriter.create(r.folder());
+                      LeastSquaresFit.Result ls, boolean overwrite) throws IOException {
+        RunArchiveWriter archive = RunArchiveWriter.create(r.folder(), overwrite);
         Thread cleanup = new Thread(archive::abandon, "spindrift-fit-cleanup");
         Runtime.getRuntime().addShutdownHook(cleanup);
         boolean done = false;

@@ -32,8 +32,13 @@ public final class FitRun {
      * @param output fit folder
      * @param threads worker threads (results do not depend on it)
      * @param progress show a progress bar
+     * @param overwrite replace an earlier run or fit in the folder (otherwise a non-empty folder is refused)
      */
-    public record Options(Path output, int threads, boolean progress) {
+    public record Options(Path output, int threads, boolean progress, boolean overwrite) {
+        /** Options that never replace an earlier folder. */
+        public Options(Path output, int threads, boolean progress) {
+            this(output, threads, progress, false);
+        }
     }
 
     /**
@@ -106,7 +111,7 @@ public final class FitRun {
 
     /** Runs a prepared fit and writes its folder. */
     public static Result run(Prepared pr, Options o) throws IOException {
-        RunArchiveWriter.checkUsable(o.output());
+        RunArchiveWriter.checkUsable(o.output(), o.overwrite());
         FitFile fit = pr.fit();
         int k = fit.free().size();
         List<String> names = new ArrayList<>();
@@ -181,7 +186,7 @@ public final class FitRun {
             bestPrediction = pr.startPrediction();
         }
         List<FitModel.Prediction> band = band(main, result, me.seed());
-        FitOutputs.write(pr, result, bestPrediction, band, ls);
+        FitOutputs.write(pr, result, bestPrediction, band, ls, o.overwrite());
         return result;
     }
 

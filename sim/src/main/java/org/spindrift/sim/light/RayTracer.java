@@ -45,7 +45,7 @@ public final class RayTracer implements DormandPrince54.Rhs {
         this.mask = settings.mask();
     }
 
-    /** Cartesian position of state s (DESIGN section 3 map) into cx, cy, cz. */
+    /** Cartesian position of state s (x = sqrt(r^2 + a^2) sin(theta) cos(phi), ...) into cx, cy, cz. */
     private void cartesian(double[] s) {
         double r = s[1];
         double st = FastMath.sin(s[2]);
@@ -75,7 +75,7 @@ public final class RayTracer implements DormandPrince54.Rhs {
     }
 
     /**
-     * Cartesian position (DESIGN section 3 map) of the last ray's point of smallest radius.
+     * Cartesian position (x = sqrt(r^2 + a^2) sin(theta) cos(phi), ...) of the last ray's point of smallest radius.
      *
      * @param out length 3
      */
@@ -104,7 +104,7 @@ public final class RayTracer implements DormandPrince54.Rhs {
         qphi = -angularMomentum;
         final double rEm = settings.emissionRadius();
         final double rEnd = FastMath.max(rEm, settings.endRadius());
-        final double rStop = settings.stopRadius();
+        final double rStop = settings.captureRadius();
         final double rtol = settings.relativeTolerance();
         final double atol = settings.absoluteTolerance();
         // radius of the sphere holding every possible sample (the mask's cube, or the emission sphere)

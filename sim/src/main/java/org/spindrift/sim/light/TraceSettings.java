@@ -5,8 +5,8 @@ package org.spindrift.sim.light;
  *
  * @param emissionRadius outer radius of the emission region, M: samples are kept inside it and a
  *     ray moving outwards beyond it ends
- * @param stopRadius inner stop radius, M: the outer horizon plus a margin, or the surface of a
- *     horizonless object (from the landmarks)
+ * @param captureRadius rays reaching a smaller r end, M: the capture radius of the landmarks
+ *     (outer horizon + 0.01 M, or the surface of a horizonless object)
  * @param endRadius rays moving outwards end beyond max(emissionRadius, endRadius), M
  * @param sampleSpacing largest spacing of samples along the ray inside the emission region, M
  * @param relativeTolerance relative tolerance of the Dormand-Prince 5(4) step control
@@ -16,23 +16,23 @@ package org.spindrift.sim.light;
  * @param mask where gas may be (samples only there, long steps elsewhere); null: the whole sphere
  *     r &lt; emissionRadius
  */
-public record TraceSettings(double emissionRadius, double stopRadius, double endRadius,
+public record TraceSettings(double emissionRadius, double captureRadius, double endRadius,
                             double sampleSpacing, double relativeTolerance, double absoluteTolerance,
                             int maxSteps, boolean lensing, EmissionMask mask) {
     /** Default tolerances: tight enough for the validation checks (relative 1e-9). */
-    public static TraceSettings of(double emissionRadius, double stopRadius, double sampleSpacing,
+    public static TraceSettings of(double emissionRadius, double captureRadius, double sampleSpacing,
                                    boolean lensing) {
-        return new TraceSettings(emissionRadius, stopRadius, 0.0, sampleSpacing, 1.0e-9, 1.0e-11,
+        return new TraceSettings(emissionRadius, captureRadius, 0.0, sampleSpacing, 1.0e-9, 1.0e-11,
                 200_000, lensing, null);
     }
 
     public TraceSettings withTolerance(double rtol, double atol) {
-        return new TraceSettings(emissionRadius, stopRadius, endRadius, sampleSpacing, rtol, atol,
+        return new TraceSettings(emissionRadius, captureRadius, endRadius, sampleSpacing, rtol, atol,
                 maxSteps, lensing, mask);
     }
 
     public TraceSettings withMask(EmissionMask m) {
-        return new TraceSettings(emissionRadius, stopRadius, endRadius, sampleSpacing, relativeTolerance,
+        return new TraceSettings(emissionRadius, captureRadius, endRadius, sampleSpacing, relativeTolerance,
                 absoluteTolerance, maxSteps, lensing, m);
     }
 }

@@ -26,7 +26,7 @@ class BadFitFileTest {
 
     static final String SCENARIO = String.join("\n",
             "scenario:",
-            "  black_hole: {mass_solar: 1.0e6, distance_kpc: 1.0, family: kerr, spin: 0.5}",
+            "  black_hole: {mass_solar: 1.0e6, distance: 1 kpc, family: kerr, spin: 0.5}",
             "  observer: {inclination_deg: 45, position_angle_deg: 10}",
             "  sources:",
             "    - name: spot",

@@ -28,7 +28,7 @@ public class CompactModelVsRunTest {
                 "name: compact",
                 "black_hole:",
                 "  mass_solar: 1.0e6",
-                "  distance_kpc: 1.0",
+                "  distance: 1 kpc",
                 "  family: " + family,
                 "  spin: " + spin,
                 params.isEmpty() ? "" : "  parameters: {" + params + "}",

@@ -32,7 +32,7 @@ class RecoveryTest {
     static String truth() {
         return String.join("\n",
                 "name: truth",
-                "black_hole: {mass_solar: 1.0e6, distance_kpc: 1.0, family: kerr, spin: 0.5}",
+                "black_hole: {mass_solar: 1.0e6, distance: 1 kpc, family: kerr, spin: 0.5}",
                 "observer: {inclination_deg: 30, position_angle_deg: " + PA + "}",
                 "sources:",
                 "  - name: spot",
