@@ -73,7 +73,7 @@ public class CompactModelVsRunTest {
         List<String> head = List.of(lines.get(0).split(","));
         int ct = head.indexOf("t_obs_M"), cx = head.indexOf("x_uas"), cy = head.indexOf("y_uas"), cf = head.indexOf("flux");
         var manifest = new com.fasterxml.jackson.databind.ObjectMapper().readTree(out.resolve("manifest.json").toFile());
-        double uas = manifest.get("units").get("M_microarcsec").asDouble();
+        double uas = manifest.get("units").get("M_uas").asDouble();
         double from = manifest.get("light").get("fully_covered_min").get(0).asDouble();
         double to = manifest.get("light").get("fully_covered_min").get(1).asDouble();
         double minPerM = manifest.get("units").get("M_seconds").asDouble() / 60;
