@@ -2,6 +2,7 @@ package org.spindrift.sim.sweep;
 
 import java.util.List;
 import org.spindrift.sim.scenario.ConfigNode;
+import org.spindrift.sim.scenario.KeyPath;
 
 /**
  * One axis of a sweep: a key path and its values (a list, evenly spaced on a linear or

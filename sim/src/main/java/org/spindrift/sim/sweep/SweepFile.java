@@ -4,6 +4,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.spindrift.sim.scenario.ConfigNode;
+import org.spindrift.sim.scenario.KeyPath;
 import org.spindrift.sim.scenario.ConfigSection;
 import org.spindrift.sim.scenario.ConfigSection.Range;
 import org.spindrift.sim.scenario.ConfigTreeReader;

@@ -34,7 +34,7 @@ class SweepCommandErrorsTest {
                         "observer.inclination_deg: value 200 is out of range; allowed [0, 180]", 4),
                 Arguments.of("orbit-inside-photon-orbit", "sources[0].orbit.circular.radius_M: [8, 2.0]",
                         "no prograde circular orbit at r = 2.000 M", 4),
-                Arguments.of("no-such-entry", "sources[3].particles: [10]", "sources has 1 entry in the base file", 4),
+                Arguments.of("no-such-entry", "sources[3].particles: [10]", "sources has 1 entry, so there is no sources[3]", 4),
                 Arguments.of("not-a-key-path", "\"black_hole..spin\": [0.1]", "is not a key path", 4),
                 Arguments.of("log-of-zero", "black_hole.spin: {from: 0, to: 0.5, count: 3, spacing: log}",
                         "a log spacing needs from > 0", 4),

@@ -1,4 +1,4 @@
-package org.spindrift.sim.sweep;
+package org.spindrift.sim.scenario;
 
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -6,13 +6,13 @@ import java.util.List;
 import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
-import org.spindrift.sim.scenario.ConfigNode;
 
 /**
  * A key path into a configuration tree, such as {@code black_hole.spin} or
  * {@code sources[0].orbit.circular.radius_M}: mapping keys joined by dots, list entries by
  * {@code [index]}. The path is resolved through the file's own tree, so it needs no knowledge of
- * the keys a file kind allows; whether the key exists is decided by that kind's loader.
+ * the keys a file kind allows; whether the key exists is decided by that kind's loader. Used by
+ * sweeps (axis values) and fits (free parameters, through {@link ScenarioTree}).
  */
 public final class KeyPath {
     private static final Pattern SEGMENT = Pattern.compile("([A-Za-z_][A-Za-z0-9_-]*)((?:\\[\\d{1,6}\\])*)");
@@ -85,7 +85,7 @@ public final class KeyPath {
             }
             if (!(node instanceof ConfigNode.Obj obj)) {
                 throw new IllegalArgumentException((done.isEmpty() ? "the top level" : done) + " is " + node.typeName()
-                        + " in the base file, so it has no key '" + key + "'");
+                        + ", so it has no key '" + key + "'");
             }
             Map<String, ConfigNode> fields = new LinkedHashMap<>(obj.fields());
             Map<String, Integer> lines = new LinkedHashMap<>(obj.keyLines());
@@ -99,15 +99,39 @@ public final class KeyPath {
         String here = done + "[" + index + "]";
         if (!(node instanceof ConfigNode.Arr arr)) {
             throw new IllegalArgumentException(done + " is " + (node == null ? "absent" : node.typeName())
-                    + " in the base file, so it has no entry [" + index + "]");
+                    + ", so it has no entry [" + index + "]");
         }
         if (index >= arr.items().size()) {
             throw new IllegalArgumentException(done + " has " + arr.items().size() + " entr"
-                    + (arr.items().size() == 1 ? "y" : "ies") + " in the base file, so there is no " + here);
+                    + (arr.items().size() == 1 ? "y" : "ies") + ", so there is no " + here);
         }
         List<ConfigNode> items = new ArrayList<>(arr.items());
         items.set(index, put(items.get(index), at + 1, value, line, here));
         return new ConfigNode.Arr(items, arr.line());
+    }
+
+    /** @return the line of the deepest node along this path that exists in the tree (0 when none) */
+    public int nearestLine(ConfigNode root) {
+        ConfigNode n = root;
+        int line = root == null ? 0 : root.line();
+        for (Object step : steps) {
+            if (step instanceof String key) {
+                if (!(n instanceof ConfigNode.Obj obj) || !obj.fields().containsKey(key)) {
+                    return line;
+                }
+                Integer kl = obj.keyLines().get(key);
+                n = obj.fields().get(key);
+                line = kl != null ? kl : n.line();
+            } else {
+                int i = (Integer) step;
+                if (!(n instanceof ConfigNode.Arr arr) || i >= arr.items().size()) {
+                    return line;
+                }
+                n = arr.items().get(i);
+                line = n.line();
+            }
+        }
+        return line;
     }
 
     /** @return the node at this path, or null when absent */
