@@ -2,7 +2,9 @@ package org.spindrift.sim.light;
 
 import org.hipparchus.util.FastMath;
 import org.spindrift.sim.motion.GeodesicEquations;
+import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 import org.spindrift.sim.spacetime.Spacetime;
+import org.spindrift.sim.spacetime.Trig;
 
 /**
  * Integrates one backward null geodesic with {@link GeodesicEquations#affine} (the project's
@@ -18,6 +20,13 @@ import org.spindrift.sim.spacetime.Spacetime;
  * the delay (elapsed time minus d - 2 M ln(d/M), removing the flat travel time from the start
  * plane and the leading Shapiro logarithm, Shapiro 1964, Phys. Rev. Lett. 13, 789), the physical
  * p_r and p_theta, p_phi, and its midpoint-rule share of d(lambda).
+ *
+ * <p>For Kerr and the mass-function family (unless {@link TraceSettings#generalPath} is set) the
+ * ray is traced with the separated equations in Mino time instead ({@link MinoTimeEquations}):
+ * the same Dormand-Prince pair and step rules on a right-hand side without trigonometry and
+ * without the metric's 15 components, whose r and theta parts decouple and stay regular through
+ * the turning points; samples and results are converted to the same quantities (physical p_r,
+ * p_theta, d(lambda) = Sigma d(sigma)). The Johannsen-Psaltis family always takes the general path.
  *
  * <p>One instance per thread; {@link #trace} allocates nothing except when the sample buffer grows.
  */
@@ -36,13 +45,33 @@ public final class RayTracer implements DormandPrince54.Rhs {
     private double cx, cy, cz;
     private double qphi;
     private int steps;
+    /** separated equations in Mino time, or null on the general path */
+    private final MinoTimeEquations mino;
+    private final double spin;
+    private double uMin;
+    /**
+     * Smallest sin^2(theta) = 1 - u^2 the separated path accepts: closer to the axis its relative
+     * rounding error (~1e-16 / (1 - u^2)) approaches the tolerances, and u may overshoot a polar
+     * turning point next to 1; such rays (near-face-on views, rays passing over the poles) are
+     * traced on the general path.
+     */
+    static final double POLE_LIMIT = 1.0e-8;
+    private final double[] ym = new double[6], dym = new double[6], ymNew = new double[6], dymNew = new double[6];
 
     public RayTracer(Spacetime spacetime, TraceSettings settings) {
         this.spacetime = spacetime;
         this.equations = new GeodesicEquations(spacetime);
         this.settings = settings;
-        this.a2 = spacetime.spin() * spacetime.spin();
+        this.spin = spacetime.spin();
+        this.a2 = spin * spin;
         this.mask = settings.mask();
+        this.mino = !settings.generalPath() && spacetime instanceof MassFunctionSpacetime m
+                ? new MinoTimeEquations(m) : null;
+    }
+
+    /** @return true when rays go through the separated equations in Mino time */
+    public boolean separated() {
+        return mino != null;
     }
 
     /** Cartesian position of state s (DESIGN section 3 map) into cx, cy, cz. */
@@ -99,6 +128,47 @@ public final class RayTracer implements DormandPrince54.Rhs {
      * @param out receives the samples inside the emission region (may be null)
      */
     public RayEnd trace(double[] y0, double angularMomentum, double delayOffset, SampleBuffer out) {
+        // L = 0 exactly: the ray may cross the polar axis, where phi jumps by pi, which the
+        // cos(theta) variable does not see; such rays take the general path
+        if (mino != null && angularMomentum != 0.0 && poleGap(y0, angularMomentum) > 4.0 * POLE_LIMIT) {
+            int before = out == null ? 0 : out.size;
+            RayEnd e = traceSeparated(y0, angularMomentum, delayOffset, out);
+            if (e != null) {
+                return e;
+            }
+            // the ray came within sin^2(theta) < POLE_LIMIT of the polar axis: trace it again on the general path
+            if (out != null) {
+                out.size = before;
+            }
+            int separatedSteps = steps;
+            RayEnd g = traceGeneral(y0, angularMomentum, delayOffset, out);
+            steps += separatedSteps;
+            return g;
+        }
+        return traceGeneral(y0, angularMomentum, delayOffset, out);
+    }
+
+    /**
+     * 1 - u_max^2 for the ray starting at y0: u_max^2 is the larger root x of U = 0, i.e. of
+     * a^2 x^2 - B x - Q = 0 with B = a^2 - Q - L^2 ({@link MinoTimeEquations}), taken in the form
+     * without cancellation; the ray never comes closer to the axis than sin^2(theta) = 1 - u_max^2.
+     */
+    private double poleGap(double[] y0, double l) {
+        double s = Trig.sin(y0[2]);
+        double c = Trig.cos(y0[2]);
+        double q = y0[5] * y0[5] + c * c * (l * l / (s * s) - a2);
+        double b = a2 - q - l * l;
+        double x;
+        if (a2 == 0.0) {
+            x = q / (q + l * l);
+        } else {
+            double root = Math.sqrt(FastMath.max(0.0, b * b + 4.0 * a2 * q));
+            x = b >= 0.0 ? (b + root) / (2.0 * a2) : 2.0 * q / (root - b);
+        }
+        return 1.0 - x;
+    }
+
+    private RayEnd traceGeneral(double[] y0, double angularMomentum, double delayOffset, SampleBuffer out) {
         System.arraycopy(y0, 0, y, 0, 6);
         qt = 1.0;
         qphi = -angularMomentum;
@@ -165,6 +235,156 @@ public final class RayTracer implements DormandPrince54.Rhs {
                 return RayEnd.ESCAPED;
             }
         }
+    }
+
+    /**
+     * {@link #trace} with the separated equations in Mino time ({@link MinoTimeEquations}): the
+     * state (t, r, u = cos theta, phi, w = dr/ds, v_u) starts from the camera's affine state with
+     * w = Delta q_r / (r^2 + a^2) and v_u = -sin(theta) q_theta (Sigma d/dlambda = d/dsigma) and the photon's
+     * Carter constant Q = p_theta^2 + cos^2(theta) (L^2 / sin^2(theta) - a^2) (Carter 1968, E = 1).
+     * The step rules are those of the general path with lengths measured per unit of s.
+     *
+     * @return how the ray ended, or null when it came so close to the polar axis
+     *     (sin^2(theta) &lt; {@link #POLE_LIMIT}) that 1 - u^2 loses precision: the caller retraces it
+     */
+    private RayEnd traceSeparated(double[] y0, double angularMomentum, double delayOffset, SampleBuffer out) {
+        final double th0 = y0[2];
+        final double s0 = Trig.sin(th0);
+        final double c0 = Trig.cos(th0);
+        final double l = angularMomentum;
+        final double carter = y0[5] * y0[5] + c0 * c0 * (l * l / (s0 * s0) - a2);
+        mino.setConstants(l, carter);
+        qt = 1.0;
+        qphi = -l;
+        ym[0] = y0[0];
+        ym[1] = y0[1];
+        ym[2] = c0;
+        ym[3] = y0[3];
+        ym[4] = mino.delta(y0[1]) * y0[4] / (y0[1] * y0[1] + a2);
+        ym[5] = -s0 * y0[5];
+        final double rEm = settings.emissionRadius();
+        final double rEnd = FastMath.max(rEm, settings.endRadius());
+        final double rStop = settings.stopRadius();
+        final double rtol = settings.relativeTolerance();
+        final double atol = settings.absoluteTolerance();
+        final double rSample = mask != null ? FastMath.min(rEm, mask.radius() * FastMath.sqrt(3.0)) : rEm;
+        mino.derivative(ym, dym);
+        double h = 0.01 * ym[1] / minoSpeed(ym[1], ym[2], dym);
+        boolean periapsisPassed = false;
+        steps = 0;
+        rMin = ym[1];
+        uMin = ym[2];
+        phMin = ym[3];
+        RayEnd end;
+        while (true) {
+            double r = ym[1];
+            double speed = minoSpeed(r, ym[2], dym);
+            double hMax = r > rSample ? FastMath.max(1.0, 0.5 * (r - rSample)) / speed : 0.25 * r / speed;
+            h = FastMath.min(h, hMax);
+            double err = stepper.step(mino, ym, dym, h, rtol, atol, ymNew, dymNew);
+            steps++;
+            if (steps > settings.maxSteps()) {
+                end = RayEnd.FAILED;
+                break;
+            }
+            if (!(err <= 1.0)) {
+                if (!Double.isFinite(err)) {
+                    h *= 0.2;
+                    if (h * speed < 1.0e-14 * r) {
+                        end = RayEnd.FAILED;
+                        break;
+                    }
+                    continue;
+                }
+                h *= DormandPrince54.factor(err);
+                continue;
+            }
+            double hTaken = h;
+            h *= DormandPrince54.factor(err);
+            double rn = ymNew[1];
+            if (!(1.0 - ymNew[2] * ymNew[2] >= POLE_LIMIT)) {
+                return null;
+            }
+            if (rn < rStop) {
+                System.arraycopy(ymNew, 0, ym, 0, 6);
+                System.arraycopy(dymNew, 0, dym, 0, 6);
+                end = RayEnd.CAPTURED;
+                break;
+            }
+            if (out != null && FastMath.min(r, rn) < rSample) {
+                sampleSeparated(out, hTaken, speed, minoSpeed(rn, ymNew[2], dymNew), rEm, delayOffset);
+            }
+            System.arraycopy(ymNew, 0, ym, 0, 6);
+            System.arraycopy(dymNew, 0, dym, 0, 6);
+            if (rn < rMin) {
+                rMin = rn;
+                uMin = ym[2];
+                phMin = ym[3];
+            }
+            boolean outward = dym[1] > 0.0;
+            if (outward) {
+                periapsisPassed = true;
+            }
+            if (periapsisPassed && outward && rn > rEnd) {
+                end = RayEnd.ESCAPED;
+                break;
+            }
+        }
+        thMin = FastMath.acos(FastMath.max(-1.0, FastMath.min(1.0, uMin)));
+        // the last state in the affine form of the general path (t, r, theta, phi, q_r, q_theta)
+        double u = FastMath.max(-1.0, FastMath.min(1.0, ym[2]));
+        double st = FastMath.sqrt(1.0 - u * u);
+        y[0] = ym[0];
+        y[1] = ym[1];
+        y[2] = FastMath.acos(u);
+        y[3] = ym[3];
+        y[4] = ym[4] * (ym[1] * ym[1] + a2) / mino.delta(ym[1]);
+        y[5] = st > 0.0 ? -ym[5] / st : 0.0;
+        equations.affine(qt, qphi, y, 0, dy, 0);
+        return end;
+    }
+
+    /**
+     * Samples an accepted step in Mino time as {@link #sampleStep} does in the affine parameter:
+     * cubic Hermite dense output of (t, r, u, phi, w, v_u) at the midpoints of k equal parts,
+     * weight d(lambda) = Sigma / (r^2 + a^2) h / k; physical p_r = -(r^2 + a^2) w / Delta and
+     * p_theta = v_u / sin(theta).
+     */
+    private void sampleSeparated(SampleBuffer out, double h, double speed0, double speed1, double rEm,
+                                 double delayOffset) {
+        double length = 0.5 * (speed0 + speed1) * h;
+        int k = (int) FastMath.max(1, FastMath.ceil(length / settings.sampleSpacing()));
+        double w = h / k * weightScale;
+        for (int j = 0; j < k; j++) {
+            double s = (j + 0.5) / k;
+            double s2 = s * s, s3 = s2 * s;
+            double h00 = 2 * s3 - 3 * s2 + 1, h10 = (s3 - 2 * s2 + s) * h, h01 = -2 * s3 + 3 * s2, h11 = (s3 - s2) * h;
+            double r = h00 * ym[1] + h10 * dym[1] + h01 * ymNew[1] + h11 * dymNew[1];
+            double u = h00 * ym[2] + h10 * dym[2] + h01 * ymNew[2] + h11 * dymNew[2];
+            double ph = h00 * ym[3] + h10 * dym[3] + h01 * ymNew[3] + h11 * dymNew[3];
+            double st2 = FastMath.max(0.0, 1.0 - u * u);
+            double st = Math.sqrt(st2);
+            double rho = Math.sqrt(r * r + a2) * st;
+            double x = rho * Trig.cos(ph);
+            double yy = rho * Trig.sin(ph);
+            double z = r * u;
+            boolean emitting = mask != null ? mask.occupied(x, yy, z) : r < rEm;
+            if (emitting) {
+                double t = h00 * ym[0] + h10 * dym[0] + h01 * ymNew[0] + h11 * dymNew[0];
+                double vr = h00 * ym[4] + h10 * dym[4] + h01 * ymNew[4] + h11 * dymNew[4];
+                double vu = h00 * ym[5] + h10 * dym[5] + h01 * ymNew[5] + h11 * dymNew[5];
+                // d(lambda) = Sigma d(sigma) = Sigma / (r^2 + a^2) ds
+                double dlds = (r * r + a2 * u * u) / (r * r + a2);
+                out.add(x, yy, z, -t - delayOffset, -vr * (r * r + a2) / mino.delta(r), st > 0.0 ? vu / st : 0.0, -qphi, w * dlds);
+            }
+        }
+    }
+
+    /** Coordinate speed per unit of the rescaled Mino time s in the flat-space sense, for step limits. */
+    private static double minoSpeed(double r, double u, double[] d) {
+        double st2 = FastMath.max(1.0e-300, 1.0 - u * u);
+        double v2 = d[1] * d[1] + r * r * (d[2] * d[2] / st2 + st2 * d[3] * d[3]);
+        return FastMath.max(1.0e-300, Math.sqrt(v2));
     }
 
     /**
