@@ -2,6 +2,7 @@ package org.spindrift.sim.light;
 
 import java.util.Arrays;
 import org.hipparchus.util.FastMath;
+import org.spindrift.sim.spacetime.Trig;
 
 /**
  * Where emission can possibly come from: a uniform grid over the cube [-R, R]^3 whose cells are
@@ -42,10 +43,11 @@ public final class EmissionMask {
                     continue;
                 }
                 double r = h.r(s, p), th = h.theta(s, p), ph = h.phi(s, p);
-                double rho = FastMath.sqrt(r * r + a2) * FastMath.sin(th);
-                int ix = (int) FastMath.floor((rho * FastMath.cos(ph) + radius) / cell);
-                int iy = (int) FastMath.floor((rho * FastMath.sin(ph) + radius) / cell);
-                int iz = (int) FastMath.floor((r * FastMath.cos(th) + radius) / cell);
+                // Trig: StrictMath's values without JNI or FastMath's allocation (millions of calls)
+                double rho = FastMath.sqrt(r * r + a2) * Trig.sin(th);
+                int ix = (int) FastMath.floor((rho * Trig.cos(ph) + radius) / cell);
+                int iy = (int) FastMath.floor((rho * Trig.sin(ph) + radius) / cell);
+                int iz = (int) FastMath.floor((r * Trig.cos(th) + radius) / cell);
                 if (ix >= 0 && iy >= 0 && iz >= 0 && ix < n && iy < n && iz < n) {
                     mark[(ix * n + iy) * n + iz] = true;
                 }

@@ -10,28 +10,26 @@ import org.spindrift.sim.spacetime.MassFunctionSpacetime;
  * <pre>
  *   (dr/dsigma)^2 = R(r) = P^2 - Delta K,    P = r^2 + a^2 - a L,   K = Q + (L - a)^2
  *   (du/dsigma)^2 = U(u) = Q + (a^2 - Q - L^2) u^2 - a^2 u^4,        u = cos(theta)
- *   dt/dsigma = (r^2 + a^2) P / Delta + a L - a^2 + a^2 u^2
+ *   dt/dsigma = T = (r^2 + a^2) P / Delta + a L - a^2 + a^2 u^2
  *   dphi/dsigma = a P / Delta - a + L / (1 - u^2)
  * </pre>
  * (Misner, Thorne &amp; Wheeler 1973, eqs. 33.32 with E = 1; U = sin^2(theta) Theta(theta); the
  * derivation needs only that Delta depends on r alone, so it holds for every m(r).)
  *
- * <p>The square roots and their sign flips at the turning points are removed by differentiating
- * once more: d^2r/dsigma^2 = R'(r)/2 = 2 r P - Delta'(r) K / 2 and
- * d^2u/dsigma^2 = U'(u)/2 = (a^2 - Q - L^2) u - 2 a^2 u^3, which are regular through the turning
- * points; r and u decouple, and cos(theta) as variable needs no trigonometry. The state
- * (t, r, u, phi, w, v_u) (see below) runs backwards along the photon (the camera's backward
- * ray): v_r and v_u are the velocities of the backward motion, and t and phi decrease.
+ * <p>Radial variable x = 1/r: with D(x) = x^2 Delta = 1 - 2 m x + a^2 x^2 and c = a^2 - a L,
+ * (dx/dsigma)^2 = X(x) = x^4 R = (1 + c x^2)^2 - K x^2 D(x), a polynomial for Kerr with X(0) = 1:
+ * the photon comes in from infinity at unit speed in sigma, so the long approach from the camera
+ * plane takes a few steps instead of one per tenth of r. The square roots and their sign flips at
+ * the turning points are removed by differentiating once more: d^2x/dsigma^2 = X'(x)/2 and
+ * d^2u/dsigma^2 = U'(u)/2 = (a^2 - Q - L^2) u - 2 a^2 u^3, regular through the turning points; x
+ * and u decouple, and cos(theta) as variable needs no trigonometry.
  *
- * <p>The independent variable is s with ds = (r^2 + a^2) d(sigma), a rescaling by a function of r
- * alone (so the r equation stays autonomous): far from the hole d(sigma) ~ d(lambda) / r^2 and
- * r(sigma) behaves like 1 / (sigma_0 - sigma), which an explicit step control crosses only in
- * many small steps, whereas r(s) is nearly linear as in the affine parameter; near the hole
- * d(lambda)/ds = Sigma / (r^2 + a^2) stays between r^2 / (r^2 + a^2) and 1. The state holds
- * w = dr/ds = v_r / (r^2 + a^2) (of order 1 like p_r, which keeps the error control's scales those
- * of the affine form; v_r itself grows as r^2) and v_u = du/dsigma. Since w^2 = R / (r^2 + a^2)^2,
- * dw/ds = (1/2) d(R / (r^2 + a^2)^2)/dr, again regular at the turning points; written out, its
- * large terms cancel analytically (below), not in floating point.
+ * <p>t grows like r + 2 M ln r along the ray, which no polynomial step follows near x = 0, so the
+ * state holds tau = t - s F(x) with F(x) = -1/x + 2 ln x (F' = 1/x^2 + 2/x, the leading terms of T)
+ * and s = -sign(dx/dsigma) (the caller flips s, and tau with it, after the radial turning point):
+ * dtau/dsigma = -T - s F'(x) dx/dsigma stays bounded on the way in (the backward ray has t
+ * decreasing). The state (tau, x, u, phi, v_x, v_u), v = d/dsigma, runs backwards along the photon
+ * (the camera's backward ray).
  *
  * <p>Not thread-safe (holds the constants of one ray); allocates nothing.
  */
@@ -42,7 +40,9 @@ final class MinoTimeEquations implements DormandPrince54.Rhs {
     private final double a2;
     private double l;
     private double k;
+    private double c;
     private double uLin;
+    private double s = -1.0;
 
     MinoTimeEquations(MassFunctionSpacetime st) {
         this.mass = st.massFunction();
@@ -51,41 +51,64 @@ final class MinoTimeEquations implements DormandPrince54.Rhs {
         this.a2 = a * a;
     }
 
-    /** Sets the ray constants: angular momentum L and Carter constant Q (E = 1). */
+    /** Sets the ray constants: angular momentum L and Carter constant Q (E = 1); s = -1 (incoming). */
     void setConstants(double angularMomentum, double carter) {
         l = angularMomentum;
         k = carter + (l - a) * (l - a);
+        c = a2 - a * l;
         uLin = a2 - carter - l * l;
+        s = -1.0;
     }
 
-    /** @return m(r) */
-    double mass(double r) {
-        return kerr ? 1.0 : mass.value(r);
+    /** @return the branch s of the time variable, -sign(dx/dsigma) when last set */
+    double branch() {
+        return s;
     }
 
-    /** @return Delta(r) = r^2 - 2 m(r) r + a^2 */
-    double delta(double r) {
-        return r * r - 2.0 * mass(r) * r + a2;
+    /** Sets the branch s of the time variable (the caller moves tau by (s_old - s) F(x)). */
+    void setBranch(double branch) {
+        s = branch;
+    }
+
+    /** @return F(x) = -1/x + 2 ln x, the part of t split off into the branch term */
+    static double singularTime(double x) {
+        return -1.0 / x + 2.0 * Math.log(x);
+    }
+
+    /** @return D(x) = x^2 Delta(1/x) = 1 - 2 m(1/x) x + a^2 x^2 */
+    double d(double x) {
+        return 1.0 - 2.0 * (kerr ? 1.0 : mass.value(1.0 / x)) * x + a2 * x * x;
     }
 
     @Override public void derivative(double[] y, double[] dy) {
-        final double r = y[1];
+        final double x = y[1];
         final double u = y[2];
-        final double m = kerr ? 1.0 : mass.value(r);
-        final double mr = kerr ? 0.0 : mass.derivative(r);
-        final double rho = r * r + a2;
-        final double del = rho - 2.0 * m * r;
-        final double p = rho - a * l;
-        final double pd = p / del;
+        final double vx = y[4];
+        final double m;
+        final double rm;   // r m'(r)
+        if (kerr) {
+            m = 1.0;
+            rm = 0.0;
+        } else {
+            double r = 1.0 / x;
+            m = mass.value(r);
+            rm = r * mass.derivative(r);
+        }
+        final double x2 = x * x;
+        final double dd = 1.0 - 2.0 * m * x + a2 * x2;          // D(x)
+        final double ddx = -2.0 * m + 2.0 * rm + 2.0 * a2 * x;    // D'(x), dm/dx = -r^2 m'(r)
+        final double cp = 1.0 + c * x2;                           // x^2 P
+        final double iD = 1.0 / dd;
         final double u2 = u * u;
-        final double f = 1.0 / rho;
-        dy[0] = -(rho * pd + a * l - a2 + a2 * u2) * f;
-        dy[1] = y[4];
-        dy[2] = y[5] * f;
-        dy[3] = -(a * pd - a + l / (1.0 - u2)) * f;
-        // (1/2) d(R / rho^2)/dr = (2 a L r P + K (2 r Delta - rho Delta' / 2)) / rho^3, with
-        // 2 r Delta - rho Delta' / 2 = r rho - 4 m r^2 + rho (m + r m'): no cancellation far out
-        dy[4] = (2.0 * a * l * r * p + k * (r * rho - 4.0 * m * r * r + rho * (m + r * mr))) * f * f * f;
-        dy[5] = u * (uLin - 2.0 * a2 * u2) * f;
+        // T = (1 + a^2 x^2) (1 + c x^2) / (x^2 D) + a L - a^2 + a^2 u^2
+        final double tt = (1.0 + a2 * x2) * cp * iD / x2 + a * l - a2 + a2 * u2;
+        dy[0] = -tt - s * (1.0 / x2 + 2.0 / x) * vx;
+        dy[1] = vx;
+        dy[2] = y[5];
+        // a P / Delta - a = a x (2 m - a L x) / D (no cancellation far out)
+        dy[3] = -(a * x * (2.0 * m - a * l * x) * iD + l / (1.0 - u2));
+        // X'/2 = 2 c x (1 + c x^2) - K (x D + x^2 D' / 2)
+        dy[4] = 2.0 * c * x * cp - k * (x * dd + 0.5 * x2 * ddx);
+        dy[5] = u * (uLin - 2.0 * a2 * u2);
     }
 }

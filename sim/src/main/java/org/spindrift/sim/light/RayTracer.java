@@ -239,10 +239,12 @@ public final class RayTracer implements DormandPrince54.Rhs {
 
     /**
      * {@link #trace} with the separated equations in Mino time ({@link MinoTimeEquations}): the
-     * state (t, r, u = cos theta, phi, w = dr/ds, v_u) starts from the camera's affine state with
-     * w = Delta q_r / (r^2 + a^2) and v_u = -sin(theta) q_theta (Sigma d/dlambda = d/dsigma) and the photon's
-     * Carter constant Q = p_theta^2 + cos^2(theta) (L^2 / sin^2(theta) - a^2) (Carter 1968, E = 1).
-     * The step rules are those of the general path with lengths measured per unit of s.
+     * state (tau, x = 1/r, u = cos theta, phi, v_x, v_u) starts from the camera's affine state with
+     * v_x = -D(x) q_r and v_u = -sin(theta) q_theta (Sigma d/dlambda = d/dsigma, dx = -x^2 dr) and
+     * the photon's Carter constant Q = p_theta^2 + cos^2(theta) (L^2 / sin^2(theta) - a^2)
+     * (Carter 1968, E = 1). Step rules as on the general path: inside the sampling sphere at most a
+     * quarter of r per step; outside, at most half the remaining distance to it in x (or the x
+     * width of 1 M at its surface).
      *
      * @return how the ray ended, or null when it came so close to the polar axis
      *     (sin^2(theta) &lt; {@link #POLE_LIMIT}) that 1 - u^2 loses precision: the caller retraces it
@@ -256,11 +258,12 @@ public final class RayTracer implements DormandPrince54.Rhs {
         mino.setConstants(l, carter);
         qt = 1.0;
         qphi = -l;
-        ym[0] = y0[0];
-        ym[1] = y0[1];
+        final double x0 = 1.0 / y0[1];
+        ym[0] = y0[0] - mino.branch() * MinoTimeEquations.singularTime(x0);
+        ym[1] = x0;
         ym[2] = c0;
         ym[3] = y0[3];
-        ym[4] = mino.delta(y0[1]) * y0[4] / (y0[1] * y0[1] + a2);
+        ym[4] = -mino.d(x0) * y0[4];
         ym[5] = -s0 * y0[5];
         final double rEm = settings.emissionRadius();
         final double rEnd = FastMath.max(rEm, settings.endRadius());
@@ -268,18 +271,22 @@ public final class RayTracer implements DormandPrince54.Rhs {
         final double rtol = settings.relativeTolerance();
         final double atol = settings.absoluteTolerance();
         final double rSample = mask != null ? FastMath.min(rEm, mask.radius() * FastMath.sqrt(3.0)) : rEm;
+        final double xSample = 1.0 / rSample;
         mino.derivative(ym, dym);
-        double h = 0.01 * ym[1] / minoSpeed(ym[1], ym[2], dym);
+        double h = 0.1 * (xSample - x0) / FastMath.max(1.0e-3, FastMath.abs(ym[4]));
         boolean periapsisPassed = false;
+        boolean rejected = false;
         steps = 0;
-        rMin = ym[1];
+        rMin = y0[1];
         uMin = ym[2];
         phMin = ym[3];
         RayEnd end;
         while (true) {
-            double r = ym[1];
-            double speed = minoSpeed(r, ym[2], dym);
-            double hMax = r > rSample ? FastMath.max(1.0, 0.5 * (r - rSample)) / speed : 0.25 * r / speed;
+            double x = ym[1];
+            double r = 1.0 / x;
+            double speed = minoSpeed(x, ym[2], dym);
+            double hMax = r > rSample ? FastMath.max(0.5 * (xSample - x), xSample * xSample) / FastMath.abs(dym[1])
+                    : 0.25 * r / speed;
             h = FastMath.min(h, hMax);
             double err = stepper.step(mino, ym, dym, h, rtol, atol, ymNew, dymNew);
             steps++;
@@ -297,31 +304,47 @@ public final class RayTracer implements DormandPrince54.Rhs {
                     continue;
                 }
                 h *= DormandPrince54.factor(err);
+                rejected = true;
                 continue;
             }
             double hTaken = h;
-            h *= DormandPrince54.factor(err);
-            double rn = ymNew[1];
+            // no growth right after a rejection (Hairer, Norsett & Wanner 1993, II.4): where the
+            // admissible step keeps shrinking (the approach to the horizon) growth alternates with
+            // rejections
+            h *= rejected ? FastMath.min(1.0, DormandPrince54.factor(err)) : DormandPrince54.factor(err);
+            rejected = false;
             if (!(1.0 - ymNew[2] * ymNew[2] >= POLE_LIMIT)) {
                 return null;
             }
-            if (rn < rStop) {
+            double rn = 1.0 / ymNew[1];
+            if (!(rn > 0.0) || rn < rStop) {
                 System.arraycopy(ymNew, 0, ym, 0, 6);
                 System.arraycopy(dymNew, 0, dym, 0, 6);
                 end = RayEnd.CAPTURED;
                 break;
             }
             if (out != null && FastMath.min(r, rn) < rSample) {
-                sampleSeparated(out, hTaken, speed, minoSpeed(rn, ymNew[2], dymNew), rEm, delayOffset);
+                sampleSeparated(out, hTaken, speed, minoSpeed(ymNew[1], ymNew[2], dymNew), rEm, delayOffset);
+            }
+            double branch = ymNew[4] > 0.0 ? -1.0 : 1.0;
+            if (branch != mino.branch() && ym[4] > 0.0) {
+                periapsis(hTaken);
             }
             System.arraycopy(ymNew, 0, ym, 0, 6);
             System.arraycopy(dymNew, 0, dym, 0, 6);
+            if (branch != mino.branch()) {
+                // radial turning point passed: move the split-off part of t to the other branch
+                // (t = tau + s F(x) unchanged) and re-evaluate the derivative of tau
+                ym[0] += (mino.branch() - branch) * MinoTimeEquations.singularTime(ym[1]);
+                mino.setBranch(branch);
+                mino.derivative(ym, dym);
+            }
             if (rn < rMin) {
                 rMin = rn;
                 uMin = ym[2];
                 phMin = ym[3];
             }
-            boolean outward = dym[1] > 0.0;
+            boolean outward = ym[4] < 0.0;
             if (outward) {
                 periapsisPassed = true;
             }
@@ -334,11 +357,12 @@ public final class RayTracer implements DormandPrince54.Rhs {
         // the last state in the affine form of the general path (t, r, theta, phi, q_r, q_theta)
         double u = FastMath.max(-1.0, FastMath.min(1.0, ym[2]));
         double st = FastMath.sqrt(1.0 - u * u);
-        y[0] = ym[0];
-        y[1] = ym[1];
+        double x = ym[1];
+        y[0] = ym[0] + mino.branch() * MinoTimeEquations.singularTime(x);
+        y[1] = 1.0 / x;
         y[2] = FastMath.acos(u);
         y[3] = ym[3];
-        y[4] = ym[4] * (ym[1] * ym[1] + a2) / mino.delta(ym[1]);
+        y[4] = -ym[4] / mino.d(x);
         y[5] = st > 0.0 ? -ym[5] / st : 0.0;
         equations.affine(qt, qphi, y, 0, dy, 0);
         return end;
@@ -346,8 +370,8 @@ public final class RayTracer implements DormandPrince54.Rhs {
 
     /**
      * Samples an accepted step in Mino time as {@link #sampleStep} does in the affine parameter:
-     * cubic Hermite dense output of (t, r, u, phi, w, v_u) at the midpoints of k equal parts,
-     * weight d(lambda) = Sigma / (r^2 + a^2) h / k; physical p_r = -(r^2 + a^2) w / Delta and
+     * cubic Hermite dense output of (tau, x, u, phi, v_x, v_u) at the midpoints of k equal parts,
+     * t = tau + s F(x), weight d(lambda) = Sigma h / k; physical p_r = v_x / D(x) and
      * p_theta = v_u / sin(theta).
      */
     private void sampleSeparated(SampleBuffer out, double h, double speed0, double speed1, double rEm,
@@ -355,35 +379,71 @@ public final class RayTracer implements DormandPrince54.Rhs {
         double length = 0.5 * (speed0 + speed1) * h;
         int k = (int) FastMath.max(1, FastMath.ceil(length / settings.sampleSpacing()));
         double w = h / k * weightScale;
+        double branch = mino.branch();
         for (int j = 0; j < k; j++) {
             double s = (j + 0.5) / k;
             double s2 = s * s, s3 = s2 * s;
             double h00 = 2 * s3 - 3 * s2 + 1, h10 = (s3 - 2 * s2 + s) * h, h01 = -2 * s3 + 3 * s2, h11 = (s3 - s2) * h;
-            double r = h00 * ym[1] + h10 * dym[1] + h01 * ymNew[1] + h11 * dymNew[1];
+            double x = h00 * ym[1] + h10 * dym[1] + h01 * ymNew[1] + h11 * dymNew[1];
             double u = h00 * ym[2] + h10 * dym[2] + h01 * ymNew[2] + h11 * dymNew[2];
             double ph = h00 * ym[3] + h10 * dym[3] + h01 * ymNew[3] + h11 * dymNew[3];
+            double r = 1.0 / x;
             double st2 = FastMath.max(0.0, 1.0 - u * u);
             double st = Math.sqrt(st2);
             double rho = Math.sqrt(r * r + a2) * st;
-            double x = rho * Trig.cos(ph);
-            double yy = rho * Trig.sin(ph);
-            double z = r * u;
-            boolean emitting = mask != null ? mask.occupied(x, yy, z) : r < rEm;
+            double cx = rho * Trig.cos(ph);
+            double cy = rho * Trig.sin(ph);
+            double cz = r * u;
+            boolean emitting = mask != null ? mask.occupied(cx, cy, cz) : r < rEm;
             if (emitting) {
-                double t = h00 * ym[0] + h10 * dym[0] + h01 * ymNew[0] + h11 * dymNew[0];
-                double vr = h00 * ym[4] + h10 * dym[4] + h01 * ymNew[4] + h11 * dymNew[4];
+                double tau = h00 * ym[0] + h10 * dym[0] + h01 * ymNew[0] + h11 * dymNew[0];
+                double vx = h00 * ym[4] + h10 * dym[4] + h01 * ymNew[4] + h11 * dymNew[4];
                 double vu = h00 * ym[5] + h10 * dym[5] + h01 * ymNew[5] + h11 * dymNew[5];
-                // d(lambda) = Sigma d(sigma) = Sigma / (r^2 + a^2) ds
-                double dlds = (r * r + a2 * u * u) / (r * r + a2);
-                out.add(x, yy, z, -t - delayOffset, -vr * (r * r + a2) / mino.delta(r), st > 0.0 ? vu / st : 0.0, -qphi, w * dlds);
+                double t = tau + branch * MinoTimeEquations.singularTime(x);
+                // d(lambda) = Sigma d(sigma)
+                double sigma = r * r + a2 * u * u;
+                out.add(cx, cy, cz, -t - delayOffset, vx / mino.d(x), st > 0.0 ? vu / st : 0.0, -qphi, w * sigma);
             }
         }
     }
 
-    /** Coordinate speed per unit of the rescaled Mino time s in the flat-space sense, for step limits. */
-    private static double minoSpeed(double r, double u, double[] d) {
+    /**
+     * The periapsis inside the accepted step from ym to ymNew (v_x changes sign): where the cubic
+     * Hermite interpolant of x has its maximum, found from its derivative (a quadratic in the step
+     * fraction); records it as the closest point when it is closer than the step ends.
+     */
+    private void periapsis(double h) {
+        // x(f) = h00 x0 + h10 x0' + h01 x1 + h11 x1'; dx/df = 6 (x0 - x1)(f^2 - f) + h x0' (3f^2 - 4f + 1) + h x1' (3f^2 - 2f)
+        double p = ym[1] - ymNew[1], d0 = h * dym[1], d1 = h * dymNew[1];
+        double qa = 6.0 * p + 3.0 * d0 + 3.0 * d1;
+        double qb = -6.0 * p - 4.0 * d0 - 2.0 * d1;
+        double qc = d0;
+        double f;
+        if (FastMath.abs(qa) < 1.0e-300) {
+            f = -qc / qb;
+        } else {
+            double disc = FastMath.sqrt(FastMath.max(0.0, qb * qb - 4.0 * qa * qc));
+            // the root in [0, 1] where dx/df falls through zero (d0 > 0 > d1)
+            double f1 = (-qb + disc) / (2.0 * qa), f2 = (-qb - disc) / (2.0 * qa);
+            f = f1 >= 0.0 && f1 <= 1.0 ? f1 : f2;
+        }
+        f = FastMath.max(0.0, FastMath.min(1.0, f));
+        double f2 = f * f, f3 = f2 * f;
+        double h00 = 2 * f3 - 3 * f2 + 1, h10 = (f3 - 2 * f2 + f) * h, h01 = -2 * f3 + 3 * f2, h11 = (f3 - f2) * h;
+        double x = h00 * ym[1] + h10 * dym[1] + h01 * ymNew[1] + h11 * dymNew[1];
+        if (1.0 / x < rMin) {
+            rMin = 1.0 / x;
+            uMin = h00 * ym[2] + h10 * dym[2] + h01 * ymNew[2] + h11 * dymNew[2];
+            phMin = h00 * ym[3] + h10 * dym[3] + h01 * ymNew[3] + h11 * dymNew[3];
+        }
+    }
+
+    /** Coordinate speed |dx/dsigma| (flat-space sense, M per unit Mino time) at x = 1/r, for step limits. */
+    private static double minoSpeed(double x, double u, double[] d) {
         double st2 = FastMath.max(1.0e-300, 1.0 - u * u);
-        double v2 = d[1] * d[1] + r * r * (d[2] * d[2] / st2 + st2 * d[3] * d[3]);
+        double r = 1.0 / x;
+        double dr = d[1] * r * r;
+        double v2 = dr * dr + r * r * (d[2] * d[2] / st2 + st2 * d[3] * d[3]);
         return FastMath.max(1.0e-300, Math.sqrt(v2));
     }
 

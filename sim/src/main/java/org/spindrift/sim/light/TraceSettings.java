@@ -15,9 +15,11 @@ package org.spindrift.sim.light;
  * @param lensing false for straight lines (no bending, no redshift from the photon path; delays kept)
  * @param mask where gas may be (samples only there, long steps elsewhere); null: the whole sphere
  *     r &lt; emissionRadius
- * @param generalPath true: Hamilton's equations in the affine parameter for every metric (the
- *     reference); false: the separated equations in Mino time where the metric allows them
- *     (Kerr and the mass-function family), Hamilton's equations elsewhere
+ * @param generalPath true: the general path for every metric, the reference for comparisons:
+ *     Hamilton's equations in the affine parameter, and sub-pixel refinement of every stretched
+ *     pixel; false: the separated equations in Mino time where the metric allows them (Kerr and
+ *     the mass-function family; Hamilton's equations elsewhere), and refinement only of pixels
+ *     whose neighbourhood sees gas
  */
 public record TraceSettings(double emissionRadius, double stopRadius, double endRadius,
                             double sampleSpacing, double relativeTolerance, double absoluteTolerance,
