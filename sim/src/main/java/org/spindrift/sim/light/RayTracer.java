@@ -56,6 +56,10 @@ public final class RayTracer implements DormandPrince54.Rhs {
      * traced on the general path.
      */
     static final double POLE_LIMIT = 1.0e-8;
+    /** Cartesian position and derivative at the start (c0) and end (c1) of the step being sampled */
+    private double[] c0 = new double[6], c1 = new double[6];
+    /** c0 holds the current state's Cartesian values (the last sampled step's end) */
+    private boolean cartesianValid;
     private final double[] ym = new double[6], dym = new double[6], ymNew = new double[6], dymNew = new double[6];
 
     public RayTracer(Spacetime spacetime, TraceSettings settings) {
@@ -273,6 +277,7 @@ public final class RayTracer implements DormandPrince54.Rhs {
         final double rSample = mask != null ? FastMath.min(rEm, mask.radius() * FastMath.sqrt(3.0)) : rEm;
         final double xSample = 1.0 / rSample;
         mino.derivative(ym, dym);
+        cartesianValid = false;
         double h = 0.1 * (xSample - x0) / FastMath.max(1.0e-3, FastMath.abs(ym[4]));
         boolean periapsisPassed = false;
         boolean rejected = false;
@@ -323,9 +328,14 @@ public final class RayTracer implements DormandPrince54.Rhs {
                 end = RayEnd.CAPTURED;
                 break;
             }
-            if (out != null && FastMath.min(r, rn) < rSample) {
+            boolean sampled = out != null && FastMath.min(r, rn) < rSample;
+            if (sampled) {
                 sampleSeparated(out, hTaken, speed, minoSpeed(ymNew[1], ymNew[2], dymNew), rEm, delayOffset);
+                double[] swap = this.c0;
+                this.c0 = c1;
+                c1 = swap;
             }
+            cartesianValid = sampled;
             double branch = ymNew[4] > 0.0 ? -1.0 : 1.0;
             if (branch != mino.branch() && ym[4] > 0.0) {
                 periapsis(hTaken);
@@ -370,7 +380,8 @@ public final class RayTracer implements DormandPrince54.Rhs {
 
     /**
      * Samples an accepted step in Mino time as {@link #sampleStep} does in the affine parameter:
-     * cubic Hermite dense output of (tau, x, u, phi, v_x, v_u) at the midpoints of k equal parts,
+     * cubic Hermite dense output of (tau, x, u, v_x, v_u) and of the Cartesian position at the
+     * midpoints of k equal parts (only samples inside the mask's shell and slab are completed),
      * t = tau + s F(x), weight d(lambda) = Sigma h / k; physical p_r = v_x / D(x) and
      * p_theta = v_u / sin(theta).
      */
@@ -380,31 +391,68 @@ public final class RayTracer implements DormandPrince54.Rhs {
         int k = (int) FastMath.max(1, FastMath.ceil(length / settings.sampleSpacing()));
         double w = h / k * weightScale;
         double branch = mino.branch();
+        if (!cartesianValid) {
+            cartesian(ym, dym, c0);
+        }
+        cartesian(ymNew, dymNew, c1);
+        double in2 = mask != null ? mask.innerRadius() * mask.innerRadius() : 0.0;
+        double out2 = mask != null ? mask.outerRadius() * mask.outerRadius() : rEm * rEm + a2;
+        double zMax = mask != null ? mask.maxHeight() : Double.POSITIVE_INFINITY;
         for (int j = 0; j < k; j++) {
             double s = (j + 0.5) / k;
             double s2 = s * s, s3 = s2 * s;
             double h00 = 2 * s3 - 3 * s2 + 1, h10 = (s3 - 2 * s2 + s) * h, h01 = -2 * s3 + 3 * s2, h11 = (s3 - s2) * h;
+            // the Cartesian position by its own cubic Hermite interpolant (no trigonometry per sample)
+            double cz = h00 * c0[2] + h10 * c0[5] + h01 * c1[2] + h11 * c1[5];
+            if (FastMath.abs(cz) > zMax) {
+                continue;
+            }
+            double cx = h00 * c0[0] + h10 * c0[3] + h01 * c1[0] + h11 * c1[3];
+            double cy = h00 * c0[1] + h10 * c0[4] + h01 * c1[1] + h11 * c1[4];
+            double d2 = cx * cx + cy * cy + cz * cz;
+            if (d2 < in2 || d2 > out2) {
+                continue;
+            }
             double x = h00 * ym[1] + h10 * dym[1] + h01 * ymNew[1] + h11 * dymNew[1];
-            double u = h00 * ym[2] + h10 * dym[2] + h01 * ymNew[2] + h11 * dymNew[2];
-            double ph = h00 * ym[3] + h10 * dym[3] + h01 * ymNew[3] + h11 * dymNew[3];
             double r = 1.0 / x;
-            double st2 = FastMath.max(0.0, 1.0 - u * u);
-            double st = Math.sqrt(st2);
-            double rho = Math.sqrt(r * r + a2) * st;
-            double cx = rho * Trig.cos(ph);
-            double cy = rho * Trig.sin(ph);
-            double cz = r * u;
             boolean emitting = mask != null ? mask.occupied(cx, cy, cz) : r < rEm;
             if (emitting) {
+                double u = h00 * ym[2] + h10 * dym[2] + h01 * ymNew[2] + h11 * dymNew[2];
                 double tau = h00 * ym[0] + h10 * dym[0] + h01 * ymNew[0] + h11 * dymNew[0];
                 double vx = h00 * ym[4] + h10 * dym[4] + h01 * ymNew[4] + h11 * dymNew[4];
                 double vu = h00 * ym[5] + h10 * dym[5] + h01 * ymNew[5] + h11 * dymNew[5];
+                double st = Math.sqrt(FastMath.max(0.0, 1.0 - u * u));
                 double t = tau + branch * MinoTimeEquations.singularTime(x);
                 // d(lambda) = Sigma d(sigma)
                 double sigma = r * r + a2 * u * u;
                 out.add(cx, cy, cz, -t - delayOffset, vx / mino.d(x), st > 0.0 ? vu / st : 0.0, -qphi, w * sigma);
             }
         }
+    }
+
+    /**
+     * Cartesian position (x, y, z) = (sqrt(r^2 + a^2) sin(theta) cos(phi), ... sin(phi), r cos(theta))
+     * of the separated state q and its derivative from dq (chain rule with r = 1/x, u = cos(theta)).
+     *
+     * @param out x, y, z, dx, dy, dz
+     */
+    private void cartesian(double[] q, double[] dq, double[] out) {
+        double x = q[1], u = q[2];
+        double r = 1.0 / x;
+        double dr = -dq[1] * r * r;
+        double st = Math.sqrt(FastMath.max(1.0e-300, 1.0 - u * u));
+        double dst = -u * dq[2] / st;
+        double big = Math.sqrt(r * r + a2);
+        double rho = big * st;
+        double drho = r * dr / big * st + big * dst;
+        double cp = Trig.cos(q[3]), sp = Trig.sin(q[3]);
+        double dph = dq[3];
+        out[0] = rho * cp;
+        out[1] = rho * sp;
+        out[2] = r * u;
+        out[3] = drho * cp - rho * sp * dph;
+        out[4] = drho * sp + rho * cp * dph;
+        out[5] = dr * u + r * dq[2];
     }
 
     /**
