@@ -122,9 +122,10 @@ public final class BenchLightCommand implements Callable<Integer> {
                 RayTable table = RayTable.trace(p.spacetime(), cam, ts, nt);
                 double secs = seconds(t0);
                 double cpuSecs = cpu() - c0;
-                System.out.printf(Locale.ROOT, "  ray table %d x %d (fov %.0f M, emission mask %.1f%% of cells): %.2f s"
-                        + " (%.1f CPU s), %.0f pixels/s, %d samples, %d pixels refined with %d sub-rays, %.0f steps per pixel%n",
-                        n, n, s.fieldOfViewM(), 100 * mask.filling(), secs, cpuSecs, table.rays() / secs,
+                System.out.printf(Locale.ROOT, "  ray table %d x %d (fov %.0f M, emission mask %.1f%% of cells, %.2f to %.2f M"
+                        + " from the centre): %.2f s (%.1f CPU s), %.0f pixels/s, %d samples, %d pixels refined with %d sub-rays,"
+                        + " %.0f steps per pixel%n", n, n, s.fieldOfViewM(), 100 * mask.filling(), mask.innerRadius(),
+                        mask.outerRadius(), secs, cpuSecs, table.rays() / secs,
                         table.samples(), table.refinedPixels(), table.subRays(), table.steps() / (double) table.rays());
                 if (ref != null) {
                     System.out.printf(Locale.ROOT, "  speed-up over the general path: %.2fx wall, %.2fx CPU%n",

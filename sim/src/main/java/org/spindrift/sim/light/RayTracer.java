@@ -281,6 +281,8 @@ public final class RayTracer implements DormandPrince54.Rhs {
         double h = 0.1 * (xSample - x0) / FastMath.max(1.0e-3, FastMath.abs(ym[4]));
         boolean periapsisPassed = false;
         boolean rejected = false;
+        boolean tailChecked = false;
+        final double innerLimit = mask != null ? mask.innerRadius() * mask.innerRadius() : 0.0;
         steps = 0;
         rMin = y0[1];
         uMin = ym[2];
@@ -361,6 +363,16 @@ public final class RayTracer implements DormandPrince54.Rhs {
             if (periapsisPassed && outward && rn > rEnd) {
                 end = RayEnd.ESCAPED;
                 break;
+            }
+            // inwards below the mask's inner radius with no radial turning point left: nothing
+            // more can be sampled and the ray is captured (the last steps to the stop radius,
+            // where phi and t diverge like ln(r - r_+), are the costliest of the ray)
+            if (!outward && !tailChecked && mask != null && rn * rn + a2 < innerLimit) {
+                tailChecked = true;
+                if (mino.noTurningBefore(ym[1], 1.0 / rStop)) {
+                    end = RayEnd.CAPTURED;
+                    break;
+                }
             }
         }
         thMin = FastMath.acos(FastMath.max(-1.0, FastMath.min(1.0, uMin)));
