@@ -49,13 +49,15 @@ public final class RayTracer implements DormandPrince54.Rhs {
     private final MinoTimeEquations mino;
     private final double spin;
     private double uMin;
+    private boolean lastSeparated;
     /**
-     * Smallest sin^2(theta) = 1 - u^2 the separated path accepts: closer to the axis its relative
-     * rounding error (~1e-16 / (1 - u^2)) approaches the tolerances, and u may overshoot a polar
-     * turning point next to 1; such rays (near-face-on views, rays passing over the poles) are
-     * traced on the general path.
+     * Smallest sin^2(theta) = 1 - u^2 the separated path accepts (about 0.6 deg from the axis):
+     * closer to the axis L / (1 - u^2) turns phi quickly and the rounding of 1 - u^2 grows, and
+     * the separated path's crossing points were measured to err by up to 2e-3 M there (at
+     * tolerance 1e-8, against 3e-5 M elsewhere); such rays (near-face-on views, rays passing
+     * over the poles) are traced on the general path.
      */
-    static final double POLE_LIMIT = 1.0e-8;
+    static final double POLE_LIMIT = 1.0e-4;
     /** Cartesian position and derivative at the start (c0) and end (c1) of the step being sampled */
     private double[] c0 = new double[6], c1 = new double[6];
     /** c0 holds the current state's Cartesian values (the last sampled step's end) */
@@ -73,7 +75,12 @@ public final class RayTracer implements DormandPrince54.Rhs {
                 ? new MinoTimeEquations(m) : null;
     }
 
-    /** @return true when rays go through the separated equations in Mino time */
+    /** @return true when the last ray was traced with the separated equations (not the general path) */
+    public boolean lastSeparated() {
+        return lastSeparated;
+    }
+
+    /** @return true when rays go through the separated equations in Mino time where they can */
     public boolean separated() {
         return mino != null;
     }
@@ -132,12 +139,14 @@ public final class RayTracer implements DormandPrince54.Rhs {
      * @param out receives the samples inside the emission region (may be null)
      */
     public RayEnd trace(double[] y0, double angularMomentum, double delayOffset, SampleBuffer out) {
+        lastSeparated = false;
         // L = 0 exactly: the ray may cross the polar axis, where phi jumps by pi, which the
         // cos(theta) variable does not see; such rays take the general path
         if (mino != null && angularMomentum != 0.0 && poleGap(y0, angularMomentum) > 4.0 * POLE_LIMIT) {
             int before = out == null ? 0 : out.size;
             RayEnd e = traceSeparated(y0, angularMomentum, delayOffset, out);
             if (e != null) {
+                lastSeparated = true;
                 return e;
             }
             // the ray came within sin^2(theta) < POLE_LIMIT of the polar axis: trace it again on the general path
@@ -276,9 +285,11 @@ public final class RayTracer implements DormandPrince54.Rhs {
         final double atol = settings.absoluteTolerance();
         final double rSample = mask != null ? FastMath.min(rEm, mask.radius() * FastMath.sqrt(3.0)) : rEm;
         final double xSample = 1.0 / rSample;
+        final double xEnd = 1.0 / rEnd;
         mino.derivative(ym, dym);
         cartesianValid = false;
-        double h = 0.1 * (xSample - x0) / FastMath.max(1.0e-3, FastMath.abs(ym[4]));
+        // a tenth of the way in x to the sampling sphere (or to r = 2 M when there is none)
+        double h = 0.1 * (FastMath.min(xSample, 0.5) - x0) / FastMath.max(1.0e-3, FastMath.abs(ym[4]));
         boolean periapsisPassed = false;
         boolean rejected = false;
         boolean tailChecked = false;
@@ -294,6 +305,11 @@ public final class RayTracer implements DormandPrince54.Rhs {
             double speed = minoSpeed(x, ym[2], dym);
             double hMax = r > rSample ? FastMath.max(0.5 * (xSample - x), xSample * xSample) / FastMath.abs(dym[1])
                     : 0.25 * r / speed;
+            if (dym[1] < 0.0) {
+                // outwards: aim at x = xEnd / 2, so the last step lands beyond the end radius but
+                // not beyond infinity (x = 0)
+                hMax = FastMath.min(hMax, (x - 0.5 * xEnd) / -dym[1]);
+            }
             h = FastMath.min(h, hMax);
             double err = stepper.step(mino, ym, dym, h, rtol, atol, ymNew, dymNew);
             steps++;
@@ -324,6 +340,12 @@ public final class RayTracer implements DormandPrince54.Rhs {
                 return null;
             }
             double rn = 1.0 / ymNew[1];
+            if (!(rn > 0.0) && ymNew[4] < 0.0) {
+                System.arraycopy(ymNew, 0, ym, 0, 6);
+                System.arraycopy(dymNew, 0, dym, 0, 6);
+                end = RayEnd.ESCAPED;           // through x = 0: beyond any end radius
+                break;
+            }
             if (!(rn > 0.0) || rn < rStop) {
                 System.arraycopy(ymNew, 0, ym, 0, 6);
                 System.arraycopy(dymNew, 0, dym, 0, 6);
