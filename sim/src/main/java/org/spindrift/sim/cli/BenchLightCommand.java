@@ -187,10 +187,9 @@ public final class BenchLightCommand implements Callable<Integer> {
             TraceSettings t = (TraceSettings) c[1];
             RayAccuracy.Result r = RayAccuracy.compare(st, cam, t, tight, accuracyEvery, isco);
             for (int k = 0; k < RayAccuracy.CROSSINGS; k++) {
-                System.out.printf(Locale.ROOT, "    %-12s tol %.0e, crossing %d: image position %.1e / %.1e M (crossing point"
-                                + " %.1e / %.1e M), delay %.1e / %.1e M, g (circular orbit) %.1e / %.1e relative; %d rays%s%n",
-                        c[0], t.relativeTolerance(), k + 1, r.imageMax()[k], r.image99()[k], r.positionMax()[k],
-                        r.position99()[k], r.delayMax()[k],
+                System.out.printf(Locale.ROOT, "    %-12s tol %.0e, crossing %d: position %.1e / %.1e M, delay %.1e / %.1e M,"
+                                + " g (circular orbit) %.1e / %.1e relative; %d rays%s%n",
+                        c[0], t.relativeTolerance(), k + 1, r.positionMax()[k], r.position99()[k], r.delayMax()[k],
                         r.delay99()[k], r.redshiftMax()[k], r.redshift99()[k], r.crossings()[k],
                         k == 0 ? String.format(Locale.ROOT, " of %d (%d differ in crossings)", r.rays(), r.mismatched()) : "");
             }

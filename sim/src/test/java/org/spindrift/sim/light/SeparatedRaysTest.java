@@ -31,13 +31,10 @@ class SeparatedRaysTest {
         RayAccuracy.Result r = RayAccuracy.compare(st, cam, run, tight, 1, isco);
         assertTrue(r.crossings()[0] > 150, "enough equatorial crossings: " + r.crossings()[0]);
         assertEquals(0, r.mismatched(), "rays with a different number of crossings");
-        // the targets of the light stage: positions within 1e-3 M, g within 1e-4 relative. The
-        // crossing point bounds the direct image's position error (its magnification is >= 1 at
-        // these inclinations); the Jacobian-mapped screen error is checked at the 99th percentile
-        // (its maximum is dominated by finite differences across folds of the map, for either path)
+        // the targets of the light stage: positions within 1e-3 M, g within 1e-4 relative (the
+        // crossing point's error bounds the direct image's: the screen-to-equator map stretches)
         for (int c = 0; c < RayAccuracy.CROSSINGS; c++) {
-            assertTrue(r.positionMax()[c] < 1.0e-3, "crossing points differ by " + r.positionMax()[c] + " M at " + c);
-            assertTrue(r.image99()[c] < 1.0e-3, "image positions differ by " + r.image99()[c] + " M at " + c);
+            assertTrue(r.positionMax()[c] < 1.0e-4, "crossing points differ by " + r.positionMax()[c] + " M at " + c);
             // delays: the step control holds t to 1e-8 of the 1e4 M travel time from the camera plane per step
             assertTrue(r.delayMax()[c] < 2.0e-3, "delays differ by " + r.delayMax()[c] + " M at crossing " + c);
             assertTrue(r.redshiftMax()[c] < 1.0e-4, "g differs by " + r.redshiftMax()[c] + " at crossing " + c);
