@@ -50,6 +50,8 @@ public final class RayTracer implements DormandPrince54.Rhs {
     private final double spin;
     private double uMin;
     private boolean lastSeparated;
+    /** emission, end, stop and sampling radii and tolerances from the settings */
+    private final double rEm, rEnd, rStop, rtol, atol, rSample;
     /**
      * Smallest sin^2(theta) = 1 - u^2 the separated path accepts (about 0.6 deg from the axis):
      * closer to the axis L / (1 - u^2) turns phi quickly and the rounding of 1 - u^2 grows, and
@@ -73,6 +75,13 @@ public final class RayTracer implements DormandPrince54.Rhs {
         this.mask = settings.mask();
         this.mino = !settings.generalPath() && spacetime instanceof MassFunctionSpacetime m
                 ? new MinoTimeEquations(m) : null;
+        this.rEm = settings.emissionRadius();
+        this.rEnd = FastMath.max(rEm, settings.endRadius());
+        this.rStop = settings.stopRadius();
+        this.rtol = settings.relativeTolerance();
+        this.atol = settings.absoluteTolerance();
+        // radius of the sphere holding every possible sample (the mask's cube, or the emission sphere)
+        this.rSample = mask != null ? FastMath.min(rEm, mask.radius() * FastMath.sqrt(3.0)) : rEm;
     }
 
     /** @return true when the last ray was traced with the separated equations (not the general path) */
@@ -185,13 +194,6 @@ public final class RayTracer implements DormandPrince54.Rhs {
         System.arraycopy(y0, 0, y, 0, 6);
         qt = 1.0;
         qphi = -angularMomentum;
-        final double rEm = settings.emissionRadius();
-        final double rEnd = FastMath.max(rEm, settings.endRadius());
-        final double rStop = settings.stopRadius();
-        final double rtol = settings.relativeTolerance();
-        final double atol = settings.absoluteTolerance();
-        // radius of the sphere holding every possible sample (the mask's cube, or the emission sphere)
-        final double rSample = mask != null ? FastMath.min(rEm, mask.radius() * FastMath.sqrt(3.0)) : rEm;
         derivative(y, dy);
         double h = 0.01 * y[1];
         boolean periapsisPassed = false;
@@ -278,12 +280,6 @@ public final class RayTracer implements DormandPrince54.Rhs {
         ym[3] = y0[3];
         ym[4] = -mino.d(x0) * y0[4];
         ym[5] = -s0 * y0[5];
-        final double rEm = settings.emissionRadius();
-        final double rEnd = FastMath.max(rEm, settings.endRadius());
-        final double rStop = settings.stopRadius();
-        final double rtol = settings.relativeTolerance();
-        final double atol = settings.absoluteTolerance();
-        final double rSample = mask != null ? FastMath.min(rEm, mask.radius() * FastMath.sqrt(3.0)) : rEm;
         final double xSample = 1.0 / rSample;
         final double xEnd = 1.0 / rEnd;
         mino.derivative(ym, dym);
