@@ -2,7 +2,7 @@ package org.spindrift.shared;
 
 /**
  * Boyer-Lindquist-like coordinates (r, theta, phi) and the Cartesian coordinates used for
- * display and spatial indexing (DESIGN section 3):
+ * display and spatial indexing:
  * x = sqrt(r^2+a^2) sin(theta) cos(phi), y = sqrt(r^2+a^2) sin(theta) sin(phi), z = r cos(theta)
  * (the oblate-spheroidal form of Boyer & Lindquist 1967, J. Math. Phys. 8, 265).
  */

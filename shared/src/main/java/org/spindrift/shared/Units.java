@@ -2,7 +2,7 @@ package org.spindrift.shared;
 
 /**
  * Physical constants and conversions between geometric units (G = c = 1, M = 1) and the
- * units used at the edges (solar masses, kiloparsecs, minutes, micro-arcseconds).
+ * units used at the edges (solar masses, megaparsecs, minutes, micro-arcseconds).
  */
 public final class Units {
     private Units() {
@@ -16,10 +16,10 @@ public final class Units {
     public static final double AU = 149_597_870_700.0;
     /** Parsec in m: 648000/pi au (IAU 2015 Resolution B2). */
     public static final double PARSEC = 648_000.0 / Math.PI * AU;
-    /** Kiloparsec in m. */
-    public static final double KILOPARSEC = 1000.0 * PARSEC;
+    /** Megaparsec in m. */
+    public static final double MEGAPARSEC = 1.0e6 * PARSEC;
     /** Micro-arcseconds per radian. */
-    public static final double MICROARCSEC_PER_RAD = 180.0 / Math.PI * 3600.0 * 1.0e6;
+    public static final double UAS_PER_RAD = 180.0 / Math.PI * 3600.0 * 1.0e6;
 
     /** @return GM/c^3 in seconds for a mass in solar masses */
     public static double timeUnitSeconds(double massSolar) {
@@ -32,7 +32,7 @@ public final class Units {
     }
 
     /** @return the angle in micro-arcseconds subtended by 1 M = GM/c^2 at the distance (small angle) */
-    public static double microarcsecPerM(double massSolar, double distanceKpc) {
-        return lengthUnitMetres(massSolar) / (distanceKpc * KILOPARSEC) * MICROARCSEC_PER_RAD;
+    public static double uasPerM(double massSolar, double distanceMpc) {
+        return lengthUnitMetres(massSolar) / (distanceMpc * MEGAPARSEC) * UAS_PER_RAD;
     }
 }

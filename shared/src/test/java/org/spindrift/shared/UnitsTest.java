@@ -9,7 +9,7 @@ class UnitsTest {
     @Test
     void parsecSubtendsOneArcsecondPerAstronomicalUnit() {
         // Definition of the parsec: 1 au subtends 1 arcsecond at 1 pc (IAU 2015 Resolution B2).
-        double uas = Units.AU / Units.PARSEC * Units.MICROARCSEC_PER_RAD;
+        double uas = Units.AU / Units.PARSEC * Units.UAS_PER_RAD;
         assertEquals(1.0e6, uas, 1e-6);
     }
 
@@ -25,6 +25,8 @@ class UnitsTest {
     void angularSizeScalesAsMassOverDistance() {
         // Small-angle relation theta = GM/(c^2 D) (common practice, no source): 1e6 M_sun at 1 kpc
         // is 1.476625e9 m / 3.0856776e19 m = 4.78537e-11 rad = 9.8704 uas.
-        assertEquals(9.8704, Units.microarcsecPerM(1.0e6, 1.0), 1e-3);
+        assertEquals(9.8704, Units.uasPerM(1.0e6, 1.0e-3), 1e-3);
+        // the same angle for 1e9 M_sun at 1 Mpc (the ratio is what counts)
+        assertEquals(9.8704, Units.uasPerM(1.0e9, 1.0), 1e-3);
     }
 }

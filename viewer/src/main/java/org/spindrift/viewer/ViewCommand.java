@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.viewer.app.Benchmark;
 import org.spindrift.viewer.app.FrameExport;
 import org.spindrift.viewer.app.ViewerSession;
@@ -60,9 +61,15 @@ public final class ViewCommand implements Callable<Integer> {
             description = "render N frames offscreen and print frames per second, then exit")
     Integer benchFrames;
 
-    @Option(names = "--colour", paramLabel = "Q", defaultValue = "redshift",
-            description = "initial particle colouring: redshift, emission, radius or source (default: ${DEFAULT-VALUE})")
+    @Option(names = "--colour", paramLabel = "Q", defaultValue = "time-dilation",
+            description = "initial particle colouring: time-dilation (1/u^t, the g of zero-angular-momentum photons;"
+                    + " diverging colours centred on 1), emission, radius or source (default: ${DEFAULT-VALUE})")
     String colour;
+
+    @Option(names = "--sky-colours", paramLabel = "RAMP", defaultValue = "default",
+            description = "colours of the sky image: default (the project's perceptually uniform ramp, dark indigo"
+                    + " to cream) or grey (default: ${DEFAULT-VALUE})")
+    String skyColours;
 
     @Option(names = "--camera", paramLabel = "VIEW", defaultValue = "default",
             description = "initial camera: default, observer (the line of sight) or face-on (default: ${DEFAULT-VALUE})")
@@ -83,6 +90,10 @@ public final class ViewCommand implements Callable<Integer> {
 
     @Option(names = "--no-sky", description = "leave out the sky panel even when the run has sky data")
     boolean noSky;
+
+    @Option(names = "--no-verify", description = "skip comparing every file with its sha256 in manifest.json (for"
+            + " huge archives; the manifest, the snapshot file's origin and the values read are still checked)")
+    boolean noVerify;
 
     @Override public Integer call() {
         PrintStream err = System.err;
@@ -132,7 +143,12 @@ public final class ViewCommand implements Callable<Integer> {
         }
         Quantity q = Quantity.parse(colour);
         if (q == null) {
-            throw new UserInputException("option --colour: '" + colour + "' is not one of redshift, emission, radius, source");
+            throw new UserInputException("option --colour: '" + colour
+                    + "' is not one of time-dilation, emission, radius, source");
+        }
+        ColourRamp sky = ColourRamp.skyOption(skyColours);
+        if (sky == null) {
+            throw new UserInputException("option --sky-colours: '" + skyColours + "' is not one of default, grey");
         }
         ViewerSession.CameraStart cam = ViewerSession.CameraStart.parse(camera);
         if (cam == null) {
@@ -148,7 +164,7 @@ public final class ViewCommand implements Callable<Integer> {
             throw new UserInputException("run folder " + runDir + ": no " + ArchiveLayout.MANIFEST
                     + " (not a run folder, or the run did not complete)");
         }
-        return new ViewerSession.Options(runDir, w, h, q, cam, cameraDistance, bare, noSky, samples);
+        return new ViewerSession.Options(runDir, w, h, q, cam, cameraDistance, bare, noSky, samples, sky, !noVerify);
     }
 
     /** Runs {@code view} on its own (tests start it in a child JVM). */

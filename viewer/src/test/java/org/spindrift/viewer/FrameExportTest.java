@@ -97,8 +97,7 @@ class FrameExportTest {
     }
 
     /**
-     * The observer's camera shows the sky as DESIGN section 3 and the light stage's camera define
-     * it: line of sight n = (sin i, 0, cos i), screen axes alpha = (0, 1, 0) (west at PA = 0) and
+     * The observer's camera shows the sky as the light stage's camera defines it: line of sight n = (sin i, 0, cos i), screen axes alpha = (0, 1, 0) (west at PA = 0) and
      * beta = (-cos i, 0, sin i) (north at PA = 0), sky (east, north) = alpha (-cos PA, sin PA) +
      * beta (sin PA, cos PA), drawn east to the left and north up. Pixel positions follow from a
      * pinhole at distance D: column = W/2 - f east / (D - n.p), row = H/2 - f north / (D - n.p),

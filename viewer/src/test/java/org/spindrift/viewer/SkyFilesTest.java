@@ -26,7 +26,7 @@ import org.spindrift.viewer.sky.ImageCube;
 class SkyFilesTest {
     @TempDir Path tmp;
 
-    static final double M_SECONDS = 29.5529456858476; // GM/c^3 for 6.0e6 solar masses (IAU 2015 GM_sun)
+    static final double M_SECONDS = 4.925490947; // GM/c^3 for 1e6 solar masses (IAU 2015 GM_sun; UnitsTest)
 
     @Test void imageCubeFramesTimesAndScale() throws Exception {
         int nx = 8;
@@ -44,8 +44,8 @@ class SkyFilesTest {
         try (Fits fits = new Fits()) {
             BasicHDU<?> hdu = Fits.makeHDU(cube);
             Header h = hdu.getHeader();
-            h.addValue("CTYPE1", "RA---TAN", "");
-            h.addValue("CTYPE2", "DEC--TAN", "");
+            h.addValue("CTYPE1", "OFLN-TAN", "");
+            h.addValue("CTYPE2", "OFLT-TAN", "");
             h.addValue("CTYPE3", "TIME", "");
             h.addValue("CUNIT1", "deg", "");
             h.addValue("CUNIT2", "deg", "");
@@ -60,7 +60,7 @@ class SkyFilesTest {
             fits.addHDU(hdu);
             fits.write(file.toFile());
         }
-        try (ImageCube c = ImageCube.open(file, M_SECONDS, 6.58)) {
+        try (ImageCube c = ImageCube.open(file, M_SECONDS, 9.8704)) {
             assertEquals(nx, c.width());
             assertEquals(ny, c.height());
             assertEquals(nf, c.frames());

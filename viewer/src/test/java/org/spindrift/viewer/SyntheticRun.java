@@ -21,9 +21,9 @@ public final class SyntheticRun {
     private SyntheticRun() {
     }
 
-    /** Invented black hole: 4.0e6 solar masses at 8.0 kpc (made-up values). */
-    static final double MASS = 4.0e6;
-    static final double DISTANCE = 8.0;
+    /** Synthetic round values, as in every test: 1e6 solar masses at 1 kpc (= 1e-3 Mpc). */
+    static final double MASS = 1.0e6;
+    static final double DISTANCE = 1.0e-3;
 
     /**
      * A fixed layout: particle i sits at (x[s][i], y[s][i], 0) in snapshot s (equatorial plane),
@@ -61,7 +61,7 @@ public final class SyntheticRun {
             }
             sw.add(times[k], r, th, ph, ut, zero, zero, zero, wt, new byte[n], new double[][] {{cx, cy, 0}});
         }
-        sw.write(dir);
+        sw.write(w.folder());
         w.register(ArchiveLayout.SNAPSHOTS);
         w.finish(manifest("layout test (invented)", 0.0, 2.0, 6.0, Double.NaN, 2.0, incl, pa, n, "probe"));
     }
@@ -107,7 +107,7 @@ public final class SyntheticRun {
         double[] xyz = new double[3];
         double incl = 60.0;
         double pa = 20.0;
-        SyntheticSky skyOut = sky ? new SyntheticSky(incl, pa, Units.microarcsecPerM(MASS, DISTANCE),
+        SyntheticSky skyOut = sky ? new SyntheticSky(incl, pa, Units.uasPerM(MASS, DISTANCE),
                 Units.timeUnitSeconds(MASS)) : null;
         double[] xs = sky ? new double[particles] : null;
         double[] ys = sky ? new double[particles] : null;
@@ -148,7 +148,7 @@ public final class SyntheticRun {
                 skyOut.add(t, xs, ys, zs, wt, c[0], k % 3 == 0);
             }
         }
-        sw.write(dir);
+        sw.write(w.folder());
         w.register(ArchiveLayout.SNAPSHOTS);
         if (sky) {
             skyOut.write(w);
@@ -164,10 +164,10 @@ public final class SyntheticRun {
         ObjectNode body = RunArchiveWriter.json().createObjectNode();
         body.putObject("scenario").put("name", name);
         body.put("seed", 1);
-        body.putObject("black_hole").put("mass_solar", MASS).put("distance_kpc", DISTANCE).put("family", "kerr")
+        body.putObject("black_hole").put("mass_solar", MASS).put("distance_Mpc", DISTANCE).put("family", "kerr")
                 .put("spin", spin).putObject("parameters");
         body.putObject("units").put("M_seconds", Units.timeUnitSeconds(MASS))
-                .put("M_metres", Units.lengthUnitMetres(MASS)).put("M_microarcsec", Units.microarcsecPerM(MASS, DISTANCE));
+                .put("M_metres", Units.lengthUnitMetres(MASS)).put("M_uas", Units.uasPerM(MASS, DISTANCE));
         body.putObject("observer").put("inclination_deg", incl).put("position_angle_deg", pa);
         ObjectNode lm = body.putObject("landmarks").put("horizon_outer", horizon).put("isco_prograde", isco)
                 .put("ergosurface_equator", ergo);

@@ -93,11 +93,11 @@ final class SyntheticSky {
                 float[][][] cube = frames.toArray(new float[0][][]);
                 ImageHDU img = (ImageHDU) Fits.makeHDU(cube);
                 double pixDeg = FOV_M / PIX * uasPerM / 3600e6;
-                img.getHeader().addValue("CTYPE1", "RA---SIN", "offset east (sky x), east to the left");
+                img.getHeader().addValue("CTYPE1", "OFLN-TAN", "offset east (sky x), east to the left");
                 img.getHeader().addValue("CDELT1", -pixDeg, "deg");
                 img.getHeader().addValue("CRPIX1", PIX / 2.0 + 0.5, "black hole");
                 img.getHeader().addValue("CUNIT1", "deg", "");
-                img.getHeader().addValue("CTYPE2", "DEC--SIN", "offset north");
+                img.getHeader().addValue("CTYPE2", "OFLT-TAN", "offset north");
                 img.getHeader().addValue("CDELT2", pixDeg, "deg");
                 img.getHeader().addValue("CRPIX2", PIX / 2.0 + 0.5, "black hole");
                 img.getHeader().addValue("CUNIT2", "deg", "");

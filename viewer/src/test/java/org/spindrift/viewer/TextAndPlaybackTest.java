@@ -27,6 +27,11 @@ class TextAndPlaybackTest {
         assertEquals("2", t.clear().num(2.0).toString());
         assertEquals("0.5", t.clear().num(0.5).toString());
         assertEquals("1.00e5", t.clear().sig3(1.0e5).toString());
+        // three significant digits for small values too (String.format "%.3g" as reference)
+        for (double v : new double[] {0.00123456, 0.0456789, 0.5, 7.891, 12.345, 999.4}) {
+            assertEquals(Double.parseDouble(String.format(Locale.ROOT, "%.3g", v)),
+                    Double.parseDouble(t.clear().sig3(v).toString()), 1e-12, "value " + v);
+        }
         assertEquals("n/a", t.clear().fixed(Double.NaN, 2).toString());
     }
 

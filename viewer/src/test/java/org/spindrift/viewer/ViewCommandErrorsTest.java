@@ -60,7 +60,8 @@ class ViewCommandErrorsTest {
         Path d = tmp.resolve("damaged");
         SyntheticRun.writeHotSpot(d, 50, 4, 3);
         Files.write(d.resolve(ArchiveLayout.SNAPSHOTS), new byte[] {1, 2, 3, 4, 5, 6, 7, 8});
-        assertOneLine(run(d.toString()), "snapshots.h5", "cannot be read");
+        assertOneLine(run(d.toString()), "snapshots.h5", "does not match its sha256");
+        assertOneLine(run(d.toString(), "--no-verify"), "snapshots.h5", "cannot be read");
     }
 
     @Test void missingSnapshots() throws Exception {
@@ -72,16 +73,64 @@ class ViewCommandErrorsTest {
 
     @Test void damagedImages() throws Exception {
         Path d = tmp.resolve("badfits");
-        SyntheticRun.writeHotSpot(d, 50, 4, 3);
+        SyntheticRun.writeHotSpot(d, 50, 4, 3, true);
         Files.writeString(d.resolve(ArchiveLayout.IMAGES), "SIMPLE  = not really a FITS file");
         assertOneLine(run(d.toString()), "images.fits");
+        assertOneLine(run(d.toString(), "--no-verify"), "images.fits");
     }
 
     @Test void badCentroidTable() throws Exception {
         Path d = tmp.resolve("badcsv");
-        SyntheticRun.writeHotSpot(d, 50, 4, 3);
+        SyntheticRun.writeHotSpot(d, 50, 4, 3, true);
         Files.writeString(d.resolve(ArchiveLayout.CENTROID), "time,flux\n0,1\n");
-        assertOneLine(run(d.toString()), "centroid.csv", "x_uas");
+        assertOneLine(run(d.toString()), "centroid.csv", "sha256");
+        assertOneLine(run(d.toString(), "--no-verify"), "centroid.csv", "x_uas");
+    }
+
+    /** A byte flip that gives an absurd radius, written with valid checksums: refused by its range. */
+    @Test void absurdRadius() throws Exception {
+        Path d = tmp.resolve("farout");
+        double[][] x = {{6, 1e284}, {6, 1e284}};
+        double[][] y = {{0, 0}, {1, 0}};
+        SyntheticRun.writeLayout(d, x, y, new double[] {0, 10});
+        assertOneLine(run(d.toString()), "snapshots.h5", "/r = 1.0E284", "physical range");
+    }
+
+    /** Another run's snapshots.h5 (other spin, other particle count) beside this run's manifest. */
+    @Test void anotherRunsSnapshots() throws Exception {
+        Path a = tmp.resolve("a");
+        Path b = tmp.resolve("b");
+        SyntheticRun.writeHotSpot(a, 50, 4, 3);
+        SyntheticRun.writeLayout(b, new double[][] {{6, 7}, {6, 7}}, new double[][] {{0, 0}, {1, 1}},
+                new double[] {0, 10});
+        Files.copy(b.resolve(ArchiveLayout.SNAPSHOTS), a.resolve(ArchiveLayout.SNAPSHOTS),
+                java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+        assertOneLine(run(a.toString()), "snapshots.h5", "sha256");
+        assertOneLine(run(a.toString(), "--no-verify"), "snapshots.h5", "does not belong to this run");
+    }
+
+    /** A centroid.csv cut off in the middle of a row. */
+    @Test void truncatedCentroidTable() throws Exception {
+        Path d = tmp.resolve("cut");
+        SyntheticRun.writeHotSpot(d, 50, 4, 3, true);
+        Path csv = d.resolve(ArchiveLayout.CENTROID);
+        String text = Files.readString(csv);
+        Files.writeString(csv, text.substring(0, text.length() - 12));
+        assertOneLine(run(d.toString()), "centroid.csv", "sha256");
+        assertOneLine(run(d.toString(), "--no-verify"), "centroid.csv", "fields");
+    }
+
+    /** A wrongly typed manifest value is named as such, not as missing. */
+    @Test void wronglyTypedManifestValue() throws Exception {
+        Path d = tmp.resolve("typed");
+        SyntheticRun.writeHotSpot(d, 50, 4, 3);
+        Path m = d.resolve(ArchiveLayout.MANIFEST);
+        Files.writeString(m, Files.readString(m).replaceFirst("\"spin\" : [-0-9.eE]+", "\"spin\" : \"fast\""));
+        assertOneLine(run(d.toString()), "black_hole.spin", "must be a number, got text 'fast'");
+        Files.writeString(m, "{\"format\": \"spindrift-run\", oops}");
+        String[] r = run(d.toString());
+        assertOneLine(r, "manifest.json", "not valid JSON at line 1");
+        assertFalse(r[1].contains("Source:"), "no parser internals: " + r[1]);
     }
 
     @Test void badOptions() throws Exception {
@@ -90,7 +139,8 @@ class ViewCommandErrorsTest {
         assertOneLine(run(d.toString(), "--size", "10x10"), "--size", "64..8192");
         assertOneLine(run(d.toString(), "--size", "wide"), "--size");
         assertOneLine(run(d.toString(), "--every", "0"), "--every");
-        assertOneLine(run(d.toString(), "--colour", "purple"), "--colour", "redshift");
+        assertOneLine(run(d.toString(), "--colour", "purple"), "--colour", "time-dilation");
+        assertOneLine(run(d.toString(), "--sky-colours", "heat"), "--sky-colours", "default, grey");
         assertOneLine(run(d.toString(), "--camera", "above"), "--camera");
     }
 

@@ -31,6 +31,14 @@ public final class ArchiveLayout {
     public static final String IMAGES = "images.fits";
     /** Mock astrometric data (CSV, light stage). */
     public static final String MOCK_ASTROMETRY = "mock_astrometry.csv";
+    /** Model visibilities with gains and noise (CSV, interferometry stage). */
+    public static final String VISIBILITIES = "visibilities.csv";
+    /** Closure phases (CSV, interferometry stage). */
+    public static final String CLOSURE_PHASES = "closure_phases.csv";
+    /** Log closure amplitudes (CSV, interferometry stage). */
+    public static final String CLOSURE_AMPLITUDES = "closure_amplitudes.csv";
+    /** Visibilities in the random-groups UVFITS layout (interferometry stage). */
+    public static final String UVFITS = "visibilities.uvfits";
     /** Folder of plots. */
     public static final String PLOTS = "plots";
 
@@ -74,7 +82,7 @@ public final class ArchiveLayout {
     public static final String PARTIAL_SUFFIX = ".partial";
 
     /**
-     * Cartesian coordinates for display and spatial indexing (DESIGN section 3):
+     * Cartesian coordinates for display and spatial indexing:
      * x = sqrt(r^2+a^2) sin(theta) cos(phi), y = sqrt(r^2+a^2) sin(theta) sin(phi), z = r cos(theta)
      * (see {@link org.spindrift.shared.Coordinates}).
      *

@@ -61,13 +61,27 @@ public final class RunArchive implements AutoCloseable {
         JsonNode m;
         try {
             m = new ObjectMapper().readTree(mf.toFile());
+        } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
+            // one line, without the parser's source excerpt
+            String msg = e.getOriginalMessage() == null ? "syntax error" : e.getOriginalMessage().lines().findFirst()
+                    .orElse("syntax error");
+            int line = e.getLocation() == null ? -1 : e.getLocation().getLineNr();
+            throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + " is not valid JSON"
+                    + (line > 0 ? " at line " + line : "") + ": " + msg);
         } catch (IOException e) {
-            throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + " is not valid JSON: "
-                    + e.getMessage());
+            throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + " cannot be read ("
+                    + e.getMessage() + ")");
         }
-        if (m == null || !ArchiveLayout.FORMAT.equals(m.path("format").asText())) {
+        if (m == null || !m.isObject()) {
+            throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + " is not a JSON object");
+        }
+        if (!ArchiveLayout.FORMAT.equals(m.path("format").asText())) {
             throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + ": key 'format' is not '"
                     + ArchiveLayout.FORMAT + "'");
+        }
+        if (!m.path("format_version").isInt()) {
+            throw new UserInputException("run folder " + folder + ": " + typeProblem("format_version",
+                    m.path("format_version"), "a whole number"));
         }
         int v = m.path("format_version").asInt(-1);
         if (v != ArchiveLayout.FORMAT_VERSION) {
@@ -75,6 +89,74 @@ public final class RunArchive implements AutoCloseable {
                     + " is not supported (this reader knows " + ArchiveLayout.FORMAT_VERSION + ")");
         }
         return new RunArchive(folder, m);
+    }
+
+    /**
+     * Opens a run folder and verifies it ({@link ArchiveVerifier}): manifest types and ranges,
+     * optionally every file's SHA-256, that {@code snapshots.h5} belongs to the run, physical
+     * values, complete light files.
+     *
+     * @param checksums whether to compare every file with its SHA-256 (reads every byte)
+     */
+    public static RunArchive open(Path folder, boolean checksums) {
+        RunArchive a = open(folder);
+        try {
+            ArchiveVerifier.verify(a, checksums);
+            return a;
+        } catch (RuntimeException e) {
+            a.close();
+            if (e instanceof UserInputException) {
+                throw e;
+            }
+            throw a.problem(ArchiveLayout.SNAPSHOTS + " cannot be read (" + firstLine(e) + ")");
+        }
+    }
+
+    /** @return a one-line error about this run folder */
+    UserInputException problem(String what) {
+        return new UserInputException("run folder " + folder + ": " + what);
+    }
+
+    private static String firstLine(Throwable e) {
+        String m = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+        int i = m.indexOf('\n');
+        return i < 0 ? m : m.substring(0, i);
+    }
+
+    /** @return the node at a dotted key path such as {@code sources[1].kept} (missing node when absent) */
+    static JsonNode at(JsonNode root, String path) {
+        JsonNode n = root;
+        for (String part : path.split("\\.")) {
+            int b = part.indexOf('[');
+            n = n.path(b < 0 ? part : part.substring(0, b));
+            while (b >= 0) {
+                int e = part.indexOf(']', b);
+                n = n.path(Integer.parseInt(part.substring(b + 1, e)));
+                b = part.indexOf('[', e);
+            }
+        }
+        return n;
+    }
+
+    /** @return "manifest.json: key 'p' is missing" or "... must be WANT, got TYPE", telling the two apart */
+    static String typeProblem(String path, JsonNode v, String want) {
+        String where = ArchiveLayout.MANIFEST + ": key '" + path + "' ";
+        if (v == null || v.isMissingNode()) {
+            return where + "is missing";
+        }
+        String got = v.isNull() ? "null" : v.isTextual() ? "text '" + abbreviate(v.asText()) + "'" : v.isBoolean()
+                ? "true/false" : v.isArray() ? "a list" : v.isObject() ? "a mapping" : v.isNumber() ? "the number "
+                + v.asText() : v.getNodeType().toString().toLowerCase(java.util.Locale.ROOT);
+        return where + "must be " + want + ", got " + got;
+    }
+
+    private static String abbreviate(String s) {
+        return s.length() > 40 ? s.substring(0, 40) + "..." : s;
+    }
+
+    /** @return a root attribute of {@code snapshots.h5}, or null */
+    io.jhdf.api.Attribute hdfAttribute(String name) {
+        return hdf().getAttribute(name);
     }
 
     /** @return the folder */
@@ -107,9 +189,9 @@ public final class RunArchive implements AutoCloseable {
         return manifest.path("black_hole").path("mass_solar").asDouble(Double.NaN);
     }
 
-    /** @return the distance in kpc */
-    public double distanceKpc() {
-        return manifest.path("black_hole").path("distance_kpc").asDouble(Double.NaN);
+    /** @return the distance in Mpc (manifest black_hole.distance_Mpc) */
+    public double distanceMpc() {
+        return manifest.path("black_hole").path("distance_Mpc").asDouble(Double.NaN);
     }
 
     /** @return the spacetime family */
@@ -138,8 +220,8 @@ public final class RunArchive implements AutoCloseable {
     }
 
     /** @return micro-arcseconds subtended by 1 M at the distance */
-    public double mMicroarcsec() {
-        return manifest.path("units").path("M_microarcsec").asDouble(Double.NaN);
+    public double mUas() {
+        return manifest.path("units").path("M_uas").asDouble(Double.NaN);
     }
 
     /** @return inclination in degrees */
@@ -153,7 +235,7 @@ public final class RunArchive implements AutoCloseable {
     }
 
     /**
-     * @return the numeric landmarks (horizon, ISCO, Omega maximum, surface_radius, ...); a JSON null
+     * @return the numeric landmarks (horizon, ISCO, Omega maximum, capture_radius, ...); a JSON null
      *     (landmark absent, for example no horizon) reads as NaN
      */
     public Map<String, Double> landmarks() {
@@ -217,7 +299,8 @@ public final class RunArchive implements AutoCloseable {
                 throw new UserInputException("run folder " + folder + ": " + e.getKey() + " is listed in the manifest but missing");
             }
             if (!AtomicFiles.sha256(p).equals(e.getValue())) {
-                throw new UserInputException("run folder " + folder + ": " + e.getKey() + " does not match its sha256 in the manifest");
+                throw new UserInputException("run folder " + folder + ": " + e.getKey()
+                        + " does not match its sha256 in the manifest (changed or damaged since the run)");
             }
         }
     }
@@ -285,7 +368,9 @@ public final class RunArchive implements AutoCloseable {
 
     /** @return r of every kept particle at snapshot s */
     public double[] r(int s) {
-        return row2(ArchiveLayout.D_R, s);
+        double[] r = row2(ArchiveLayout.D_R, s);
+        ArchiveVerifier.checkSnapshot(this, s, r, null);
+        return r;
     }
 
     /** @return theta of every kept particle at snapshot s */
@@ -300,7 +385,9 @@ public final class RunArchive implements AutoCloseable {
 
     /** @return {x, y, z} arrays (each of length N) at snapshot s, M */
     public double[][] positions(int s) {
-        return new double[][] {row2(ArchiveLayout.D_X, s), row2(ArchiveLayout.D_Y, s), row2(ArchiveLayout.D_Z, s)};
+        double[][] xyz = {row2(ArchiveLayout.D_X, s), row2(ArchiveLayout.D_Y, s), row2(ArchiveLayout.D_Z, s)};
+        ArchiveVerifier.checkPositions(this, s, xyz);
+        return xyz;
     }
 
     /** @return 4-velocities u^mu at snapshot s, [N][4] (u^t, u^r, u^theta, u^phi) */
@@ -332,7 +419,9 @@ public final class RunArchive implements AutoCloseable {
 
     /** @return states at snapshot s (codes of {@link ArchiveLayout}) */
     public byte[] states(int s) {
-        return ((byte[][]) row(ArchiveLayout.D_STATE, s))[0];
+        byte[] st = ((byte[][]) row(ArchiveLayout.D_STATE, s))[0];
+        ArchiveVerifier.checkSnapshot(this, s, null, st);
+        return st;
     }
 
     /**

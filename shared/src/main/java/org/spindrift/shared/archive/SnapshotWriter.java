@@ -18,7 +18,7 @@ public final class SnapshotWriter {
     private final int[] sourceIndex;
     private final double spin;
     private final double massSolar;
-    private final double distanceKpc;
+    private final double distanceMpc;
     private final double[] time;
     private final double[][] r;
     private final double[][] theta;
@@ -39,10 +39,10 @@ public final class SnapshotWriter {
      * @param sources number of sources K
      * @param spin spin a, for the Cartesian coordinates and the root attribute
      * @param massSolar root attribute
-     * @param distanceKpc root attribute
+     * @param distanceMpc root attribute
      */
     public SnapshotWriter(int snapshots, int[] sourceIndex, int sources, double spin, double massSolar,
-            double distanceKpc) {
+            double distanceMpc) {
         this.capacity = snapshots;
         this.n = sourceIndex.length;
         this.k = sources;
@@ -54,7 +54,7 @@ public final class SnapshotWriter {
         }
         this.spin = spin;
         this.massSolar = massSolar;
-        this.distanceKpc = distanceKpc;
+        this.distanceMpc = distanceMpc;
         time = new double[snapshots];
         r = new double[snapshots][];
         theta = new double[snapshots][];
@@ -150,7 +150,7 @@ public final class SnapshotWriter {
                 f.putAttribute("format_version", ArchiveLayout.FORMAT_VERSION);
                 f.putAttribute("spin", spin);
                 f.putAttribute("mass_solar", massSolar);
-                f.putAttribute("distance_kpc", distanceKpc);
+                f.putAttribute("distance_Mpc", distanceMpc);
                 f.putDataset(ArchiveLayout.D_TIME, java.util.Arrays.copyOf(time, count));
                 f.putDataset(ArchiveLayout.D_SOURCE_INDEX, sourceIndex);
                 f.putDataset(ArchiveLayout.D_R, trim(r));

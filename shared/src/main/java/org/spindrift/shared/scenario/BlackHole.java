@@ -8,14 +8,15 @@ import java.util.TreeMap;
  * The central object.
  *
  * @param massSolar mass in solar masses
- * @param distanceKpc distance to the observer in kiloparsecs
+ * @param distanceMpc distance to the observer in megaparsecs (scenario key {@code distance}, a string
+ *     with a unit: Mpc, kpc or pc)
  * @param family spacetime family name, for example {@code kerr} (see {@code landmarks --help})
  * @param spin spin parameter a in units of M
  * @param parameters the family's extra parameters by name (for example {@code l} for Hayward,
  *     {@code q} for Kerr-Newman), unmodifiable, sorted by name
  * @param allowHorizonless whether a metric without an event horizon is accepted
  */
-public record BlackHole(double massSolar, double distanceKpc, String family, double spin,
+public record BlackHole(double massSolar, double distanceMpc, String family, double spin,
         Map<String, Double> parameters, boolean allowHorizonless) {
     public BlackHole {
         Objects.requireNonNull(family, "family");
@@ -24,6 +25,6 @@ public record BlackHole(double massSolar, double distanceKpc, String family, dou
 
     /** @return a copy with another spin */
     public BlackHole withSpin(double a) {
-        return new BlackHole(massSolar, distanceKpc, family, a, parameters, allowHorizonless);
+        return new BlackHole(massSolar, distanceMpc, family, a, parameters, allowHorizonless);
     }
 }

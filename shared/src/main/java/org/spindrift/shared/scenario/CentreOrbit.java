@@ -1,6 +1,6 @@
 package org.spindrift.shared.scenario;
 
-/** How the orbit of a source's centre is given (DESIGN section 5). */
+/** How the orbit of a source's centre is given: circular, by elements, or by a ZAMO-frame velocity. */
 public sealed interface CentreOrbit {
     /** @return the initial azimuth of the centre, degrees */
     double phiDeg();
@@ -47,7 +47,8 @@ public sealed interface CentreOrbit {
     }
 
     /**
-     * A position and a 3-velocity measured by the local zero-angular-momentum observer (any spacetime).
+     * A position and a 3-velocity measured by the zero-angular-momentum observer (ZAMO) there, any
+     * spacetime (scenario key {@code orbit.zamo_velocity}).
      *
      * @param radiusM r, M
      * @param thetaDeg polar angle theta, degrees (90 = equatorial plane)
@@ -56,7 +57,7 @@ public sealed interface CentreOrbit {
      * @param vTheta polar velocity in the ZAMO frame (along increasing theta), units of c
      * @param vPhi azimuthal velocity in the ZAMO frame, units of c
      */
-    record Local(double radiusM, double thetaDeg, double phiDeg, double vR, double vTheta, double vPhi)
+    record ZamoVelocity(double radiusM, double thetaDeg, double phiDeg, double vR, double vTheta, double vPhi)
             implements CentreOrbit {
     }
 }

@@ -2,7 +2,7 @@ package org.spindrift.shared.scenario;
 
 /**
  * A flare envelope f(t) multiplying a source's emission weight, in emitter (coordinate) time
- * (DESIGN section 6). Peak value 1.
+ * (Boyer-Lindquist coordinate time t, not the gas's proper time). Peak value 1.
  */
 public sealed interface Flare {
     /** Constant emission, f = 1. */
@@ -19,12 +19,12 @@ public sealed interface Flare {
     }
 
     /**
-     * Exponential rise and decay: f = exp((t - start)/rise) before start, exp(-(t - start)/decay) after.
+     * Exponential rise and decay: f = exp((t - peak)/rise) before the peak, exp(-(t - peak)/decay) after.
      *
-     * @param start time of the maximum
+     * @param peak time of the maximum
      * @param rise e-folding time of the rise
      * @param decay e-folding time of the decay
      */
-    record Exponential(TimeSpan start, TimeSpan rise, TimeSpan decay) implements Flare {
+    record Exponential(TimeSpan peak, TimeSpan rise, TimeSpan decay) implements Flare {
     }
 }

@@ -1,19 +1,27 @@
 package org.spindrift.shared.scenario;
 
+import org.spindrift.shared.colour.ColourRamp;
+
 /**
- * The camera of the light stage (DESIGN section 7). All keys optional in a scenario.
+ * The camera of the light stage. All keys optional in a scenario.
  *
  * @param fieldOfViewM full width of the square field of view on the screen, M
  * @param pixels pixels per side
  * @param frameCadence interval between image frames in observer time (minutes or M); null means
  *     the snapshot cadence
  * @param lensing true: ray-traced null geodesics; false: straight lines (delays kept), for comparison
+ * @param skyColours colour ramp of the image plots ({@link ColourRamp#SKY} or {@link ColourRamp#GREY})
  */
-public record Imaging(double fieldOfViewM, int pixels, TimeSpan frameCadence, boolean lensing) {
+public record Imaging(double fieldOfViewM, int pixels, TimeSpan frameCadence, boolean lensing, ColourRamp skyColours) {
     /** Default field of view, M. */
     public static final double DEFAULT_FIELD_OF_VIEW_M = 30.0;
     /** Default pixels per side. */
     public static final int DEFAULT_PIXELS = 96;
+
+    /** Imaging with the default sky colours. */
+    public Imaging(double fieldOfViewM, int pixels, TimeSpan frameCadence, boolean lensing) {
+        this(fieldOfViewM, pixels, frameCadence, lensing, ColourRamp.SKY);
+    }
 
     /** @return the defaults used when a scenario has no {@code imaging} section */
     public static Imaging defaults() {

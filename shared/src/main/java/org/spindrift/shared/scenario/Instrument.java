@@ -1,7 +1,7 @@
 package org.spindrift.shared.scenario;
 
 /**
- * Instrument effects applied to the light outputs (DESIGN section 7). All keys optional.
+ * Instrument effects applied to the light outputs. All keys optional.
  *
  * @param beamFwhmUas full width at half maximum of the Gaussian beam, micro-arcseconds (0: no beam)
  * @param steadySourceFluxRatio flux of a steady point source at the black hole, relative to the

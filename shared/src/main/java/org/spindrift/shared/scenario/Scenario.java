@@ -15,9 +15,10 @@ import java.util.Objects;
  * @param run duration, cadence, seed, tolerance, archive subsample
  * @param imaging camera settings (defaults when absent)
  * @param instrument instrument effects (defaults when absent)
+ * @param interferometer interferometric array observing the flare (null: none)
  */
 public record Scenario(String name, String description, BlackHole blackHole, Observer observer,
-        List<Source> sources, RunSettings run, Imaging imaging, Instrument instrument) {
+        List<Source> sources, RunSettings run, Imaging imaging, Instrument instrument, Interferometer interferometer) {
     public Scenario {
         Objects.requireNonNull(name, "name");
         description = description == null ? "" : description;
@@ -27,6 +28,12 @@ public record Scenario(String name, String description, BlackHole blackHole, Obs
         Objects.requireNonNull(run, "run");
         imaging = imaging == null ? Imaging.defaults() : imaging;
         instrument = instrument == null ? Instrument.defaults() : instrument;
+    }
+
+    /** A scenario without an interferometer. */
+    public Scenario(String name, String description, BlackHole blackHole, Observer observer,
+            List<Source> sources, RunSettings run, Imaging imaging, Instrument instrument) {
+        this(name, description, blackHole, observer, sources, run, imaging, instrument, null);
     }
 
     /** @return total number of simulated particles */
@@ -40,16 +47,16 @@ public record Scenario(String name, String description, BlackHole blackHole, Obs
 
     /** @return a copy with other sources */
     public Scenario withSources(List<Source> s) {
-        return new Scenario(name, description, blackHole, observer, s, run, imaging, instrument);
+        return new Scenario(name, description, blackHole, observer, s, run, imaging, instrument, interferometer);
     }
 
     /** @return a copy with other run settings */
     public Scenario withRun(RunSettings r) {
-        return new Scenario(name, description, blackHole, observer, sources, r, imaging, instrument);
+        return new Scenario(name, description, blackHole, observer, sources, r, imaging, instrument, interferometer);
     }
 
     /** @return a copy with another black hole */
     public Scenario withBlackHole(BlackHole b) {
-        return new Scenario(name, description, b, observer, sources, run, imaging, instrument);
+        return new Scenario(name, description, b, observer, sources, run, imaging, instrument, interferometer);
     }
 }

@@ -22,7 +22,7 @@ public final class ScenarioJson {
         BlackHole b = s.blackHole();
         ObjectNode bh = o.putObject("black_hole");
         bh.put("mass_solar", b.massSolar());
-        bh.put("distance_kpc", b.distanceKpc());
+        bh.put("distance", distance(b.distanceMpc()));
         bh.put("family", b.family());
         bh.put("spin", b.spin());
         ObjectNode par = bh.putObject("parameters");
@@ -53,12 +53,43 @@ public final class ScenarioJson {
             img.put("frame_cadence", im.frameCadence().toString());
         }
         img.put("lensing", im.lensing());
+        img.put("sky_colours", im.skyColours().key());
         Instrument in = s.instrument();
         o.putObject("instrument").put("beam_fwhm_uas", in.beamFwhmUas())
                 .put("steady_source_flux_ratio", in.steadySourceFluxRatio())
                 .put("astrometric_noise_uas", in.astrometricNoiseUas())
                 .put("noise_cadence_min", in.noiseCadenceMin());
+        if (s.interferometer() != null) {
+            o.set("interferometer", interferometer(s.interferometer()));
+        }
         return o;
+    }
+
+    /** The interferometer with its stations written inline (so the echo needs no array file). */
+    private static ObjectNode interferometer(Interferometer a) {
+        ObjectNode o = JsonNodeFactory.instance.objectNode();
+        var st = o.putArray("stations");
+        for (Interferometer.Station s : a.stations()) {
+            st.addObject().put("name", s.name()).put("x_m", s.xM()).put("y_m", s.yM()).put("z_m", s.zM())
+                    .put("sefd_jy", s.sefdJy()).put("elevation_limit_deg", s.elevationLimitDeg());
+        }
+        o.put("frequency_ghz", a.frequencyGhz());
+        o.put("bandwidth_ghz", a.bandwidthGhz());
+        o.put("right_ascension_deg", a.rightAscensionDeg());
+        o.put("declination_deg", a.declinationDeg());
+        o.put("start_sidereal_time_h", a.startSiderealTimeH());
+        o.put("scan_length", a.scanLength().toString());
+        o.put("scan_cadence", a.scanCadence().toString());
+        o.put("integration_s", a.integrationS());
+        o.put("peak_flux_jy", a.peakFluxJy());
+        o.put("gain_error", a.gainError());
+        o.put("phase_error_deg", a.phaseErrorDeg());
+        return o;
+    }
+
+    /** @return a distance in Mpc as the scenario-file string, for example {@code "40.0 Mpc"} (exact repr) */
+    public static String distance(double mpc) {
+        return Double.toString(mpc) + " Mpc";
     }
 
     private static String lower(Enum<?> e) {
@@ -85,8 +116,8 @@ public final class ScenarioJson {
             orb.putObject("elements").put("p_M", e.semiLatusRectumM()).put("e", e.eccentricity())
                     .put("inclination_deg", e.inclinationDeg()).put("sense", lower(e.sense()))
                     .put("start", lower(e.start())).put("phi_deg", e.phiDeg());
-        } else if (s.orbit() instanceof CentreOrbit.Local l) {
-            orb.putObject("local").put("r_M", l.radiusM()).put("theta_deg", l.thetaDeg()).put("phi_deg", l.phiDeg())
+        } else if (s.orbit() instanceof CentreOrbit.ZamoVelocity l) {
+            orb.putObject("zamo_velocity").put("r_M", l.radiusM()).put("theta_deg", l.thetaDeg()).put("phi_deg", l.phiDeg())
                     .put("v_r", l.vR()).put("v_theta", l.vTheta()).put("v_phi", l.vPhi());
         }
         ObjectNode v = o.putObject("velocity").put("model", lower(s.velocity().kind()));
@@ -101,7 +132,7 @@ public final class ScenarioJson {
         } else if (em.flare() instanceof Flare.Gaussian g) {
             f.put("kind", "gaussian").put("peak", g.peak().toString()).put("width", g.width().toString());
         } else if (em.flare() instanceof Flare.Exponential x) {
-            f.put("kind", "exponential").put("start", x.start().toString()).put("rise", x.rise().toString())
+            f.put("kind", "exponential").put("peak", x.peak().toString()).put("rise", x.rise().toString())
                     .put("decay", x.decay().toString());
         }
         return o;

@@ -4,7 +4,7 @@ import java.util.Locale;
 import java.util.Objects;
 
 /**
- * One source of emitting gas: a set of test particles about a centre on an orbit (DESIGN section 6).
+ * One source of emitting gas: a set of test particles about a centre on an orbit.
  *
  * @param name unique name within the scenario
  * @param kind hot spot, cloud or ring

@@ -3,7 +3,7 @@ package org.spindrift.shared.scenario;
 import java.util.Objects;
 
 /**
- * How member particles move relative to the centre at the start (DESIGN section 6).
+ * How member particles move relative to the centre at the start.
  *
  * @param kind rigid, shear or thermal
  * @param dispersion one-dimensional velocity dispersion in the comoving frame, units of c

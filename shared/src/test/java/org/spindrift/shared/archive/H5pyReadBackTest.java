@@ -27,7 +27,7 @@ class H5pyReadBackTest {
         String py = ExternalPython.require("h5py, numpy", "python3-h5py");
         int s = 2;
         int n = 3;
-        SnapshotWriter w = new SnapshotWriter(s, new int[] {0, 1, 1}, 2, 0.5, 6.5e6, 12.0);
+        SnapshotWriter w = new SnapshotWriter(s, new int[] {0, 1, 1}, 2, 0.5, 1.0e6, 1.0e-3);
         for (int k = 0; k < s; k++) {
             double[] r = {6 + k, 7 + k, 8 + k};
             double[] th = {1.5, 1.6, 1.4};
@@ -55,7 +55,7 @@ class H5pyReadBackTest {
         assertEquals("(2, 3) (2, 3, 4) (2, 2, 3)", lines[1]);
         assertEquals("float64 float32 int8 int32", lines[2]);
         assertEquals("9.0 -0.02 0.125 1 7.0", lines[3]);
-        // x recomputed by numpy from r, theta, phi with the DESIGN section 3 formula
+        // x recomputed by numpy from r, theta, phi with x = sqrt(r^2 + a^2) sin(theta) cos(phi)
         assertTrue(Double.parseDouble(lines[4]) < 1e-12, lines[4]);
         assertEquals("0.5 1", lines[5]);
         assertTrue(Files.size(file) > 0);

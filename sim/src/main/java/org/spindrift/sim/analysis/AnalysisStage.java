@@ -16,7 +16,7 @@ import org.spindrift.sim.scenario.SourceSetup;
 
 /**
  * Periods and shear shapes of a run: writes {@code periods.csv} (one row per particle) and
- * {@code shear.csv} (one row per source and snapshot), and adds per-source medians, spreads and
+ * {@code shear.csv} (one row per source and snapshot), and adds per-source medians, half 16-84 % ranges and
  * the metric's predictions to the summary. The results are handed to the plots as products
  * {@link #PERIODS} and {@link #SHAPES}.
  */
@@ -62,13 +62,13 @@ public final class AnalysisStage implements RunStage {
 
     static String shearCsv(Scenario sc, List<ShearShape> shapes, double spm) {
         StringBuilder b = new StringBuilder(200 * shapes.size() + 300);
-        b.append("source,snapshot,time_M,time_min,alive,com_x_M,com_y_M,com_z_M,com_r_M,major_M,minor_M,aspect_ratio,"
+        b.append("source,snapshot,time_M,time_min,alive,centre_x_M,centre_y_M,centre_z_M,centre_r_M,major_M,minor_M,aspect_ratio,"
                 + "orientation_deg,azimuthal_extent_deg,stationary_radius_M,inner_arm_M,outer_arm_M\n");
         for (ShearShape s : shapes) {
             b.append(sc.sources().get(s.source()).name()).append(',').append(s.snapshot()).append(',')
                     .append(f(s.time())).append(',').append(f(s.time() * spm / 60)).append(',').append(s.alive())
-                    .append(',').append(f(s.comX())).append(',').append(f(s.comY())).append(',').append(f(s.comZ()))
-                    .append(',').append(f(s.comR())).append(',').append(f(s.major())).append(',')
+                    .append(',').append(f(s.centreX())).append(',').append(f(s.centreY())).append(',').append(f(s.centreZ()))
+                    .append(',').append(f(s.centreR())).append(',').append(f(s.major())).append(',')
                     .append(f(s.minor())).append(',').append(f(s.aspectRatio())).append(',')
                     .append(f(s.orientationDeg())).append(',').append(f(s.azimuthalExtentDeg())).append(',')
                     .append(f(s.lag().stationaryRadius())).append(',').append(f(s.lag().innerArm())).append(',')
@@ -91,7 +91,7 @@ public final class AnalysisStage implements RunStage {
         if (o instanceof CentreOrbit.Elements e) {
             return e.semiLatusRectumM();
         }
-        return ((CentreOrbit.Local) o).radiusM();
+        return ((CentreOrbit.ZamoVelocity) o).radiusM();
     }
 
     private static void summary(RunContext ctx, ParticlePeriods p, List<ShearShape> shapes) {
@@ -130,10 +130,10 @@ public final class AnalysisStage implements RunStage {
             for (int i = 0; i < adv.length; i++) {
                 adv[i] = Math.toDegrees(adv[i]);
             }
-            double[] ms = Stats.medianSpread(adv, adv.length);
+            double[] ms = Stats.medianHalfRange(adv, adv.length);
             ObjectNode a = per.putObject("periastron_advance_deg");
             put(a, "median", ms[0]);
-            put(a, "spread", ms[1]);
+            put(a, "half_range_16_84", ms[1]);
             a.put("measured", (int) ms[2]);
             put(a, "predicted", Math.toDegrees(pred.advance()));
             ShearShape last = shapes.get(k * s + s - 1);
@@ -179,10 +179,10 @@ public final class AnalysisStage implements RunStage {
     }
 
     private static void period(ObjectNode per, String key, double[] v, double predicted, double spm) {
-        double[] ms = Stats.medianSpread(v, v.length);
+        double[] ms = Stats.medianHalfRange(v, v.length);
         ObjectNode o = per.putObject(key);
         put(o, "median_M", ms[0]);
-        put(o, "spread_M", ms[1]);
+        put(o, "half_range_16_84_M", ms[1]);
         put(o, "median_min", ms[0] * spm / 60);
         o.put("measured", (int) ms[2]);
         put(o, "predicted_M", predicted);

@@ -2,10 +2,11 @@ package org.spindrift.sim.analysis;
 
 /**
  * Azimuthal-lag profile of a source at one time: members binned in r, and per bin the lag
- * dphi(r) = phi_centre - phi_mean(r) (radians), positive where the gas trails the centre, with
- * phi_centre the median azimuth of the alive members. With this sign, kinematic shear gives
- * dphi(r, t) ~ -(Omega(r) - Omega(r_c)) t at early times (issue 4); note DESIGN section 8 writes
- * the difference the other way round.
+ * dphi(r) = phi_centre - phi_mean(r) (radians), with phi_centre the median azimuth of the alive
+ * members. One sign convention throughout: the lag is how far the gas is behind the centre in
+ * the +phi direction, so for prograde orbits (which move towards +phi) it is positive where the
+ * gas trails. Kinematic shear then gives dphi(r, t) = (Omega(r_c) - Omega(r)) t at early times,
+ * for either sense of motion.
  *
  * <p>Near a maximum of Omega(r) the gas there leads and the lag has a minimum, stationary in r:
  * the two arms (inside and outside) both trail and open into a V. {@link #stationaryRadius} is

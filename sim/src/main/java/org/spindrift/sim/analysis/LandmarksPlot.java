@@ -186,7 +186,7 @@ public final class LandmarksPlot {
     private static List<Mark> marks(Landmarks l) {
         List<Mark> m = new ArrayList<>();
         add(m, "horizon", l.horizonOuter(), Color.BLACK);
-        add(m, "surface", l.surfaceRadius(), Color.DARK_GRAY);
+        add(m, "surface (capture radius)", l.hasHorizon() ? Double.NaN : l.captureRadius(), Color.DARK_GRAY);
         add(m, "ergosurface (equator)", l.ergosurfaceEquator(), new Color(120, 120, 120));
         add(m, "photon orbit, prograde", l.photonOrbit(true), new Color(140, 60, 170));
         add(m, "marginally bound, prograde", l.marginallyBoundPrograde(), new Color(30, 150, 140));

@@ -18,7 +18,7 @@ import org.spindrift.sim.motion.OrbitMeasurement;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * PNG of one orbit in its initial plane: Cartesian positions (DESIGN section 3:
+ * PNG of one orbit in its initial plane: Cartesian positions (display map
  * x = sqrt(r^2+a^2) sin(theta) cos(phi), ...) projected on the plane spanned by the direction
  * to the first periapsis and the initial direction of motion; periapsis passages marked.
  */

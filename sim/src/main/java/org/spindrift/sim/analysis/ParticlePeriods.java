@@ -4,7 +4,7 @@ import org.spindrift.sim.motion.TurningPoints;
 import org.spindrift.sim.run.ParticleHistory;
 
 /**
- * Orbital periods of each particle from its sampled trajectory (DESIGN section 8), in
+ * Orbital periods of each particle from its sampled trajectory, in
  * coordinate time (M):
  * <ul>
  *   <li>radial period T_r: mean interval between successive periapsis passages, the minima of

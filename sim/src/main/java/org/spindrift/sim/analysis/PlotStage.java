@@ -3,8 +3,6 @@ package org.spindrift.sim.analysis;
 import java.awt.BasicStroke;
 import java.awt.Color;
 import java.io.IOException;
-import java.io.OutputStream;
-import java.nio.file.Files;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -17,9 +15,11 @@ import org.knowm.xchart.internal.chartpart.Chart;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.shared.Coordinates;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.sim.run.ParticleHistory;
 import org.spindrift.sim.run.RunContext;
+import org.spindrift.sim.run.RunNotes;
 import org.spindrift.sim.run.RunStage;
 import org.spindrift.sim.run.SnapshotStage;
 
@@ -36,9 +36,14 @@ import org.spindrift.sim.run.SnapshotStage;
  * </ul>
  */
 public final class PlotStage implements RunStage {
-    /** Colours from dark blue through teal and green to yellow (perceptually ordered; after matplotlib's viridis). */
-    static final Color[] RAMP = {new Color(68, 1, 84), new Color(65, 68, 135), new Color(42, 120, 142),
-        new Color(34, 168, 132), new Color(122, 209, 81), new Color(253, 231, 37)};
+    /** Six ordered colours from the project's sequential ramp (up to 0.8 of it: visible on white). */
+    static final Color[] RAMP = new Color[6];
+
+    static {
+        for (int i = 0; i < RAMP.length; i++) {
+            RAMP[i] = new Color(ColourRamp.SKY.rgb(0.8 * i / (RAMP.length - 1)));
+        }
+    }
     /** Distinct colours for lines (times, sources). */
     static final Color[] LINES = {new Color(31, 119, 180), new Color(255, 127, 14), new Color(44, 160, 44),
         new Color(214, 39, 40), new Color(148, 103, 189), new Color(140, 86, 75), new Color(23, 190, 207)};
@@ -57,32 +62,49 @@ public final class PlotStage implements RunStage {
         if (shapes == null || periods == null) {
             throw new IllegalStateException("the plots need the analysis stage first");
         }
-        save(ctx, "plots/positions.png", positions(ctx), 2, 2);
-        save(ctx, "plots/shape.png", List.of(shape(ctx, shapes)), 1, 1);
-        save(ctx, "plots/lag.png", lag(ctx, shapes), 1, ctx.scenario().sources().size());
-        save(ctx, "plots/periods.png", periods(ctx, periods), 1, 2);
+        // each plot on its own: one that cannot be drawn is recorded, the others and the data stay
+        RunNotes.Guard guard = RunNotes.guard(ctx);
+        guard.draw("plots/positions.png", () -> save(ctx, "plots/positions.png", positions(ctx), 2, 2));
+        guard.draw("plots/shape.png", () -> save(ctx, "plots/shape.png", List.of(shape(ctx, shapes)), 1, 1));
+        guard.draw("plots/lag.png", () -> save(ctx, "plots/lag.png", lag(ctx, shapes), 1,
+                ctx.scenario().sources().size()));
+        guard.draw("plots/periods.png", () -> save(ctx, "plots/periods.png", periods(ctx, periods), 1, 2));
     }
 
     private static void save(RunContext ctx, String name, List<? extends Chart<?, ?>> charts, int rows, int cols)
             throws IOException {
-        ctx.archive().write(name, tmp -> {
-            try (OutputStream out = Files.newOutputStream(tmp)) {
-                if (charts.size() == 1) {
-                    BitmapEncoder.saveBitmap(charts.get(0), out, BitmapEncoder.BitmapFormat.PNG);
-                } else {
-                    BitmapEncoder.saveBitmap(new ArrayList<>(charts), rows, cols, out, BitmapEncoder.BitmapFormat.PNG);
-                }
+        ctx.archive().writeStream(name, out -> {
+            if (charts.size() == 1) {
+                BitmapEncoder.saveBitmap(charts.get(0), out, BitmapEncoder.BitmapFormat.PNG);
+            } else {
+                BitmapEncoder.saveBitmap(new ArrayList<>(charts), rows, cols, out, BitmapEncoder.BitmapFormat.PNG);
             }
         });
         if (charts.size() == 1) {
-            // a vector twin where XChart offers one (single-panel charts; DESIGN section 8)
-            ctx.archive().write(name.replaceFirst("\\.png$", ".svg"), tmp -> {
-                try (OutputStream out = Files.newOutputStream(tmp)) {
-                    VectorGraphicsEncoder.saveVectorGraphic(charts.get(0), out,
-                            VectorGraphicsEncoder.VectorGraphicsFormat.SVG);
-                }
-            });
+            // a vector twin where XChart offers one (single-panel charts)
+            ctx.archive().writeStream(name.replaceFirst("\\.png$", ".svg"), out -> VectorGraphicsEncoder
+                    .saveVectorGraphic(charts.get(0), out, VectorGraphicsEncoder.VectorGraphicsFormat.SVG));
         }
+    }
+
+    /**
+     * Adds a series under a name no other series of the chart has (XChart refuses a repeated
+     * name; degenerate data such as equal class edges or equal times can give repeated labels).
+     */
+    static XYSeries add(XYChart c, String name, List<? extends Number> x, List<? extends Number> y) {
+        return c.addSeries(unique(c, name), x, y);
+    }
+
+    static XYSeries add(XYChart c, String name, double[] x, double[] y) {
+        return c.addSeries(unique(c, name), x, y);
+    }
+
+    private static String unique(XYChart c, String name) {
+        String n = name;
+        for (int k = 2; c.getSeriesMap().containsKey(n); k++) {
+            n = name + " (" + k + ")";
+        }
+        return n;
     }
 
     private static XYChart chart(int w, int h, String title, String x, String y) {
@@ -114,7 +136,7 @@ public final class PlotStage implements RunStage {
             x[j] = radius * Math.cos(a);
             y[j] = radius * Math.sin(a);
         }
-        XYSeries s = c.addSeries(name, x, y);
+        XYSeries s = add(c, name, x, y);
         s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
         s.setMarker(SeriesMarkers.NONE);
         s.setLineColor(color);
@@ -150,7 +172,7 @@ public final class PlotStage implements RunStage {
         double[] e1 = new double[3];
         double[] e2 = new double[3];
         if (Math.abs(nrm[2]) > 0.999) {
-            // equatorial: keep the x, y axes of DESIGN section 3
+            // equatorial: keep the display x, y axes
             e1 = new double[] {1, 0, 0};
             e2 = new double[] {0, Math.signum(nrm[2]), 0};
         } else {
@@ -169,14 +191,14 @@ public final class PlotStage implements RunStage {
             }
         }
         double[] sortedR = Stats.finiteSorted(allR, na);
-        int nb = RAMP.length;
-        double[] edges = new double[nb + 1];
-        for (int b = 0; b <= nb; b++) {
-            edges[b] = Stats.quantile(sortedR, (double) b / nb);
-        }
+        double[] edges = classEdges(sortedR, RAMP.length);
+        int nb = Math.max(0, edges.length - 1);
+        String[] labels = classLabels(edges);
         extent = Math.max(extent * 1.08, 1.3 * ctx.landmark("isco_prograde"));
-        if (!Double.isFinite(extent)) {
-            extent = 1.1 * sortedR[sortedR.length - 1];
+        if (!(extent > 0) || !Double.isFinite(extent)) {
+            // no ISCO and no particle left: a field a few capture radii wide
+            extent = sortedR.length > 0 ? 1.1 * sortedR[sortedR.length - 1]
+                    : Math.max(10.0, 3 * ctx.landmark("capture_radius"));
         }
         List<XYChart> charts = new ArrayList<>();
         int[] at = {0, (s - 1) / 3, 2 * (s - 1) / 3, s - 1};
@@ -211,20 +233,24 @@ public final class PlotStage implements RunStage {
                 ys.get(b).add(ShearAnalysis.dot(xyz, e2));
             }
             for (int b = 0; b < nb; b++) {
-                String label = b == 0 ? "r < " + fmt(edges[1]) + " M"
-                        : b == nb - 1 ? "r > " + fmt(edges[nb - 1]) + " M"
-                        : "r " + fmt(edges[b]) + " - " + fmt(edges[b + 1]) + " M";
                 if (xs.get(b).isEmpty()) {
                     xs.get(b).add(Double.NaN);
                     ys.get(b).add(Double.NaN);
                 }
-                XYSeries ser = c.addSeries(label, xs.get(b), ys.get(b));
+                XYSeries ser = add(c, labels[b], xs.get(b), ys.get(b));
                 ser.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
                 ser.setMarker(SeriesMarkers.CIRCLE);
-                ser.setMarkerColor(RAMP[b]);
+                ser.setMarkerColor(RAMP[nb == 1 ? RAMP.length / 2 : (int) Math.round(b * (RAMP.length - 1.0) / (nb - 1))]);
             }
-            double cap = captureRadius(ctx);
-            circle(c, (Double.isFinite(ctx.landmark("horizon_outer")) ? "horizon " : "surface ") + fmt(cap) + " M", cap,
+            if (nb == 0) {
+                XYSeries none = add(c, "no particle left (all captured or escaped)", new double[] {Double.NaN},
+                        new double[] {Double.NaN});
+                none.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+                none.setMarker(SeriesMarkers.NONE);
+            }
+            double rh = ctx.landmark("horizon_outer");
+            double inner = Double.isFinite(rh) ? rh : ctx.landmark("capture_radius");
+            circle(c, (Double.isFinite(rh) ? "horizon " : "surface (capture radius) ") + fmt(inner) + " M", inner,
                     Color.BLACK, false);
             circle(c, "ISCO " + fmt(ctx.landmark("isco_prograde")) + " M", ctx.landmark("isco_prograde"), Color.GRAY, true);
             circle(c, "Omega max " + fmt(ctx.landmark("omega_max_radius")) + " M", ctx.landmark("omega_max_radius"),
@@ -234,9 +260,67 @@ public final class PlotStage implements RunStage {
         return charts;
     }
 
-    private static double captureRadius(RunContext ctx) {
-        double h = ctx.landmark("horizon_outer");
-        return Double.isFinite(h) ? h : ctx.landmark("surface_radius");
+    /**
+     * Edges of the colour classes of r: quantiles at equal steps of probability, with equal edges
+     * merged, so a compact spot, a thin ring or a single particle give fewer (at least one)
+     * classes; none when there is no value.
+     *
+     * @return ascending edges, classes = length - 1 (a single class of one value has two equal edges)
+     */
+    static double[] classEdges(double[] sorted, int classes) {
+        if (sorted.length == 0) {
+            return new double[0];
+        }
+        double[] e = new double[classes + 1];
+        int m = 0;
+        for (int b = 0; b <= classes; b++) {
+            double q = Stats.quantile(sorted, (double) b / classes);
+            if (m == 0 || q > e[m - 1]) {
+                e[m++] = q;
+            }
+        }
+        if (m == 1) {
+            return new double[] {e[0], e[0]};
+        }
+        return java.util.Arrays.copyOf(e, m);
+    }
+
+    /** @return one label per class, with as many decimals as it takes to tell the edges apart (at most 6) */
+    static String[] classLabels(double[] edges) {
+        int nb = Math.max(0, edges.length - 1);
+        String[] out = new String[nb];
+        if (nb == 0) {
+            return out;
+        }
+        if (nb == 1) {
+            out[0] = edges[0] == edges[1] ? "r = " + decimals(edges[0], 2) + " M"
+                    : "r " + decimals(edges[0], 2) + " - " + decimals(edges[1], 2) + " M";
+            return out;
+        }
+        int d = 2;
+        while (d < 6 && !distinct(edges, d)) {
+            d++;
+        }
+        for (int b = 0; b < nb; b++) {
+            out[b] = b == 0 ? "r < " + decimals(edges[1], d) + " M"
+                    : b == nb - 1 ? "r > " + decimals(edges[nb - 1], d) + " M"
+                    : "r " + decimals(edges[b], d) + " - " + decimals(edges[b + 1], d) + " M";
+        }
+        return out;
+    }
+
+    private static boolean distinct(double[] edges, int d) {
+        java.util.Set<String> seen = new java.util.HashSet<>();
+        for (double e : edges) {
+            if (!seen.add(decimals(e, d))) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    private static String decimals(double v, int d) {
+        return String.format(Locale.ROOT, "%." + d + "f", v);
     }
 
     private static XYChart shape(RunContext ctx, List<ShearShape> shapes) {
@@ -260,11 +344,11 @@ public final class PlotStage implements RunStage {
             }
             String name = ctx.scenario().sources().get(src).name();
             Color col = LINES[src % LINES.length];
-            XYSeries a = c.addSeries(name + ": aspect ratio (left axis)", t, ar);
+            XYSeries a = add(c, name + ": aspect ratio (left axis)", t, ar);
             a.setMarker(SeriesMarkers.NONE);
             a.setLineColor(col);
             a.setLineStyle(new BasicStroke(2f));
-            XYSeries e = c.addSeries(name + ": azimuthal extent (right axis)", t, ext);
+            XYSeries e = add(c, name + ": azimuthal extent (right axis)", t, ext);
             e.setMarker(SeriesMarkers.NONE);
             e.setLineColor(LINES[(src + 1) % LINES.length]);
             e.setLineStyle(new BasicStroke(2f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f, new float[] {7f, 4f}, 0f));
@@ -304,14 +388,14 @@ public final class PlotStage implements RunStage {
                     rlo = Math.min(rlo, lp.r()[b]);
                     rhi = Math.max(rhi, lp.r()[b]);
                 }
-                XYSeries ser = c.addSeries(String.format(Locale.ROOT, "t = %.1f min", h.time(q) * spm / 60), lp.r(), deg);
+                XYSeries ser = add(c, String.format(Locale.ROOT, "t = %.1f min", h.time(q) * spm / 60), lp.r(), deg);
                 ser.setMarker(SeriesMarkers.CIRCLE);
                 ser.setMarkerColor(LINES[line % LINES.length]);
                 ser.setLineColor(LINES[line % LINES.length]);
                 line++;
             }
             if (line == 0) {
-                c.addSeries("too few particles for a profile", new double[] {0}, new double[] {0});
+                add(c, "too few particles for a profile", new double[] {0}, new double[] {0});
             } else {
                 double pad = 0.05 * Math.max(1e-6, hi - lo);
                 if (omr > rlo - 0.5 * (rhi - rlo) && omr < rhi + 0.5 * (rhi - rlo)) {
@@ -327,7 +411,7 @@ public final class PlotStage implements RunStage {
     }
 
     private static void vline(XYChart c, String name, double x, double y0, double y1, Color col) {
-        XYSeries s = c.addSeries(name, new double[] {x, x}, new double[] {y0, y1});
+        XYSeries s = add(c, name, new double[] {x, x}, new double[] {y0, y1});
         s.setMarker(SeriesMarkers.NONE);
         s.setLineColor(col);
         s.setLineStyle(new BasicStroke(2f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f, new float[] {6f, 4f}, 0f));
@@ -382,7 +466,7 @@ public final class PlotStage implements RunStage {
                 y[j] = 2 * Math.PI / Math.abs(org.spindrift.sim.spacetime.CircularOrbits.omega(ctx.spacetime(), x[j], true))
                         * spm / 60;
             }
-            XYSeries curve = c.addSeries("metric: circular prograde orbit, 2 pi / Omega(r)", x, y);
+            XYSeries curve = add(c, "metric: circular prograde orbit, 2 pi / Omega(r)", x, y);
             curve.setMarker(SeriesMarkers.NONE);
             curve.setLineColor(new Color(120, 120, 120));
             curve.setLineStyle(new BasicStroke(5f));
@@ -391,7 +475,7 @@ public final class PlotStage implements RunStage {
             if (allX.get(k).isEmpty()) {
                 continue;
             }
-            XYSeries ser = c.addSeries(sc.sources().get(k).name() + " (measured, kept particles)", allX.get(k), allY.get(k));
+            XYSeries ser = add(c, sc.sources().get(k).name() + " (measured, kept particles)", allX.get(k), allY.get(k));
             ser.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
             ser.setMarker(SeriesMarkers.CIRCLE);
             ser.setMarkerColor(LINES[k % LINES.length]);
@@ -453,7 +537,7 @@ public final class PlotStage implements RunStage {
             for (int x : cnt) {
                 top = Math.max(top, x);
             }
-            XYSeries ser = c.addSeries(name + String.format(Locale.ROOT, " (%d measured)", vals.length), xs, ys);
+            XYSeries ser = add(c, name + String.format(Locale.ROOT, " (%d measured)", vals.length), xs, ys);
             ser.setMarker(SeriesMarkers.NONE);
             ser.setLineColor(col);
             ser.setLineStyle(new BasicStroke(2f));
@@ -465,7 +549,7 @@ public final class PlotStage implements RunStage {
             }
         }
         if (!any) {
-            XYSeries e = c.addSeries("no particle completed two turning points", new double[] {0, 1}, new double[] {0, 0});
+            XYSeries e = add(c, "no particle completed two turning points", new double[] {0, 1}, new double[] {0, 0});
             e.setMarker(SeriesMarkers.NONE);
             e.setLineColor(Color.LIGHT_GRAY);
         }

@@ -6,7 +6,7 @@ import org.spindrift.shared.Coordinates;
 import org.spindrift.sim.run.ParticleHistory;
 
 /**
- * Shear shapes of every source at every snapshot (DESIGN section 8): centre of mass, the
+ * Shear shapes of every source at every snapshot: centre of mass, the
  * second-moment tensor of the members' positions in the orbital plane, its axes, aspect ratio
  * and orientation against the radial direction, the azimuthal extent, and the lag profile
  * ({@link LagProfile}).

@@ -33,7 +33,7 @@ final class Stats {
     }
 
     /** @return median, and half of the 16-84 % range (one-sigma equivalent for a Gaussian) */
-    static double[] medianSpread(double[] v, int n) {
+    static double[] medianHalfRange(double[] v, int n) {
         double[] s = finiteSorted(v, n);
         return new double[] {quantile(s, 0.5), 0.5 * (quantile(s, 0.84) - quantile(s, 0.16)), s.length};
     }

@@ -18,6 +18,7 @@ import org.spindrift.sim.motion.OrbitSetup;
 import org.spindrift.sim.motion.ParticleBatch;
 import org.spindrift.sim.motion.ZamoFrame;
 import org.spindrift.sim.spacetime.CircularOrbits;
+import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 import org.spindrift.sim.spacetime.MassFunctions;
 import org.spindrift.sim.spacetime.Spacetime;
@@ -91,7 +92,7 @@ public final class BenchMotionCommand implements Callable<Integer> {
             times[k] = tEnd * (k + 1) / nSnap;
         }
         ParticleBatch initial = ball(st, particles, sigma, 20261201L);
-        BatchIntegrator.Config cfg = BatchIntegrator.Config.of(OrbitSetup.captureRadius(st))
+        BatchIntegrator.Config cfg = BatchIntegrator.Config.of(Landmarks.captureRadius(st))
                 .withTolerance(tolerance, tolerance);
         System.out.printf(Locale.ROOT, "bench motion: %d particles, sigma %.2f M, circular orbit r = %.1f M, a = %.2f,"
                 + " %.3g orbits (T = %.2f M), %d snapshots, tolerance %.1e, %d processors%n", particles, sigma, R0, A,

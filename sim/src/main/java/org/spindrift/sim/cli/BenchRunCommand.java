@@ -76,7 +76,9 @@ public final class BenchRunCommand implements Callable<Integer> {
         sc = sc.withSources(src).withRun(sc.run().withDuration(new TimeSpan(orbits, TimeSpan.Unit.ORBITS)));
         ScenarioRun.Prepared p = ScenarioRun.prepare(ls.with(sc));
         double setup = (System.nanoTime() - t0) * 1e-9;
-        Path out = keep != null ? keep : Files.createTempDirectory("spindrift-bench-");
+        // a run folder inside a fresh temporary folder, so its lock file goes with it
+        Path scratch = keep != null ? null : Files.createTempDirectory("spindrift-bench-");
+        Path out = keep != null ? keep : scratch.resolve("run");
         ScenarioRun.Outcome o;
         try {
             List<org.spindrift.sim.run.RunStage> stages = new java.util.ArrayList<>(ScenarioRun.stages());
@@ -84,7 +86,7 @@ public final class BenchRunCommand implements Callable<Integer> {
             o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, false), stages);
         } finally {
             if (keep == null) {
-                delete(out);
+                delete(scratch);
             }
         }
         double wall = (System.nanoTime() - t0) * 1e-9;

@@ -17,11 +17,19 @@ import picocli.CommandLine.Parameters;
  */
 @Command(name = "check", mixinStandardHelpOptions = true,
         description = {"Check a scenario file without running it: unknown or missing keys, wrong types,"
-                + " out-of-range values, orbits the metric does not allow.",
+                + " out-of-range values, orbits the metric does not allow, and every limit run enforces (image"
+                + " budget, snapshot count, memory). Warnings (one line each) go to stderr.",
             "Exit status 0 when the file is good, 2 with one message naming file, line and key otherwise."})
 public final class CheckCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "FILE", description = "Scenario file (YAML or JSON).")
     private Path file;
+
+    @picocli.CommandLine.Option(names = {"-o", "--output"}, paramLabel = "DIR",
+            description = "Also check that 'run -o DIR' could write this folder (nothing is created).")
+    private Path output;
+
+    @picocli.CommandLine.Option(names = "--overwrite", description = "With -o: as 'run --overwrite'.")
+    private boolean overwrite;
 
     @picocli.CommandLine.Spec
     private picocli.CommandLine.Model.CommandSpec spec;
@@ -30,19 +38,34 @@ public final class CheckCommand implements Callable<Integer> {
         return spec.commandLine().getOut();
     }
 
-    @Override public Integer call() {
+    @Override public Integer call() throws java.io.IOException {
         ScenarioRun.Prepared p = ScenarioRun.prepare(ScenarioLoader.load(file));
+        if (output != null) {
+            org.spindrift.shared.archive.RunArchiveWriter.checkUsable(output, overwrite);
+        }
+        for (String w : p.warnings()) {
+            System.err.println("spindrift: warning: " + w);
+        }
         Scenario sc = p.loaded().scenario();
         double spm = p.secondsPerM();
         out().printf(Locale.ROOT, "%s: ok: scenario '%s', %s a = %s, %d source(s), %d particles%n", file, sc.name(),
                 sc.blackHole().family(), fmt(sc.blackHole().spin()), sc.sources().size(), sc.totalParticles());
-        out().printf(Locale.ROOT, "  1 M = %.4g s = %.4g micro-arcsec; duration %.1f M = %.1f min, %d snapshots%n",
-                spm, p.microarcsecPerM(), p.durationM(), p.durationM() * spm / 60, p.times().length);
+        out().printf(Locale.ROOT, "  1 M = %.4g s = %.4g micro-arcseconds; duration %.1f M = %.1f min, %d snapshots%n",
+                spm, p.uasPerM(), p.durationM(), p.durationM() * spm / 60, p.times().length);
         for (int k = 0; k < sc.sources().size(); k++) {
             Source s = sc.sources().get(k);
             out().printf(Locale.ROOT, "  source %s: %s, %d particles, centre period %.1f M = %.1f min%n", s.name(),
                     s.kind().key(), s.particles(), p.placed().centres()[k].periodM(),
                     p.placed().centres()[k].periodM() * spm / 60);
+        }
+        if (sc.interferometer() != null) {
+            org.spindrift.sim.interferometry.ObservingSetup o = org.spindrift.sim.interferometry.ObservingSetup.of(sc);
+            double fringe = o.wavelength() / o.array().longestBaseline() * org.spindrift.shared.Units.UAS_PER_RAD;
+            double pixel = sc.imaging().fieldOfViewM() / sc.imaging().pixels() * p.uasPerM();
+            out().printf(Locale.ROOT, "  interferometer: %d stations%s, %.4g GHz; smallest fringe spacing lambda/B_max"
+                    + " = %.3g uas (image pixel %.3g uas, field %.3g uas)%n", o.array().stations(),
+                    sc.interferometer().arrayFile() == null ? "" : " from " + sc.interferometer().arrayFile(),
+                    o.frequencyHz() * 1e-9, fringe, pixel, sc.imaging().fieldOfViewM() * p.uasPerM());
         }
         out().flush();
         return 0;

@@ -112,7 +112,7 @@ public final class LandmarksCommand implements Callable<Integer> {
         row("marginally bound, prograde", l.marginallyBoundPrograde(), "M");
         row("Omega maximum at r", l.omegaMaxRadius(), "M");
         row("Omega maximum", l.omegaMaxValue(), "1/M");
-        row("surface radius", l.surfaceRadius(), "M");
+        row("capture radius", l.captureRadius(), "M");
         if (orbits != null) {
             System.out.println();
             System.out.printf(Locale.ROOT, "%10s  %-10s  %12s  %12s  %12s  %12s  %13s  %13s%n", "r (M)", "sense",

@@ -22,6 +22,8 @@ import picocli.CommandLine.Command;
 public final class Main implements Runnable {
     /** Exit status for bad user input. */
     public static final int EXIT_USAGE = 2;
+    /** Exit status when a file cannot be written or read (full disk, permissions). */
+    public static final int EXIT_FAILURE = 1;
 
     @CommandLine.Spec
     private CommandLine.Model.CommandSpec spec;
@@ -59,6 +61,19 @@ public final class Main implements Runnable {
                 c.getErr().println(c.getCommandSpec().qualifiedName() + ": " + t.getMessage());
                 c.getErr().flush();
                 return EXIT_USAGE;
+            }
+            Throwable io = ex;
+            while (io != null && !(io instanceof java.io.IOException)) {
+                io = io.getCause();
+            }
+            if (io != null) {
+                // the disk or the file system failed (full disk, permissions changed during the run)
+                String m = io.getMessage() == null ? io.getClass().getSimpleName() : io.getMessage().lines().findFirst()
+                        .orElse("");
+                c.getErr().println(c.getCommandSpec().qualifiedName() + ": cannot write or read a file: "
+                        + io.getClass().getSimpleName() + ": " + m);
+                c.getErr().flush();
+                return EXIT_FAILURE;
             }
             throw ex;
         });

@@ -18,16 +18,46 @@ import picocli.CommandLine.Parameters;
  * sources and writes the run folder (DEVELOPERS.md, run archive layout).
  */
 @Command(name = "run", mixinStandardHelpOptions = true,
-        description = {"Run a scenario: evolve every source on geodesics and write the run folder"
-                + " (manifest.json, snapshots.h5, summary.json, periods.csv, shear.csv, plots/).",
-            "The file is checked first (as by 'check'); nothing is written when it has an error."})
+        description = {"Run a scenario: evolve every source on geodesics, trace the light to the observer and"
+                + " write the run folder:",
+            "  manifest.json        scenario echo, landmarks, diagnostics, sha256 of every file (written last)",
+            "  snapshots.h5         particle snapshots (HDF5)",
+            "  summary.json         periods, periastron advance, shapes, light summary per source",
+            "  periods.csv          periods and advance of every particle",
+            "  shear.csv            shape, orientation, lag profile per source and snapshot",
+            "  centroid.csv         flux-weighted centroid on the sky (micro-arcseconds) vs observer time",
+            "  lightcurve.csv       total flux vs observer time",
+            "  mock_astrometry.csv  centroid with astrometric noise (only when instrument noise is set)",
+            "  images.fits          image cube (x, y, observer time) with a WCS header",
+            "  visibilities.csv     (only with an interferometer) visibilities per frame and station pair",
+            "  closure_phases.csv   closure phases on every triangle, with errors (interferometer)",
+            "  closure_amplitudes.csv  log closure amplitudes on every quadrangle, with errors (interferometer)",
+            "  visibilities.uvfits  the visibilities in the random-groups UVFITS layout (interferometer)",
+            "  plots/               positions.png, shape.png, shape.svg, lag.png, lag.svg, periods.png,",
+            "                       light_track.png, light_offsets.png, light_curve.png, light_images.png;",
+            "                       with an interferometer uv_coverage.png, visibility_amplitude.png,",
+            "                       closure_phases.png",
+            "The file is checked first (as by 'check'); nothing is written when it has an error.",
+            "",
+            "What a run guarantees: the output folder is locked (a second run into it is refused);"
+                + " the run is built in a hidden folder beside it (.DIR.spindrift-new) and moved in only when"
+                + " complete, manifest.json last with the sha256 of every file as written; a finished run"
+                + " there is replaced only with --overwrite, and stays intact if the new run fails or is"
+                + " stopped; a folder holding anything Spindrift did not write (or a link) is refused;"
+                + " a plot that cannot be drawn is reported and listed in the manifest, the data files stay."})
 public final class RunCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "FILE", description = "Scenario file (YAML or JSON).")
     private Path file;
 
     @Option(names = {"-o", "--output"}, paramLabel = "DIR",
-            description = "Run folder (default: runs/<scenario name>). An earlier run there is replaced.")
+            description = "Run folder (default: runs/<scenario name>). It must not exist, be empty, or hold a"
+                    + " finished run (with --overwrite).")
     private Path output;
+
+    @Option(names = "--overwrite",
+            description = "Replace a finished run in the folder, once the new run is complete (the old one stays"
+                    + " if the new run fails).")
+    private boolean overwrite;
 
     @Option(names = "--threads", paramLabel = "N",
             description = "Worker threads (default: available processors). Results do not depend on it.")
@@ -53,7 +83,7 @@ public final class RunCommand implements Callable<Integer> {
         long t0 = System.nanoTime();
         ScenarioRun.Prepared p = ScenarioRun.prepare(ls);
         boolean terminal = System.console() != null;
-        ScenarioRun.Outcome o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, !quiet && terminal));
+        ScenarioRun.Outcome o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, !quiet && terminal, overwrite));
         if (!quiet) {
             double s = (System.nanoTime() - t0) * 1e-9;
             out().printf(Locale.ROOT, "%s: %d particles over %.1f min (%.0f M), %d snapshots, %.1f s%n",

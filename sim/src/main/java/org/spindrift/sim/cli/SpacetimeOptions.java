@@ -13,7 +13,8 @@ import picocli.CommandLine.Option;
  */
 public final class SpacetimeOptions {
     @Option(names = "--family", paramLabel = "NAME", defaultValue = "kerr",
-            description = "Metric family: kerr, kerr-newman, hayward, bardeen, mass-series, jp (default: ${DEFAULT-VALUE}).")
+            description = "Metric family: kerr, kerr-newman, hayward, bardeen, mass-series, johannsen-psaltis (alias jp)"
+                    + " (default: ${DEFAULT-VALUE}).")
     String family;
 
     @Option(names = "--spin", paramLabel = "A", defaultValue = "0",
@@ -36,16 +37,16 @@ public final class SpacetimeOptions {
             description = "mass-series: terms of m(r) = M (1 + sum_k c_k (M/r)^k), e.g. 2=0.5,3=-0.1 (k in 1..12).")
     String series;
 
-    @Option(names = "--epsilon3", paramLabel = "E", description = "jp: Johannsen-Psaltis deformation epsilon_3.")
+    @Option(names = "--epsilon3", paramLabel = "E", description = "johannsen-psaltis: deformation epsilon_3 (Johannsen & Psaltis 2011).")
     Double epsilon3;
 
     @Option(names = "--allow-horizonless",
             description = "Accept parameters without a horizon (naked singularity or regular horizonless object).")
     boolean allowHorizonless;
 
-    /** @return the family name as given */
+    /** @return the family name (an alias such as jp replaced by the full name) */
     public String family() {
-        return family;
+        return Spacetimes.canonical(family);
     }
 
     /** @return the spin as given */

@@ -10,7 +10,7 @@ import org.spindrift.sim.spacetime.Spacetime;
  * spin axis, beta along it. For a distant observer alpha = -lambda / sin(i) with lambda = L/E,
  * so rays with positive angular momentum appear at negative alpha.
  *
- * <p>Sky orientation (DESIGN section 3): x points east, y north. The projected spin axis lies at
+ * <p>Sky orientation: x points east, y north. The projected spin axis lies at
  * position angle PA (north through east), so the unit vector of beta on the sky is
  * (east, north) = (sin PA, cos PA) and that of alpha is (-cos PA, sin PA): at PA = 0, alpha points
  * west (to the observer's right with north up and east left). With this mapping a prograde orbit

@@ -16,8 +16,7 @@ import org.spindrift.sim.spacetime.Spacetime;
  * observer time t_o a sample with delay d sees the particles at emission time t_e = t_o - d.
  * Optically thin transfer with p_t = -1 at infinity (Rybicki &amp; Lightman 1979, Radiative
  * Processes in Astrophysics, sect. 1.4 and 4.9: I_nu / nu^3 invariant, j_nu ~ nu^-alpha):
- * I_obs = integral g^(2+alpha) rho d(lambda), rho the kernel-smoothed particle density
- * (DESIGN section 7). The emission times are served by {@link EmissionSlice}s spaced
+ * I_obs = integral g^(2+alpha) rho d(lambda), rho the kernel-smoothed particle density. The emission times are served by {@link EmissionSlice}s spaced
  * {@code sliceSpacing} apart, each built once and kept while frames need it, so frames should be
  * rendered in increasing observer time for the cache to slide.
  *

@@ -177,7 +177,7 @@ final class EmissionSlice {
             double sth = Trig.sin(th), cth = Trig.cos(th);
             double sph = Trig.sin(ph), cph = Trig.cos(ph);
             double big = FastMath.sqrt(r * r + a2);
-            // DESIGN section 3 Cartesian map and its time derivative
+            // Cartesian display map x = sqrt(r^2 + a^2) sin(theta) cos(phi), ... and its time derivative
             double px = big * sth * cph, py = big * sth * sph, pz = r * cth;
             double dBig = r * rd / big;
             double vxx = dBig * sth * cph + big * cth * cph * thd - big * sth * sph * phd;

@@ -22,12 +22,23 @@ import org.spindrift.shared.archive.AtomicFiles;
  * and {@code images.fits}, each through a temporary name.
  *
  * <p>The FITS cube is the primary HDU, float32, axes (x, y, time) = (NAXIS1, NAXIS2, NAXIS3), with
- * a celestial WCS in offset coordinates (FITS WCS Paper II, Calabretta &amp; Greisen 2002, A&amp;A
- * 395, 1077): CTYPE RA---TAN / DEC--TAN with CRVAL (0, 0) standing for the black hole, CRPIX at
- * the hole, CDELT in degrees with CDELT1 &lt; 0 (east to the left), and a linear time axis
- * (CTYPE3 TIME, minutes of observer time; Rots et al. 2015, A&amp;A 574, A36).
+ * a celestial WCS in offset coordinates: the scenario has no sky position, so the pair is not
+ * equatorial but a generic longitude/latitude pair {@code OFLN-TAN / OFLT-TAN} ("xxLN/xxLT", FITS
+ * WCS Paper II, Calabretta &amp; Greisen 2002, A&amp;A 395, 1077, sec. 2; astropy.wcs reads it
+ * as celestial), named by WCSNAME, with no RADESYS or EQUINOX; CRVAL (0, 0) is the black hole,
+ * CRPIX at the hole, CDELT in degrees with CDELT1 &lt; 0 (offset towards east to the left), and
+ * a linear time axis (CTYPE3 TIME, minutes of observer time; Rots et al. 2015, A&amp;A 574, A36).
  */
 public final class LightOutputs {
+    /** WCSNAME of the image cube: offsets from the black hole, no absolute sky position. */
+    public static final String OFFSET_FRAME = "offset from black hole";
+    /** CTYPE1 of the image cube: generic offset longitude (east), gnomonic projection. */
+    public static final String OFFSET_CTYPE1 = "OFLN-TAN";
+    /** CTYPE2 of the image cube: generic offset latitude (north), gnomonic projection. */
+    public static final String OFFSET_CTYPE2 = "OFLT-TAN";
+    /** Header card of the position angle of the projected spin axis (distinct from the beam's BPA). */
+    public static final String SPIN_PA_CARD = "SPINPA";
+
     /** Header of centroid.csv. */
     public static final String CENTROID_HEADER = "t_obs_min,t_obs_M,x_uas,y_uas,flux,x_with_steady_uas,"
             + "y_with_steady_uas,sigma_xx_uas2,sigma_yy_uas2,sigma_xy_uas2";
@@ -42,7 +53,7 @@ public final class LightOutputs {
     /** Where files go: the run folder's writer (temporary name, rename, registered for the manifest). */
     @FunctionalInterface
     public interface Sink {
-        void write(String relativeName, AtomicFiles.Writer writer) throws IOException;
+        void write(String relativeName, AtomicFiles.StreamWriter writer) throws IOException;
     }
 
     /** @return a sink writing into a plain folder through {@link AtomicFiles} */
@@ -50,7 +61,7 @@ public final class LightOutputs {
         return (name, w) -> {
             Path target = folder.resolve(name);
             Files.createDirectories(target.getParent());
-            AtomicFiles.write(target, w);
+            AtomicFiles.writeStream(target, w);
         };
     }
 
@@ -61,8 +72,8 @@ public final class LightOutputs {
         double uas = s.uasPerM();
         double min = s.minutesPerM();
         double[] t = r.timesM();
-        out.write(ArchiveLayout.CENTROID, tmp -> {
-            try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+        out.write(ArchiveLayout.CENTROID, os -> {
+            try (BufferedWriter w = text(os)) {
                 w.write(CENTROID_HEADER);
                 w.newLine();
                 for (int f = 0; f < t.length; f++) {
@@ -80,8 +91,8 @@ public final class LightOutputs {
             mean += m.flux() / t.length;
         }
         final double meanFlux = mean;
-        out.write(ArchiveLayout.LIGHTCURVE, tmp -> {
-            try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+        out.write(ArchiveLayout.LIGHTCURVE, os -> {
+            try (BufferedWriter w = text(os)) {
                 w.write(LIGHTCURVE_HEADER);
                 w.newLine();
                 for (int f = 0; f < t.length; f++) {
@@ -95,8 +106,8 @@ public final class LightOutputs {
         names.add(ArchiveLayout.LIGHTCURVE);
         if (r.mock() != null) {
             LightResult.MockAstrometry mk = r.mock();
-            out.write(ArchiveLayout.MOCK_ASTROMETRY, tmp -> {
-                try (BufferedWriter w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
+            out.write(ArchiveLayout.MOCK_ASTROMETRY, os -> {
+                try (BufferedWriter w = text(os)) {
                     w.write(MOCK_HEADER);
                     w.newLine();
                     for (int i = 0; i < mk.timesM().length; i++) {
@@ -108,12 +119,16 @@ public final class LightOutputs {
             });
             names.add(ArchiveLayout.MOCK_ASTROMETRY);
         }
-        out.write(ArchiveLayout.IMAGES, tmp -> writeFits(tmp, r));
+        out.write(ArchiveLayout.IMAGES, os -> writeFits(os, r));
         names.add(ArchiveLayout.IMAGES);
         return names;
     }
 
-    private static void writeFits(Path file, LightResult r) throws IOException {
+    private static BufferedWriter text(java.io.OutputStream os) {
+        return new BufferedWriter(new java.io.OutputStreamWriter(os, StandardCharsets.UTF_8));
+    }
+
+    private static void writeFits(java.io.OutputStream os, LightResult r) throws IOException {
         LightSettings s = r.settings();
         int n = r.camera().pixels();
         int frames = r.images().length;
@@ -134,9 +149,10 @@ public final class LightOutputs {
                 simple.setComment("conforms to FITS standard");   // no write time: files reproducible
             }
             h.addValue("BUNIT", "", "relative intensity (arbitrary units, see COMMENT)");
-            h.addValue("WCSAXES", 3, "celestial offsets and observer time");
-            h.addValue("CTYPE1", "RA---TAN", "offset from the black hole (CRVAL = 0,0 is the hole)");
-            h.addValue("CTYPE2", "DEC--TAN", "offset from the black hole");
+            h.addValue("WCSAXES", 3, "sky offsets and observer time");
+            h.addValue("WCSNAME", OFFSET_FRAME, "no sky position: offsets from the black hole");
+            h.addValue("CTYPE1", OFFSET_CTYPE1, "east offset from the black hole (CRVAL = 0,0)");
+            h.addValue("CTYPE2", OFFSET_CTYPE2, "north offset from the black hole");
             h.addValue("CTYPE3", "TIME", "observer time");
             h.addValue("CUNIT1", "deg", "");
             h.addValue("CUNIT2", "deg", "");
@@ -150,8 +166,6 @@ public final class LightOutputs {
             h.addValue("CDELT1", -pixDeg, "east to the left");
             h.addValue("CDELT2", pixDeg, "north up");
             h.addValue("CDELT3", dt, "frame cadence, min");
-            h.addValue("RADESYS", "ICRS", "");
-            h.addValue("EQUINOX", 2000.0, "");
             if (s.beamFwhmUas() > 0) {
                 double b = s.beamFwhmUas() / 3.6e9;
                 h.addValue("BMAJ", b, "Gaussian beam FWHM, deg");
@@ -163,14 +177,16 @@ public final class LightOutputs {
             h.addValue("TMIN_M", r.timesM().length > 0 ? r.timesM()[0] : 0.0, "observer time of frame 1, M");
             h.addValue("DT_M", r.timesM().length > 1 ? r.timesM()[1] - r.timesM()[0] : 0.0, "cadence, M");
             h.addValue("INCL", s.inclinationDeg(), "inclination, deg");
-            h.addValue("PA", s.positionAngleDeg(), "position angle of projected spin axis, deg");
+            h.addValue(SPIN_PA_CARD, s.positionAngleDeg(), "spin axis on the sky, deg N through E (not BPA)");
             h.addValue("LENSING", s.lensing(), "ray traced (T) or straight lines (F)");
             h.addValue("ORIGIN", "spindrift " + Version.get(), "");
             h.insertComment("Intensity I = integral g^(2+alpha) rho dlambda in arbitrary units; frame flux");
             h.insertComment("= sum of pixels times pixel area in M^2 (lightcurve.csv). Time origin: see");
             h.insertComment("centroid.csv / README (observer time = emission time + ray delay).");
             fits.addHDU(hdu);
-            fits.write(file.toFile());
+            nom.tam.util.FitsOutputStream fo = new nom.tam.util.FitsOutputStream(os);
+            fits.write(fo);
+            fo.flush();
         } catch (FitsException e) {
             throw new IOException("writing " + ArchiveLayout.IMAGES + ": " + e.getMessage(), e);
         }

@@ -7,7 +7,6 @@ import java.awt.Graphics2D;
 import java.awt.RenderingHints;
 import java.awt.image.BufferedImage;
 import java.io.IOException;
-import java.nio.file.Files;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -20,6 +19,8 @@ import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.lines.SeriesLines;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.colour.ColourRamp;
+import org.spindrift.sim.run.RunNotes;
 
 /**
  * Plots of the light stage (PNG): the centroid track on the sky (north up, east left, time
@@ -35,38 +36,47 @@ public final class LightPlots {
 
     /** Writes the plots into plots/ of the run folder; @return their names relative to it */
     public static List<String> write(LightOutputs.Sink out, LightResult r) throws IOException {
+        return write(out, r, RunNotes.STRICT);
+    }
+
+    /**
+     * Writes the plots into plots/ of the run folder, each through the guard (a run records a
+     * plot that cannot be drawn and goes on).
+     *
+     * @return the names of the plots drawn, relative to the run folder
+     */
+    public static List<String> write(LightOutputs.Sink out, LightResult r, RunNotes.Guard guard) throws IOException {
         List<String> names = new ArrayList<>();
-        save(out, "light_track.png", track(r), names);
-        save(out, "light_offsets.png", xy(r), names);
-        save(out, "light_curve.png", lightCurve(r), names);
-        BufferedImage panel = imagePanel(r);
+        save(out, "light_track.png", () -> track(r), names, guard);
+        save(out, "light_offsets.png", () -> xy(r), names, guard);
+        save(out, "light_curve.png", () -> lightCurve(r), names, guard);
         String img = ArchiveLayout.PLOTS + "/light_images.png";
-        out.write(img, tmp -> ImageIO.write(panel, "png", tmp.toFile()));
-        names.add(img);
+        if (guard.draw(img, () -> {
+            BufferedImage panel = imagePanel(r);
+            out.write(img, os -> ImageIO.write(panel, "png", os));
+        })) {
+            names.add(img);
+        }
         return names;
     }
 
-    private static void save(LightOutputs.Sink out, String name, XYChart chart, List<String> names) throws IOException {
-        out.write(ArchiveLayout.PLOTS + "/" + name, tmp -> {
-            try (var os = Files.newOutputStream(tmp)) {
-                BitmapEncoder.saveBitmap(chart, os, BitmapEncoder.BitmapFormat.PNG);
-            }
-        });
-        names.add(ArchiveLayout.PLOTS + "/" + name);
+    private static void save(LightOutputs.Sink out, String name, java.util.function.Supplier<XYChart> chart,
+                             List<String> names, RunNotes.Guard guard) throws IOException {
+        String path = ArchiveLayout.PLOTS + "/" + name;
+        if (guard.draw(path, () -> {
+            XYChart c = chart.get();
+            out.write(path, os -> BitmapEncoder.saveBitmap(c, os, BitmapEncoder.BitmapFormat.PNG));
+        })) {
+            names.add(path);
+        }
     }
 
-    /** Colour of fraction f in [0, 1]: dark blue through teal and green to yellow (perceptual ramp). */
+    /**
+     * Colour of fraction f in [0, 1] for lines on a white background: the project's sequential
+     * ramp ({@link ColourRamp#SKY}) up to 0.8 of its length, so the lightest colour stays visible.
+     */
     static Color ramp(double f) {
-        double[][] stops = {{0.27, 0.00, 0.33}, {0.23, 0.32, 0.55}, {0.13, 0.57, 0.55}, {0.37, 0.79, 0.38},
-            {0.99, 0.91, 0.14}};
-        double x = Math.max(0, Math.min(1, f)) * (stops.length - 1);
-        int i = Math.min(stops.length - 2, (int) x);
-        double u = x - i;
-        float[] c = new float[3];
-        for (int k = 0; k < 3; k++) {
-            c[k] = (float) (stops[i][k] + u * (stops[i + 1][k] - stops[i][k]));
-        }
-        return new Color(c[0], c[1], c[2]);
+        return new Color(ColourRamp.SKY.rgb(0.8 * Math.max(0, Math.min(1, f))));
     }
 
     private static XYChart track(LightResult r) {
@@ -80,7 +90,7 @@ public final class LightPlots {
         style(c);
         c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideE);
         // plotted abscissa is -x so that east is on the left; ticks show the true east offset
-        c.getStyler().setxAxisTickLabelsFormattingFunction(v -> String.format(Locale.ROOT, "%.0f", v == 0 ? 0.0 : -v));
+        c.getStyler().setxAxisTickLabelsFormattingFunction(v -> sig(v == 0 ? 0.0 : -v));
         // frames fainter than 1% of the peak flux are left out: their centroid is noise
         double peak = 0;
         for (FrameMoments m : r.moments()) {
@@ -285,6 +295,21 @@ public final class LightPlots {
         c.getStyler().setXAxisMax(Math.ceil(t[t.length - 1] / step) * step);
     }
 
+    /**
+     * @return v with three significant digits, trailing zeros dropped (angles on the sky span many
+     *     decades: an invented nucleus at tens of Mpc subtends well below one micro-arcsecond)
+     */
+    static String sig(double v) {
+        if (v == 0) {
+            return "0";
+        }
+        String s = String.format(Locale.ROOT, "%.3g", v);
+        if (s.contains(".") && !s.contains("e")) {
+            s = s.replaceAll("0+$", "").replaceAll("\\.$", "");
+        }
+        return s;
+    }
+
     /** Tick label with as few decimals as the value needs (at most 2). */
     static String tick(Double v) {
         double a = Math.abs(v);
@@ -326,9 +351,9 @@ public final class LightPlots {
         LightSettings s = r.settings();
         double half = 0.5 * r.camera().fieldOfView() * s.uasPerM();
         g.setColor(Color.BLACK);
-        g.drawString(String.format(Locale.ROOT, "Images (%s), square-root stretch, common scale per row; field %.0f uas = %.0f M;"
+        g.drawString(String.format(Locale.ROOT, "Images (%s), square-root stretch, common scale per row; field %s uas = %s M;"
                 + " north up, east left; + marks the black hole%s",
-                s.lensing() ? "ray traced" : "straight lines", 2 * half, r.camera().fieldOfView(),
+                s.lensing() ? "ray traced" : "straight lines", sig(2 * half), sig(r.camera().fieldOfView()),
                 beamed ? String.format(Locale.ROOT, "; lower row convolved with the beam, FWHM %.3g uas (circle)",
                         s.beamFwhmUas()) : ""), margin, h - 14);
         g.dispose();
@@ -354,7 +379,7 @@ public final class LightPlots {
                 for (int col = 0; col < n; col++) {
                     double v = peak > 0 ? Math.sqrt(Math.max(0, img[row * n + col]) / peak) : 0;
                     // image row 0 is south: draw it at the bottom; column 0 is east: on the left
-                    tile.setRGB(col, n - 1 - row, heat(v).getRGB());
+                    tile.setRGB(col, n - 1 - row, s.skyColours().rgb(v));
                 }
             }
             g.drawImage(tile, x0, y0, cell, cell, null);
@@ -362,11 +387,11 @@ public final class LightPlots {
             g.drawRect(x0, y0, cell, cell);
             g.drawString(String.format(Locale.ROOT, "t = %.1f min%s", r.timesM()[idx[i]] * s.minutesPerM(),
                     beamRow ? ", with beam" : ""), x0, y0 - 10);
-            g.drawString(String.format(Locale.ROOT, "%.0f", half), x0 - 8, y0 + cell + 18);
-            g.drawString(String.format(Locale.ROOT, "%.0f", -half), x0 + cell - 20, y0 + cell + 18);
+            g.drawString(sig(half), x0 - 8, y0 + cell + 18);
+            g.drawString(sig(-half), x0 + cell - 30, y0 + cell + 18);
             g.drawString("east offset (uas)", x0 + cell / 2 - 50, y0 + cell + 18);
-            g.drawString(String.format(Locale.ROOT, "%.0f", half), x0 - 30, y0 + 10);
-            g.drawString(String.format(Locale.ROOT, "%.0f", -half), x0 - 34, y0 + cell);
+            g.drawString(sig(half), x0 - 40, y0 + 10);
+            g.drawString(sig(-half), x0 - 44, y0 + cell);
             g.setColor(Color.CYAN);
             int cx = x0 + cell / 2, cy = y0 + cell / 2;
             g.drawLine(cx - 6, cy, cx + 6, cy);
@@ -384,12 +409,4 @@ public final class LightPlots {
         }
     }
 
-    /** Black through red and orange to white (a heat ramp). */
-    static Color heat(double v) {
-        double x = Math.max(0, Math.min(1, v));
-        float rr = (float) Math.min(1, 3 * x);
-        float gg = (float) Math.max(0, Math.min(1, 3 * x - 1));
-        float bb = (float) Math.max(0, Math.min(1, 3 * x - 2));
-        return new Color(rr, gg, bb);
-    }
 }

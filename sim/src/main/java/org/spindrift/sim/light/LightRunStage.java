@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import org.hipparchus.util.FastMath;
 import org.spindrift.sim.run.RunContext;
+import org.spindrift.sim.run.RunNotes;
 import org.spindrift.sim.run.RunStage;
 import org.spindrift.sim.scenario.ScenarioChecks;
 
@@ -20,18 +21,28 @@ public final class LightRunStage implements RunStage {
     public static final long MAX_CUBE_PIXELS = 500_000_000L;
 
     /**
-     * Refuses frame cadences and image sizes whose cube would not fit in memory (estimated from
-     * the run span plus a generous delay spread of 200 M).
+     * The image budget: frame cadences and image sizes whose cube would not fit in memory
+     * (estimated from the run span plus a generous delay spread of 200 M) are refused. Checked by
+     * {@code check} and before {@code run} starts.
+     *
+     * @return the problem in words, or null when the cube fits
      */
-    static void checkBudget(LightSettings s, double t0, double t1, int snapshots) {
+    public static String budgetProblem(LightSettings s, double t0, double t1, int snapshots) {
         double cadence = Double.isNaN(s.frameCadenceM()) ? (t1 - t0) / Math.max(1, snapshots - 1) : s.frameCadenceM();
         double frames = (t1 - t0 + 200.0) / cadence + 1;
         double cube = frames * s.pixels() * (double) s.pixels() * (s.beamFwhmUas() > 0 ? 2 : 1);
         if (cube > MAX_CUBE_PIXELS) {
-            throw new org.spindrift.shared.UserInputException(String.format(java.util.Locale.ROOT,
-                    "imaging.frame_cadence / imaging.pixels: about %.3g frames of %d x %d pixels exceed the image"
-                            + " budget of %d pixels; use a longer frame_cadence or fewer pixels", frames, s.pixels(),
-                    s.pixels(), MAX_CUBE_PIXELS));
+            return String.format(java.util.Locale.ROOT, "about %.3g frames of %d x %d pixels%s exceed the image"
+                    + " budget of %d pixels; use a longer frame_cadence or fewer pixels", frames, s.pixels(), s.pixels(),
+                    s.beamFwhmUas() > 0 ? " (twice: with and without the beam)" : "", MAX_CUBE_PIXELS);
+        }
+        return null;
+    }
+
+    static void checkBudget(LightSettings s, double t0, double t1, int snapshots) {
+        String problem = budgetProblem(s, t0, t1, snapshots);
+        if (problem != null) {
+            throw new org.spindrift.shared.UserInputException("imaging.frame_cadence / imaging.pixels: " + problem);
         }
     }
 
@@ -43,15 +54,15 @@ public final class LightRunStage implements RunStage {
         LightSettings s = LightSettings.of(ctx.scenario());
         checkBudget(s, ctx.history().time(0), ctx.history().time(ctx.history().snapshots() - 1),
                 ctx.history().snapshots());
-        // rays stop where particles are captured: outer horizon plus margin, or the surface
-        double stop = ScenarioChecks.captureRadius(ctx.spacetime(), ctx.landmarks());
+        // rays stop where particles do: the capture radius (manifest landmarks.capture_radius)
+        double capture = ctx.landmark("capture_radius");
         EmitterHistory h = new HistoryEmitters(ctx.history(), ctx.scenario().sources());
         if (ctx.progress()) {
             System.err.printf("spindrift: light: tracing %d x %d rays%n", s.pixels(), s.pixels());
         }
-        LightResult r = LightStage.run(s, ctx.spacetime(), stop, h, ctx.threads());
-        LightOutputs.write((name, w) -> ctx.archive().write(name, w), r);
-        LightPlots.write((name, w) -> ctx.archive().write(name, w), r);
+        LightResult r = LightStage.run(s, ctx.spacetime(), capture, h, ctx.threads());
+        LightOutputs.write((name, w) -> ctx.archive().writeStream(name, w), r);
+        LightPlots.write((name, w) -> ctx.archive().writeStream(name, w), r, RunNotes.guard(ctx));
         ctx.products().put(RESULT, r);
         ObjectNode m = ctx.manifest().putObject("light");
         m.put("lensing", s.lensing());
@@ -59,7 +70,6 @@ public final class LightRunStage implements RunStage {
         m.put("field_of_view_M", s.fieldOfViewM());
         m.put("pixel_uas", r.camera().pixelSize() * s.uasPerM());
         m.put("camera_distance_M", r.camera().distance());
-        m.put("stop_radius_M", stop);
         m.put("emission_radius_M", r.emissionRadius());
         m.put("smoothing_length_M", r.smoothingLength());
         m.put("rays", r.table().rays());
@@ -68,7 +78,18 @@ public final class LightRunStage implements RunStage {
         m.put("time_origin", "observer time = emission coordinate time + ray delay; delay = elapsed coordinate"
                 + " time from the camera plane at distance d minus d + 2 M ln(d/M)");
         m.put("steady_source_flux", r.steadyFlux());
-        m.putArray("fully_covered_min").add(r.coveredFrom() * s.minutesPerM()).add(r.coveredTo() * s.minutesPerM());
+        if (r.coveredFrom() <= r.coveredTo()) {
+            m.putArray("fully_covered_min").add(r.coveredFrom() * s.minutesPerM()).add(r.coveredTo() * s.minutesPerM());
+        } else {
+            // the delays across the field span more than the run: no frame sees all the light
+            m.putNull("fully_covered_min");
+            RunNotes.warn(ctx, ctx.loaded().error("imaging.field_of_view_M", String.format(java.util.Locale.ROOT,
+                    "no frame is fully covered: light delays across the field span %.4g M, more than the run's %.4g M,"
+                            + " so every frame may miss light (use a smaller field of view or a longer run.duration)",
+                    r.coveredFrom() - r.coveredTo() + ctx.history().time(ctx.history().snapshots() - 1)
+                            - ctx.history().time(0), ctx.history().time(ctx.history().snapshots() - 1)
+                            - ctx.history().time(0))).getMessage());
+        }
         ObjectNode sm = ctx.summary().putObject("light");
         sm.put("frames", r.timesM().length);
         if (r.timesM().length > 0) {

@@ -1,6 +1,7 @@
 package org.spindrift.sim.light;
 
 import org.spindrift.shared.Units;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.shared.scenario.Imaging;
 import org.spindrift.shared.scenario.Instrument;
 import org.spindrift.shared.scenario.Scenario;
@@ -15,17 +16,26 @@ import org.spindrift.shared.scenario.Scenario;
  * @param frameCadenceM observer-time interval between frames, M (NaN: the snapshot cadence)
  * @param lensing ray-traced (true) or straight lines (false)
  * @param massSolar black hole mass, solar masses
- * @param distanceKpc distance, kpc
+ * @param distanceMpc distance, Mpc
  * @param beamFwhmUas beam FWHM, micro-arcseconds (0: none)
  * @param steadyFluxRatio steady point-source flux relative to the mean flare flux (0: none)
  * @param noiseUas astrometric noise per axis, micro-arcseconds (0: no mock data)
  * @param noiseCadenceMin mock-data cadence, minutes
  * @param seed seed of the mock-data noise
+ * @param skyColours colour ramp of the image plots
  */
 public record LightSettings(double inclinationDeg, double positionAngleDeg, double fieldOfViewM, int pixels,
-                            double frameCadenceM, boolean lensing, double massSolar, double distanceKpc,
+                            double frameCadenceM, boolean lensing, double massSolar, double distanceMpc,
                             double beamFwhmUas, double steadyFluxRatio, double noiseUas, double noiseCadenceMin,
-                            long seed) {
+                            long seed, ColourRamp skyColours) {
+    /** Settings with the default sky colours. */
+    public LightSettings(double inclinationDeg, double positionAngleDeg, double fieldOfViewM, int pixels,
+                         double frameCadenceM, boolean lensing, double massSolar, double distanceMpc,
+                         double beamFwhmUas, double steadyFluxRatio, double noiseUas, double noiseCadenceMin, long seed) {
+        this(inclinationDeg, positionAngleDeg, fieldOfViewM, pixels, frameCadenceM, lensing, massSolar, distanceMpc,
+                beamFwhmUas, steadyFluxRatio, noiseUas, noiseCadenceMin, seed, ColourRamp.SKY);
+    }
+
     /** Distance of the camera's start plane, M (Camera: error of order M b / d). */
     public static final double CAMERA_DISTANCE_M = 1.0e4;
 
@@ -36,14 +46,14 @@ public record LightSettings(double inclinationDeg, double positionAngleDeg, doub
         double secondsPerM = Units.timeUnitSeconds(s.blackHole().massSolar());
         double cadence = im.frameCadence() == null ? Double.NaN : im.frameCadence().toM(secondsPerM);
         return new LightSettings(s.observer().inclinationDeg(), s.observer().positionAngleDeg(), im.fieldOfViewM(),
-                im.pixels(), cadence, im.lensing(), s.blackHole().massSolar(), s.blackHole().distanceKpc(),
+                im.pixels(), cadence, im.lensing(), s.blackHole().massSolar(), s.blackHole().distanceMpc(),
                 in.beamFwhmUas(), in.steadySourceFluxRatio(), in.astrometricNoiseUas(), in.noiseCadenceMin(),
-                s.run().seed());
+                s.run().seed(), im.skyColours());
     }
 
     /** @return micro-arcseconds per M at the source's distance */
     public double uasPerM() {
-        return Units.microarcsecPerM(massSolar, distanceKpc);
+        return Units.uasPerM(massSolar, distanceMpc);
     }
 
     /** @return minutes per M */
@@ -60,6 +70,6 @@ public record LightSettings(double inclinationDeg, double positionAngleDeg, doub
     /** @return a copy with another image size */
     public LightSettings withPixels(int n) {
         return new LightSettings(inclinationDeg, positionAngleDeg, fieldOfViewM, n, frameCadenceM, lensing, massSolar,
-                distanceKpc, beamFwhmUas, steadyFluxRatio, noiseUas, noiseCadenceMin, seed);
+                distanceMpc, beamFwhmUas, steadyFluxRatio, noiseUas, noiseCadenceMin, seed, skyColours);
     }
 }

@@ -8,7 +8,7 @@ import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * The light stage of a run (DESIGN section 7): traces the ray table once, renders the frames with
+ * The light stage of a run: traces the ray table once, renders the frames with
  * slow light, measures flux, centroid and moments, and applies the instrument (beam, steady
  * point source, astrometric noise).
  *
@@ -37,14 +37,14 @@ public final class LightStage {
     /**
      * Runs the stage.
      *
-     * @param stopRadius inner stop radius of the rays (horizon plus margin, or surface), M
+     * @param captureRadius where rays stop, M ({@link org.spindrift.sim.spacetime.Landmarks#captureRadius()})
      * @param threads worker threads (the results do not depend on it)
      */
-    public static LightResult run(LightSettings s, Spacetime st, double stopRadius, EmitterHistory history,
+    public static LightResult run(LightSettings s, Spacetime st, double captureRadius, EmitterHistory history,
                                   int threads) {
         Camera cam = s.camera();
         double h = smoothingLength(cam);
-        TraceSettings ts = traceSettings(history, st, cam, stopRadius, s.fieldOfViewM(), s.lensing());
+        TraceSettings ts = traceSettings(history, st, cam, captureRadius, s.fieldOfViewM(), s.lensing());
         long t0 = System.nanoTime();
         RayTable table = RayTable.trace(st, cam, ts, threads);
         double secs = (System.nanoTime() - t0) * 1e-9;
@@ -111,13 +111,13 @@ public final class LightStage {
      * The ray settings of a run: emission radius and mask from the particle history, sample
      * spacing from the smoothing length, relative tolerance 1e-8.
      */
-    public static TraceSettings traceSettings(EmitterHistory history, Spacetime st, Camera cam, double stopRadius,
+    public static TraceSettings traceSettings(EmitterHistory history, Spacetime st, Camera cam, double captureRadius,
                                               double fov, boolean lensing) {
         double h = smoothingLength(cam);
-        double rEm = emissionRadius(history, h, fov, stopRadius);
+        double rEm = emissionRadius(history, h, fov, captureRadius);
         EmissionMask mask = EmissionMask.of(history, st.spin(), rEm, 2.0 * h);
         boolean separated = st instanceof MassFunctionSpacetime;
-        return TraceSettings.of(rEm, stopRadius, SAMPLES_PER_H * h, lensing)
+        return TraceSettings.of(rEm, captureRadius, SAMPLES_PER_H * h, lensing)
                 .withTolerance(separated ? SEPARATED_RTOL : GENERAL_RTOL, separated ? SEPARATED_ATOL : GENERAL_ATOL)
                 .withMask(mask);
     }
@@ -147,10 +147,10 @@ public final class LightStage {
 
     /**
      * Emission radius: the largest radius any alive particle reaches, plus the kernel support and
-     * a margin, at least 3 M beyond the stop radius and at most the larger of the field of view
+     * a margin, at least 3 M beyond the capture radius and at most the larger of the field of view
      * and 20 M (farther particles rarely lens into the field).
      */
-    public static double emissionRadius(EmitterHistory h, double smoothing, double fov, double stopRadius) {
+    public static double emissionRadius(EmitterHistory h, double smoothing, double fov, double captureRadius) {
         double rMax = 0;
         for (int s = 0; s < h.snapshots(); s++) {
             for (int p = 0; p < h.particles(); p++) {
@@ -160,7 +160,7 @@ public final class LightStage {
             }
         }
         double r = rMax + 2.0 * smoothing + 0.5;
-        return FastMath.min(FastMath.max(r, stopRadius + 3.0), FastMath.max(fov, 20.0));
+        return FastMath.min(FastMath.max(r, captureRadius + 3.0), FastMath.max(fov, 20.0));
     }
 
     /** Frame times from t_first + delays[0] to t_last + delays[1] at the cadence (the snapshot cadence if NaN). */

@@ -105,7 +105,7 @@ public final class RayAccuracy {
     }
 
     private static TraceSettings dense(TraceSettings s) {
-        return new TraceSettings(s.emissionRadius(), s.stopRadius(), s.endRadius(), SPACING, s.relativeTolerance(),
+        return new TraceSettings(s.emissionRadius(), s.captureRadius(), s.endRadius(), SPACING, s.relativeTolerance(),
                 s.absoluteTolerance(), s.maxSteps(), true, null, s.generalPath());
     }
 

@@ -2,7 +2,7 @@ package org.spindrift.sim.light;
 
 /** How a backward ray ended. */
 public enum RayEnd {
-    /** reached the inner stop radius (horizon or surface of a horizonless object): dark behind */
+    /** reached the capture radius (just outside the horizon, or the surface of a horizonless object): dark behind */
     CAPTURED,
     /** left the emission region outwards (or never entered it) */
     ESCAPED,

@@ -8,8 +8,7 @@ import org.hipparchus.util.FastMath;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * The camera's rays, traced once per run (the observer is fixed and the metric stationary,
- * DESIGN section 7): for every pixel the photon's angular momentum L = p_phi, how the ray ended,
+ * The camera's rays, traced once per run (the observer is fixed and the metric stationary): for every pixel the photon's angular momentum L = p_phi, how the ray ended,
  * and its samples inside the emission region (packed, structure of arrays, each with its own
  * p_phi because refined pixels hold several sub-pixel rays; the samples of pixel k
  * are {@code start[k] .. start[k+1]-1}). Rows of pixels are traced as independent tasks whose
@@ -286,7 +285,7 @@ public final class RayTable {
 
     /**
      * Straight-line rays (no lensing): the line through the pixel parallel to the line of sight,
-     * sampled uniformly inside the emission region, stopped at the stop radius (the hole stays
+     * sampled uniformly inside the emission region, stopped at the capture radius (the hole stays
      * opaque). Delays are the flat travel-time differences (Roemer delay), and p_mu is the flat
      * direction in spherical components, so Doppler factors are kept.
      */
@@ -295,7 +294,7 @@ public final class RayTable {
         int n = camera.pixels();
         double[] p = new double[6];
         double rEm = settings.emissionRadius();
-        double rStop = settings.stopRadius();
+        double rStop = settings.captureRadius();
         double ds = settings.sampleSpacing();
         double d = camera.distance();
         for (int col = 0; col < n; col++) {

@@ -77,7 +77,7 @@ public final class RayTracer implements DormandPrince54.Rhs {
                 ? new MinoTimeEquations(m) : null;
         this.rEm = settings.emissionRadius();
         this.rEnd = FastMath.max(rEm, settings.endRadius());
-        this.rStop = settings.stopRadius();
+        this.rStop = settings.captureRadius();
         this.rtol = settings.relativeTolerance();
         this.atol = settings.absoluteTolerance();
         // radius of the sphere holding every possible sample (the mask's cube, or the emission sphere)
@@ -94,7 +94,7 @@ public final class RayTracer implements DormandPrince54.Rhs {
         return mino != null;
     }
 
-    /** Cartesian position of state s (DESIGN section 3 map) into cx, cy, cz. */
+    /** Cartesian position of state s (x = sqrt(r^2 + a^2) sin(theta) cos(phi), ...) into cx, cy, cz. */
     private void cartesian(double[] s) {
         double r = s[1];
         double st = FastMath.sin(s[2]);
@@ -124,7 +124,7 @@ public final class RayTracer implements DormandPrince54.Rhs {
     }
 
     /**
-     * Cartesian position (DESIGN section 3 map) of the last ray's point of smallest radius.
+     * Cartesian position (x = sqrt(r^2 + a^2) sin(theta) cos(phi), ...) of the last ray's point of smallest radius.
      *
      * @param out length 3
      */

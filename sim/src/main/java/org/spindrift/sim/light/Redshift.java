@@ -2,7 +2,7 @@ package org.spindrift.sim.light;
 
 /**
  * The redshift factor g = nu_obs / nu_em = 1 / (-p_mu u^mu) for a photon normalised to
- * p_t = -1 at infinity (DESIGN section 7; e.g. Cunningham &amp; Bardeen 1973, ApJ 183, 237).
+ * p_t = -1 at infinity (e.g. Cunningham &amp; Bardeen 1973, ApJ 183, 237).
  */
 public final class Redshift {
     private Redshift() {

@@ -3,8 +3,7 @@ package org.spindrift.sim.light;
 import java.util.Arrays;
 
 /**
- * Growable structure-of-arrays store of ray samples: Cartesian position (x, y, z in M, DESIGN
- * section 3), observer-time delay (M), the photon's covariant p_r and p_theta (p_t = -1 at
+ * Growable structure-of-arrays store of ray samples: Cartesian position (display x, y, z in M), observer-time delay (M), the photon's covariant p_r and p_theta (p_t = -1 at
  * infinity), p_phi = L (per sample, since sub-pixel rays of one pixel differ), and the affine weight d(lambda) of the sample in the transfer integral. Capacity
  * doubles when full, so appending is amortised allocation-free.
  */

@@ -1,7 +1,7 @@
 package org.spindrift.sim.motion;
 
 /**
- * How a particle's integration ended (DESIGN section 5). The codes are the values of the
+ * How a particle's integration ended. The codes are the values of the
  * {@code /state} dataset of the run archive (DEVELOPERS.md): 0 alive, 1 captured, 2 escaped,
  * 3 failed.
  */

@@ -34,10 +34,28 @@ public final class OrbitMeasurement {
      * @param samples trajectory samples: rows t, r, theta, phi
      * @param periapses periapsis passages: rows t, r, theta, phi
      * @param evaluations right-hand-side evaluations used
+     * @param uncertainty estimated uncertainty of each mean: {@link Uncertainty}
      */
     public record Result(int orbits, double periodRadial, double periodAzimuthal, double periodPolar, double advance,
                          double massShellDriftMax, double carterDriftMax, EndState endState, double[][] samples,
-                         double[][] periapses, long evaluations) {
+                         double[][] periapses, long evaluations, Uncertainty uncertainty) {
+    }
+
+    /**
+     * Uncertainty of the measured means: the difference between the windowed mean over all the
+     * measured periods and the same mean over the first half of them (NaN with fewer than two).
+     * The windowed mean converges faster than any power of the number of periods for
+     * quasi-periodic motion (Das &amp; Yorke 2018), so the half-length mean is much further off than
+     * the full one and the difference is a conservative estimate of the full mean's error. For
+     * equatorial orbits the increments are equal up to the integration error, which the difference
+     * then measures.
+     *
+     * @param periodRadial of the radial period (M)
+     * @param periodAzimuthal of the azimuthal period (M)
+     * @param periodPolar of the polar period (M)
+     * @param advance of the periastron advance (radians)
+     */
+    public record Uncertainty(double periodRadial, double periodAzimuthal, double periodPolar, double advance) {
     }
 
     private OrbitMeasurement() {
@@ -117,6 +135,9 @@ public final class OrbitMeasurement {
         double tr = Double.NaN;
         double tphi = Double.NaN;
         double adv = Double.NaN;
+        double trErr = Double.NaN;
+        double tphiErr = Double.NaN;
+        double advErr = Double.NaN;
         if (circular && ns[0] > 0 && b.endState(0) == EndState.ALIVE) {
             n = orbits;
             tphi = 2 * FastMath.PI * samples[0][ns[0] - 1] / FastMath.abs(samples[3][ns[0] - 1] - start.phi());
@@ -127,8 +148,16 @@ public final class OrbitMeasurement {
             // in the sense of the orbital motion: retrograde orbits (phi decreasing) advance too
             adv = FastMath.abs(dphi) - 2 * FastMath.PI;
             tphi = 2 * FastMath.PI * dt / FastMath.abs(dphi);
+            if (n >= 2) {
+                double dtHalf = weightedMeanIncrement(tp::periapsisTime, n / 2);
+                double dphiHalf = weightedMeanIncrement(tp::periapsisPhi, n / 2);
+                trErr = FastMath.abs(dt - dtHalf);
+                advErr = FastMath.abs(FastMath.abs(dphi) - FastMath.abs(dphiHalf));
+                tphiErr = FastMath.abs(tphi - 2 * FastMath.PI * dtHalf / FastMath.abs(dphiHalf));
+            }
         }
         double tth = Double.NaN;
+        double tthErr = Double.NaN;
         if (start.pTheta() != 0.0 && tp.polarCount() >= 2) {
             // polar turning points up to the last periapsis used
             int m = 0;
@@ -138,6 +167,9 @@ public final class OrbitMeasurement {
             }
             if (m >= 1) {
                 tth = weightedMeanIncrement(tp::polarTime, m);
+            }
+            if (m >= 2) {
+                tthErr = FastMath.abs(tth - weightedMeanIncrement(tp::polarTime, m / 2));
             }
         }
         double[][] peri = new double[4][tp.periapsisCount()];
@@ -152,7 +184,7 @@ public final class OrbitMeasurement {
             smp[c] = Arrays.copyOf(samples[c], ns[0]);
         }
         return new Result(n, tr, tphi, tth, adv, drift[0], separable ? drift[1] : Double.NaN, b.endState(0), smp,
-                peri, evals);
+                peri, evals, new Uncertainty(trErr, tphiErr, tthErr, advErr));
     }
 
     /**

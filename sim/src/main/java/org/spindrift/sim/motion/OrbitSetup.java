@@ -9,15 +9,12 @@ import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * The three ways of starting a test mass (DESIGN section 5): (a) a circular equatorial orbit of
+ * The three ways of starting a test mass: (a) a circular equatorial orbit of
  * given radius and sense ({@link CircularOrbits}), (b) bound orbit elements
  * ({@link OrbitElements}, Schmidt 2002), (c) a position and a local velocity in the ZAMO frame
- * ({@link ZamoFrame}); plus the capture radius that ends a trajectory.
+ * ({@link ZamoFrame}). Trajectories end at {@link Landmarks#captureRadius(Spacetime)}.
  */
 public final class OrbitSetup {
-    /** Margin added to the outer horizon for capture, M (common practice, no source). */
-    public static final double CAPTURE_MARGIN = 0.01;
-
     private OrbitSetup() {
     }
 
@@ -46,20 +43,5 @@ public final class OrbitSetup {
     public static InitialState zamo(Spacetime st, double r, double theta, double phi, double vr, double vtheta,
                                     double vphi) {
         return new ZamoFrame(st).initialState(r, theta, phi, vr, vtheta, vphi);
-    }
-
-    /**
-     * @return the radius below which particles count as captured: outer horizon +
-     *     {@link #CAPTURE_MARGIN}, or the surface radius of {@link Landmarks} when the spacetime
-     *     has no horizon
-     */
-    public static double captureRadius(Spacetime st) {
-        double rh = Horizons.outer(st);
-        return Double.isNaN(rh) ? Landmarks.of(st).surfaceRadius() : rh + CAPTURE_MARGIN;
-    }
-
-    /** @return {@link #captureRadius(Spacetime)} from landmarks already computed */
-    public static double captureRadius(Landmarks landmarks) {
-        return landmarks.hasHorizon() ? landmarks.horizonOuter() + CAPTURE_MARGIN : landmarks.surfaceRadius();
     }
 }

@@ -17,7 +17,7 @@ import org.spindrift.sim.spacetime.Spacetime;
  * @param spacetime the metric
  * @param landmarks landmarks by {@code landmarks --json} key (NaN where absent)
  * @param secondsPerM GM/c^3, s
- * @param microarcsecPerM angle of 1 M at the distance, micro-arcseconds
+ * @param uasPerM angle of 1 M at the distance, micro-arcseconds
  * @param placed initial conditions: source index, first index, centres
  * @param history every particle at every snapshot
  * @param archive the run folder being written
@@ -28,7 +28,7 @@ import org.spindrift.sim.spacetime.Spacetime;
  * @param products results one stage hands to a later one (for example the analysis to the plots), by key
  */
 public record RunContext(LoadedScenario loaded, Spacetime spacetime, Map<String, Double> landmarks,
-        double secondsPerM, double microarcsecPerM, SourceSetup.Placed placed, ParticleHistory history,
+        double secondsPerM, double uasPerM, SourceSetup.Placed placed, ParticleHistory history,
         RunArchiveWriter archive, ObjectNode manifest, ObjectNode summary, int threads, boolean progress,
         Map<String, Object> products) {
     /** @return the scenario */

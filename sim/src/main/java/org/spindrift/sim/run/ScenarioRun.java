@@ -57,8 +57,13 @@ public final class ScenarioRun {
      * @param output run folder
      * @param threads worker threads
      * @param progress show a progress bar (on a terminal, without --quiet)
+     * @param overwrite replace a finished run in the folder (only once the new one is complete)
      */
-    public record Options(Path output, int threads, boolean progress) {
+    public record Options(Path output, int threads, boolean progress, boolean overwrite) {
+        /** Options that never replace a finished run. */
+        public Options(Path output, int threads, boolean progress) {
+            this(output, threads, progress, false);
+        }
     }
 
     /**
@@ -71,11 +76,15 @@ public final class ScenarioRun {
      * @param placed initial particles
      * @param times snapshot times, M
      * @param secondsPerM GM/c^3, s
-     * @param microarcsecPerM angular size of 1 M, micro-arcseconds
+     * @param uasPerM angular size of 1 M, micro-arcseconds
+     * @param warnings things the run does that the user may not expect, one line each
+     *     ({@code FILE:LINE: key: problem}); printed and recorded in the manifest
+     * @param requestedDurationM the duration the scenario asks for, M (the run ends at the last
+     *     whole snapshot cadence within it, {@link #durationM})
      */
     public record Prepared(LoadedScenario loaded, Spacetime spacetime, Map<String, Double> landmarks,
             double captureRadius, SourceSetup.Placed placed, double[] times, double secondsPerM,
-            double microarcsecPerM) {
+            double uasPerM, List<String> warnings, double requestedDurationM) {
         /** @return run duration, M */
         public double durationM() {
             return times[times.length - 1];
@@ -109,10 +118,10 @@ public final class ScenarioRun {
         Landmarks lm = Landmarks.of(st);
         Map<String, Double> landmarks = new LinkedHashMap<>();
         lm.toMap().forEach((k, v) -> landmarks.put(k, v == null ? Double.NaN : v));
-        double capture = ScenarioChecks.captureRadius(st, landmarks);
+        double capture = lm.captureRadius();
         ScenarioChecks.checkSources(ls, st, capture);
         double secondsPerM = Units.timeUnitSeconds(sc.blackHole().massSolar());
-        double uasPerM = Units.microarcsecPerM(sc.blackHole().massSolar(), sc.blackHole().distanceKpc());
+        double uasPerM = Units.uasPerM(sc.blackHole().massSolar(), sc.blackHole().distanceMpc());
         SourceSetup.Placed placed = SourceSetup.place(sc, st, capture);
         RunSettings run = sc.run();
         double duration = run.duration().toM(secondsPerM, placed.centres()[0].periodM());
@@ -135,8 +144,72 @@ public final class ScenarioRun {
         for (int k = 0; k < s; k++) {
             times[k] = k * cadence;
         }
-        return new Prepared(ls, st, landmarks, capture, placed, times, secondsPerM, uasPerM);
+        List<String> warnings = new ArrayList<>();
+        // the grid ends at the last whole cadence: the manifest records both durations; a cut of more
+        // than 1 % of the run is worth a warning (durations in orbits are rarely whole cadences)
+        if (duration - times[s - 1] > DURATION_CUT_WARNING * duration) {
+            warnings.add(ls.error("run.duration", "the duration of " + fmt(duration) + " M is not a whole number of"
+                    + " snapshot cadences (" + fmt(cadence) + " M): the run ends at the last whole one, "
+                    + fmt(times[s - 1]) + " M").getMessage());
+        }
+        checkMemory(ls, sc.totalParticles(), s, Runtime.getRuntime().maxMemory());
+        checkImaging(ls, sc, uasPerM, times, capture, warnings);
+        return new Prepared(ls, st, landmarks, capture, placed, times, secondsPerM, uasPerM, List.copyOf(warnings),
+                duration);
     }
+
+    /** Fraction of the requested duration lost to whole cadences above which the run warns. */
+    static final double DURATION_CUT_WARNING = 0.01;
+
+    /** Bytes of the particle history per particle and snapshot (see {@link ParticleHistory}), with the archive copy. */
+    static final double HISTORY_BYTES = 61 + 88;
+
+    /** Refuses a run whose particle history cannot fit in the Java heap (it would fail after the work). */
+    static void checkMemory(LoadedScenario ls, long particles, int snapshots, double have) {
+        double need = HISTORY_BYTES * particles * snapshots;
+        if (need > 0.8 * have) {
+            throw ls.error("run.snapshot_cadence", String.format(java.util.Locale.ROOT, "%d particles at %d snapshots"
+                    + " need about %.3g GB of memory, more than the %.3g GB this Java process may use; use fewer"
+                    + " particles, a longer snapshot_cadence, or more heap (SPINDRIFT_JAVA_OPTS=-Xmx...)", particles,
+                    snapshots, need / 1e9, have / 1e9));
+        }
+    }
+
+    /** The light stage's limits and the imaging settings that would give empty or meaningless output. */
+    private static void checkImaging(LoadedScenario ls, Scenario sc, double uasPerM, double[] times,
+            double captureRadius, List<String> warnings) {
+        org.spindrift.sim.light.LightSettings light = org.spindrift.sim.light.LightSettings.of(sc);
+        double duration = times[times.length - 1];
+        String budget = org.spindrift.sim.light.LightRunStage.budgetProblem(light, 0.0, duration, times.length);
+        if (budget != null) {
+            String key = sc.imaging().frameCadence() != null ? "imaging.frame_cadence" : "imaging.pixels";
+            throw ls.error(key, budget);
+        }
+        if (!Double.isNaN(light.frameCadenceM()) && light.frameCadenceM() > duration) {
+            throw ls.error("imaging.frame_cadence", "cadence " + sc.imaging().frameCadence() + " = "
+                    + fmt(light.frameCadenceM()) + " M is longer than the run (" + fmt(duration)
+                    + " M): at most one or two frames; use a frame_cadence shorter than run.duration");
+        }
+        // the FITS pixel scale in degrees must be an ordinary (normal, non-zero) number
+        double pixelDeg = light.fieldOfViewM() / light.pixels() * uasPerM / 3.6e9;
+        if (!(pixelDeg >= Double.MIN_NORMAL * 1e6) || !Double.isFinite(pixelDeg)) {
+            throw ls.error("imaging.field_of_view_M", "a pixel of " + fmt(light.fieldOfViewM() / light.pixels())
+                    + " M subtends " + pixelDeg + " degrees at this distance, too small for an image's coordinates");
+        }
+        if (light.fieldOfViewM() < MIN_FIELD_OF_VIEW_M) {
+            throw ls.error("imaging.field_of_view_M", "value " + light.fieldOfViewM() + " M is smaller than "
+                    + fmt(MIN_FIELD_OF_VIEW_M) + " M: the emission kernel alone is 0.1 M wide, so every frame would be"
+                    + " empty or one blurred pixel; allowed [" + fmt(MIN_FIELD_OF_VIEW_M) + ", 1e5] M");
+        }
+        if (0.5 * light.fieldOfViewM() < captureRadius) {
+            warnings.add(ls.error("imaging.field_of_view_M", "the field of view (" + fmt(light.fieldOfViewM())
+                    + " M across) lies inside the capture radius (" + fmt(captureRadius) + " M): frames show only gas"
+                    + " passing in front of the hole, often nothing").getMessage());
+        }
+    }
+
+    /** Smallest field of view, M. */
+    public static final double MIN_FIELD_OF_VIEW_M = 1.0;
 
     /**
      * The stages after the particles have been evolved, in order. The light stage (ray table,
@@ -148,6 +221,7 @@ public final class ScenarioRun {
         stages.add(new SnapshotStage());
         stages.add(new AnalysisStage());
         stages.add(new org.spindrift.sim.light.LightRunStage());
+        stages.add(new org.spindrift.sim.interferometry.InterferometryStage());
         stages.add(new PlotStage());
         return stages;
     }
@@ -157,10 +231,35 @@ public final class ScenarioRun {
         return run(p, o, stages());
     }
 
-    /** Runs a prepared scenario through the given stages. */
+    /**
+     * Runs a prepared scenario through the given stages. The output folder is checked and locked
+     * before the work starts (a second run into it is refused at once); the run is built beside
+     * it and swapped in when complete, so a failed or stopped run leaves the folder as it was.
+     */
     public static Outcome run(Prepared p, Options o, List<RunStage> stages) throws IOException {
-        RunArchiveWriter.checkUsable(o.output()); // before the work, so a bad -o fails at once
+        RunArchiveWriter.checkUsable(o.output(), o.overwrite()); // before the work, so a bad -o fails at once
+        // failed: remove the new run's folder, the old run stays (the writer's own shutdown hook
+        // does the same when the run is stopped with Ctrl-C or SIGTERM)
+        RunArchiveWriter archive = RunArchiveWriter.create(o.output(), o.overwrite());
+        boolean done = false;
+        try {
+            Outcome out = evolveAndWrite(p, o, stages, archive);
+            done = true;
+            return out;
+        } finally {
+            if (!done) {
+                archive.abandon();
+            }
+        }
+    }
+
+    private static Outcome evolveAndWrite(Prepared p, Options o, List<RunStage> stages, RunArchiveWriter archive)
+            throws IOException {
         Scenario sc = p.loaded().scenario();
+        ObjectNode manifest = RunArchiveWriter.json().createObjectNode();
+        for (String w : p.warnings()) {
+            RunNotes.warn(manifest, w);
+        }
         ParticleBatch batch = p.placed().batch();
         int n = batch.size();
         Spacetime st = p.spacetime();
@@ -186,41 +285,23 @@ public final class ScenarioRun {
         ParticleHistory history = sink.history();
         long t1 = System.nanoTime();
 
-        Path folder = o.output();
-        RunArchiveWriter archive = RunArchiveWriter.create(folder);
         Map<String, Double> stageSeconds = new LinkedHashMap<>();
-        // stopped (Ctrl-C, SIGTERM) or failed: remove what this run wrote, so nothing looks complete
-        Thread cleanup = new Thread(archive::abandon, "spindrift-cleanup");
-        Runtime.getRuntime().addShutdownHook(cleanup);
-        boolean done = false;
-        try {
-            ObjectNode manifest = RunArchiveWriter.json().createObjectNode();
-            ObjectNode summary = RunArchiveWriter.json().createObjectNode();
-            RunContext ctx = new RunContext(p.loaded(), st, p.landmarks(), p.secondsPerM(), p.microarcsecPerM(),
-                    p.placed(), history, archive, manifest, summary, Math.max(1, o.threads()), o.progress(),
-                    new java.util.HashMap<>());
-            ctx.products().put(TURNING_POINTS, turning);
-            for (RunStage stage : stages) {
-                long ts = System.nanoTime();
-                stage.run(ctx);
-                stageSeconds.put(stage.name(), (System.nanoTime() - ts) * 1e-9);
-            }
-            ObjectNode diag = diagnostics(st, batch, q0, result);
-            summary.set("diagnostics", diag);
-            archive.writeJson(ArchiveLayout.SUMMARY, summary);
-            archive.finish(manifestBody(p, manifest, diag, result));
-            done = true;
-        } finally {
-            if (!done) {
-                archive.abandon();
-            }
-            try {
-                Runtime.getRuntime().removeShutdownHook(cleanup);
-            } catch (IllegalStateException e) {
-                // shutting down already
-            }
+        ObjectNode summary = RunArchiveWriter.json().createObjectNode();
+        RunContext ctx = new RunContext(p.loaded(), st, p.landmarks(), p.secondsPerM(), p.uasPerM(),
+                p.placed(), history, archive, manifest, summary, Math.max(1, o.threads()), o.progress(),
+                new java.util.HashMap<>());
+        ctx.products().put(TURNING_POINTS, turning);
+        for (RunStage stage : stages) {
+            long ts = System.nanoTime();
+            stage.run(ctx);
+            stageSeconds.put(stage.name(), (System.nanoTime() - ts) * 1e-9);
         }
-        return new Outcome(folder, history, result, (t1 - t0) * 1e-9, (System.nanoTime() - t1) * 1e-9, stageSeconds);
+        ObjectNode diag = diagnostics(st, batch, q0, result);
+        summary.set("diagnostics", diag);
+        archive.writeJson(ArchiveLayout.SUMMARY, summary);
+        archive.finish(manifestBody(p, manifest, diag, result));
+        return new Outcome(archive.target(), history, result, (t1 - t0) * 1e-9, (System.nanoTime() - t1) * 1e-9,
+                stageSeconds);
     }
 
     /** Builds the history from the integrator's snapshots. */
@@ -319,7 +400,7 @@ public final class ScenarioRun {
         return q;
     }
 
-    /** Max and median |H + 1/2|, Carter-constant drift, end states and failure reasons (DESIGN section 5). */
+    /** Max and median |H + 1/2|, Carter-constant drift, end states and failure reasons. */
     private static ObjectNode diagnostics(Spacetime st, ParticleBatch b, double[] q0, BatchIntegrator.Result res) {
         GeodesicEquations eq = new GeodesicEquations(st);
         int n = b.size();
@@ -377,7 +458,7 @@ public final class ScenarioRun {
         m.put("seed", sc.run().seed());
         ObjectNode bh = m.putObject("black_hole");
         bh.put("mass_solar", sc.blackHole().massSolar());
-        bh.put("distance_kpc", sc.blackHole().distanceKpc());
+        bh.put("distance_Mpc", sc.blackHole().distanceMpc());
         bh.put("family", sc.blackHole().family());
         bh.put("spin", sc.blackHole().spin());
         ObjectNode par = bh.putObject("parameters");
@@ -385,15 +466,15 @@ public final class ScenarioRun {
         ObjectNode u = m.putObject("units");
         u.put("M_seconds", p.secondsPerM());
         u.put("M_metres", Units.lengthUnitMetres(sc.blackHole().massSolar()));
-        u.put("M_microarcsec", p.microarcsecPerM());
+        u.put("M_uas", p.uasPerM());
         m.putObject("observer").put("inclination_deg", sc.observer().inclinationDeg())
                 .put("position_angle_deg", sc.observer().positionAngleDeg());
         ObjectNode lm = m.putObject("landmarks");
         p.landmarks().forEach((k, v) -> put(lm, k, v));
-        put(lm, "capture_radius", p.captureRadius());
         ObjectNode time = m.putObject("time");
         time.put("origin", "coordinate time t = 0 at the start of the run (emitter time)");
         time.put("duration_M", p.durationM());
+        time.put("duration_requested_M", p.requestedDurationM());
         time.put("duration_min", p.durationM() * p.secondsPerM() / 60.0);
         time.put("snapshots", p.times().length);
         time.put("cadence_M", p.times()[1] - p.times()[0]);

@@ -63,7 +63,7 @@ public final class SnapshotStage implements RunStage {
             srcOfKept[j] = h.sourceIndex()[idx[j]];
         }
         SnapshotWriter w = new SnapshotWriter(h.snapshots(), srcOfKept, k, h.spin(), sc.blackHole().massSolar(),
-                sc.blackHole().distanceKpc());
+                sc.blackHole().distanceMpc());
         double[][] cols = new double[7][m];
         float[] wt = new float[m];
         byte[] st = new byte[m];

@@ -92,6 +92,21 @@ final class ConfigSection {
         return node.fields().keySet();
     }
 
+    /**
+     * Rejects a key that an earlier version of the scenario format used, naming its replacement
+     * (call before {@link #allow}).
+     *
+     * @param old the former key
+     * @param now the key that replaced it (in this section)
+     * @param how what to write there
+     */
+    ConfigSection renamed(String old, String now, String how) {
+        if (node.fields().containsKey(old)) {
+            throw error(old, "'" + old + "' is no longer a key: use '" + key(now) + "', " + how);
+        }
+        return this;
+    }
+
     /** Rejects keys not in the allowed set, suggesting the nearest allowed key. */
     ConfigSection allow(String... allowed) {
         Set<String> ok = new LinkedHashSet<>(Arrays.asList(allowed));
@@ -350,6 +365,49 @@ final class ConfigSection {
             throw error(k, "value " + parts[0] + " is out of range; allowed " + (positive ? "(0, 1e9]" : "[-1e9, 1e9]"));
         }
         return new TimeSpan(v, u);
+    }
+
+    /**
+     * A distance written with its unit, {@code "40 Mpc"}, {@code "800 kpc"} or {@code "1e5 pc"}
+     * (required).
+     *
+     * @param max largest allowed value, Mpc
+     * @return the distance in Mpc
+     */
+    double distanceMpc(String k, double max) {
+        ConfigNode n = raw(k, true);
+        String units = "Mpc, kpc or pc";
+        if (n instanceof ConfigNode.Num num) {
+            throw error(k, "needs a unit: write for example '" + num.text() + " Mpc' (units: " + units + ")");
+        }
+        if (!(n instanceof ConfigNode.Str s)) {
+            throw error(k, "must be a distance with a unit such as '40 Mpc', got " + n.typeName());
+        }
+        String[] parts = s.value().strip().split("\\s+");
+        if (parts.length != 2) {
+            throw error(k, "'" + s.value() + "' is not a distance: write a number and a unit (" + units
+                    + "), for example '40 Mpc'");
+        }
+        double v;
+        try {
+            v = Double.parseDouble(parts[0]);
+        } catch (NumberFormatException e) {
+            throw error(k, "'" + parts[0] + "' is not a number (in '" + s.value() + "')");
+        }
+        double perMpc = switch (parts[1]) {
+            case "Mpc" -> 1.0;
+            case "kpc" -> 1.0e3;
+            case "pc" -> 1.0e6;
+            default -> Double.NaN;
+        };
+        if (Double.isNaN(perMpc)) {
+            throw error(k, "unit '" + parts[1] + "' is not allowed here; allowed units: " + units);
+        }
+        double mpc = v / perMpc;
+        if (!(Double.isFinite(v) && mpc > 0 && mpc <= max)) {
+            throw error(k, "value '" + s.value() + "' is out of range; allowed (0, " + n2s(max) + " Mpc]");
+        }
+        return mpc;
     }
 
     /** @return a list of numbers of the given length, each in range */

@@ -5,7 +5,9 @@ import com.fasterxml.jackson.core.JsonLocation;
 import com.fasterxml.jackson.core.JsonParseException;
 import com.fasterxml.jackson.core.JsonParser;
 import com.fasterxml.jackson.core.JsonToken;
+import com.fasterxml.jackson.core.json.JsonReadFeature;
 import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
+import com.fasterxml.jackson.dataformat.yaml.YAMLParser;
 import java.io.IOException;
 import java.nio.ByteBuffer;
 import java.nio.charset.CharacterCodingException;
@@ -27,12 +29,20 @@ import org.spindrift.shared.UserInputException;
  * YAML one). Rejects empty files, binary content and duplicate keys.
  */
 final class ConfigTreeReader {
+    /** Largest scenario file, bytes (1 MiB; real scenarios are a few kB). */
+    static final long MAX_BYTES = 1L << 20;
+
     private ConfigTreeReader() {
     }
 
     static ConfigNode read(Path file) {
         byte[] bytes;
         try {
+            long size = Files.size(file);
+            if (size > MAX_BYTES) {
+                throw new UserInputException(file + ": " + size + " bytes is more than a scenario file may have ("
+                        + MAX_BYTES + " bytes = 1 MiB; scenarios are a few kB)");
+            }
             bytes = Files.readAllBytes(file);
         } catch (NoSuchFileException e) {
             throw new UserInputException(file + ": no such file");
@@ -44,7 +54,9 @@ final class ConfigTreeReader {
             throw new UserInputException(file + ": the file is empty; a scenario needs at least black_hole, observer, sources and run");
         }
         boolean json = file.getFileName().toString().toLowerCase(Locale.ROOT).endsWith(".json");
-        JsonFactory f = json ? new JsonFactory() : new YAMLFactory();
+        // non-numeric numbers are read so that they can be refused with a clear message
+        JsonFactory f = json ? JsonFactory.builder().enable(JsonReadFeature.ALLOW_NON_NUMERIC_NUMBERS).build()
+                : new YAMLFactory();
         f.enable(JsonParser.Feature.STRICT_DUPLICATE_DETECTION);
         try (JsonParser p = f.createParser(text)) {
             JsonToken t = p.nextToken();
@@ -52,7 +64,7 @@ final class ConfigTreeReader {
                 throw new UserInputException(file + ": the file holds no values (only comments?); a scenario needs at least"
                         + " black_hole, observer, sources and run");
             }
-            ConfigNode root = value(p, t);
+            ConfigNode root = value(file, p, t, "");
             JsonToken extra = p.nextToken();
             if (extra != null) {
                 throw new UserInputException(file + ":" + line(p.currentTokenLocation()) + ": more than one document in the file");
@@ -90,8 +102,12 @@ final class ConfigTreeReader {
         return loc == null ? -1 : loc.getLineNr();
     }
 
-    private static ConfigNode value(JsonParser p, JsonToken t) throws IOException {
+    private static ConfigNode value(Path file, JsonParser p, JsonToken t, String path) throws IOException {
         int ln = line(p.currentTokenLocation());
+        if (p instanceof YAMLParser y && (y.isCurrentAlias() || y.getCurrentAnchor() != null)) {
+            throw ConfigSection.error(file, ln, path, "YAML anchors and aliases (&name, *name) are not supported;"
+                    + " write each value out");
+        }
         switch (t) {
             case START_OBJECT: {
                 Map<String, ConfigNode> fields = new LinkedHashMap<>();
@@ -100,7 +116,7 @@ final class ConfigTreeReader {
                 while ((k = p.nextToken()) == JsonToken.FIELD_NAME) {
                     String name = p.currentName();
                     int kl = line(p.currentTokenLocation());
-                    ConfigNode v = value(p, p.nextToken());
+                    ConfigNode v = value(file, p, p.nextToken(), path.isEmpty() ? name : path + "." + name);
                     fields.put(name, v);
                     lines.put(name, kl);
                 }
@@ -116,14 +132,20 @@ final class ConfigTreeReader {
                     if (k == null) {
                         throw new JsonParseException(p, "unterminated list");
                     }
-                    items.add(value(p, k));
+                    items.add(value(file, p, k, path + "[" + items.size() + "]"));
                 }
                 return new ConfigNode.Arr(items, ln);
             }
             case VALUE_NUMBER_INT:
                 return new ConfigNode.Num(p.getValueAsDouble(), true, p.getText(), ln);
-            case VALUE_NUMBER_FLOAT:
-                return new ConfigNode.Num(p.getDoubleValue(), false, p.getText(), ln);
+            case VALUE_NUMBER_FLOAT: {
+                // YAML's .nan / .inf (any case, signed), JSON's NaN / Infinity
+                double v = p.getText().strip().matches("(?i)[-+]?\\.(nan|inf)") ? Double.NaN : p.getDoubleValue();
+                if (!Double.isFinite(v)) {
+                    throw ConfigSection.error(file, ln, path, "numbers must be finite, got " + p.getText());
+                }
+                return new ConfigNode.Num(v, false, p.getText(), ln);
+            }
             case VALUE_TRUE:
                 return new ConfigNode.Bool(true, ln);
             case VALUE_FALSE:

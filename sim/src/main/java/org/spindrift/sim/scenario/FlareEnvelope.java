@@ -24,7 +24,7 @@ public final class FlareEnvelope {
             b = 0;
         } else if (flare instanceof Flare.Exponential e) {
             kind = 2;
-            t0 = e.start().toM(secondsPerM);
+            t0 = e.peak().toM(secondsPerM);
             a = e.rise().toM(secondsPerM);
             b = e.decay().toM(secondsPerM);
         } else {

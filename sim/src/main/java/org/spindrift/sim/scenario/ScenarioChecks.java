@@ -50,19 +50,6 @@ public final class ScenarioChecks {
         }
     }
 
-    /**
-     * @return the radius below which particles count as captured: the motion engine's
-     *     {@link OrbitSetup#captureRadius} (outer horizon + margin) when there is a horizon, the
-     *     landmarks' {@code surface_radius} for a horizonless object
-     */
-    public static double captureRadius(Spacetime st, Map<String, Double> landmarks) {
-        if (Double.isFinite(Horizons.outer(st))) {
-            return OrbitSetup.captureRadius(st);
-        }
-        Double surface = landmarks == null ? null : landmarks.get("surface_radius");
-        return surface != null && Double.isFinite(surface) && surface > 0 ? surface : OrbitSetup.captureRadius(st);
-    }
-
     /** Checks every source's orbit against the metric. */
     public static void checkSources(LoadedScenario ls, Spacetime st, double captureRadius) {
         Scenario sc = ls.scenario();
@@ -108,9 +95,9 @@ public final class ScenarioChecks {
                             .replace("(--p, --e)", "(orbit.elements)").replace("--inclination-deg", "inclination_deg");
                     throw ls.error(base + ".elements.p_M", msg);
                 }
-            } else if (o instanceof CentreOrbit.Local l) {
+            } else if (o instanceof CentreOrbit.ZamoVelocity l) {
                 if (l.radiusM() <= captureRadius) {
-                    throw ls.error(base + ".local.r_M", "r = " + l.radiusM() + " M is inside the capture radius "
+                    throw ls.error(base + ".zamo_velocity.r_M", "r = " + l.radiusM() + " M is inside the capture radius "
                             + fmt(captureRadius) + " M");
                 }
             }

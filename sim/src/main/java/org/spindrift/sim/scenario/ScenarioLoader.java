@@ -7,12 +7,15 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
+import org.spindrift.shared.Units;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.shared.scenario.BlackHole;
 import org.spindrift.shared.scenario.CentreOrbit;
 import org.spindrift.shared.scenario.Emission;
 import org.spindrift.shared.scenario.Flare;
 import org.spindrift.shared.scenario.Imaging;
 import org.spindrift.shared.scenario.Instrument;
+import org.spindrift.shared.scenario.Interferometer;
 import org.spindrift.shared.scenario.Observer;
 import org.spindrift.shared.scenario.RunSettings;
 import org.spindrift.shared.scenario.Scenario;
@@ -32,6 +35,8 @@ import org.spindrift.sim.scenario.ConfigSection.Range;
 public final class ScenarioLoader {
     /** Largest number of particles per source. */
     public static final int MAX_PARTICLES = 5_000_000;
+    /** Largest distance, Mpc. */
+    public static final double MAX_DISTANCE_MPC = 1.0e4;
 
     private ScenarioLoader() {
     }
@@ -45,7 +50,8 @@ public final class ScenarioLoader {
                     + " sources, run, ...), got " + root.typeName());
         }
         ConfigSection top = new ConfigSection(file, "", obj, lines);
-        top.allow("name", "description", "black_hole", "observer", "sources", "run", "imaging", "instrument");
+        top.allow("name", "description", "black_hole", "observer", "sources", "run", "imaging", "instrument",
+                "interferometer");
         String fileName = file.getFileName().toString();
         String dflt = fileName.replaceFirst("\\.(ya?ml|json)$", "");
         String name = top.string("name", dflt);
@@ -68,14 +74,19 @@ public final class ScenarioLoader {
         RunSettings run = run(top.section("run", true));
         Imaging imaging = imaging(top.section("imaging", false));
         Instrument instrument = instrument(top.section("instrument", false));
-        return new LoadedScenario(file, new Scenario(name, description, bh, obs, sources, run, imaging, instrument), lines);
+        Interferometer array = InterferometerLoader.read(top.section("interferometer", false), file,
+                Units.timeUnitSeconds(bh.massSolar()));
+        return new LoadedScenario(file, new Scenario(name, description, bh, obs, sources, run, imaging, instrument, array),
+                lines);
     }
 
     private static BlackHole blackHole(ConfigSection s) {
-        s.allow("mass_solar", "distance_kpc", "family", "spin", "parameters", "allow_horizonless");
+        s.renamed("distance_kpc", "distance", "a string with a unit, for example distance: \"40 Mpc\" (kpc and pc"
+                + " also accepted)");
+        s.allow("mass_solar", "distance", "family", "spin", "parameters", "allow_horizonless");
         double mass = s.number("mass_solar", Range.closed(1.0, 1.0e11));
-        double dist = s.number("distance_kpc", new Range(0.0, false, 1.0e7, true));
-        String family = s.string("family", "kerr").toLowerCase(Locale.ROOT);
+        double dist = s.distanceMpc("distance", MAX_DISTANCE_MPC);
+        String family = org.spindrift.sim.spacetime.Spacetimes.canonical(s.string("family", "kerr").toLowerCase(Locale.ROOT));
         double spin = s.number("spin", 0.0, Range.closed(-100, 100)); // family range: ScenarioChecks
         ConfigSection p = s.section("parameters", false);
         Map<String, Double> params = p == null ? Map.of() : p.numberMap(Range.closed(-1e6, 1e6));
@@ -109,8 +120,9 @@ public final class ScenarioLoader {
             s.allow("inner_radius_M", "outer_radius_M", "arc_deg");
             double in = s.number("inner_radius_M", Range.positive(1e5));
             double out = s.number("outer_radius_M", Range.positive(1e5));
-            if (!(out > in)) {
-                throw s.error("outer_radius_M", "must be larger than inner_radius_M (" + in + "), got " + out);
+            if (out < in) {
+                // equal radii: a ring of zero width (every member on one circular orbit)
+                throw s.error("outer_radius_M", "must be at least inner_radius_M (" + in + "), got " + out);
             }
             return new SourceShape.Ring(in, out, s.number("arc_deg", 10.0, new Range(0, false, 360, true)));
         }
@@ -131,11 +143,13 @@ public final class ScenarioLoader {
     }
 
     private static CentreOrbit orbit(ConfigSection s, Source.Kind kind, SourceShape shape) {
-        s.allow("circular", "elements", "local");
-        int given = (s.has("circular") ? 1 : 0) + (s.has("elements") ? 1 : 0) + (s.has("local") ? 1 : 0);
+        s.renamed("local", "zamo_velocity", "the same keys (r_M, theta_deg, phi_deg, v_r, v_theta, v_phi; velocities"
+                + " measured by the zero-angular-momentum observer)");
+        s.allow("circular", "elements", "zamo_velocity");
+        int given = (s.has("circular") ? 1 : 0) + (s.has("elements") ? 1 : 0) + (s.has("zamo_velocity") ? 1 : 0);
         if (given != 1) {
             throw s.error(s.keys().isEmpty() ? "circular" : s.keys().iterator().next(),
-                    "give exactly one of circular, elements or local (got " + given + ")");
+                    "give exactly one of circular, elements or zamo_velocity (got " + given + ")");
         }
         if (kind == Source.Kind.RING && !s.has("circular")) {
             throw s.error(s.keys().iterator().next(), "a ring's centre moves on a circular orbit: use orbit.circular");
@@ -164,7 +178,7 @@ public final class ScenarioLoader {
                     .toUpperCase(Locale.ROOT));
             return new CentreOrbit.Elements(p, ecc, inc, sense, start, e.number("phi_deg", 0.0, Range.closed(-360, 360)));
         }
-        ConfigSection l = s.section("local", true).allow("r_M", "theta_deg", "phi_deg", "v_r", "v_theta", "v_phi");
+        ConfigSection l = s.section("zamo_velocity", true).allow("r_M", "theta_deg", "phi_deg", "v_r", "v_theta", "v_phi");
         double r = l.number("r_M", Range.positive(1e5));
         double th = l.number("theta_deg", 90.0, new Range(0, false, 180, false));
         double ph = l.number("phi_deg", 0.0, Range.closed(-360, 360));
@@ -173,10 +187,10 @@ public final class ScenarioLoader {
         double vp = l.number("v_phi", 0.0, Range.closed(-1, 1));
         double v2 = vr * vr + vt * vt + vp * vp;
         if (!(v2 < 1.0)) {
-            throw l.error("v_phi", "the local speed sqrt(v_r^2 + v_theta^2 + v_phi^2) = " + Math.sqrt(v2)
+            throw l.error("v_phi", "the speed sqrt(v_r^2 + v_theta^2 + v_phi^2) = " + Math.sqrt(v2)
                     + " must be below 1 (units of c)");
         }
-        return new CentreOrbit.Local(r, th, ph, vr, vt, vp);
+        return new CentreOrbit.ZamoVelocity(r, th, ph, vr, vt, vp);
     }
 
     private static VelocityModel velocity(ConfigSection s, Source.Kind kind) {
@@ -216,8 +230,9 @@ public final class ScenarioLoader {
                 s.allow("kind", "peak", "width");
                 return new Flare.Gaussian(s.time("peak", null, false, false, false), s.time("width", null, false, false, true));
             default:
-                s.allow("kind", "start", "rise", "decay");
-                return new Flare.Exponential(s.time("start", null, false, false, false), s.time("rise", null, false, false, true),
+                s.renamed("start", "peak", "the time of the maximum");
+                s.allow("kind", "peak", "rise", "decay");
+                return new Flare.Exponential(s.time("peak", null, false, false, false), s.time("rise", null, false, false, true),
                         s.time("decay", null, false, false, true));
         }
     }
@@ -236,10 +251,11 @@ public final class ScenarioLoader {
         if (s == null) {
             return Imaging.defaults();
         }
-        s.allow("field_of_view_M", "pixels", "frame_cadence", "lensing");
+        s.allow("field_of_view_M", "pixels", "frame_cadence", "lensing", "sky_colours");
         return new Imaging(s.number("field_of_view_M", Imaging.DEFAULT_FIELD_OF_VIEW_M, Range.positive(1e5)),
                 (int) s.integer("pixels", (long) Imaging.DEFAULT_PIXELS, 8, 4096),
-                s.time("frame_cadence", null, true, false, true), s.bool("lensing", true));
+                s.time("frame_cadence", null, true, false, true), s.bool("lensing", true),
+                ColourRamp.skyOption(s.choice("sky_colours", "default", "default", "grey")));
     }
 
     private static Instrument instrument(ConfigSection s) {

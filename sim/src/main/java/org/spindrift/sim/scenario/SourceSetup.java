@@ -15,12 +15,12 @@ import org.spindrift.sim.spacetime.CircularOrbits;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * Initial conditions of every source's particles (DESIGN section 6), at coordinate time 0.
+ * Initial conditions of every source's particles, at coordinate time 0.
  *
  * <ul>
  *   <li>Hot spot and cloud: positions Gaussian about the centre along its local radial,
  *       azimuthal and vertical directions (ball: one sigma; ellipsoid: three), in the Cartesian
- *       display coordinates of DESIGN section 3, mapped back with
+ *       display coordinates (x = sqrt(r^2 + a^2) sin(theta) cos(phi), ...), mapped back with
  *       {@link Coordinates#boyerLindquist}; draws that land inside the capture radius are drawn
  *       again (a Gaussian truncated at the horizon).</li>
  *   <li>Ring: radii uniform in [inner, outer], azimuths uniform over the arc, in the equatorial
@@ -49,7 +49,7 @@ public final class SourceSetup {
      * @param phi azimuth
      * @param velocity ZAMO-frame 3-velocity (v_r, v_theta, v_phi), units of c
      * @param periodM the centre's orbital period in coordinate time, M (what "1 orbit" means):
-     *     circular orbits 2 pi / |Omega|, orbit elements the measured radial period, local starts a
+     *     circular orbits 2 pi / |Omega|, orbit elements the measured radial period, ZAMO-velocity starts a
      *     Keplerian estimate
      * @param prediction the metric's prediction of the periods for this centre
      */
@@ -155,7 +155,7 @@ public final class SourceSetup {
         if (o instanceof CentreOrbit.Elements e) {
             return ElementsStart.centre(e, st, zamo, captureRadius);
         }
-        CentreOrbit.Local l = (CentreOrbit.Local) o;
+        CentreOrbit.ZamoVelocity l = (CentreOrbit.ZamoVelocity) o;
         double th = Math.toRadians(l.thetaDeg());
         boolean pro = l.vPhi() >= 0;
         double om = CircularOrbits.omega(st, l.radiusM(), pro);

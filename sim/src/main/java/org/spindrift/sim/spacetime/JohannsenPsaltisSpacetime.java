@@ -31,7 +31,7 @@ import org.hipparchus.util.FastMath;
  */
 public final class JohannsenPsaltisSpacetime implements Spacetime {
     /** Family name on the command line. */
-    public static final String FAMILY = "jp";
+    public static final String FAMILY = "johannsen-psaltis";
 
     private final double a;
     private final double eps;

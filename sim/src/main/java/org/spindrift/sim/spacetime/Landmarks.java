@@ -6,8 +6,7 @@ import java.util.function.DoubleUnaryOperator;
 import org.hipparchus.util.FastMath;
 
 /**
- * The metric landmarks of a {@link Spacetime}, computed numerically for any member (DESIGN
- * section 4): radii in M, frequencies in 1/M, NaN where a landmark does not exist (null in
+ * The metric landmarks of a {@link Spacetime}, computed numerically for any member: radii in M, frequencies in 1/M, NaN where a landmark does not exist (null in
  * {@link #toMap()}). Immutable.
  *
  * <p>Definitions (prograde / retrograde as in {@link CircularOrbits}: Omega &gt; 0 / &lt; 0):
@@ -28,8 +27,8 @@ import org.hipparchus.util.FastMath;
  *   <li>{@code omega_max_*}: the outermost maximum of the prograde Omega(r), i.e. the outermost
  *       root of dOmega/dr, searched only where prograde circular orbits are timelike and
  *       connected to infinity; null when Omega grows monotonically inwards (as in Kerr).</li>
- *   <li>{@code surface_radius} (horizonless objects only, null otherwise): where particles and
- *       rays are stopped, see {@link #surfaceRadius()}.</li>
+ *   <li>{@code capture_radius}: where particles and rays are stopped, see
+ *       {@link #captureRadius()}; the only such cut-off in the project.</li>
  * </ul>
  * Searches cover r up to {@value #R_OUT} M on a geometric grid of
  * {@value RadialSearch#POINTS_PER_DECADE} points per decade, each sign change polished with
@@ -42,6 +41,12 @@ public final class Landmarks {
     public static final double MIN_SURFACE = 0.05;
     /** Surface radius as a fraction of the innermost circular-orbit landmark. */
     public static final double SURFACE_FRACTION = 0.5;
+    /**
+     * Margin added to the outer horizon for the capture radius, M (common practice, no source:
+     * Boyer-Lindquist-like coordinates are singular at the horizon, where coordinate-time steps
+     * shrink without bound, so trajectories end just outside it).
+     */
+    public static final double CAPTURE_MARGIN = 0.01;
 
     private final String family;
     private final double spin;
@@ -54,7 +59,7 @@ public final class Landmarks {
     private final double marginallyBoundPrograde;
     private final double omegaMaxRadius;
     private final double omegaMaxValue;
-    private final double surfaceRadius;
+    private final double captureRadius;
 
     private Landmarks(String family, double spin, double[] v) {
         this.family = family;
@@ -68,7 +73,7 @@ public final class Landmarks {
         this.marginallyBoundPrograde = v[6];
         this.omegaMaxRadius = v[7];
         this.omegaMaxValue = v[8];
-        this.surfaceRadius = v[9];
+        this.captureRadius = Double.isNaN(v[0]) ? v[9] : v[0] + CAPTURE_MARGIN;
     }
 
     /** Computes the landmarks of st (a few tens of milliseconds). */
@@ -199,26 +204,37 @@ public final class Landmarks {
     }
 
     /**
-     * Surface radius of a horizonless object (NaN when there is a horizon): particles and rays
-     * that reach r &lt; surface_radius are stopped (treated like capture). Our choice (no
-     * published convention): {@value #SURFACE_FRACTION} times the innermost of the other
-     * landmark radii that exist (ergosurface, ISCOs, photon orbits, marginally bound orbit,
-     * Omega maximum), at least {@value #MIN_SURFACE} M, and at least
-     * 1.1 times the radius where the metric stops being regular ({@link #regularityLimit}).
-     * Everything the landmarks describe lies well outside it.
+     * The capture radius {@code capture_radius}: particles and rays that reach r below it are
+     * stopped (end state captured), and scenario orbits must start outside it. One definition
+     * for the whole project:
+     * <ul>
+     *   <li>with a horizon: the outer horizon + {@value #CAPTURE_MARGIN} M;</li>
+     *   <li>without one: a surface of our choice (no published convention):
+     *       {@value #SURFACE_FRACTION} times the innermost of the other landmark radii that exist
+     *       (ergosurface, ISCOs, photon orbits, marginally bound orbit, Omega maximum), at least
+     *       {@value #MIN_SURFACE} M, and at least 1.1 times the radius where the metric stops
+     *       being regular ({@link #regularityLimit}). Everything the landmarks describe lies well
+     *       outside it.</li>
+     * </ul>
      */
-    public double surfaceRadius() {
-        return surfaceRadius;
-    }
-
-    /** @return where particles and rays are stopped: the horizon, or the surface radius */
     public double captureRadius() {
-        return hasHorizon() ? horizonOuter : surfaceRadius;
+        return captureRadius;
     }
 
     /**
-     * @return the landmarks under the keys of {@code landmarks --json} (issue 2) plus
-     *     {@code surface_radius}, in that order; absent landmarks as null
+     * @return the capture radius of st ({@link #captureRadius()}); with a horizon without
+     *     computing the other landmarks
+     */
+    public static double captureRadius(Spacetime st) {
+        double rh = Horizons.outer(st);
+        return Double.isNaN(rh) ? of(st).captureRadius() : rh + CAPTURE_MARGIN;
+    }
+
+    /**
+     * @return the landmarks under the keys of {@code landmarks --json}: horizon_outer,
+     *     ergosurface_equator, isco_prograde, isco_retrograde, photon_orbit_prograde,
+     *     photon_orbit_retrograde, marginally_bound_prograde, omega_max_radius, omega_max_value,
+     *     capture_radius, in that order; absent landmarks as null
      */
     public Map<String, Double> toMap() {
         Map<String, Double> m = new LinkedHashMap<>();
@@ -231,7 +247,7 @@ public final class Landmarks {
         m.put("marginally_bound_prograde", nullable(marginallyBoundPrograde));
         m.put("omega_max_radius", nullable(omegaMaxRadius));
         m.put("omega_max_value", nullable(omegaMaxValue));
-        m.put("surface_radius", nullable(surfaceRadius));
+        m.put("capture_radius", nullable(captureRadius));
         return m;
     }
 

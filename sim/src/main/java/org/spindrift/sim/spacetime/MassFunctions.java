@@ -4,7 +4,7 @@ import java.util.Arrays;
 import java.util.Objects;
 import org.hipparchus.CalculusFieldElement;
 
-/** The mass functions of DESIGN section 4, all with M = 1. */
+/** The mass functions m(r) of the Kerr-like families (Kerr, Kerr-Newman, Hayward, Bardeen, mass series), all with M = 1. */
 public final class MassFunctions {
     private MassFunctions() {
     }

@@ -26,14 +26,14 @@ import org.spindrift.shared.UserInputException;
  *   <tr><td>bardeen</td><td>core_charge</td><td>m(r) = r^3 / (r^2 + g^2)^(3/2)</td></tr>
  *   <tr><td>mass-series</td><td>c1, c2, ... (ck: coefficient of (M/r)^k)</td>
  *       <td>m(r) = 1 + sum_k c_k r^-k</td></tr>
- *   <tr><td>jp</td><td>epsilon3</td><td>{@link JohannsenPsaltisSpacetime}</td></tr>
+ *   <tr><td>johannsen-psaltis (alias jp)</td><td>epsilon3</td><td>{@link JohannsenPsaltisSpacetime}</td></tr>
  * </table>
  *
  * Ranges: |a| &lt;= {@value #MAX_SPIN}; charge, core_length and core_charge with magnitude
  * &lt;= {@value #MAX_LENGTH} (core lengths and charges non-negative); series powers k in
  * 1..{@value #MAX_POWER} with |c_k| &lt;= {@value #MAX_COEFFICIENT}; |epsilon3| &lt;=
  * {@value #MAX_EPSILON3}. Unless horizonless objects are allowed, the object must have a horizon
- * ({@link Horizons#outer} finite); for jp with a horizon, also epsilon3 &gt; -r_+^3 with
+ * ({@link Horizons#outer} finite); for johannsen-psaltis with a horizon, also epsilon3 &gt; -r_+^3 with
  * r_+ = 1 + sqrt(1 - a^2), the bound of Johannsen &amp; Psaltis 2011 (Phys. Rev. D 83, 124015;
  * recalled from memory) that keeps 1 + h &gt; 0 outside the horizon, and a closed surface
  * g^rr = 0 (large positive epsilon3 at high spin opens it at the equator).
@@ -41,7 +41,9 @@ import org.spindrift.shared.UserInputException;
 public final class Spacetimes {
     /** Family names, as on the command line. */
     public static final List<String> FAMILIES =
-            List.of("kerr", "kerr-newman", "hayward", "bardeen", "mass-series", "jp");
+            List.of("kerr", "kerr-newman", "hayward", "bardeen", "mass-series", "johannsen-psaltis");
+    /** Short names accepted for a family (alias -> family). */
+    public static final Map<String, String> ALIASES = Map.of("jp", "johannsen-psaltis");
     /** Largest |spin| accepted (horizonless objects), M. */
     public static final double MAX_SPIN = 5.0;
     /** Largest charge, core length or core charge accepted, M. */
@@ -76,13 +78,18 @@ public final class Spacetimes {
     private Spacetimes() {
     }
 
+    /** @return the family name for a name or alias ({@link #ALIASES}), unchanged when unknown */
+    public static String canonical(String family) {
+        return family == null ? null : ALIASES.getOrDefault(family, family);
+    }
+
     /** As {@link #create(String, double, Map, boolean, Function)} with the parameter keys as names. */
     public static Spacetime create(String family, double spin, Map<String, Double> params, boolean allowNoHorizon) {
         return create(family, spin, params, allowNoHorizon, Function.identity());
     }
 
     /**
-     * @param family one of {@link #FAMILIES}
+     * @param name one of {@link #FAMILIES} or an alias ({@link #ALIASES})
      * @param spin a in units of M
      * @param params the family's parameters by key (see the class comment); may be empty
      * @param allowNoHorizon accept objects without a horizon (naked singularities, regular cores)
@@ -91,11 +98,12 @@ public final class Spacetimes {
      * @return the spacetime
      * @throws UserInputException with a one-line message naming the parameter and its allowed range
      */
-    public static Spacetime create(String family, double spin, Map<String, Double> params, boolean allowNoHorizon,
+    public static Spacetime create(String name, double spin, Map<String, Double> params, boolean allowNoHorizon,
                                    Function<String, String> names) {
+        final String family = canonical(name);
         if (family == null || !FAMILIES.contains(family)) {
             throw new UserInputException(names.apply(FAMILY) + " = " + family
-                    + " is not a known family: one of " + String.join(", ", FAMILIES));
+                    + " is not a known family: one of " + String.join(", ", FAMILIES) + " (alias jp)");
         }
         final Map<String, Double> p = params == null ? Map.of() : params;
         if (!Double.isFinite(spin) || Math.abs(spin) > MAX_SPIN) {
@@ -162,7 +170,7 @@ public final class Spacetimes {
                 }
                 return st;
             }
-            case "jp" -> {
+            case "johannsen-psaltis" -> {
                 double e = required(p, EPSILON3, family, names);
                 range(names.apply(EPSILON3), e, x -> Math.abs(x) <= MAX_EPSILON3, "|epsilon3| <= " + fmt(MAX_EPSILON3));
                 if (!allowNoHorizon) {
@@ -232,7 +240,7 @@ public final class Spacetimes {
             case "kerr-newman" -> Set.of(CHARGE);
             case "hayward" -> Set.of(CORE_LENGTH);
             case "bardeen" -> Set.of(CORE_CHARGE);
-            case "jp" -> Set.of(EPSILON3);
+            case "johannsen-psaltis" -> Set.of(EPSILON3);
             default -> Set.of();
         };
         for (String key : p.keySet()) {
@@ -243,7 +251,7 @@ public final class Spacetimes {
                     case CHARGE -> "kerr-newman";
                     case CORE_LENGTH -> "hayward";
                     case CORE_CHARGE -> "bardeen";
-                    case EPSILON3 -> "jp";
+                    case EPSILON3 -> "johannsen-psaltis";
                     default -> null;
                 };
                 throw new UserInputException(shown + " does not apply to family " + family

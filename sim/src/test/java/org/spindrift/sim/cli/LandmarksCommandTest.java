@@ -22,16 +22,16 @@ class LandmarksCommandTest {
     }
 
     @Test
-    void jsonHasTheKeysOfTheIssue(@TempDir Path dir) throws Exception {
+    void jsonHasTheDocumentedKeys(@TempDir Path dir) throws Exception {
         Path png = dir.resolve("kerr.png");
         String out = run(0, "landmarks", "--family", "kerr", "--spin", "0.9", "--json", "--plot", png.toString())[0];
         JsonNode j = new ObjectMapper().readTree(out);
         List<String> keys = new ArrayList<>();
         j.fieldNames().forEachRemaining(keys::add);
-        // keys fixed by issue 2, plus surface_radius (run-archive manifest, DEVELOPERS.md)
+        // the keys documented in README.md (landmarks --json)
         assertEquals(List.of("horizon_outer", "ergosurface_equator", "isco_prograde", "isco_retrograde",
                 "photon_orbit_prograde", "photon_orbit_retrograde", "marginally_bound_prograde", "omega_max_radius",
-                "omega_max_value", "surface_radius"), keys);
+                "omega_max_value", "capture_radius"), keys);
         // BPT 1972 eq. 2.21 at a = 0.9 (value computed from the closed form, see LandmarksTest)
         assertEquals(2.3208830417618, j.get("isco_prograde").asDouble(), 1e-9);
         assertTrue(j.get("omega_max_radius").isNull());
@@ -48,7 +48,8 @@ class LandmarksCommandTest {
     @CsvSource(delimiter = ';', value = {
         "--family kerr --spin 0.5", "--family kerr-newman --spin 0.5 --charge 0.6",
         "--family hayward --spin 0.5 --core-length 0.4", "--family bardeen --spin 0.5 --core-charge 0.3",
-        "--family mass-series --spin 0.5 --series 2=0.5,3=-0.1", "--family jp --spin 0.5 --epsilon3 1.5"})
+        "--family mass-series --spin 0.5 --series 2=0.5,3=-0.1", "--family jp --spin 0.5 --epsilon3 1.5",
+        "--family johannsen-psaltis --spin 0.5 --epsilon3 1.5"})
     void everyFamilyAnswers(String args) throws Exception {
         List<String> argv = new ArrayList<>(List.of("landmarks", "--json", "--at", "8"));
         argv.addAll(List.of(args.split(" ")));
@@ -88,7 +89,7 @@ class LandmarksCommandTest {
         "--family jp --spin 0.5 --epsilon3 -7;--epsilon3 = -7 is out of range: epsilon3 > -(1 + sqrt(1 - a^2))^3"
                 + " = -6.4976 at --spin = 0.5 (use --allow-horizonless for a horizonless object)",
         "--family schwarzschild;--family = schwarzschild is not a known family: one of kerr, kerr-newman, hayward,"
-                + " bardeen, mass-series, jp",
+                + " bardeen, mass-series, johannsen-psaltis (alias jp)",
         "--at -3;--at radius -3.0 is out of range: 0 < r <= 1e6 M",
     })
     void badParametersExitWithStatusTwoAndOneLine(String args, String message) {

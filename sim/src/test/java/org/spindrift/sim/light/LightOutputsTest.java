@@ -24,8 +24,8 @@ class LightOutputsTest {
     private static LightResult smallRun() {
         Spacetime st = LightTestSupport.kerr(0.3);
         CircularSpotHistory h = new CircularSpotHistory(st, 7.0, 0.0, 0.4, 200, 0.0, 300.0, 100, 1.0, 11L);
-        LightSettings s = new LightSettings(50.0, 30.0, 24.0, 40, 3.0, true, 4.0e6, 8.0, 20.0, 0.5, 5.0, 1.0, 3L);
-        return LightStage.run(s, st, LightTestSupport.stopRadius(0.3), h, 2);
+        LightSettings s = new LightSettings(50.0, 30.0, 24.0, 40, 3.0, true, 1.0e6, 1.0e-3, 30.0, 0.5, 3.0, 1.0, 3L);
+        return LightStage.run(s, st, LightTestSupport.captureRadius(0.3), h, 2);
     }
 
     @Test
@@ -42,6 +42,16 @@ class LightOutputsTest {
                 Files.copy(dir.resolve(n), to, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
             }
         }
+        // the image frames use the shared sky ramp: empty sky (intensity 0) is its dark end
+        java.awt.image.BufferedImage img = javax.imageio.ImageIO.read(dir.resolve("plots/light_images.png").toFile());
+        int dark = org.spindrift.shared.colour.ColourRamp.SKY.rgb(0.0);
+        int count = 0;
+        for (int y = 0; y < img.getHeight(); y++) {
+            for (int x = 0; x < img.getWidth(); x++) {
+                count += (img.getRGB(x, y) & 0xffffff) == dark ? 1 : 0;
+            }
+        }
+        assertTrue(count > 1000, "pixels of the sky ramp's dark end in light_images.png: " + count);
         List<String> c = Files.readAllLines(dir.resolve("centroid.csv"), StandardCharsets.UTF_8);
         assertEquals(LightOutputs.CENTROID_HEADER, c.get(0));
         assertEquals(r.timesM().length + 1, c.size());
@@ -66,7 +76,7 @@ class LightOutputsTest {
         assertEquals(r.camera().pixels(), cube.pixels());
         assertEquals(r.images()[mid][5 * r.camera().pixels() + 7], cube.frames()[mid][5][7]);
         assertEquals(r.camera().pixelSize() * r.settings().uasPerM(), cube.pixelUas(), 1e-9);
-        assertEquals(20.0, cube.beamFwhmUas(), 1e-9);
+        assertEquals(30.0, cube.beamFwhmUas(), 1e-9);
 
         double pixDeg = r.camera().pixelSize() * r.settings().uasPerM() / 3.6e9;
         String py = String.join("\n",
@@ -79,7 +89,9 @@ class LightOutputsTest {
                 "c = w.celestial",
                 "s = proj_plane_pixel_scales(c)",
                 "ra, dec = c.wcs_pix2world([[(h.header['NAXIS1'] - 1) / 2.0, (h.header['NAXIS2'] - 1) / 2.0]], 0)[0]",
-                "print(w.naxis, h.data.shape[0], s[0], s[1], c.wcs.cdelt[0], ra, dec, w.wcs.ctype[2])");
+                "print(w.naxis, h.data.shape[0], s[0], s[1], c.wcs.cdelt[0], ra, dec, w.wcs.ctype[2],",
+                "      'RADESYS' in h.header, 'EQUINOX' in h.header, 'PA' in h.header, h.header['SPINPA'],",
+                "      w.wcs.name.replace(' ', '_'), w.has_celestial)");
         String exe = ExternalPython.require("astropy.wcs", "python3-astropy");
         List<String> lines = ExternalPython.run(exe, py, dir.resolve("images.fits").toString());
         String out = lines.get(lines.size() - 1);
@@ -92,11 +104,18 @@ class LightOutputsTest {
         assertEquals(expected, Double.parseDouble(f[2]), 1e-6 * expected, "x pixel scale");
         assertEquals(expected, Double.parseDouble(f[3]), 1e-6 * expected, "y pixel scale");
         assertTrue(Double.parseDouble(f[4]) < 0, "CDELT1 negative: east to the left");
-        // image centre maps to the reference point (the black hole), RA 0 or 360, Dec 0
+        // image centre maps to the reference point (the black hole), longitude 0 or 360, latitude 0
         double ra = Double.parseDouble(f[5]);
         assertEquals(0.0, Math.min(ra, 360.0 - ra), 1e-12);
         assertEquals(0.0, Double.parseDouble(f[6]), 1e-12);
         assertEquals("TIME", f[7]);
+        // offset frame: no equatorial system claimed, named by WCSNAME; spin PA not confusable with BPA
+        assertEquals("False", f[8], "no RADESYS");
+        assertEquals("False", f[9], "no EQUINOX");
+        assertEquals("False", f[10], "no PA card");
+        assertEquals(r.settings().positionAngleDeg(), Double.parseDouble(f[11]), 1e-12);
+        assertEquals(LightOutputs.OFFSET_FRAME.replace(' ', '_'), f[12]);
+        assertEquals("True", f[13], "astropy reads the offset pair as celestial");
     }
 
 }

@@ -12,7 +12,7 @@ import org.spindrift.sim.spacetime.Spacetime;
 /** End-to-end checks of rays, slow-light emission, frames and instrument effects. */
 class LightStageTest {
     private static LightSettings settings(double inc, double fov, int n, double cadence, double steady) {
-        return new LightSettings(inc, 0.0, fov, n, cadence, true, 4.0e6, 8.0, 0.0, steady, 0.0, 1.0, 7L);
+        return new LightSettings(inc, 0.0, fov, n, cadence, true, 1.0e6, 1.0e-3, 0.0, steady, 0.0, 1.0, 7L);
     }
 
     @Test
@@ -22,7 +22,7 @@ class LightStageTest {
         double period = 2 * FastMath.PI * FastMath.pow(re, 1.5);   // coordinate period 2 pi r^1.5 (Kepler; exact in Schwarzschild)
         CircularSpotHistory h = new CircularSpotHistory(st, re, 0.0, 0.3, 300, 0.0, 1.6 * period, 200, 1.0, 3L);
         LightSettings s = settings(0.0, 30.0, 64, period / 40.0, 1.0);
-        LightResult res = LightStage.run(s, st, LightTestSupport.stopRadius(0.0), h, 2);
+        LightResult res = LightStage.run(s, st, LightTestSupport.captureRadius(0.0), h, 2);
         double expected = RayTracerTest.primaryImpactParameter(re);
         Camera cam = res.camera();
         int n = cam.pixels();
@@ -77,7 +77,7 @@ class LightStageTest {
         Spacetime st = LightTestSupport.kerr(0.0);
         double re = 8.0;
         Camera cam = new Camera(0.0, 0.0, 30.0, 64, 1.0e4);
-        TraceSettings ts = TraceSettings.of(30.0, LightTestSupport.stopRadius(0.0), 0.01, true);
+        TraceSettings ts = TraceSettings.of(30.0, LightTestSupport.captureRadius(0.0), 0.01, true);
         double b = RayTracerTest.primaryImpactParameter(re);
         SampleBuffer buf = new SampleBuffer(64);
         RayTracer tr = new RayTracer(st, ts);
@@ -112,7 +112,7 @@ class LightStageTest {
             double phase = (side == 0 ? -0.5 : 0.5) * FastMath.PI;
             CircularSpotHistory h = new CircularSpotHistory(st, re, phase, 3.0, 60, -tHalf, tHalf, 60, alpha, 5L);
             LightSettings s = settings(90.0, 900.0, 64, 100.0, 0.0);
-            LightResult res = LightStage.run(s, st, LightTestSupport.stopRadius(0.0), h, 2);
+            LightResult res = LightStage.run(s, st, LightTestSupport.captureRadius(0.0), h, 2);
             int mid = res.timesM().length / 2;
             flux[side] = res.moments().get(mid).flux();
             east[side] = res.moments().get(mid).x();
@@ -135,8 +135,8 @@ class LightStageTest {
         CircularSpotHistory h = new CircularSpotHistory(st, re, 0.0, 0.4, 200, 0.0, 520.0, 160, 1.0, 9L);
         double period = 2 * FastMath.PI / h.omega();
         LightSettings s = settings(60.0, 24.0, 48, 3.0, 0.0);
-        LightResult r1 = LightStage.run(s, st, LightTestSupport.stopRadius(a), h, 1);
-        LightResult r2 = LightStage.run(s, st, LightTestSupport.stopRadius(a), h, 2);
+        LightResult r1 = LightStage.run(s, st, LightTestSupport.captureRadius(a), h, 1);
+        LightResult r2 = LightStage.run(s, st, LightTestSupport.captureRadius(a), h, 2);
         for (int f = 0; f < r1.images().length; f++) {
             assertArrayEquals(r1.images()[f], r2.images()[f], "frame " + f + " independent of threads");
         }
@@ -181,8 +181,8 @@ class LightStageTest {
         double re = 10.0;
         double period = 2 * FastMath.PI * FastMath.pow(re, 1.5);
         CircularSpotHistory h = new CircularSpotHistory(st, re, 0.0, 0.3, 200, 0.0, 1.2 * period, 150, 1.0, 4L);
-        LightSettings s = new LightSettings(0.0, 0.0, 30.0, 64, period / 30.0, false, 4.0e6, 8.0, 0.0, 0.0, 0.0, 1.0, 7L);
-        LightResult res = LightStage.run(s, st, LightTestSupport.stopRadius(0.0), h, 2);
+        LightSettings s = new LightSettings(0.0, 0.0, 30.0, 64, period / 30.0, false, 1.0e6, 1.0e-3, 0.0, 0.0, 0.0, 1.0, 7L);
+        LightResult res = LightStage.run(s, st, LightTestSupport.captureRadius(0.0), h, 2);
         int checked = 0;
         for (int f = 0; f < res.timesM().length; f++) {
             if (res.covered(f)) {
@@ -196,9 +196,9 @@ class LightStageTest {
         assertTrue(checked > 10, "covered frames");
         // delays kept: on straight lines the delay of a point x is the Roemer delay -n.x, n the unit
         // vector towards the observer (flat-space light travel time, common practice)
-        LightSettings s2 = new LightSettings(60.0, 0.0, 30.0, 32, 5.0, false, 4.0e6, 8.0, 0.0, 0.0, 0.0, 1.0, 7L);
+        LightSettings s2 = new LightSettings(60.0, 0.0, 30.0, 32, 5.0, false, 1.0e6, 1.0e-3, 0.0, 0.0, 0.0, 1.0, 7L);
         Camera cam = s2.camera();
-        TraceSettings ts = LightStage.traceSettings(h, st, cam, LightTestSupport.stopRadius(0.0), 30.0, false);
+        TraceSettings ts = LightStage.traceSettings(h, st, cam, LightTestSupport.captureRadius(0.0), 30.0, false);
         RayTable t = RayTable.trace(st, cam, ts, 1);
         double[] p = new double[6];
         cam.startPoint(0.0, 0.0, p);

@@ -1,5 +1,6 @@
 package org.spindrift.sim.light;
 
+import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 import org.spindrift.sim.spacetime.MassFunctions;
 import org.spindrift.sim.spacetime.Spacetime;
@@ -13,9 +14,9 @@ final class LightTestSupport {
         return new MassFunctionSpacetime("kerr", a, MassFunctions.constant());
     }
 
-    /** Outer Kerr horizon 1 + sqrt(1 - a^2) (Boyer &amp; Lindquist 1967), plus a small margin. */
-    static double stopRadius(double a) {
-        return 1.0 + Math.sqrt(1.0 - a * a) + 1.0e-3;
+    /** Outer Kerr horizon 1 + sqrt(1 - a^2) (Boyer &amp; Lindquist 1967), plus the project's capture margin. */
+    static double captureRadius(double a) {
+        return 1.0 + Math.sqrt(1.0 - a * a) + Landmarks.CAPTURE_MARGIN;
     }
 
     /** Traces the ray through screen point (alpha, beta) of the camera; returns its end. */

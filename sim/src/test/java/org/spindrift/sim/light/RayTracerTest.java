@@ -34,7 +34,7 @@ class RayTracerTest {
     void schwarzschildShadowRadiusIsSqrt27() {
         Spacetime st = LightTestSupport.kerr(0.0);
         Camera cam = new Camera(40.0, 0.0, 20.0, 64, D);
-        TraceSettings s = TraceSettings.of(20.0, LightTestSupport.stopRadius(0.0), 0.5, true);
+        TraceSettings s = TraceSettings.of(20.0, LightTestSupport.captureRadius(0.0), 0.5, true);
         for (double w : new double[] {0.3, 2.0, 4.4}) {
             double b = boundary(st, cam, s, 0.0, 0.0, w, 4.0, 7.0);
             // Synge 1966, MNRAS 131, 463: critical impact parameter sqrt(27) M; the camera's
@@ -48,7 +48,7 @@ class RayTracerTest {
         double a = 0.9;
         Spacetime st = LightTestSupport.kerr(a);
         Camera cam = new Camera(90.0, 0.0, 20.0, 64, D);
-        TraceSettings s = TraceSettings.of(20.0, LightTestSupport.stopRadius(a), 0.5, true);
+        TraceSettings s = TraceSettings.of(20.0, LightTestSupport.captureRadius(a), 0.5, true);
         // photon-orbit radii: Bardeen, Press & Teukolsky 1972, ApJ 178, 347, eq. 2.18
         double rPro = 2.0 * (1.0 + FastMath.cos(2.0 / 3.0 * FastMath.acos(-a)));
         double rRet = 2.0 * (1.0 + FastMath.cos(2.0 / 3.0 * FastMath.acos(a)));
@@ -82,7 +82,7 @@ class RayTracerTest {
     void weakFieldDeflectionMatchesEpsteinShapiro() {
         Spacetime st = LightTestSupport.kerr(0.0);
         double far = 1.0e7;
-        TraceSettings s = new TraceSettings(0.0, LightTestSupport.stopRadius(0.0), far, 1.0, 1.0e-12, 1.0e-14,
+        TraceSettings s = new TraceSettings(0.0, LightTestSupport.captureRadius(0.0), far, 1.0, 1.0e-12, 1.0e-14,
                 100_000, true, null);
         RayTracer tr = new RayTracer(st, s);
         double[] y0 = new double[6];
@@ -116,7 +116,7 @@ class RayTracerTest {
     void faceOnPrimaryImageRadiusMatchesQuadrature() {
         Spacetime st = LightTestSupport.kerr(0.0);
         Camera cam = new Camera(0.0, 0.0, 30.0, 64, D);
-        TraceSettings s = TraceSettings.of(30.0, LightTestSupport.stopRadius(0.0), 0.05, true);
+        TraceSettings s = TraceSettings.of(30.0, LightTestSupport.captureRadius(0.0), 0.05, true);
         for (double re : new double[] {6.0, 10.0}) {
             double expected = primaryImpactParameter(re);
             // find the screen radius whose ray first crosses the equator at r = re (bisection)
@@ -196,7 +196,7 @@ class RayTracerTest {
         Spacetime jp0 = new org.spindrift.sim.spacetime.JohannsenPsaltisSpacetime(a, 0.0);
         Spacetime jp = new org.spindrift.sim.spacetime.JohannsenPsaltisSpacetime(a, 2.0);
         Camera cam = new Camera(60.0, 0.0, 20.0, 64, D);
-        TraceSettings s = TraceSettings.of(20.0, LightTestSupport.stopRadius(a), 0.5, true);
+        TraceSettings s = TraceSettings.of(20.0, LightTestSupport.captureRadius(a), 0.5, true);
         double w = 2.5;
         double bKerr = boundary(kerr, cam, s, 0.0, 0.0, w, 3.0, 8.0);
         double bJp0 = boundary(jp0, cam, s, 0.0, 0.0, w, 3.0, 8.0);

@@ -95,7 +95,7 @@ class BatchIntegratorTest {
                 ODEStateAndDerivative out = ref.integrate(ode, state, times[k]);
                 double[] y = out.getPrimaryState();
                 for (int c = 0; c < 5; c++) {
-                    // Hipparchus DormandPrince853Integrator as reference (DESIGN section 5)
+                    // Hipparchus DormandPrince853Integrator as reference
                     assertEquals(y[c], got[k][5 * i + c], 1e-8 * Math.max(1, Math.abs(y[c])),
                             "particle " + i + " component " + c + " at t = " + times[k]);
                 }
@@ -110,10 +110,12 @@ class BatchIntegratorTest {
         ParticleBatch b = KerrTestOrbits.ball(st, 8, 0.5, 40, 5);
         GeodesicEquations eq = new GeodesicEquations(st);
         double[] worst = {0};
+        int[] checked = {0};
         new BatchIntegrator(st, BatchIntegrator.Config.of(capture(0.9))).integrate(b,
                 KerrTestOrbits.grid(1500, 30), (k, t, s) -> {
                     for (int i = 0; i < s.size(); i++) {
                         if (s.endState(i) == EndState.ALIVE) {
+                            checked[0]++;
                             double h = eq.hamiltonian(s.r(i), s.theta(i), s.pT(i), s.pPhi(i), s.pR(i), s.pTheta(i));
                             worst[0] = Math.max(worst[0], Math.abs(h + 0.5));
                         }
@@ -121,7 +123,9 @@ class BatchIntegratorTest {
                 });
         // H = -1/2 for unit-mass test particles (Misner, Thorne & Wheeler 1973, eq. 25.19)
         assertTrue(worst[0] < 1e-10, "max |H + 1/2| = " + worst[0]);
-        assertTrue(worst[0] > 0 || b.size() > 0);
+        // the bound above must have been measured on every particle at every snapshot: a ball at
+        // r = 8 M around a = 0.9 stays bound for 1500 M (no particle reaches the horizon)
+        assertEquals(40 * 30, checked[0], "particle-snapshots checked");
     }
 
     @Test

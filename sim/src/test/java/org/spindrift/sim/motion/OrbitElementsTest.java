@@ -1,13 +1,13 @@
 package org.spindrift.sim.motion;
 
+import org.junit.jupiter.api.Test;
+import org.spindrift.shared.UserInputException;
+import org.spindrift.sim.spacetime.Landmarks;
+import org.spindrift.sim.spacetime.MassFunctionSpacetime;
+import org.spindrift.sim.spacetime.MassFunctions;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
-
-import org.junit.jupiter.api.Test;
-import org.spindrift.shared.UserInputException;
-import org.spindrift.sim.spacetime.MassFunctionSpacetime;
-import org.spindrift.sim.spacetime.MassFunctions;
 
 class OrbitElementsTest {
     @Test
@@ -132,7 +132,7 @@ class OrbitElementsTest {
         MassFunctionSpacetime st = new MassFunctionSpacetime("bardeen", 0.5, MassFunctions.bardeen(0.6));
         OrbitElements.Solution s = OrbitElements.solve(st, 9.5, 0.35, Math.toRadians(50));
         OrbitMeasurement.Result m = OrbitMeasurement.measure(st, s.start(), 5,
-                BatchIntegrator.Config.of(OrbitSetup.captureRadius(st)), 400, OrbitMeasurement.keplerPeriod(9.5, 0.35));
+                BatchIntegrator.Config.of(Landmarks.captureRadius(st)), 400, OrbitMeasurement.keplerPeriod(9.5, 0.35));
         assertEquals(5, m.orbits());
         double[] rPeri = m.periapses()[1];
         for (double r : rPeri) {

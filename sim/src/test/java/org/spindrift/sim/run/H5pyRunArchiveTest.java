@@ -63,4 +63,22 @@ class H5pyRunArchiveTest {
         assertEquals(1, Integer.parseInt(w[2]), "particle 37 belongs to the second source (the ring)");
         assertEquals(h.snapshots() + " 50 2", l[4]);
     }
+
+    /** Python's hashlib, an independent SHA-256 (FIPS 180-4), agrees with every digest the run took as it wrote. */
+    @Test void hashlibAgreesWithTheManifestsDigests() throws Exception {
+        String py = ExternalPython.require("hashlib, json", "python3");
+        LoadedScenario ls = TestScenarios.scenario(TestScenarios.kerr(0.3),
+                List.of(TestScenarios.hotSpot(20, 6.0, 0.5, new VelocityModel(VelocityModel.Kind.SHEAR, 0))), 40, 8, 4, 0);
+        ScenarioRun.Outcome o = ScenarioRun.run(ScenarioRun.prepare(ls), new ScenarioRun.Options(tmp.resolve("sums"), 1,
+                false));
+        String script = String.join("\n",
+                "import hashlib, json, os, sys",
+                "d = sys.argv[1]",
+                "m = json.load(open(os.path.join(d, 'manifest.json')))",
+                "bad = [n for n, h in m['files'].items() if hashlib.sha256(open(os.path.join(d, n), 'rb').read()).hexdigest() != h]",
+                "print(len(m['files']), len(bad), ' '.join(bad))");
+        String[] l = ExternalPython.run(py, script, o.folder().toString()).get(0).split(" ");
+        assertTrue(Integer.parseInt(l[0]) >= 12, "files listed: " + l[0]);
+        assertEquals("0", l[1], "files whose digest differs: " + String.join(" ", l));
+    }
 }

@@ -87,6 +87,20 @@ class ScenarioRunTest {
             Path echo = tmp.resolve("echo.json");
             Files.writeString(echo, a.manifest().get("scenario").toString());
             assertEquals(thermalSpot(120).scenario(), org.spindrift.sim.scenario.ScenarioLoader.load(echo).scenario());
+            // run --help names every file the run wrote (common practice, no source: help lists outputs)
+            java.io.StringWriter help = new java.io.StringWriter();
+            picocli.CommandLine cl = org.spindrift.sim.cli.Main.commandLine();
+            cl.setOut(new java.io.PrintWriter(help, true));
+            assertEquals(0, cl.execute("run", "--help"));
+            java.util.Iterator<String> files = a.manifest().get("files").fieldNames();
+            int n = 0;
+            while (files.hasNext()) {
+                String f = files.next();
+                String base = f.substring(f.lastIndexOf('/') + 1);
+                assertTrue(help.toString().contains(base), "run --help names " + f + ":\n" + help);
+                n++;
+            }
+            assertTrue(n >= 12, "files listed in the manifest: " + n);
         }
     }
 
@@ -128,5 +142,14 @@ class ScenarioRunTest {
             a.verifyChecksums();
             assertTrue(files.noneMatch(p -> p.getFileName().toString().endsWith(".partial")));
         }
+    }
+
+    @Test void aHistoryThatCannotFitInMemoryIsRefusedBeforeTheWork() {
+        LoadedScenario ls = thermalSpot(10);
+        // 149 bytes per particle and snapshot (history plus archive copy): 1e6 x 1000 needs 149 GB
+        UserInputException e = assertThrows(UserInputException.class,
+                () -> ScenarioRun.checkMemory(ls, 1_000_000, 1000, 8e9));
+        assertTrue(e.getMessage().contains("run.snapshot_cadence") && e.getMessage().contains("149 GB"), e.getMessage());
+        ScenarioRun.checkMemory(ls, 1000, 100, 8e9); // 15 MB: fine
     }
 }

@@ -22,12 +22,17 @@ public final class TestScenarios {
     private TestScenarios() {
     }
 
+    /** Obviously synthetic round values for every test: 1e6 solar masses at 1 kpc (= 1e-3 Mpc). */
+    public static final double MASS_SOLAR = 1.0e6;
+    /** 1 kpc in Mpc. */
+    public static final double DISTANCE_MPC = 1.0e-3;
+
     public static BlackHole kerr(double a) {
-        return new BlackHole(4.0e6, 8.0, "kerr", a, Map.of(), false);
+        return new BlackHole(MASS_SOLAR, DISTANCE_MPC, "kerr", a, Map.of(), false);
     }
 
     public static BlackHole horizonlessHayward(double a, double l) {
-        return new BlackHole(4.0e6, 8.0, "hayward", a, Map.of("core_length", l), true);
+        return new BlackHole(MASS_SOLAR, DISTANCE_MPC, "hayward", a, Map.of("core_length", l), true);
     }
 
     /** A ring on circular orbits between inner and outer (shear model: each member on its own circular orbit). */

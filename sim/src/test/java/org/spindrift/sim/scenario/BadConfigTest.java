@@ -21,7 +21,7 @@ import picocli.CommandLine;
 
 /**
  * A table of broken scenario files: each gives exit status 2 from {@code check} and from
- * {@code run}, one line naming the file and the key, and no output folder (issue 4).
+ * {@code run}, one line naming the file and the key, and no output folder.
  */
 class BadConfigTest {
     @TempDir Path tmp;
@@ -30,8 +30,8 @@ class BadConfigTest {
     static final String GOOD = String.join("\n",
             "name: tiny",
             "black_hole:",
-            "  mass_solar: 4.0e6",
-            "  distance_kpc: 8.0",
+            "  mass_solar: 1.0e6",
+            "  distance: 1 kpc",
             "  family: kerr",
             "  spin: 0.5",
             "observer:",
@@ -80,7 +80,7 @@ class BadConfigTest {
                 Arguments.of("no-source.yaml", GOOD.substring(0, GOOD.indexOf("sources:")) + "sources: []\n"
                         + GOOD.substring(GOOD.indexOf("run:")), "sources", "at least 1"),
                 Arguments.of("empty.yaml", "", "", "empty"),
-                Arguments.of("missing-key.yaml", swap("  mass_solar: 4.0e6\n", ""), "black_hole.mass_solar",
+                Arguments.of("missing-key.yaml", swap("  mass_solar: 1.0e6\n", ""), "black_hole.mass_solar",
                         "missing required key"),
                 Arguments.of("wrong-type.yaml", swap("particles: 8", "particles: many"), "sources[0].particles",
                         "must be a number"),
@@ -99,11 +99,16 @@ class BadConfigTest {
                 Arguments.of("two-shapes.yaml", swap("sigma_M: 0.3", "sigma_M: 0.3\n      axes_M: [1, 1, 1]"),
                         "sources[0].shape", "exactly one of sigma_M"),
                 Arguments.of("ring-radii.yaml", swap("kind: hot_spot", "kind: ring").replace("sigma_M: 0.3",
-                        "inner_radius_M: 9\n      outer_radius_M: 7"), "sources[0].shape.outer_radius_M", "larger than"),
+                        "inner_radius_M: 9\n      outer_radius_M: 7"), "sources[0].shape.outer_radius_M", "at least inner_radius_M"),
                 Arguments.of("tolerance.yaml", swap("tolerance: 1.0e-8", "tolerance: 0.5"), "run.tolerance",
                         "out of range"),
-                Arguments.of("superluminal.yaml", swap(circ, "      local:\n        r_M: 8\n        v_phi: 0.8\n"
-                        + "        v_r: 0.7\n"), "sources[0].orbit.local", "below 1"),
+                Arguments.of("superluminal.yaml", swap(circ, "      zamo_velocity:\n        r_M: 8\n        v_phi: 0.8\n"
+                        + "        v_r: 0.7\n"), "sources[0].orbit.zamo_velocity", "below 1"),
+                Arguments.of("old-local-key.yaml", swap(circ, "      local:\n        r_M: 8\n"),
+                        "sources[0].orbit.local", "use 'sources[0].orbit.zamo_velocity'"),
+                Arguments.of("old-flare-start.yaml", swap("kind: gaussian\n        peak: 10 min\n        width: 3 min",
+                        "kind: exponential\n        start: 10 min\n        rise: 3 min\n        decay: 3 min"),
+                        "sources[0].emission.flare.start", "use 'sources[0].emission.flare.peak'"),
                 Arguments.of("no-horizon.yaml", swap("family: kerr", "family: hayward\n  parameters:\n"
                         + "    core_length: 1.5"), "black_hole.parameters.core_length", "no horizon"),
                 Arguments.of("below-separatrix.yaml", swap(circ, ELEMENTS.replace("p_M: 10", "p_M: 3.5")),
@@ -112,6 +117,14 @@ class BadConfigTest {
                         + "    emission:"), "sources[0].velocity.model", "allowed: rigid, shear, thermal"),
                 Arguments.of("too-many-snapshots.yaml", swap("snapshot_cadence: 5 M", "snapshot_cadence: 0.0001 M"),
                         "run.snapshot_cadence", "at most"),
+                Arguments.of("old-distance-key.yaml", swap("  distance: 1 kpc", "  distance_kpc: 1"),
+                        "black_hole.distance_kpc", "use 'black_hole.distance'"),
+                Arguments.of("distance-no-unit.yaml", swap("distance: 1 kpc", "distance: 1"), "black_hole.distance",
+                        "needs a unit"),
+                Arguments.of("distance-unit.yaml", swap("distance: 1 kpc", "distance: 1 ly"), "black_hole.distance",
+                        "allowed units: Mpc, kpc or pc"),
+                Arguments.of("distance-range.yaml", swap("distance: 1 kpc", "distance: -3 Mpc"), "black_hole.distance",
+                        "out of range"),
                 Arguments.of("not-a-mapping.yaml", "- just\n- a list\n", "", "must be a mapping"));
     }
 
@@ -152,7 +165,7 @@ class BadConfigTest {
         Files.writeString(out.resolve("chapter1.tex"), "precious");
         String[] err = new String[1];
         assertEquals(2, cli(err, "run", f.toString(), "-o", out.toString(), "--quiet"));
-        assertTrue(err[0].contains("not part of a run") && err[0].contains("chapter1.tex"), err[0]);
+        assertTrue(err[0].contains("Spindrift did not write") && err[0].contains("chapter1.tex"), err[0]);
         assertEquals("precious", Files.readString(out.resolve("chapter1.tex")));
         assertEquals(2, cli(err, "run", f.toString(), "-o", out.resolve("chapter1.tex").toString(), "--quiet"));
         assertTrue(err[0].contains("not a folder"), err[0]);
@@ -182,14 +195,14 @@ class BadConfigTest {
 
     @Test void jsonWorksAndBrokenJsonIsRefused() throws Exception {
         Path ok = tmp.resolve("ok.json");
-        Files.writeString(ok, "{\"black_hole\": {\"mass_solar\": 4e6, \"distance_kpc\": 8, \"spin\": 0.5},"
+        Files.writeString(ok, "{\"black_hole\": {\"mass_solar\": 1e6, \"distance\": \"1 kpc\", \"spin\": 0.5},"
                 + " \"observer\": {\"inclination_deg\": 10}, \"sources\": [{\"kind\": \"hot_spot\", \"particles\": 4,"
                 + " \"shape\": {\"sigma_M\": 0.2}, \"orbit\": {\"circular\": {\"radius_M\": 9}}}],"
                 + " \"run\": {\"duration\": \"30 M\"}}");
         String[] err = new String[1];
         assertEquals(0, cli(err, "check", ok.toString()), err[0]);
         Path bad = tmp.resolve("bad.json");
-        Files.writeString(bad, "{\"black_hole\": {\"mass_solar\": 4e6,}}");
+        Files.writeString(bad, "{\"black_hole\": {\"mass_solar\": 1e6,}}");
         assertEquals(2, cli(err, "check", bad.toString()));
         assertTrue(err[0].contains("not valid JSON") && err[0].contains(bad + ":1"), err[0]);
     }

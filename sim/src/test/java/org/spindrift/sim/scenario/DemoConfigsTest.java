@@ -30,6 +30,10 @@ class DemoConfigsTest {
             assertTrue(p.times().length >= 3);
             assertTrue(ls.scenario().description().contains("INVENTED"), f + " says it is invented");
             assertTrue(readme.contains(f.getFileName().toString()), "configs/README.md mentions " + f.getFileName());
+            // owner's rule for demo data: invented nuclei at Mpc distances with 1e7 .. 1e9 solar masses
+            var bh = ls.scenario().blackHole();
+            assertTrue(bh.massSolar() >= 1e7 && bh.massSolar() <= 1e9, f + ": mass " + bh.massSolar());
+            assertTrue(bh.distanceMpc() >= 1.0, f + ": distance " + bh.distanceMpc() + " Mpc");
         }
         // the README's first command runs hotspot-kerr.yaml: a Kerr a = 0.7 hole, spot outside the ISCO
         LoadedScenario first = ScenarioLoader.load(configs().resolve("hotspot-kerr.yaml"));

@@ -48,8 +48,8 @@ class LandmarksTest {
         // BPT 1972 eq. 2.19: r_mb = 2 -+ a + 2 sqrt(1 -+ a)
         assertRel(2.0 - a + 2.0 * Math.sqrt(1.0 - a), l.marginallyBoundPrograde(), "marginally bound");
         assertTrue(Double.isNaN(l.omegaMaxRadius()), "Kerr Omega(r) grows monotonically inwards (BPT eq. 2.16)");
-        assertTrue(Double.isNaN(l.surfaceRadius()));
-        assertEquals(l.horizonOuter(), l.captureRadius());
+        // with a horizon the capture radius is the outer horizon plus the margin
+        assertEquals(l.horizonOuter() + Landmarks.CAPTURE_MARGIN, l.captureRadius(), 0.0);
     }
 
     @Test
@@ -122,9 +122,10 @@ class LandmarksTest {
         assertRel(r, l.omegaMaxRadius(), "Omega maximum radius");
         assertRel(omega, l.omegaMaxValue(), "Omega maximum value");
         // the surface lies inside every landmark
-        assertTrue(l.surfaceRadius() < l.omegaMaxRadius());
-        assertTrue(l.surfaceRadius() >= Landmarks.MIN_SURFACE);
-        assertEquals(l.surfaceRadius(), l.captureRadius());
+        assertTrue(l.captureRadius() < l.omegaMaxRadius());
+        assertTrue(l.captureRadius() >= Landmarks.MIN_SURFACE);
+        assertEquals(l.captureRadius(), Landmarks.captureRadius(Spacetimes.create("hayward", a,
+                Map.of("core_length", core), true)), 0.0);
     }
 
     @ParameterizedTest(name = "{0} a={1} {2}={3}")
@@ -163,17 +164,18 @@ class LandmarksTest {
         assertTrue(CircularOrbits.verticalEpicyclicSquared(st, 1.01 * r, true) > 0.0);
         assertTrue(CircularOrbits.verticalEpicyclicSquared(st, 0.99 * r, true) < 0.0);
         assertFalse(l.hasHorizon(), "the surface g^rr = 0 does not close for this epsilon3");
-        assertTrue(l.surfaceRadius() < r);
+        assertTrue(l.captureRadius() < r);
     }
 
     @Test
-    void jsonKeysAreThoseOfTheIssue() {
+    void jsonKeysAreTheDocumentedOnes() {
         Map<String, Double> m = Landmarks.of(Spacetimes.create("kerr", 0.9, Map.of(), false)).toMap();
         assertEquals(List.of("horizon_outer", "ergosurface_equator", "isco_prograde", "isco_retrograde",
                 "photon_orbit_prograde", "photon_orbit_retrograde", "marginally_bound_prograde", "omega_max_radius",
-                "omega_max_value", "surface_radius"), List.copyOf(m.keySet()));
+                "omega_max_value", "capture_radius"), List.copyOf(m.keySet()));
         assertNull(m.get("omega_max_radius"));
-        assertNull(m.get("surface_radius"));
+        // Kerr a = 0.9: horizon 1 + sqrt(1 - 0.81) (Boyer & Lindquist 1967) + 0.01 M
+        assertEquals(1.0 + Math.sqrt(0.19) + 0.01, m.get("capture_radius"), 1e-12);
     }
 
     /** BPT 1972 eq. 2.21 (written for a >= 0: upper sign for orbits co-rotating with the hole). */

@@ -22,7 +22,7 @@ import org.junit.jupiter.params.provider.MethodSource;
  * inverse of that 4x4 matrix, so the inverse check does not rely on any closed form of ours.
  */
 class MetricDerivativesTest {
-    /** Relative tolerance of the issue, measured against |reference| + |component value|. */
+    /** Relative tolerance (project requirement for analytic derivatives), measured against |reference| + |component value|. */
     private static final double TOL = 1e-10;
     private static final int POINTS = 60;
 

@@ -60,7 +60,7 @@ class SpacetimesTest {
     void badParametersNameTheParameterAndRange() {
         assertMessage("spin = 1.2 is out of range: |a| <= 1 for kerr (use allow_horizonless for a naked singularity)",
                 () -> Spacetimes.create("kerr", 1.2, Map.of(), false));
-        assertMessage("family = kerrr is not a known family: one of kerr, kerr-newman, hayward, bardeen, mass-series, jp",
+        assertMessage("family = kerrr is not a known family: one of kerr, kerr-newman, hayward, bardeen, mass-series, johannsen-psaltis (alias jp)",
                 () -> Spacetimes.create("kerrr", 0.5, Map.of(), false));
         assertMessage("charge = 0.8 with spin = 0.9 is out of range: a^2 + Q^2 <= 1 for kerr-newman"
                         + " (use allow_horizonless for a horizonless object)",
@@ -69,7 +69,7 @@ class SpacetimesTest {
                 () -> Spacetimes.create("hayward", 0.5, Map.of("core_length", -0.1), false));
         assertMessage("charge does not apply to family kerr (it belongs to family kerr-newman)",
                 () -> Spacetimes.create("kerr", 0.5, Map.of("charge", 0.1), false));
-        assertMessage("epsilon3 is required for family jp", () -> Spacetimes.create("jp", 0.5, Map.of(), false));
+        assertMessage("epsilon3 is required for family johannsen-psaltis", () -> Spacetimes.create("jp", 0.5, Map.of(), false));
         UserInputException noHorizon = assertThrows(UserInputException.class,
                 () -> Spacetimes.create("hayward", 0.9, Map.of("core_length", 1.0), false));
         assertTrue(noHorizon.getMessage().startsWith("core_length = 1 with spin = 0.9 leaves no horizon: core_length <= 0."),

@@ -2,6 +2,7 @@ package org.spindrift.viewer.app;
 
 import static org.lwjgl.opengl.GL33C.*;
 
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.viewer.data.RunInfo;
 import org.spindrift.viewer.data.SnapshotStream;
 import org.spindrift.viewer.gl.FontAtlas;
@@ -36,11 +37,12 @@ public final class FrameComposer implements AutoCloseable {
     /**
      * @param sky  the sky panel, or null for none
      * @param bare draw the 3D view only, filling the frame (no panels, no text)
+     * @param skyColours colour ramp of the sky image
      */
-    public FrameComposer(RunInfo info, SnapshotStream stream, SkyPanel sky, boolean bare) {
+    public FrameComposer(RunInfo info, SnapshotStream stream, SkyPanel sky, boolean bare, ColourRamp skyColours) {
         this.info = info;
         this.bare = bare;
-        this.scene = new SceneView(info, stream);
+        this.scene = new SceneView(info, stream, skyColours);
         this.sky = sky;
         this.font = new FontAtlas(1f);
         this.overlay = new Overlay(font);

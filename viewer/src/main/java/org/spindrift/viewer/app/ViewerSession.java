@@ -3,6 +3,7 @@ package org.spindrift.viewer.app;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.viewer.data.ArchiveRunData;
 import org.spindrift.viewer.data.RunData;
 import org.spindrift.viewer.data.RunInfo;
@@ -37,7 +38,14 @@ public final class ViewerSession implements AutoCloseable {
 
     /** Parsed command-line options. */
     public record Options(Path runDir, int width, int height, Quantity colour, CameraStart camera,
-                          Double cameraDistance, boolean bare, boolean noSky, Integer samples) {
+                          Double cameraDistance, boolean bare, boolean noSky, Integer samples, ColourRamp skyColours,
+                          boolean verify) {
+        /** Options with the default sky colours and the run folder verified (checksums included). */
+        public Options(Path runDir, int width, int height, Quantity colour, CameraStart camera, Double cameraDistance,
+                       boolean bare, boolean noSky, Integer samples) {
+            this(runDir, width, height, colour, camera, cameraDistance, bare, noSky, samples, ColourRamp.SKY, true);
+        }
+
         /** Multisampling chosen by the user, else 4 (software renderers: see {@link ViewerSession#samples}). */
         public int samplesOr(int fallback) {
             return samples != null ? samples : fallback;
@@ -59,7 +67,7 @@ public final class ViewerSession implements AutoCloseable {
      */
     public ViewerSession(Options o, boolean visible) {
         this.options = o;
-        RunData r = ArchiveRunData.open(o.runDir());
+        RunData r = ArchiveRunData.open(o.runDir(), o.verify());
         ImageCube cube = null;
         CentroidTrack track = null;
         GlContext ctx = null;
@@ -71,10 +79,11 @@ public final class ViewerSession implements AutoCloseable {
             if (!o.bare() && !o.noSky()) {
                 Path img = o.runDir().resolve(ArchiveLayout.IMAGES);
                 Path csv = o.runDir().resolve(ArchiveLayout.CENTROID);
-                if (Files.isRegularFile(img)) {
-                    cube = ImageCube.open(img, info.mSeconds(), info.mMicroarcsec());
+                // only the run's own files: those its manifest lists (and the verification covered)
+                if (Files.isRegularFile(img) && listed(r, ArchiveLayout.IMAGES)) {
+                    cube = ImageCube.open(img, info.mSeconds(), info.mUas());
                 }
-                if (Files.isRegularFile(csv)) {
+                if (Files.isRegularFile(csv) && listed(r, ArchiveLayout.CENTROID)) {
                     track = CentroidTrack.read(csv, info.mSeconds());
                 }
             }
@@ -91,7 +100,7 @@ public final class ViewerSession implements AutoCloseable {
                 sky = new SkyPanel(cube, track, info.mSeconds() / 60.0);
                 cube = null; // owned by the panel now
             }
-            c = new FrameComposer(info, s, sky, o.bare());
+            c = new FrameComposer(info, s, sky, o.bare(), o.skyColours());
             c.scene().quantity(o.colour());
             c.layout().update(o.width(), o.height(), o.bare(), sky != null);
             c.scene().aspect(c.layout().viewW / (float) Math.max(1, c.layout().viewH));
@@ -119,6 +128,10 @@ public final class ViewerSession implements AutoCloseable {
         this.gl = ctx;
         this.stream = s;
         this.composer = c;
+    }
+
+    private static boolean listed(RunData r, String name) {
+        return !(r instanceof ArchiveRunData a) || a.archive().has(name);
     }
 
     /** Puts the camera where the options ask. */

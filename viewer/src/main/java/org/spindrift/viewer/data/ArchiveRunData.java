@@ -18,7 +18,7 @@ import org.spindrift.shared.archive.RunArchive;
 public final class ArchiveRunData implements RunData {
     /** Manifest landmark keys (those of {@code landmarks --json}); the first present wins. */
     private static final String[] HORIZON = {"horizon_outer", "horizon"};
-    private static final String[] SURFACE = {"surface_radius"};
+    private static final String[] CAPTURE = {"capture_radius"};
     private static final String[] ISCO = {"isco_prograde", "isco"};
     private static final String[] OMEGA_MAX = {"omega_max_radius"};
     private static final String[] ERGO = {"ergosurface_equator"};
@@ -39,11 +39,23 @@ public final class ArchiveRunData implements RunData {
      * @throws UserInputException naming the file and what is wrong
      */
     public static ArchiveRunData open(Path folder) {
+        return open(folder, true);
+    }
+
+    /**
+     * Opens a run folder, verifies it through the shared archive reader (manifest types and
+     * physical ranges, that snapshots.h5 belongs to the run, complete light files, and with
+     * {@code checksums} every file's sha256) and checks what the viewer relies on.
+     *
+     * @param checksums compare every file with its sha256 (reads every byte once)
+     * @throws UserInputException naming the file and what is wrong
+     */
+    public static ArchiveRunData open(Path folder, boolean checksums) {
         if (!Files.isDirectory(folder)) {
             throw new UserInputException("run folder " + folder + ": "
                     + (Files.exists(folder) ? "is not a folder" : "does not exist"));
         }
-        RunArchive a = RunArchive.open(folder);
+        RunArchive a = RunArchive.open(folder, checksums);
         try {
             return new ArchiveRunData(a, readInfo(a, folder));
         } catch (RuntimeException e) {
@@ -121,12 +133,12 @@ public final class ArchiveRunData implements RunData {
         if (!Double.isFinite(spin)) {
             throw new UserInputException("run folder " + folder + ": manifest.json: key 'black_hole.spin' is missing");
         }
-        Landmarks landmarks = new Landmarks(spin, pick(lm, HORIZON), pick(lm, SURFACE), pick(lm, ISCO),
+        Landmarks landmarks = new Landmarks(spin, pick(lm, HORIZON), pick(lm, CAPTURE), pick(lm, ISCO),
                 pick(lm, OMEGA_MAX), pick(lm, ERGO));
         String title = a.scenarioName().isEmpty() ? String.valueOf(folder.toAbsolutePath().normalize().getFileName())
                 : a.scenarioName();
         return new RunInfo(title, times, List.copyOf(names), sourceOf, centres, landmarks, a.mSeconds(),
-                a.mMicroarcsec(), a.inclinationDeg(), a.positionAngleDeg());
+                a.mUas(), a.inclinationDeg(), a.positionAngleDeg());
     }
 
     private static double pick(Map<String, Double> lm, String[] keys) {
@@ -166,8 +178,8 @@ public final class ArchiveRunData implements RunData {
             dest.put(o + X, (float) pos[0][i]);
             dest.put(o + Y, (float) pos[1][i]);
             dest.put(o + Z, (float) pos[2][i]);
-            // redshift factor of a zero-angular-momentum photon, g = 1/u^t (see Quantity.REDSHIFT)
-            dest.put(o + REDSHIFT, ut[i] > 0 ? (float) (1.0 / ut[i]) : 0f);
+            // time dilation 1/u^t = g of a zero-angular-momentum photon (see Quantity.TIME_DILATION)
+            dest.put(o + TIME_DILATION, ut[i] > 0 ? (float) (1.0 / ut[i]) : 0f);
             dest.put(o + WEIGHT, w[i]);
             dest.put(o + RADIUS, (float) r[i]);
             boolean finite = Double.isFinite(pos[0][i]) && Double.isFinite(pos[1][i]) && Double.isFinite(pos[2][i]);

@@ -5,17 +5,18 @@ package org.spindrift.viewer.data;
  *
  * @param spin            a/M, for the display map x = sqrt(r^2 + a^2) sin(theta) cos(phi) ...
  * @param horizon         outer horizon radius (NaN for a horizonless object)
- * @param surface         radius of a surface to draw when there is no horizon (else NaN)
+ * @param captureRadius   where the run stopped particles (manifest {@code capture_radius}: the horizon
+ *                        + 0.01 M, or the surface of a horizonless object, drawn when there is no horizon)
  * @param isco            prograde innermost stable circular orbit
  * @param omegaMax        radius of the maximum of Omega(r), where one exists
  * @param ergoEquatorial  equatorial radius of the ergosurface (g_tt = 0)
  */
-public record Landmarks(double spin, double horizon, double surface, double isco, double omegaMax,
+public record Landmarks(double spin, double horizon, double captureRadius, double isco, double omegaMax,
                         double ergoEquatorial) {
 
-    /** @return the radius of the dark sphere at the centre: horizon, else surface, else NaN */
+    /** @return the radius of the dark sphere at the centre: horizon, else the capture radius (surface), else NaN */
     public double centralRadius() {
-        return Double.isFinite(horizon) && horizon > 0 ? horizon : surface;
+        return Double.isFinite(horizon) && horizon > 0 ? horizon : captureRadius;
     }
 
     /**

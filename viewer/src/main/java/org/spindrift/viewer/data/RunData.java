@@ -10,12 +10,12 @@ public interface RunData extends AutoCloseable {
     /** Floats per particle in a snapshot buffer. */
     int STRIDE = 8;
     /** Offsets inside one particle's floats. */
-    int X = 0, Y = 1, Z = 2, REDSHIFT = 3, WEIGHT = 4, RADIUS = 5, ALIVE = 6;
+    int X = 0, Y = 1, Z = 2, TIME_DILATION = 3, WEIGHT = 4, RADIUS = 5, ALIVE = 6;
 
     RunInfo info();
 
     /**
-     * Fills dest (from position 0) with snapshot s: per particle x, y, z (M), redshift factor,
+     * Fills dest (from position 0) with snapshot s: per particle x, y, z (M), time dilation 1/u^t,
      * emission weight, radius r (M), alive (1 or 0), 0.
      */
     void readSnapshot(int s, FloatBuffer dest);

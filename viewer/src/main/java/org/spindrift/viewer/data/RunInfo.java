@@ -14,12 +14,12 @@ import java.util.List;
  * @param centres        source centres, [snapshot][source * 3 + xyz], Cartesian, M
  * @param landmarks      horizon, ISCO and the other radii drawn in the 3D view
  * @param mSeconds       the mass unit GM/c^3 in seconds
- * @param mMicroarcsec   the angle 1 M subtends at the distance, micro-arcseconds
+ * @param mUas   the angle 1 M subtends at the distance, micro-arcseconds
  * @param inclinationDeg observer inclination, degrees
  * @param positionAngleDeg position angle of the projected spin axis, degrees east of north
  */
 public record RunInfo(String title, double[] times, List<String> sourceNames, int[] sourceOf,
-                      float[][] centres, Landmarks landmarks, double mSeconds, double mMicroarcsec,
+                      float[][] centres, Landmarks landmarks, double mSeconds, double mUas,
                       double inclinationDeg, double positionAngleDeg) {
 
     public int snapshots() {

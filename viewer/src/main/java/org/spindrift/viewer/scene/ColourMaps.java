@@ -4,20 +4,26 @@ import static org.lwjgl.opengl.GL33C.*;
 
 import java.nio.ByteBuffer;
 import org.lwjgl.system.MemoryStack;
+import org.spindrift.shared.colour.ColourRamp;
 
-/** The continuous colour maps of {@link Palette} as one 256 x N RGBA texture (one row per map). */
+/**
+ * The continuous colour maps of {@link Palette} as one 256 x N RGBA texture (one row per map); the
+ * sky row is the chosen shared {@link ColourRamp} itself.
+ */
 public final class ColourMaps implements AutoCloseable {
     private static final int N = 256;
     private final int texture;
 
-    public ColourMaps() {
+    /** @param sky ramp of the sky image row ({@link ColourRamp#SKY} or {@link ColourRamp#GREY}) */
+    public ColourMaps(ColourRamp sky) {
         texture = glGenTextures();
         glBindTexture(GL_TEXTURE_2D, texture);
         try (MemoryStack stack = MemoryStack.stackPush()) {
             ByteBuffer px = stack.malloc(N * Palette.MAP_ROWS * 4);
             for (int row = 0; row < Palette.MAP_ROWS; row++) {
                 for (int i = 0; i < N; i++) {
-                    int c = Palette.map(row, i / (N - 1.0));
+                    int c = row == Palette.SKY_MAP ? sky.rgb(i / (N - 1.0)) << 8 | 0xff
+                            : Palette.map(row, i / (N - 1.0));
                     px.put((byte) (c >>> 24)).put((byte) (c >>> 16)).put((byte) (c >>> 8)).put((byte) 0xff);
                 }
             }

@@ -6,7 +6,8 @@ import org.spindrift.viewer.data.RunData;
 
 /**
  * Fixed colour ranges per quantity for the whole replay (so colours do not flicker), from the 1st
- * to the 99th percentile of alive particles in a few sampled snapshots (emission from 0).
+ * to the 99th percentile of alive particles in a few sampled snapshots (emission from 0; the time
+ * dilation symmetric about 1, the centre of its diverging ramp).
  * Computed once at load time.
  */
 public final class ColourRanges {
@@ -30,7 +31,7 @@ public final class ColourRanges {
             if (snap.get(o + RunData.ALIVE) < 0.5f) {
                 continue;
             }
-            add(0, snap.get(o + RunData.REDSHIFT));
+            add(0, snap.get(o + RunData.TIME_DILATION));
             add(1, snap.get(o + RunData.WEIGHT));
             add(2, snap.get(o + RunData.RADIUS));
         }
@@ -56,6 +57,12 @@ public final class ColourRanges {
             float b = v[(int) Math.ceil(0.99 * (v.length - 1))];
             if (q == 1) {
                 a = Math.min(0f, v[0]);
+            }
+            if (q == 0) {
+                // time dilation 1/u^t: a ratio drawn on a diverging ramp, so the range is centred on 1
+                float d = Math.max(Math.max(Math.abs(a - 1f), Math.abs(b - 1f)), 1e-3f);
+                a = 1f - d;
+                b = 1f + d;
             }
             if (!(b > a)) {
                 float pad = Math.max(Math.abs(a) * 0.05f, 1e-3f);

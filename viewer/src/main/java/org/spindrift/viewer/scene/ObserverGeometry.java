@@ -3,8 +3,7 @@ package org.spindrift.viewer.scene;
 /**
  * Where the distant observer is, in the display's Cartesian frame, and the observer time of light
  * from a point. The line of sight towards the observer is
- * n = (sin i cos phi_o, sin i sin phi_o, cos i) with inclination i from the spin axis (DESIGN
- * section 3) and the observer's azimuth phi_o fixed at {@link #AZIMUTH_DEG}.
+ * n = (sin i cos phi_o, sin i sin phi_o, cos i) with inclination i from the spin axis and the observer's azimuth phi_o fixed at {@link #AZIMUTH_DEG}.
  */
 public final class ObserverGeometry {
     /**

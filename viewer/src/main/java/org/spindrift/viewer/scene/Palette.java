@@ -1,9 +1,13 @@
 package org.spindrift.viewer.scene;
 
+import org.spindrift.shared.colour.ColourRamp;
+
 /**
- * Colours of the viewer (0xRRGGBBAA). Continuous maps are defined by a few control points of our
- * own choosing, interpolated linearly in sRGB; sources use the colour-blind-safe qualitative set of
- * Okabe & Ito (2008, "Color Universal Design", values from memory).
+ * Colours of the viewer (0xRRGGBBAA). Continuous particle maps are five control points interpolated
+ * linearly in sRGB: the time dilation samples the shared diverging ramp
+ * ({@link ColourRamp#RATIO}), emission and radius are control points of our own choosing; the sky
+ * image uses the shared sky ramp directly ({@link ColourMaps}). Sources use the colour-blind-safe
+ * qualitative set of Okabe & Ito (2008, "Color Universal Design", values from memory).
  */
 public final class Palette {
     private Palette() {
@@ -36,19 +40,28 @@ public final class Palette {
 
     /** Control points per quantity map (RGB in 0..1, evenly spaced). */
     private static final float[][][] MAPS = {
-        // redshift factor: deep red (strong redshift) -> orange -> pale gold -> near white
-        {{0.35f, 0.03f, 0.08f}, {0.72f, 0.12f, 0.10f}, {0.93f, 0.42f, 0.12f}, {0.99f, 0.74f, 0.35f},
-         {1.00f, 0.95f, 0.82f}},
+        // time dilation: the diverging ratio ramp, blue (< 1) -> light grey (1) -> orange (> 1)
+        ramp(ColourRamp.RATIO),
         // emission: indigo -> magenta -> coral -> amber -> pale yellow
         {{0.10f, 0.07f, 0.30f}, {0.45f, 0.10f, 0.50f}, {0.80f, 0.25f, 0.42f}, {0.98f, 0.55f, 0.25f},
          {0.99f, 0.93f, 0.60f}},
         // radius: deep blue -> teal -> green -> yellow-green
         {{0.16f, 0.20f, 0.55f}, {0.13f, 0.45f, 0.62f}, {0.15f, 0.66f, 0.55f}, {0.50f, 0.82f, 0.35f},
          {0.93f, 0.90f, 0.30f}},
-        // sky image intensity: black -> deep red-brown -> orange -> white (a "heat" ramp)
-        {{0.00f, 0.00f, 0.00f}, {0.30f, 0.05f, 0.02f}, {0.75f, 0.30f, 0.04f}, {0.98f, 0.72f, 0.30f},
-         {1.00f, 1.00f, 0.95f}},
+        // sky image row: ColourMaps fills it from the chosen ColourRamp (these points only as a fallback)
+        ramp(ColourRamp.SKY),
     };
+
+    private static float[][] ramp(ColourRamp r) {
+        float[][] c = new float[5][3];
+        for (int i = 0; i < 5; i++) {
+            int rgb = r.rgb(i / 4.0);
+            c[i][0] = (rgb >> 16 & 255) / 255f;
+            c[i][1] = (rgb >> 8 & 255) / 255f;
+            c[i][2] = (rgb & 255) / 255f;
+        }
+        return c;
+    }
 
     /** @return the five control points (r, g, b each) of map row as 15 floats, into dest */
     public static void controlPoints(int map, float[] dest) {

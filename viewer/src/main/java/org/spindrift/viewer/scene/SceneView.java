@@ -3,6 +3,7 @@ package org.spindrift.viewer.scene;
 import static org.lwjgl.opengl.GL33C.*;
 
 import java.nio.FloatBuffer;
+import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.viewer.data.RunData;
 import org.spindrift.viewer.data.RunInfo;
 import org.spindrift.viewer.data.SnapshotStream;
@@ -26,7 +27,7 @@ public final class SceneView implements AutoCloseable {
     private final ParticleLayer particles;
     private final LandmarkLayer landmarks;
     private final TrailLayer trails;
-    private final ColourMaps maps = new ColourMaps();
+    private final ColourMaps maps;
     private final ColourRanges ranges;
     private final OrbitCamera camera;
     private final ObserverGeometry observer;
@@ -36,7 +37,7 @@ public final class SceneView implements AutoCloseable {
     private float aspect = 1.3f;
     private int shownA = -1;
     private int shownB = -1;
-    private Quantity quantity = Quantity.REDSHIFT;
+    private Quantity quantity = Quantity.TIME_DILATION;
     private boolean showGrid = true;
     private boolean showRings = true;
     private boolean showTrails = true;
@@ -51,7 +52,8 @@ public final class SceneView implements AutoCloseable {
     }
 
     /** Reads the first, middle and last snapshots (blocking) to fix colour ranges and the extent. */
-    public SceneView(RunInfo info, SnapshotStream stream) {
+    public SceneView(RunInfo info, SnapshotStream stream, ColourRamp skyColours) {
+        this.maps = new ColourMaps(skyColours);
         this.info = info;
         this.stream = stream;
         this.particles = new ParticleLayer(info.sourceOf());

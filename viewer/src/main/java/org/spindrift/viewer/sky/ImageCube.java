@@ -57,10 +57,10 @@ public final class ImageCube implements AutoCloseable {
 
     /**
      * @param mSeconds     GM/c^3 in seconds
-     * @param mMicroarcsec micro-arcseconds per M at the distance
+     * @param mUas micro-arcseconds per M at the distance
      * @throws UserInputException naming the file and what is wrong
      */
-    public static ImageCube open(Path file, double mSeconds, double mMicroarcsec) {
+    public static ImageCube open(Path file, double mSeconds, double mUas) {
         Fits fits = null;
         try {
             fits = new Fits(file.toFile());
@@ -82,8 +82,8 @@ public final class ImageCube implements AutoCloseable {
             if (nx < 1 || ny < 1 || nf < 1) {
                 throw new UserInputException(file + ": empty image (NAXIS1 = " + nx + ", NAXIS2 = " + ny + ", NAXIS3 = " + nf + ")");
             }
-            double c1 = angle(h, 1, file, mMicroarcsec);
-            double c2 = angle(h, 2, file, mMicroarcsec);
+            double c1 = angle(h, 1, file, mUas);
+            double c2 = angle(h, 2, file, mUas);
             double p1 = h.getDoubleValue("CRPIX1", (nx + 1) / 2.0);
             double p2 = h.getDoubleValue("CRPIX2", (ny + 1) / 2.0);
             double[] times = frameTimes(fits, h, nf, mSeconds, file);
@@ -117,7 +117,7 @@ public final class ImageCube implements AutoCloseable {
     }
 
     /** Pixel size along axis i in micro-arcseconds (signed, as CDELTi). */
-    private static double angle(Header h, int axis, Path file, double mMicroarcsec) {
+    private static double angle(Header h, int axis, Path file, double mUas) {
         if (!h.containsKey("CDELT" + axis)) {
             throw new UserInputException(file + ": key CDELT" + axis + " (pixel size) is missing");
         }
@@ -129,7 +129,7 @@ public final class ImageCube implements AutoCloseable {
             case "arcsec": return d * 1e6;
             case "mas": return d * 1e3;
             case "uas": case "µas": return d;
-            case "m": case "gm/c2": return d * mMicroarcsec; // pixel size given in units of M
+            case "m": case "gm/c2": return d * mUas; // pixel size given in units of M
             default: throw new UserInputException(file + ": CUNIT" + axis + " = '" + unit
                     + "' is not an angle (deg, arcsec, mas, uas) or M");
         }

@@ -13,8 +13,8 @@ import org.spindrift.viewer.ui.Text;
 
 /**
  * The sky panel: the image frame at the current observer time (when the run has images.fits),
- * the centroid track up to that time, north up and east left, with a micro-arcsecond scale bar
- * and a compass. Sky x points east, y north (DESIGN section 3), so a point (x, y) is drawn at
+ * the centroid track up to that time, north up and east left, with a scale bar in micro-arcseconds
+ * and a compass. Sky x points east, y north, so a point (x, y) is drawn at
  * screen (cx - x s, cy - y s).
  */
 public final class SkyPanel implements AutoCloseable {
@@ -108,7 +108,7 @@ public final class SkyPanel implements AutoCloseable {
         int side = Math.max(10, Math.min(w - 20, h - 96 - (curve ? curveH + 34 : 0)));
         int ix = x + (w - side) / 2;
         int iy = y + 40;
-        double s = side / (2 * halfWidth); // pixels per micro-arcsecond
+        double s = side / (2 * halfWidth); // pixels per uas (micro-arcseconds)
         float cx = ix + side / 2f;
         float cy = iy + side / 2f;
         int f = cube != null ? cube.frameAt(tObs) : -1;
@@ -203,7 +203,7 @@ public final class SkyPanel implements AutoCloseable {
         o.rect(bx, by, bw, 2, Palette.TEXT);
         o.rect(bx, by - 4, 1, 10, Palette.TEXT);
         o.rect(bx + bw - 1, by - 4, 1, 10, Palette.TEXT);
-        text.clear().sig3(bar).add(" \u00b5as");
+        text.clear().sig3(bar).add(" uas");
         o.text(bx, by - 6 - lh, text, FontAtlas.Size.SMALL, Palette.TEXT);
         // caption
         float ty = iy + side + 10;
@@ -222,7 +222,7 @@ public final class SkyPanel implements AutoCloseable {
             int last = track.indexAt(tObs);
             text.clear().add("centroid");
             if (last >= 0 && Double.isFinite(track.x(last))) {
-                text.add("  x = ").fixed(track.x(last), 2).add("  y = ").fixed(track.y(last), 2).add(" \u00b5as");
+                text.add("  x = ").sig3(track.x(last)).add("  y = ").sig3(track.y(last)).add(" uas");
             } else {
                 text.add(": not yet observed");
             }

@@ -22,7 +22,7 @@ public final class Hud {
         {"Right / Left", "step one snapshot (pauses)"},
         {"Up / Down  or  + / -", "faster / slower"},
         {"Home / End", "first / last snapshot"},
-        {"C", "cycle colouring: redshift, emission, radius, source"},
+        {"C", "cycle colouring: time dilation, emission, radius, source"},
         {"O", "observer's line of sight"},
         {"F", "face-on (from +z)"},
         {"R", "reset the camera"},

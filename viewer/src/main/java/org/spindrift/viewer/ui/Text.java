@@ -64,7 +64,8 @@ public final class Text implements CharSequence {
         if (a >= 1e5 || a < 1e-3) {
             return sci(v);
         }
-        int digits = a >= 100 ? 0 : a >= 10 ? 1 : a >= 1 ? 2 : 3;
+        // three significant digits: sky angles of distant nuclei are small fractions of a micro-arcsecond
+        int digits = Math.max(0, 2 - (int) Math.floor(Math.log10(a)));
         return fixed(v, digits);
     }
 
