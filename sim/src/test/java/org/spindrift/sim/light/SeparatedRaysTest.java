@@ -58,7 +58,7 @@ class SeparatedRaysTest {
     @Test
     void separatedPathIsUsedExceptNearThePoles() {
         Spacetime st = LightTestSupport.kerr(0.9);
-        TraceSettings s = TraceSettings.of(8.0, LightTestSupport.stopRadius(0.9), 0.1, true);
+        TraceSettings s = TraceSettings.of(8.0, LightTestSupport.captureRadius(0.9), 0.1, true);
         double[] y0 = new double[6];
         double[] g = new double[Spacetime.SIZE];
         RayTracer tr = new RayTracer(st, s);
@@ -75,7 +75,7 @@ class SeparatedRaysTest {
     void tableDoesNotDependOnTheThreadCount() {
         Spacetime st = LightTestSupport.kerr(0.9);
         Camera cam = new Camera(60.0, 20.0, 16.0, 24, D);
-        TraceSettings s = TraceSettings.of(8.0, LightTestSupport.stopRadius(0.9), 0.2, true)
+        TraceSettings s = TraceSettings.of(8.0, LightTestSupport.captureRadius(0.9), 0.2, true)
                 .withTolerance(1.0e-8, 1.0e-10);
         RayTable a = RayTable.trace(st, cam, s, 1);
         RayTable b = RayTable.trace(st, cam, s, 3);
@@ -106,7 +106,7 @@ class SeparatedRaysTest {
         com.sun.management.ThreadMXBean tmx = (com.sun.management.ThreadMXBean) mx;
         Spacetime st = LightTestSupport.kerr(0.9);
         Camera cam = new Camera(60.0, 20.0, 16.0, 8, D);
-        TraceSettings s = TraceSettings.of(8.0, LightTestSupport.stopRadius(0.9), 0.1, true);
+        TraceSettings s = TraceSettings.of(8.0, LightTestSupport.captureRadius(0.9), 0.1, true);
         RayTracer tr = new RayTracer(st, s);
         double[] y0 = new double[6];
         double[] g = new double[Spacetime.SIZE];
@@ -141,7 +141,7 @@ class SeparatedRaysTest {
         // brute force on a fine grid wherever the bound certifies X > 0 (common practice, no source)
         double a = 0.9;
         MinoTimeEquations eq = new MinoTimeEquations((MassFunctionSpacetime) LightTestSupport.kerr(a));
-        double x1 = 1.0 / LightTestSupport.stopRadius(a);
+        double x1 = 1.0 / LightTestSupport.captureRadius(a);
         SplittableRandom rnd = new SplittableRandom(7);
         int certified = 0;
         for (int n = 0; n < 3000; n++) {
