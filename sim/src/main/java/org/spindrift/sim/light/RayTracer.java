@@ -301,7 +301,7 @@ public final class RayTracer implements DormandPrince54.Rhs {
             double speed = minoSpeed(x, ym[2], dym);
             double hMax = r > rSample ? FastMath.max(0.5 * (xSample - x), xSample * xSample) / FastMath.abs(dym[1])
                     : 0.25 * r / speed;
-            if (dym[1] < 0.0) {
+            if (dym[1] < 0.0 && xEnd < x) {
                 // outwards: aim at x = xEnd / 2, so the last step lands beyond the end radius but
                 // not beyond infinity (x = 0)
                 hMax = FastMath.min(hMax, (x - 0.5 * xEnd) / -dym[1]);
