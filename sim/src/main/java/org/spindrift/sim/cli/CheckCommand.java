@@ -39,6 +39,15 @@ public final class CheckCommand implements Callable<Integer> {
     }
 
     @Override public Integer call() throws java.io.IOException {
+        if (org.spindrift.sim.study.StudyFile.isStudyFile(file)) {
+            org.spindrift.sim.study.StudyFile st = org.spindrift.sim.study.StudyFile.load(file);
+            out().printf(Locale.ROOT, "%s: ok: study '%s', %d cell(s) (%d deformation(s) x %d beam(s) x %d precision(s)),"
+                    + " %d free reference parameter(s), %d realisation(s) per cell%n", file, st.name(), st.cells(),
+                    st.deformations().length, st.beamsUas().length, st.sigmasUas().length, st.free().size(),
+                    st.realisations());
+            out().flush();
+            return 0;
+        }
         if (org.spindrift.sim.scenario.FitFileLoader.isFitFile(file)) {
             org.spindrift.sim.fit.FitRun.Prepared f = org.spindrift.sim.fit.FitRun.prepare(file,
                     Runtime.getRuntime().availableProcessors());

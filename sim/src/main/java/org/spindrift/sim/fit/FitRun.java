@@ -297,7 +297,7 @@ public final class FitRun {
     }
 
     /** @return the q-th percentile (linear interpolation between order statistics, common practice) */
-    static double percentile(double[] v, double q) {
+    public static double percentile(double[] v, double q) {
         double[] s = v.clone();
         Arrays.sort(s);
         double pos = q / 100.0 * (s.length - 1);
