@@ -27,17 +27,36 @@ public final class Wilks {
         return cdf < 1 - 1e-10 ? 1 - cdf : Gamma.regularizedGammaQ(0.5 * k, 0.5 * deltaChiSquare);
     }
 
-    /** @return the two-sided normal-equivalent significance in sigma of the statistic */
+    /**
+     * @return the two-sided normal-equivalent significance n in sigma: the n with
+     *     P(|Z| >= n) = P(chi^2_1 >= n^2) = p. Both tails are the regularised upper incomplete gamma
+     *     function Q(s, x/2) (Abramowitz &amp; Stegun 1964, eq. 26.4.19), accurate far into the tail, so
+     *     n is found by bisection on Q(1/2, n^2/2) = Q(k/2, Delta chi^2/2); for k = 1, n = sqrt(Delta chi^2).
+     */
     public static double sigma(double deltaChiSquare, int k) {
+        if (!(deltaChiSquare > 0)) {
+            return 0;
+        }
         double p = pValue(deltaChiSquare, k);
         if (p >= 1) {
             return 0;
         }
-        if (p > 0) {
+        if (p > 1e-12) {
             return -new NormalDistribution(0, 1).inverseCumulativeProbability(0.5 * p);
         }
-        // beyond double precision: for k = 1 the equivalent is exactly sqrt(Delta chi^2); for larger k
-        // this is its leading term as well (quoted as a lower bound)
-        return FastMath.sqrt(deltaChiSquare);
+        double logP = FastMath.log(Gamma.regularizedGammaQ(0.5 * k, 0.5 * deltaChiSquare));
+        if (Double.isInfinite(logP)) {
+            return FastMath.sqrt(deltaChiSquare);     // beyond double precision: the leading term
+        }
+        double lo = 0, hi = 40;
+        for (int it = 0; it < 200; it++) {
+            double mid = 0.5 * (lo + hi);
+            if (FastMath.log(Gamma.regularizedGammaQ(0.5, 0.5 * mid * mid)) > logP) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return 0.5 * (lo + hi);
     }
 }
