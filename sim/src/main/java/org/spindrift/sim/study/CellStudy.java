@@ -132,6 +132,11 @@ public final class CellStudy {
                 tp.y(), rp.x(), rp.y(), evaluations);
     }
 
+    /** Checks that the campaign fits in the truth's run for a cell (traces its table; writes nothing). */
+    public void checkCampaign(StudyFile.Cell cell) {
+        epochs(study.truthTree(cell.deformation(), cell.beamUas()));
+    }
+
     /** Epochs every cadence over the campaign from the truth's first frame; the campaign must fit in its run. */
     private double[] epochs(ScenarioTree truth) {
         double first;
@@ -177,9 +182,9 @@ public final class CellStudy {
 
     private boolean allowed(ScenarioTree truth, double v) {
         try {
-            truth.with(study.deformationKey(), v).load();
+            org.spindrift.sim.scenario.ScenarioChecks.spacetime(truth.with(study.deformationKey(), v).load());
             return true;
-        } catch (UserInputException e) {
+        } catch (UserInputException | IllegalArgumentException e) {
             return false;
         }
     }

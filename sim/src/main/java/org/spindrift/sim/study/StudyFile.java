@@ -180,11 +180,12 @@ public record StudyFile(Path file, String name, ScenarioTree truth, String defor
     /** Checks that the truth scenario accepts the deformation value. */
     private static void probe(ConfigSection s, String k, ScenarioTree truth, String key, double v) {
         try {
-            truth.with(key, v).load();
-        } catch (UserInputException e) {
-            String msg = e.getMessage();
-            throw s.error(k, "deformation " + v + " is not usable in the truth scenario: "
-                    + msg.substring(msg.indexOf(": ") + 2));
+            // the spacetime itself checks the family's parameter ranges
+            org.spindrift.sim.scenario.ScenarioChecks.spacetime(truth.with(key, v).load());
+        } catch (UserInputException | IllegalArgumentException e) {
+            String msg = String.valueOf(e.getMessage());
+            String tail = msg.contains(": ") ? msg.substring(msg.lastIndexOf(": ") + 2) : msg;
+            throw s.error(k, "deformation " + v + " is not usable in the truth scenario (" + tail + ")");
         }
     }
 

@@ -58,9 +58,14 @@ public final class StudyRun {
     public static Summary run(StudyFile study, Path dir, int jobs, int threads, boolean progress) throws IOException {
         String sha = AtomicFiles.sha256(study.file());
         checkFolder(dir);
+        FitModel.Cache cache = new FitModel.Cache(threads);
+        for (int d = 0; d < study.deformations().length; d++) {
+            // the campaign must fit in every truth's run: checked before anything is written
+            new CellStudy(study, cache, threads).checkCampaign(study.cell(d * study.sigmasUas().length
+                    * study.beamsUas().length));
+        }
         Files.createDirectories(dir.resolve(CELLS));
         Files.deleteIfExists(dir.resolve(MANIFEST));
-        FitModel.Cache cache = new FitModel.Cache(threads);
         int n = study.cells();
         CellStudy.Result[] results = new CellStudy.Result[n];
         JsonNode[] records = new JsonNode[n];
