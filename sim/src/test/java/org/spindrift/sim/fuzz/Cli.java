@@ -44,6 +44,15 @@ final class Cli {
 
     /** Runs {@code spindrift args...} and checks the contract; @return the result. */
     static Result run(String what, String... args) throws Exception {
+        return run(what, true, args);
+    }
+
+    /** As {@link #run}, but exit 2 may print several lines (one per problem, as {@code verify} does). */
+    static Result runLines(String what, String... args) throws Exception {
+        return run(what, false, args);
+    }
+
+    private static Result run(String what, boolean oneLine, String... args) throws Exception {
         PrintStream old = System.out;
         PrintStream oldErr = System.err;
         ByteArrayOutputStream out = new ByteArrayOutputStream();
@@ -72,9 +81,12 @@ final class Cli {
         String trace = r.err + r.out;
         assertFalse(trace.contains("\tat ") || trace.contains("Exception:") || trace.contains("java.lang."),
                 what + ": stack trace or exception name in the output: " + trace);
-        if (code == 2) {
+        if (code == 2 && oneLine) {
             List<String> lines = r.err.strip().lines().filter(l -> !l.startsWith("spindrift: warning")).toList();
             assertEquals(1, lines.size(), what + ": one line expected on stderr: " + r.err);
+        }
+        if (code == 2) {
+            assertFalse(r.err.isBlank(), what + ": exit 2 without a message");
         }
         return r;
     }
