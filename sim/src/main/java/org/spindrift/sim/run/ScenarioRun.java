@@ -59,7 +59,16 @@ public final class ScenarioRun {
      * @param progress show a progress bar (on a terminal, without --quiet)
      * @param overwrite replace a finished run in the folder (only once the new one is complete)
      */
-    public record Options(Path output, int threads, boolean progress, boolean overwrite) {
+    public record Options(Path output, int threads, boolean progress, boolean overwrite, double checkpointSeconds,
+            boolean resume) {
+        /** Default wall time between checkpoints, s. */
+        public static final double CHECKPOINT_SECONDS = 600;
+
+        /** Options with checkpoints every {@link #CHECKPOINT_SECONDS}, starting from the beginning. */
+        public Options(Path output, int threads, boolean progress, boolean overwrite) {
+            this(output, threads, progress, overwrite, CHECKPOINT_SECONDS, false);
+        }
+
         /** Options that never replace a finished run. */
         public Options(Path output, int threads, boolean progress) {
             this(output, threads, progress, false);
@@ -373,12 +382,48 @@ public final class ScenarioRun {
         StepListener events = (i, step) -> turning[i].step(i, step);
         BatchIntegrator.Result result;
         long t0 = System.nanoTime();
-        try (ProgressBar bar = o.progress() ? new ProgressBarBuilder().setTaskName("evolving " + n + " particles")
-                .setInitialMax(p.times().length).setStyle(ProgressBarStyle.ASCII)
-                .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build() : null) {
-            sink.bar = bar;
-            result = integrator.integrate(batch, p.times(), sink, events);
+        Checkpoint cp = new Checkpoint(o.output(), Checkpoint.sha256(p.loaded().file()));
+        int done = -1;
+        if (o.resume() && cp.exists()) {
+            done = cp.read(batch, turning, sink);
+        } else {
+            if (o.resume()) {
+                System.err.println("spindrift: no checkpoint for " + o.output() + " yet: starting from the beginning");
+            }
+            cp.clear();
         }
+        Stopper stopper = new Stopper(cp, batch, turning, sink, p, o);
+        Runtime.getRuntime().addShutdownHook(stopper);
+        try {
+            int s = p.times().length;
+            try (ProgressBar bar = o.progress() ? new ProgressBarBuilder().setTaskName("evolving " + n + " particles")
+                    .setInitialMax(s).setStyle(ProgressBarStyle.ASCII)
+                    .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build()
+                    : null) {
+                sink.bar = bar;
+                if (done < s - 1) {
+                    // the same barriers as an uninterrupted run: each particle resumes exactly where it stood
+                    final int offset = done + 1;
+                    double[] rest = Arrays.copyOfRange(p.times(), offset, s);
+                    long[] last = {System.nanoTime()};
+                    result = integrator.integrate(batch, rest, (k, t, snap) -> {
+                        sink.accept(k + offset, t, snap);
+                        boolean due = (System.nanoTime() - last[0]) * 1e-9 >= o.checkpointSeconds();
+                        stopper.barrier(k + offset, due);
+                        if (due) {
+                            last[0] = System.nanoTime();
+                        }
+                    }, events);
+                } else {
+                    result = new BatchIntegrator.Result(0, 0, 0, batch.countByState());
+                }
+            }
+            stopper.integrated();
+        } catch (RuntimeException | Error e) {
+            stopper.remove();
+            throw e;
+        }
+        try {
         ParticleHistory history = sink.history();
         long t1 = System.nanoTime();
 
@@ -394,28 +439,153 @@ public final class ScenarioRun {
             stageSeconds.put(stage.name(), (System.nanoTime() - ts) * 1e-9);
         }
         ObjectNode diag = diagnostics(st, batch, q0, result);
+        if (done >= 0) {
+            diag.put("resumed_after_snapshot", done);
+        }
         summary.set("diagnostics", diag);
         archive.writeJson(ArchiveLayout.SUMMARY, summary);
         archive.finish(manifestBody(p, manifest, diag, result));
+        stopper.finished();
+        cp.clear();
         return new Outcome(archive.target(), history, result, (t1 - t0) * 1e-9, (System.nanoTime() - t1) * 1e-9,
                 stageSeconds);
+        } finally {
+            stopper.remove();
+        }
+    }
+
+    /**
+     * Stops a run cleanly on SIGINT/SIGTERM (a shutdown hook): during the evolution the main thread
+     * writes a checkpoint at the next snapshot barrier and the hook waits for it; after the
+     * evolution the hook writes the final one itself (the data no longer change). Either way one
+     * line says how to resume. Also writes the checkpoints that fall due at barriers.
+     */
+    static final class Stopper extends Thread {
+        private static final long WAIT_S = 300;
+        private final Checkpoint cp;
+        private final ParticleBatch batch;
+        private final TurningPoints[] turning;
+        private final HistorySink sink;
+        private final Prepared p;
+        private final Options o;
+        private final java.util.concurrent.CountDownLatch saved = new java.util.concurrent.CountDownLatch(1);
+        private boolean requested;
+        private boolean integrating = true;
+        private boolean finished;
+        private int savedAt = -1;
+
+        Stopper(Checkpoint cp, ParticleBatch batch, TurningPoints[] turning, HistorySink sink, Prepared p, Options o) {
+            super("spindrift-stop");
+            this.cp = cp;
+            this.batch = batch;
+            this.turning = turning;
+            this.sink = sink;
+            this.p = p;
+            this.o = o;
+        }
+
+        /** At the barrier after snapshot k (main thread): writes a checkpoint when due or asked to stop. */
+        void barrier(int k, boolean due) {
+            boolean stop;
+            synchronized (this) {
+                stop = requested;
+            }
+            if (due || stop) {
+                save(k);
+            }
+            if (stop) {
+                stopped(k);
+                saved.countDown();
+                while (true) { // the JVM is exiting: wait for it here, touching nothing more
+                    try {
+                        Thread.sleep(60_000);
+                    } catch (InterruptedException e) {
+                        // keep waiting
+                    }
+                }
+            }
+        }
+
+        private void save(int k) {
+            try {
+                cp.write(k, batch, turning, sink);
+                synchronized (this) {
+                    savedAt = k;
+                }
+            } catch (IOException e) {
+                System.err.println("spindrift: warning: cannot write the checkpoint in " + cp.folder() + " ("
+                        + e.getMessage() + "); the run goes on");
+            }
+        }
+
+        private void stopped(int k) {
+            System.err.println("spindrift: stopped after snapshot " + (k + 1) + " of " + p.times().length
+                    + "; checkpoint in " + cp.folder() + "; continue with: spindrift run " + p.loaded().file() + " -o "
+                    + o.output() + " --resume");
+        }
+
+        /** The evolution is over (main thread). */
+        void integrated() {
+            synchronized (this) {
+                integrating = false;
+            }
+        }
+
+        /** The run folder is complete: nothing to save any more. */
+        synchronized void finished() {
+            finished = true;
+        }
+
+        void remove() {
+            try {
+                Runtime.getRuntime().removeShutdownHook(this);
+            } catch (IllegalStateException e) {
+                // shutting down: this hook is running
+            }
+        }
+
+        @Override public void run() {
+            boolean during;
+            synchronized (this) {
+                if (finished) {
+                    return;
+                }
+                requested = true;
+                during = integrating;
+            }
+            if (during) {
+                try {
+                    saved.await(WAIT_S, java.util.concurrent.TimeUnit.SECONDS);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+                return;
+            }
+            int last = p.times().length - 1;
+            synchronized (this) {
+                if (savedAt != last) {
+                    save(last);
+                }
+            }
+            stopped(last);
+        }
     }
 
     /** Builds the history from the integrator's snapshots. */
-    private static final class HistorySink implements org.spindrift.sim.motion.SnapshotSink {
+    static final class HistorySink implements org.spindrift.sim.motion.SnapshotSink {
         private final Prepared p;
         private final Spacetime st;
         private final double[] g = new double[Spacetime.SIZE];
         private final int n;
-        private final double[][] r;
-        private final double[][] th;
-        private final double[][] ph;
-        private final double[][] ut;
-        private final double[][] ur;
-        private final double[][] uth;
-        private final double[][] uph;
-        private final float[][] w;
-        private final byte[][] state;
+        final double[][] r;
+        final double[][] th;
+        final double[][] ph;
+        final double[][] ut;
+        final double[][] ur;
+        final double[][] uth;
+        final double[][] uph;
+        final float[][] w;
+        final byte[][] state;
         private final FlareEnvelope[] env;
         private final double[] pr;
         private final double[] pth;
@@ -444,7 +614,8 @@ public final class ScenarioRun {
             pth = new double[n];
         }
 
-        @Override public void accept(int k, double t, Snapshot snap) {
+        /** Allocates the rows of snapshot k. */
+        void allocate(int k) {
             r[k] = new double[n];
             th[k] = new double[n];
             ph[k] = new double[n];
@@ -454,6 +625,10 @@ public final class ScenarioRun {
             uph[k] = new double[n];
             w[k] = new float[n];
             state[k] = new byte[n];
+        }
+
+        @Override public void accept(int k, double t, Snapshot snap) {
+            allocate(k);
             snap.copyR(r[k]);
             snap.copyTheta(th[k]);
             snap.copyPhi(ph[k]);
