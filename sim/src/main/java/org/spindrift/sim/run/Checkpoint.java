@@ -152,8 +152,8 @@ final class Checkpoint {
                     throw new IOException("not a checkpoint of this version");
                 }
                 if (!scenarioSha.equals(in.readUTF())) {
-                    throw new UserInputException("checkpoint " + dir + " was made from another version of the scenario"
-                            + " file; run without --resume to start again (the checkpoint is then replaced)");
+                    throw new UserInputException("checkpoint " + dir + " was made from another scenario (the file"
+                            + " has changed); run without --resume to start again (the checkpoint is then replaced)");
                 }
                 String code = in.readUTF();
                 if (!code.equals(Version.get())) {
@@ -302,8 +302,21 @@ final class Checkpoint {
         }
     }
 
-    /** @return the SHA-256 of a file's bytes, hex */
-    static String sha256(Path file) {
-        return org.spindrift.shared.archive.AtomicFiles.sha256(file);
+    /**
+     * @return the SHA-256 of the scenario as parsed (its echo in the manifest, seed included): a
+     *     checkpoint resumes only the same scenario, whatever comments or layout the file has
+     */
+    static String fingerprint(org.spindrift.shared.scenario.Scenario sc) {
+        try {
+            byte[] b = new com.fasterxml.jackson.databind.ObjectMapper().writeValueAsBytes(
+                    org.spindrift.shared.scenario.ScenarioJson.toJson(sc));
+            StringBuilder hex = new StringBuilder();
+            for (byte x : sha256().digest(b)) {
+                hex.append(String.format("%02x", x));
+            }
+            return hex.toString();
+        } catch (IOException e) {
+            throw new java.io.UncheckedIOException(e);
+        }
     }
 }

@@ -382,7 +382,7 @@ public final class ScenarioRun {
         StepListener events = (i, step) -> turning[i].step(i, step);
         BatchIntegrator.Result result;
         long t0 = System.nanoTime();
-        Checkpoint cp = new Checkpoint(o.output(), Checkpoint.sha256(p.loaded().file()));
+        Checkpoint cp = new Checkpoint(o.output(), Checkpoint.fingerprint(p.loaded().scenario()));
         int done = -1;
         if (o.resume() && cp.exists()) {
             done = cp.read(batch, turning, sink);
