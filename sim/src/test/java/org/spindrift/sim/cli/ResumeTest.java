@@ -119,4 +119,46 @@ class ResumeTest {
         assertTrue(compared.containsAll(List.of(ArchiveLayout.SNAPSHOTS, ArchiveLayout.IMAGES, ArchiveLayout.CENTROID,
                 ArchiveLayout.PERIODS, ArchiveLayout.SHEAR)), compared.toString());
     }
+
+    /** A checkpoint of another scenario or a damaged one: one line, exit 2, nothing written; the right one resumes. */
+    @Test void foreignOrDamagedCheckpointsAreRefusedInOneLine() throws Exception {
+        String text = DegenerateRunsTest.scenario("single");
+        Path file = Files.writeString(tmp.resolve("a.yaml"), text);
+        Path out = tmp.resolve("out");
+        // a run that fails after its evolution keeps its checkpoint (checkpoints at every snapshot)
+        List<org.spindrift.sim.run.RunStage> failing = new ArrayList<>(org.spindrift.sim.run.ScenarioRun.stages());
+        failing.add(0, new org.spindrift.sim.run.RunStage() {
+            @Override public String name() {
+                return "failing";
+            }
+
+            @Override public void run(org.spindrift.sim.run.RunContext ctx) throws IOException {
+                throw new IOException("simulated failure");
+            }
+        });
+        org.junit.jupiter.api.Assertions.assertThrows(IOException.class, () -> org.spindrift.sim.run.ScenarioRun.run(
+                org.spindrift.sim.run.ScenarioRun.prepare(org.spindrift.sim.scenario.ScenarioLoader.load(file)),
+                new org.spindrift.sim.run.ScenarioRun.Options(out, 1, false, false, 0, false), failing));
+        Path state = tmp.resolve(".out.spindrift-checkpoint").resolve("state.bin");
+        assertTrue(Files.exists(state));
+
+        Path other = Files.writeString(tmp.resolve("b.yaml"), text.replace("tolerance: 1.0e-8", "tolerance: 1.0e-9"));
+        String[] r = CliCapture.run(2, "run", other.toString(), "-o", out.toString(), "--quiet", "--resume");
+        assertEquals(1, r[1].strip().lines().count(), r[1]);
+        assertTrue(r[1].contains("another scenario"), r[1]);
+
+        byte[] good = Files.readAllBytes(state);
+        byte[] bad = good.clone();
+        bad[bad.length / 2] ^= 0x10;
+        Files.write(state, bad);
+        r = CliCapture.run(2, "run", file.toString(), "-o", out.toString(), "--quiet", "--resume");
+        assertEquals(1, r[1].strip().lines().count(), r[1]);
+        assertTrue(r[1].contains("damaged"), r[1]);
+        assertFalse(Files.exists(out));
+
+        Files.write(state, good);
+        CliCapture.run(0, "run", file.toString(), "-o", out.toString(), "--quiet", "--resume");
+        assertEquals(List.of(), ArchiveVerifier.problems(out));
+        assertFalse(Files.exists(state.getParent()), "the checkpoint is removed once the run is complete");
+    }
 }
