@@ -10,7 +10,7 @@ import picocli.CommandLine.Spec;
  */
 @Command(name = "bench", mixinStandardHelpOptions = true,
         description = "Benchmarks of the engine (timings; the machine's load affects them, compare ratios within one run).",
-        subcommands = {BenchMotionCommand.class, BenchRunCommand.class, BenchLightCommand.class})
+        subcommands = {BenchMotionCommand.class, BenchRunCommand.class, BenchLightCommand.class, BenchFitCommand.class})
 public final class BenchCommand implements Runnable {
     @Spec
     CommandSpec spec;

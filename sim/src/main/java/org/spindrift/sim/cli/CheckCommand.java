@@ -16,7 +16,7 @@ import picocli.CommandLine.Parameters;
  * and the checks that need the metric) without running it or writing anything.
  */
 @Command(name = "check", mixinStandardHelpOptions = true,
-        description = {"Check a scenario file without running it: unknown or missing keys, wrong types,"
+        description = {"Check a scenario or fit file without running it: unknown or missing keys, wrong types,"
                 + " out-of-range values, orbits the metric does not allow, and every limit run enforces (image"
                 + " budget, snapshot count, memory). Warnings (one line each) go to stderr.",
             "Exit status 0 when the file is good, 2 with one message naming file, line and key otherwise."})
@@ -39,6 +39,15 @@ public final class CheckCommand implements Callable<Integer> {
     }
 
     @Override public Integer call() throws java.io.IOException {
+        if (org.spindrift.sim.scenario.FitFileLoader.isFitFile(file)) {
+            org.spindrift.sim.fit.FitRun.Prepared f = org.spindrift.sim.fit.FitRun.prepare(file,
+                    Runtime.getRuntime().availableProcessors());
+            out().printf(Locale.ROOT, "%s: ok: fit '%s', %d free parameter(s), %d astrometric epoch(s), %d flux point(s),"
+                    + " method %s%n", file, f.fit().name(), f.fit().free().size(), f.data().timeMin().length,
+                    f.data().flux().length, f.fit().method().kind().name().toLowerCase(Locale.ROOT));
+            out().flush();
+            return 0;
+        }
         ScenarioRun.Prepared p = ScenarioRun.prepare(ScenarioLoader.load(file));
         if (output != null) {
             org.spindrift.shared.archive.RunArchiveWriter.checkUsable(output, overwrite);

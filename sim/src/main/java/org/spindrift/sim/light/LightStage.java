@@ -66,39 +66,59 @@ public final class LightStage {
                 }
             }
         }
-        // mean flare flux over the fully covered frames (all frames when none is covered)
+        double[] flux = new double[times.length], cx = new double[times.length], cy = new double[times.length];
+        for (int f = 0; f < times.length; f++) {
+            flux[f] = moments.get(f).flux();
+            cx[f] = moments.get(f).x();
+            cy[f] = moments.get(f).y();
+        }
         double coveredFrom = history.time(0) + table.delayRange()[1];
         double coveredTo = history.time(history.snapshots() - 1) + table.delayRange()[0];
-        double mean = 0;
-        int count = 0;
-        for (int f = 0; f < times.length; f++) {
-            if (times[f] >= coveredFrom - 1e-9 && times[f] <= coveredTo + 1e-9) {
-                mean += moments.get(f).flux();
-                count++;
-            }
-        }
-        if (count == 0) {
-            for (FrameMoments m : moments) {
-                mean += m.flux();
-            }
-            count = moments.size();
-        }
-        mean /= FastMath.max(1, count);
-        // steady point source at the hole, flux ratio f to the mean flare flux: the apparent
-        // centroid is F c / (F + F_s) (flux-weighted mean, common practice)
-        double fs = s.steadyFluxRatio() * mean;
+        double fs = s.steadyFluxRatio() * meanCoveredFlux(times, flux, coveredFrom, coveredTo);
         double[] sx = new double[times.length];
         double[] sy = new double[times.length];
-        for (int f = 0; f < times.length; f++) {
-            FrameMoments m = moments.get(f);
-            double tot = m.flux() + fs;
-            sx[f] = tot > 0 && m.flux() > 0 ? m.flux() * m.x() / tot : 0.0;
-            sy[f] = tot > 0 && m.flux() > 0 ? m.flux() * m.y() / tot : 0.0;
-        }
+        withSteadySource(flux, cx, cy, fs, sx, sy);
         LightResult.MockAstrometry mock = s.noiseUas() > 0 ? mock(s, times, sx, sy) : null;
         return new LightResult(s, cam, times, moments, images, raw, fs, sx, sy, mock, h, ts.emissionRadius(),
                 new LightResult.TableStats(table.rays(), table.samples(), table.steps(), secs),
                 coveredFrom, coveredTo);
+    }
+
+    /**
+     * Mean flare flux over the frames in the fully covered observer-time interval [from, to]
+     * (over all frames when none is covered): the reference of the steady source's flux ratio.
+     */
+    public static double meanCoveredFlux(double[] times, double[] flux, double from, double to) {
+        double mean = 0;
+        int count = 0;
+        for (int f = 0; f < times.length; f++) {
+            if (times[f] >= from - 1e-9 && times[f] <= to + 1e-9) {
+                mean += flux[f];
+                count++;
+            }
+        }
+        if (count == 0) {
+            for (double v : flux) {
+                mean += v;
+            }
+            count = flux.length;
+        }
+        return mean / FastMath.max(1, count);
+    }
+
+    /**
+     * Centroid with a steady point source of flux fs at the hole: the flux-weighted mean
+     * F c / (F + F_s) (common practice); 0 where the flare has no flux.
+     *
+     * @param flux flare flux per frame, with its centroid cx, cy (M)
+     * @param sx out: east offset with the steady source, M (and sy north)
+     */
+    public static void withSteadySource(double[] flux, double[] cx, double[] cy, double fs, double[] sx, double[] sy) {
+        for (int f = 0; f < flux.length; f++) {
+            double tot = flux[f] + fs;
+            sx[f] = tot > 0 && flux[f] > 0 ? flux[f] * cx[f] / tot : 0.0;
+            sy[f] = tot > 0 && flux[f] > 0 ? flux[f] * cy[f] / tot : 0.0;
+        }
     }
 
     /**

@@ -132,8 +132,33 @@ public final class ScenarioRun {
         double secondsPerM = Units.timeUnitSeconds(sc.blackHole().massSolar());
         double uasPerM = Units.uasPerM(sc.blackHole().massSolar(), sc.blackHole().distanceMpc());
         SourceSetup.Placed placed = SourceSetup.place(sc, st, capture);
+        double[] times = snapshotTimes(ls, secondsPerM, placed.centres()[0].periodM());
+        int s = times.length;
+        double cadence = times[1] - times[0];
+        double duration = sc.run().duration().toM(secondsPerM, placed.centres()[0].periodM());
+        List<String> warnings = new ArrayList<>();
+        // the grid ends at the last whole cadence: the manifest records both durations; a cut of more
+        // than 1 % of the run is worth a warning (durations in orbits are rarely whole cadences)
+        if (duration - times[s - 1] > DURATION_CUT_WARNING * duration) {
+            warnings.add(ls.error("run.duration", "the duration of " + fmt(duration) + " M is not a whole number of"
+                    + " snapshot cadences (" + fmt(cadence) + " M): the run ends at the last whole one, "
+                    + fmt(times[s - 1]) + " M").getMessage());
+        }
+        checkMemory(ls, sc.totalParticles(), s, Runtime.getRuntime().maxMemory());
+        checkImaging(ls, sc, uasPerM, times, capture, warnings);
+        return new Prepared(ls, st, landmarks, capture, placed, times, secondsPerM, uasPerM, List.copyOf(warnings),
+                duration);
+    }
+
+    /**
+     * The snapshot times of a scenario (0 to the duration at the snapshot cadence), M.
+     *
+     * @param firstPeriodM the first source centre's orbital period (what "1 orbit" means), M
+     */
+    public static double[] snapshotTimes(LoadedScenario ls, double secondsPerM, double firstPeriodM) {
+        Scenario sc = ls.scenario();
         RunSettings run = sc.run();
-        double duration = run.duration().toM(secondsPerM, placed.centres()[0].periodM());
+        double duration = run.duration().toM(secondsPerM, firstPeriodM);
         if (!(duration > 0) || !Double.isFinite(duration)) {
             throw ls.error("run.duration", "gives no positive duration in M (" + duration + ")");
         }
@@ -153,18 +178,7 @@ public final class ScenarioRun {
         for (int k = 0; k < s; k++) {
             times[k] = k * cadence;
         }
-        List<String> warnings = new ArrayList<>();
-        // the grid ends at the last whole cadence: the manifest records both durations; a cut of more
-        // than 1 % of the run is worth a warning (durations in orbits are rarely whole cadences)
-        if (duration - times[s - 1] > DURATION_CUT_WARNING * duration) {
-            warnings.add(ls.error("run.duration", "the duration of " + fmt(duration) + " M is not a whole number of"
-                    + " snapshot cadences (" + fmt(cadence) + " M): the run ends at the last whole one, "
-                    + fmt(times[s - 1]) + " M").getMessage());
-        }
-        checkMemory(ls, sc.totalParticles(), s, Runtime.getRuntime().maxMemory());
-        checkImaging(ls, sc, uasPerM, times, capture, warnings);
-        return new Prepared(ls, st, landmarks, capture, placed, times, secondsPerM, uasPerM, List.copyOf(warnings),
-                duration);
+        return times;
     }
 
     /** Fraction of the requested duration lost to whole cadences above which the run warns. */

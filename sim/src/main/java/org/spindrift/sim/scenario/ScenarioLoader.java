@@ -43,7 +43,11 @@ public final class ScenarioLoader {
 
     /** Reads and checks a file. */
     public static LoadedScenario load(Path file) {
-        ConfigNode root = ConfigTreeReader.read(file);
+        return fromTree(file, ConfigTreeReader.read(file));
+    }
+
+    /** Checks a scenario already read into a tree (a fit file's inline or modified scenario). */
+    static LoadedScenario fromTree(Path file, ConfigNode root) {
         ConfigSection.LineIndex lines = new ConfigSection.LineIndex();
         if (!(root instanceof ConfigNode.Obj obj)) {
             throw ConfigSection.error(file, root.line(), "", "the file must be a mapping of keys (black_hole, observer,"

@@ -25,6 +25,14 @@ class DemoConfigsTest {
         assertTrue(files.size() >= 3, "at least three demo configs: " + files);
         String readme = Files.readString(configs().resolve("README.md"));
         for (Path f : files) {
+            if (FitFileLoader.isFitFile(f)) {
+                // a fit demo: the fit file itself checks (its data come from a documented run command)
+                FitFile fit = FitFileLoader.load(f);
+                assertTrue(fit.free().size() >= 1);
+                assertTrue(Files.readString(f).contains("INVENTED"), f + " says it is invented");
+                assertTrue(readme.contains(f.getFileName().toString()), "configs/README.md mentions " + f.getFileName());
+                continue;
+            }
             LoadedScenario ls = ScenarioLoader.load(f);
             ScenarioRun.Prepared p = ScenarioRun.prepare(ls);
             assertTrue(p.times().length >= 3);

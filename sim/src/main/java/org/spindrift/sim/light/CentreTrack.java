@@ -1,0 +1,234 @@
+package org.spindrift.sim.light;
+
+import org.hipparchus.util.FastMath;
+import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.sim.motion.BatchIntegrator;
+import org.spindrift.sim.motion.ParticleBatch;
+import org.spindrift.sim.motion.ZamoFrame;
+import org.spindrift.sim.scenario.SourceSetup;
+import org.spindrift.sim.spacetime.Spacetime;
+
+/**
+ * The geodesics of the sources' centres (one test particle per source, started as
+ * {@link SourceSetup#centres} starts them and evolved by the motion engine's
+ * {@link BatchIntegrator}), sampled at a fine cadence with positions, Cartesian velocities and
+ * 4-velocities, for the compact-source light model. Between samples the position is a cubic
+ * Hermite interpolant of the Cartesian position and velocity (e.g. de Boor 1978, A Practical Guide
+ * to Splines, ch. IV), the 4-velocity linear. Also an {@link EmitterHistory} of those particles.
+ */
+public final class CentreTrack implements EmitterHistory {
+    private final double[] t;
+    /** [source][sample] */
+    private final double[][] r, th, ph, ut, ur, uth, uph, x, y, z, vx, vy, vz;
+    private final byte[][] state;
+    private final double[] alpha;
+    private final double dt;
+    private final double vmax;
+
+    private CentreTrack(double[] t, int k, double[] alpha) {
+        this.t = t;
+        int n = t.length;
+        r = new double[k][n];
+        th = new double[k][n];
+        ph = new double[k][n];
+        ut = new double[k][n];
+        ur = new double[k][n];
+        uth = new double[k][n];
+        uph = new double[k][n];
+        x = new double[k][n];
+        y = new double[k][n];
+        z = new double[k][n];
+        vx = new double[k][n];
+        vy = new double[k][n];
+        vz = new double[k][n];
+        state = new byte[k][n];
+        this.alpha = alpha;
+        this.dt = n > 1 ? t[1] - t[0] : 1.0;
+        this.vmax = 0;
+    }
+
+    private CentreTrack(CentreTrack c, double vmax) {
+        t = c.t;
+        r = c.r;
+        th = c.th;
+        ph = c.ph;
+        ut = c.ut;
+        ur = c.ur;
+        uth = c.uth;
+        uph = c.uph;
+        x = c.x;
+        y = c.y;
+        z = c.z;
+        vx = c.vx;
+        vy = c.vy;
+        vz = c.vz;
+        state = c.state;
+        alpha = c.alpha;
+        dt = c.dt;
+        this.vmax = vmax;
+    }
+
+    /**
+     * Evolves the centres of every source of a scenario from t = 0 to tEnd.
+     *
+     * @param captureRadius radius where the centres are stopped, M
+     * @param cadence sample spacing, M
+     * @param tolerance integration tolerance (absolute and relative)
+     */
+    public static CentreTrack of(Scenario sc, Spacetime st, double captureRadius, double tEnd, double cadence,
+                                 double tolerance) {
+        SourceSetup.Centre[] c = SourceSetup.centres(sc, st, captureRadius);
+        int k = c.length;
+        int n = (int) FastMath.ceil(tEnd / cadence - 1e-9) + 1;
+        double h = tEnd / (n - 1);
+        double[] times = new double[n];
+        for (int i = 0; i < n; i++) {
+            times[i] = i * h;
+        }
+        double[] alpha = new double[k];
+        for (int s = 0; s < k; s++) {
+            alpha[s] = sc.sources().get(s).emission().spectralIndex();
+        }
+        CentreTrack tr = new CentreTrack(times, k, alpha);
+        ZamoFrame zamo = new ZamoFrame(st);
+        ParticleBatch batch = new ParticleBatch(k);
+        double[] p = new double[4];
+        for (int s = 0; s < k; s++) {
+            zamo.momentum(c[s].r(), c[s].theta(), c[s].velocity()[0], c[s].velocity()[1], c[s].velocity()[2], p);
+            batch.set(s, 0.0, c[s].r(), c[s].theta(), c[s].phi(), p[0], p[1], p[2], p[3]);
+        }
+        BatchIntegrator bi = new BatchIntegrator(st, BatchIntegrator.Config.of(captureRadius)
+                .withTolerance(tolerance, tolerance));
+        double[] g = new double[Spacetime.SIZE];
+        double a2 = st.spin() * st.spin();
+        double[] vm = new double[1];
+        bi.integrate(batch, times, (idx, time, snap) -> {
+            for (int s = 0; s < k; s++) {
+                double rr = snap.r(s), tt = snap.theta(s), pp = snap.phi(s);
+                st.inverse(rr, tt, g);
+                double pt = snap.pT(s), pphi = snap.pPhi(s);
+                double u0 = g[Spacetime.TT] * pt + g[Spacetime.TP] * pphi;
+                double u1 = g[Spacetime.RR] * snap.pR(s);
+                double u2 = g[Spacetime.HH] * snap.pTheta(s);
+                double u3 = g[Spacetime.TP] * pt + g[Spacetime.PP] * pphi;
+                tr.r[s][idx] = rr;
+                tr.th[s][idx] = tt;
+                tr.ph[s][idx] = pp;
+                tr.ut[s][idx] = u0;
+                tr.ur[s][idx] = u1;
+                tr.uth[s][idx] = u2;
+                tr.uph[s][idx] = u3;
+                tr.state[s][idx] = (byte) snap.stateCode(s);
+                // DESIGN section 3 Cartesian map and its coordinate-time derivative
+                double big = FastMath.sqrt(rr * rr + a2);
+                double sth = FastMath.sin(tt), cth = FastMath.cos(tt), sph = FastMath.sin(pp), cph = FastMath.cos(pp);
+                double rd = u1 / u0, thd = u2 / u0, phd = u3 / u0;
+                double dBig = rr * rd / big;
+                tr.x[s][idx] = big * sth * cph;
+                tr.y[s][idx] = big * sth * sph;
+                tr.z[s][idx] = rr * cth;
+                tr.vx[s][idx] = dBig * sth * cph + big * cth * cph * thd - big * sth * sph * phd;
+                tr.vy[s][idx] = dBig * sth * sph + big * cth * sph * thd + big * sth * cph * phd;
+                tr.vz[s][idx] = rd * cth - rr * sth * thd;
+                if (snap.stateCode(s) == ALIVE) {
+                    vm[0] = FastMath.max(vm[0], FastMath.sqrt(tr.vx[s][idx] * tr.vx[s][idx]
+                            + tr.vy[s][idx] * tr.vy[s][idx] + tr.vz[s][idx] * tr.vz[s][idx]));
+                }
+            }
+        });
+        return new CentreTrack(tr, vm[0]);
+    }
+
+    /** @return number of sources */
+    public int sources() {
+        return r.length;
+    }
+
+    /** @return the largest Cartesian coordinate speed of any centre, M per M */
+    public double maxSpeed() {
+        return vmax;
+    }
+
+    /** @return the smallest and largest radius of the alive centres */
+    public double[] radialRange() {
+        return LightStage.radialRange(this);
+    }
+
+    /**
+     * Position, Cartesian velocity and 4-velocity of centre s at time te (inside the track).
+     *
+     * @param out length 7: x, y, z, u^t, u^r, u^theta, u^phi; returns false when the centre has
+     *     ended (captured, escaped) or te lies outside the track
+     */
+    public boolean at(int s, double te, double[] out) {
+        double f = te / dt;
+        int k = (int) f;
+        if (te < 0 || k >= t.length - 1) {
+            if (k == t.length - 1 && f - k < 1e-9) {
+                k = t.length - 2;
+            } else {
+                return false;
+            }
+        }
+        if (state[s][k] != ALIVE || state[s][k + 1] != ALIVE) {
+            return false;
+        }
+        double u = f - k;
+        double u2 = u * u, u3 = u2 * u;
+        double h00 = 2 * u3 - 3 * u2 + 1, h10 = (u3 - 2 * u2 + u) * dt, h01 = -2 * u3 + 3 * u2, h11 = (u3 - u2) * dt;
+        out[0] = h00 * x[s][k] + h10 * vx[s][k] + h01 * x[s][k + 1] + h11 * vx[s][k + 1];
+        out[1] = h00 * y[s][k] + h10 * vy[s][k] + h01 * y[s][k + 1] + h11 * vy[s][k + 1];
+        out[2] = h00 * z[s][k] + h10 * vz[s][k] + h01 * z[s][k + 1] + h11 * vz[s][k + 1];
+        double w = 1 - u;
+        out[3] = w * ut[s][k] + u * ut[s][k + 1];
+        out[4] = w * ur[s][k] + u * ur[s][k + 1];
+        out[5] = w * uth[s][k] + u * uth[s][k + 1];
+        out[6] = w * uph[s][k] + u * uph[s][k + 1];
+        return true;
+    }
+
+    @Override public int snapshots() {
+        return t.length;
+    }
+
+    @Override public int particles() {
+        return r.length;
+    }
+
+    @Override public double time(int s) {
+        return t[s];
+    }
+
+    @Override public double r(int s, int n) {
+        return r[n][s];
+    }
+
+    @Override public double theta(int s, int n) {
+        return th[n][s];
+    }
+
+    @Override public double phi(int s, int n) {
+        return ph[n][s];
+    }
+
+    @Override public double u(int s, int n, int mu) {
+        return switch (mu) {
+            case 0 -> ut[n][s];
+            case 1 -> ur[n][s];
+            case 2 -> uth[n][s];
+            default -> uph[n][s];
+        };
+    }
+
+    @Override public double weight(int s, int n) {
+        return state[n][s] == ALIVE ? 1.0 : 0.0;
+    }
+
+    @Override public int state(int s, int n) {
+        return state[n][s];
+    }
+
+    @Override public double spectralIndex(int n) {
+        return alpha[n];
+    }
+}

@@ -1,0 +1,142 @@
+package org.spindrift.sim.fit;
+
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Locale;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+import org.junit.jupiter.api.io.TempDir;
+import org.spindrift.sim.light.CompactSourceModel;
+import org.spindrift.sim.run.ScenarioRun;
+import org.spindrift.sim.scenario.LoadedScenario;
+import org.spindrift.sim.scenario.ScenarioLoader;
+
+/**
+ * The fit's compact-source light model against a full run (particles, ray table, rendered frames)
+ * of the same compact hot spot, Kerr face-on and at i = 60 deg and a deformed (jp) metric at
+ * i = 60 deg, at the run's own frame times (the run is the reference), median and worst frame
+ * differences of centroid (relative to the track radius) and flux.
+ */
+public class CompactModelVsRunTest {
+    @TempDir Path tmp;
+
+    public static String scenario(String family, double spin, String params, double inclination) {
+        return String.join("\n",
+                "name: compact",
+                "black_hole:",
+                "  mass_solar: 1.0e6",
+                "  distance: 1 kpc",
+                "  family: " + family,
+                "  spin: " + spin,
+                params.isEmpty() ? "" : "  parameters: {" + params + "}",
+                "observer:",
+                "  inclination_deg: " + inclination,
+                "  position_angle_deg: 25",
+                "sources:",
+                "  - name: spot",
+                "    kind: hot_spot",
+                "    particles: 3000",
+                "    shape: {sigma_M: 0.15}",
+                "    orbit:",
+                "      circular: {radius_M: 8.0, phi_deg: 30}",
+                "    velocity: {model: shear}",
+                "    emission:",
+                "      spectral_index: 1.0",
+                "run:",
+                "  duration: 1 orbits",
+                "  snapshot_cadence: 2 M",
+                "  seed: 3",
+                "  tolerance: 1.0e-9",
+                "  archive_subsample: 10",
+                "imaging:",
+                "  field_of_view_M: 20",
+                "  pixels: 96",
+                "  frame_cadence: 4 M",
+                "instrument:",
+                "  steady_source_flux_ratio: 0.5",
+                "");
+    }
+
+    @ParameterizedTest(name = "{0} a={1} {2} i={3}")
+    @CsvSource({"kerr, 0.5, '', 1, 0.02, 0.10", "kerr, 0.5, '', 60, 0.05, 0.5", "jp, 0.5, 'epsilon3: 1.0', 60, 0.05, 0.5"})
+    void fastModelMatchesRun(String family, double spin, String params, double inc, double medianTol, double worstTol)
+            throws Exception {
+        Path file = tmp.resolve("compact.yaml");
+        Files.writeString(file, scenario(family, spin, params, inc));
+        LoadedScenario ls = ScenarioLoader.load(file);
+        Path out = tmp.resolve("run");
+        ScenarioRun.run(ScenarioRun.prepare(ls), new ScenarioRun.Options(out, 2, false));
+        List<String> lines = Files.readAllLines(out.resolve("centroid.csv"));
+        List<String> head = List.of(lines.get(0).split(","));
+        int ct = head.indexOf("t_obs_M"), cx = head.indexOf("x_uas"), cy = head.indexOf("y_uas"), cf = head.indexOf("flux");
+        var manifest = new com.fasterxml.jackson.databind.ObjectMapper().readTree(out.resolve("manifest.json").toFile());
+        double uas = manifest.get("units").get("M_uas").asDouble();
+        double from = manifest.get("light").get("fully_covered_min").get(0).asDouble();
+        double to = manifest.get("light").get("fully_covered_min").get(1).asDouble();
+        double minPerM = manifest.get("units").get("M_seconds").asDouble() / 60;
+        double[] runTimes = new double[lines.size() - 1];
+        for (int i = 1; i < lines.size(); i++) {
+            runTimes[i - 1] = Double.parseDouble(lines.get(i).split(",")[ct]);
+        }
+        CompactSourceModel.Frames fr = FitModel.frames(ls, new FitModel.Cache(2), new CompactSourceModel(), runTimes);
+        double radius = 0, worstC = 0, worstF = 0;
+        int n = 0;
+        double[] dc = new double[lines.size()], df = new double[lines.size()];
+        for (int i = 1; i < lines.size(); i++) {
+            String[] v = lines.get(i).split(",");
+            double rr = Math.hypot(Double.parseDouble(v[cx]), Double.parseDouble(v[cy])) / uas;
+            if (Double.isFinite(rr)) {
+                radius = Math.max(radius, rr);
+            }
+        }
+        for (int i = 1; i < lines.size(); i++) {
+            String[] v = lines.get(i).split(",");
+            double t = Double.parseDouble(v[ct]);
+            // frames from 3 M after the light of the whole orbit (delays up to about r (1 + sin i) + a
+            // few M) can reach the observer; the uncovered rest are rare photon-ring samples
+            if (t < 30.0 || t * minPerM > to) {
+                continue;
+            }
+            double x = Double.parseDouble(v[cx]) / uas, y = Double.parseDouble(v[cy]) / uas, f = Double.parseDouble(v[cf]);
+            double xm = interp(fr.timesM(), fr.x(), t), ym = interp(fr.timesM(), fr.y(), t);
+            double fm = interp(fr.timesM(), fr.flux(), t);
+            dc[n] = Math.hypot(xm - x, ym - y);
+            df[n] = Math.abs(fm / f - 1);
+            worstC = Math.max(worstC, dc[n]);
+            worstF = Math.max(worstF, df[n]);
+            n++;
+        }
+        double medC = median(dc, n), medF = median(df, n);
+        String msg = String.format(Locale.ROOT, "%s i=%s: %d frames, track radius %.3f M, centroid difference median"
+                + " %.4f M (%.2f %%) worst %.4f M (%.2f %%), flux median %.2f %% worst %.2f %%", family, inc, n, radius,
+                medC, 100 * medC / radius, worstC, 100 * worstC / radius, 100 * medF, 100 * worstF);
+        System.out.println(msg);
+        assertTrue(n >= 10, msg);
+        // Measured (64-96 px): face-on medians 1.5 % / 1.2 %, worst 7 % / 5 %; at i = 60 deg medians
+        // about 3 %, and single frames with the spot behind the hole (strongly lensed, thin images)
+        // differ by up to 40 %. This is short of the 1 % / 2 % aim for the fast model; the tolerances
+        // below record what is reached so that a regression shows.
+        assertTrue(medC <= medianTol * radius, msg);
+        assertTrue(medF <= medianTol, msg);
+        assertTrue(worstC <= worstTol * radius, msg);
+        assertTrue(worstF <= worstTol, msg);
+    }
+
+    private static double median(double[] v, int n) {
+        double[] s = java.util.Arrays.copyOf(v, n);
+        java.util.Arrays.sort(s);
+        return s[n / 2];
+    }
+
+    private static double interp(double[] t, double[] v, double x) {
+        int j = 1;
+        while (j < t.length - 1 && t[j] < x) {
+            j++;
+        }
+        double f = (x - t[j - 1]) / (t[j] - t[j - 1]);
+        return v[j - 1] + f * (v[j] - v[j - 1]);
+    }
+}
