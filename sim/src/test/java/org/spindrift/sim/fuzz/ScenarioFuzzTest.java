@@ -36,6 +36,12 @@ import org.spindrift.shared.archive.ArchiveVerifier;
  */
 class ScenarioFuzzTest {
     static Path work;
+
+    static Path arrayFile() {
+        Path configs = Files.isDirectory(Path.of("..", "configs")) ? Path.of("..", "configs") : Path.of("configs");
+        return configs.resolve("arrays").resolve("invented-array.yaml");
+    }
+
     static List<Path> demos;
 
     @BeforeContainer static void setUp() throws IOException {
@@ -47,7 +53,7 @@ class ScenarioFuzzTest {
                     .filter(p -> !org.spindrift.sim.scenario.FitFileLoader.isFitFile(p)).sorted().toList();
         }
         // the array file the interferometer demo names, beside the mutated case
-        Path arrays = Files.createDirectories(work.resolve("arrays"));
+        Path arrays = Files.createDirectories(work.resolve("check").resolve("arrays"));
         try (Stream<Path> s = Files.list(configs.resolve("arrays"))) {
             for (Path p : s.toList()) {
                 Files.copy(p, arrays.resolve(p.getFileName()));
@@ -66,7 +72,11 @@ class ScenarioFuzzTest {
     }
 
     /** A mutated scenario file: its bytes and how it was made (for the failure message). */
-    record Case(String name, byte[] bytes, String how) {
+    record Case(String name, byte[] bytes, String how, byte[] arrayBytes) {
+        Case(String name, byte[] bytes, String how) {
+            this(name, bytes, how, null);
+        }
+
         @Override public String toString() {
             return how;
         }
@@ -217,9 +227,18 @@ class ScenarioFuzzTest {
     }
 
     @Provide Arbitrary<Case> mutatedDemos() {
-        return Combinators.combine(Arbitraries.of(demos), Arbitraries.of(Mutation.class), Arbitraries.longs())
+        List<Path> targets = new ArrayList<>(demos);
+        targets.add(arrayFile());
+        return Combinators.combine(Arbitraries.of(targets), Arbitraries.of(Mutation.class), Arbitraries.longs())
                 .as((d, m, s) -> {
                     try {
+                        if (d.equals(arrayFile())) {
+                            // the station file of the interferometer demo, read through its scenario
+                            Case a = mutate(d, m, s);
+                            Path scenario = demos.stream().filter(p -> p.getFileName().toString().equals(
+                                    "flare-array.yaml")).findFirst().orElseThrow();
+                            return new Case("case.yaml", Files.readAllBytes(scenario), a.how(), a.bytes());
+                        }
                         return mutate(d, m, s);
                     } catch (IOException e) {
                         throw new java.io.UncheckedIOException(e);
@@ -232,6 +251,11 @@ class ScenarioFuzzTest {
         Path dir = Files.createDirectories(work.resolve("check"));
         Path file = dir.resolve(c.name());
         Files.write(file, c.bytes());
+        Path array = dir.resolve("arrays").resolve("invented-array.yaml");
+        byte[] pristineArray = Files.readAllBytes(array);
+        if (c.arrayBytes() != null) {
+            Files.write(array, c.arrayBytes());
+        }
         List<String> before = Cli.listing(work);
         Cli.Result r = Cli.run(c.how(), "check", file.toString(), "-o", dir.resolve("out").toString());
         assertEquals(before, Cli.listing(work), c.how() + ": check must not write anything");
@@ -239,6 +263,7 @@ class ScenarioFuzzTest {
             assertTrue(r.out().contains(": ok:"), c.how() + ": " + r.out());
         }
         Files.delete(file);
+        Files.write(array, pristineArray);
         return r;
     }
 
@@ -289,6 +314,14 @@ class ScenarioFuzzTest {
             }
         } finally {
             Cli.delete(dir);
+        }
+    }
+
+    /** The unmutated demos (and the station file beside the interferometer demo) check clean in this set-up. */
+    @Example void everyDemoChecksUnchanged() throws Exception {
+        for (Path d : demos) {
+            Cli.Result r = checkCase(new Case("case.yaml", Files.readAllBytes(d), d.getFileName().toString()));
+            assertEquals(0, r.code(), d + ": " + r.err());
         }
     }
 
