@@ -17,9 +17,11 @@ import org.spindrift.sim.light.Camera;
 import org.spindrift.sim.light.EmissionMask;
 import org.spindrift.sim.light.EmissionRenderer;
 import org.spindrift.sim.light.EmitterHistory;
+import org.spindrift.sim.light.FrameMoments;
 import org.spindrift.sim.light.HistoryEmitters;
 import org.spindrift.sim.light.LightSettings;
 import org.spindrift.sim.light.LightStage;
+import org.spindrift.sim.light.RayAccuracy;
 import org.spindrift.sim.light.RayTable;
 import org.spindrift.sim.light.TraceSettings;
 import org.spindrift.sim.run.ScenarioRun;
@@ -64,6 +66,16 @@ public final class BenchLightCommand implements Callable<Integer> {
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
     Integer threads;
 
+    @Option(names = "--reference",
+            description = "Also trace the large table on the general path (Hamilton's equations in the affine"
+                    + " parameter for every metric), time both in this run, and compare both with the general path"
+                    + " at a tight tolerance (1e-12) on every --accuracy-every-th pixel.")
+    boolean reference;
+
+    @Option(names = "--accuracy-every", paramLabel = "K", defaultValue = "8",
+            description = "With --reference: compare every K-th pixel in both directions, 1..64 (default: ${DEFAULT-VALUE}).")
+    int accuracyEvery;
+
     @Option(names = "--vis-pixels", paramLabel = "N", defaultValue = "96",
             description = "Pixels per side of the frames of the visibility timing, 8..1024 (default: ${DEFAULT-VALUE}).")
     int visPixels;
@@ -80,6 +92,7 @@ public final class BenchLightCommand implements Callable<Integer> {
         check(tablePixels >= 16 && tablePixels <= 2048, "--table-pixels must be in 16..2048, got " + tablePixels);
         check(framePixels >= 16 && framePixels <= 1024, "--frame-pixels must be in 16..1024, got " + framePixels);
         check(frames >= 1 && frames <= 100_000, "--frames must be in 1..100000, got " + frames);
+        check(accuracyEvery >= 1 && accuracyEvery <= 64, "--accuracy-every must be in 1..64, got " + accuracyEvery);
         check(visPixels >= 8 && visPixels <= 1024, "--vis-pixels must be in 8..1024, got " + visPixels);
         check(visPoints >= 1 && visPoints <= 100_000, "--vis-points must be in 1..100000, got " + visPoints);
         int nt = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
@@ -108,18 +121,34 @@ public final class BenchLightCommand implements Callable<Integer> {
             for (int n : new int[] {tablePixels, framePixels}) {
                 Camera cam = s.withPixels(n).camera();
                 double hK = LightStage.smoothingLength(cam);
+                TraceSettings ts = LightStage.traceSettings(h, p.spacetime(), cam, stop, s.fieldOfViewM(), true);
+                double[] ref = null;
+                if (reference && n == tablePixels) {
+                    TraceSettings general = ts.withGeneralPath(true)
+                            .withTolerance(LightStage.GENERAL_RTOL, LightStage.GENERAL_ATOL);
+                    ref = timeTable("general path (reference)", p.spacetime(), cam, general, nt);
+                }
                 t0 = System.nanoTime();
                 double c0 = cpu();
-                TraceSettings ts = LightStage.traceSettings(h, p.spacetime(), cam, stop, s.fieldOfViewM(), true);
                 EmissionMask mask = ts.mask();
                 RayTable table = RayTable.trace(p.spacetime(), cam, ts, nt);
                 double secs = seconds(t0);
-                System.out.printf(Locale.ROOT, "  ray table %d x %d (fov %.0f M, emission mask %.1f%% of cells): %.2f s"
-                        + " (%.1f CPU s), %.0f pixels/s, %d samples, %d pixels refined with %d sub-rays, %.0f steps per pixel%n",
-                        n, n, s.fieldOfViewM(), 100 * mask.filling(), secs, cpu() - c0, table.rays() / secs,
+                double cpuSecs = cpu() - c0;
+                System.out.printf(Locale.ROOT, "  ray table %d x %d (fov %.0f M, emission mask %.1f%% of cells, %.2f to %.2f M"
+                        + " from the centre): %.2f s (%.1f CPU s), %.0f pixels/s, %d samples, %d pixels refined with %d sub-rays,"
+                        + " %.0f steps per pixel%n", n, n, s.fieldOfViewM(), 100 * mask.filling(), mask.innerRadius(),
+                        mask.outerRadius(), secs, cpuSecs, table.rays() / secs,
                         table.samples(), table.refinedPixels(), table.subRays(), table.steps() / (double) table.rays());
+                if (ref != null) {
+                    System.out.printf(Locale.ROOT, "  speed-up over the general path: %.2fx wall, %.2fx CPU%n",
+                            ref[0] / secs, ref[1] / cpuSecs);
+                    accuracy(p.spacetime(), cam, ts, p.landmarks().get("isco_prograde"));
+                }
                 if (n != framePixels) {
                     continue;
+                }
+                if (reference) {
+                    compareFrames(p.spacetime(), cam, ts, table, h, hK, nt);
                 }
                 double[] d = table.delayRange();
                 double tA = h.time(0) + d[1];
@@ -142,6 +171,83 @@ public final class BenchLightCommand implements Callable<Integer> {
             deleteTree(tmp);
         }
         return 0;
+    }
+
+    /** Times one table; prints a line; @return wall and CPU seconds */
+    private static double[] timeTable(String label, org.spindrift.sim.spacetime.Spacetime st, Camera cam,
+                                      TraceSettings ts, int nt) {
+        long t0 = System.nanoTime();
+        double c0 = cpu();
+        RayTable table = RayTable.trace(st, cam, ts, nt);
+        double secs = seconds(t0);
+        double cpuSecs = cpu() - c0;
+        int n = cam.pixels();
+        System.out.printf(Locale.ROOT, "  ray table %d x %d on the %s, tolerance %.0e: %.2f s (%.1f CPU s), %.0f pixels/s,"
+                        + " %d samples, %d pixels refined with %d sub-rays, %.0f steps per pixel%n",
+                n, n, label, ts.relativeTolerance(), secs, cpuSecs, table.rays() / secs, table.samples(),
+                table.refinedPixels(), table.subRays(), table.steps() / (double) table.rays());
+        return new double[] {secs, cpuSecs};
+    }
+
+    /** Both paths at their run tolerances against the general path at 1e-12, on every accuracyEvery-th pixel. */
+    private void accuracy(org.spindrift.sim.spacetime.Spacetime st, Camera cam, TraceSettings ts, double isco) {
+        TraceSettings tight = ts.withGeneralPath(true).withTolerance(1.0e-12, 1.0e-14);
+        TraceSettings general = ts.withGeneralPath(true).withTolerance(LightStage.GENERAL_RTOL, LightStage.GENERAL_ATOL);
+        System.out.printf(Locale.ROOT, "  accuracy against the general path at tolerance 1e-12, every %d-th pixel,"
+                + " first %d equatorial crossings inside r = %.1f M (max / 99th percentile; g outside the ISCO, %.2f M):%n",
+                accuracyEvery, RayAccuracy.CROSSINGS, ts.emissionRadius(), isco);
+        for (Object[] c : new Object[][] {{"run path", ts}, {"general path", general}}) {
+            TraceSettings t = (TraceSettings) c[1];
+            RayAccuracy.Result r = RayAccuracy.compare(st, cam, t, tight, accuracyEvery, isco);
+            for (int k = 0; k < RayAccuracy.CROSSINGS; k++) {
+                System.out.printf(Locale.ROOT, "    %-12s tol %.0e, crossing %d: position %.1e / %.1e M, delay %.1e / %.1e M,"
+                                + " g (circular orbit) %.1e / %.1e relative; %d rays%s%n",
+                        c[0], t.relativeTolerance(), k + 1, r.positionMax()[k], r.position99()[k], r.delayMax()[k],
+                        r.delay99()[k], r.redshiftMax()[k], r.redshift99()[k], r.crossings()[k],
+                        k == 0 ? String.format(Locale.ROOT, " of %d (%d differ in crossings)", r.rays(), r.mismatched()) : "");
+            }
+        }
+    }
+
+    /**
+     * Renders 12 frames spread over the run from the run's table and from a table traced on the
+     * general path at the same size, and prints the largest differences of frame flux (relative
+     * to the peak flux) and of the centroid (M).
+     */
+    private static void compareFrames(org.spindrift.sim.spacetime.Spacetime st, Camera cam, TraceSettings ts,
+                                      RayTable table, EmitterHistory h, double hK, int nt) {
+        TraceSettings general = ts.withGeneralPath(true).withTolerance(LightStage.GENERAL_RTOL, LightStage.GENERAL_ATOL);
+        RayTable ref = RayTable.trace(st, cam, general, nt);
+        int n = cam.pixels();
+        double[] d = table.delayRange();
+        double tA = h.time(0) + d[1];
+        double tB = h.time(h.snapshots() - 1) + d[0];
+        int frames = 12;
+        FrameMoments[] a = new FrameMoments[frames];
+        FrameMoments[] b = new FrameMoments[frames];
+        for (int pass = 0; pass < 2; pass++) {
+            try (EmissionRenderer r = new EmissionRenderer(pass == 0 ? table : ref, h, st, hK, nt)) {
+                for (int f = 0; f < frames; f++) {
+                    float[] img = new float[n * n];
+                    r.render(tA + (tB - tA) * f / (frames - 1), img);
+                    (pass == 0 ? a : b)[f] = FrameMoments.of(img, cam);
+                }
+            }
+        }
+        double peak = 0, dFlux = 0, dCentroid = 0;
+        for (int f = 0; f < frames; f++) {
+            peak = Math.max(peak, b[f].flux());
+        }
+        for (int f = 0; f < frames; f++) {
+            dFlux = Math.max(dFlux, Math.abs(a[f].flux() - b[f].flux()) / peak);
+            if (b[f].flux() > 0.01 * peak) {
+                dCentroid = Math.max(dCentroid, Math.hypot(a[f].x() - b[f].x(), a[f].y() - b[f].y()));
+            }
+        }
+        System.out.printf(Locale.ROOT, "  %d frames of %d x %d from the run's table vs the general path's table (%d vs %d"
+                        + " sub-rays): flux differs by at most %.2e of the peak, centroid by at most %.2e M"
+                        + " (frames above 1%% of the peak)%n", frames, n, n, table.subRays(), ref.subRays(), dFlux,
+                dCentroid);
     }
 
     private static double seconds(long t0) {

@@ -86,11 +86,14 @@ final class DormandPrince54 {
         return FastMath.sqrt(sum / n);
     }
 
-    /** Standard step-size update factor 0.9 err^(-1/5), clamped to [0.2, 5] (Hairer et al. 1993, II.4). */
+    /**
+     * Standard step-size update factor 0.9 err^(-1/5), clamped to [0.2, 5] (Hairer et al. 1993, II.4).
+     * Math.pow, a JIT intrinsic: Hipparchus' FastMath.pow took about 40 % of a ray's time.
+     */
     static double factor(double err) {
         if (err == 0.0) {
             return 5.0;
         }
-        return FastMath.min(5.0, FastMath.max(0.2, 0.9 * FastMath.pow(err, -0.2)));
+        return Math.min(5.0, Math.max(0.2, 0.9 * Math.pow(err, -0.2)));
     }
 }

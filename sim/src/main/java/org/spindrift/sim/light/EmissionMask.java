@@ -2,6 +2,7 @@ package org.spindrift.sim.light;
 
 import java.util.Arrays;
 import org.hipparchus.util.FastMath;
+import org.spindrift.sim.spacetime.Trig;
 
 /**
  * Where emission can possibly come from: a uniform grid over the cube [-R, R]^3 whose cells are
@@ -17,6 +18,10 @@ public final class EmissionMask {
     private final double inv;
     private final int n;
     private final short[] dist;
+    /** Cartesian distance from the centre of the nearest and farthest point of an occupied cell, M */
+    private final double inner, outer;
+    /** largest |z| of an occupied cell, M */
+    private final double zMax;
 
     private EmissionMask(double half, double cell, int n, short[] dist) {
         this.half = half;
@@ -24,6 +29,49 @@ public final class EmissionMask {
         this.inv = 1.0 / cell;
         this.n = n;
         this.dist = dist;
+        double in = Double.POSITIVE_INFINITY, out = 0.0, zm = 0.0;
+        for (int ix = 0; ix < n; ix++) {
+            for (int iy = 0; iy < n; iy++) {
+                for (int iz = 0; iz < n; iz++) {
+                    if (dist[(ix * n + iy) * n + iz] != 0) {
+                        continue;
+                    }
+                    double x0 = ix * cell - half, y0 = iy * cell - half, z0 = iz * cell - half;
+                    double nx = near(x0, cell), ny = near(y0, cell), nz = near(z0, cell);
+                    double fx = Math.max(Math.abs(x0), Math.abs(x0 + cell));
+                    double fy = Math.max(Math.abs(y0), Math.abs(y0 + cell));
+                    double fz = Math.max(Math.abs(z0), Math.abs(z0 + cell));
+                    in = Math.min(in, Math.sqrt(nx * nx + ny * ny + nz * nz));
+                    out = Math.max(out, Math.sqrt(fx * fx + fy * fy + fz * fz));
+                    zm = Math.max(zm, fz);
+                }
+            }
+        }
+        // widened by a millionth of a cell against the rounding of the cell index in occupied()
+        double eps = 1.0e-6 * cell;
+        this.inner = Math.max(0.0, in - eps);
+        this.outer = out + eps;
+        this.zMax = zm + eps;
+    }
+
+    /** @return distance from 0 of the nearest point of [lo, lo + w] */
+    private static double near(double lo, double w) {
+        return lo > 0 ? lo : lo + w < 0 ? -(lo + w) : 0.0;
+    }
+
+    /** @return the Cartesian distance from the centre below which no cell is occupied, M (quick rejection) */
+    public double innerRadius() {
+        return inner;
+    }
+
+    /** @return the Cartesian distance from the centre beyond which no cell is occupied, M */
+    public double outerRadius() {
+        return outer;
+    }
+
+    /** @return the largest |z| of an occupied cell, M */
+    public double maxHeight() {
+        return zMax;
     }
 
     /**
@@ -42,10 +90,11 @@ public final class EmissionMask {
                     continue;
                 }
                 double r = h.r(s, p), th = h.theta(s, p), ph = h.phi(s, p);
-                double rho = FastMath.sqrt(r * r + a2) * FastMath.sin(th);
-                int ix = (int) FastMath.floor((rho * FastMath.cos(ph) + radius) / cell);
-                int iy = (int) FastMath.floor((rho * FastMath.sin(ph) + radius) / cell);
-                int iz = (int) FastMath.floor((r * FastMath.cos(th) + radius) / cell);
+                // Trig: StrictMath's values without JNI or FastMath's allocation (millions of calls)
+                double rho = FastMath.sqrt(r * r + a2) * Trig.sin(th);
+                int ix = (int) FastMath.floor((rho * Trig.cos(ph) + radius) / cell);
+                int iy = (int) FastMath.floor((rho * Trig.sin(ph) + radius) / cell);
+                int iz = (int) FastMath.floor((r * Trig.cos(th) + radius) / cell);
                 if (ix >= 0 && iy >= 0 && iz >= 0 && ix < n && iy < n && iz < n) {
                     mark[(ix * n + iy) * n + iz] = true;
                 }

@@ -2,6 +2,7 @@ package org.spindrift.sim.light;
 
 import org.hipparchus.util.FastMath;
 import org.spindrift.sim.spacetime.Spacetime;
+import org.spindrift.sim.spacetime.Trig;
 
 /**
  * The emitting particles at one emission time tau, interpolated from the two snapshots around it,
@@ -36,6 +37,16 @@ final class EmissionSlice {
     private final float[] att;
     /** largest particle speed |dx/dt| in the slice (bounds the drift over |t_e - tau|) */
     final double vmax;
+    /**
+     * Per (x, y) column of cells: true when a particle lies in a column at most {@link #NEAR}
+     * cells away in x and y (any z). A query with search radius rc &lt; NEAR cells reaches at most
+     * NEAR cells from the sample's cell (rc is at most 2 plus rounding: cells are half the reach),
+     * so a sample whose column is false sees no particle: an exact early exit for the many samples
+     * away from the gas.
+     */
+    private final boolean[] nearColumn;
+    /** Dilation of {@link #nearColumn} in cells. */
+    static final int NEAR = 3;
 
     private EmissionSlice(double tau, int count, float[][] cols, int[] cellStart, double ox, double oy,
                           double oz, double cell, int nx, int ny, int nz, double reach, double vmax) {
@@ -52,6 +63,7 @@ final class EmissionSlice {
         this.nz = nz;
         this.reach = reach;
         this.vmax = vmax;
+        nearColumn = columns(cellStart, nx, ny, nz);
         pos = new double[REC * count];
         att = new float[REC * count];
         for (int p = 0; p < count; p++) {
@@ -60,6 +72,35 @@ final class EmissionSlice {
                 att[REC * p + c] = cols[REC + c][p];
             }
         }
+    }
+
+    /** Occupied (x, y) columns dilated by NEAR cells in x and y (two one-dimensional passes). */
+    private static boolean[] columns(int[] cellStart, int nx, int ny, int nz) {
+        boolean[] occ = new boolean[nx * ny];
+        for (int c = 0; c < nx * ny; c++) {
+            occ[c] = cellStart[(c + 1) * nz] > cellStart[c * nz];
+        }
+        boolean[] tmp = new boolean[nx * ny];
+        for (int ix = 0; ix < nx; ix++) {
+            for (int iy = 0; iy < ny; iy++) {
+                boolean any = false;
+                for (int j = Math.max(0, iy - NEAR); j <= Math.min(ny - 1, iy + NEAR) && !any; j++) {
+                    any = occ[ix * ny + j];
+                }
+                tmp[ix * ny + iy] = any;
+            }
+        }
+        boolean[] out = new boolean[nx * ny];
+        for (int ix = 0; ix < nx; ix++) {
+            for (int iy = 0; iy < ny; iy++) {
+                boolean any = false;
+                for (int i = Math.max(0, ix - NEAR); i <= Math.min(nx - 1, ix + NEAR) && !any; i++) {
+                    any = tmp[i * ny + iy];
+                }
+                out[ix * ny + iy] = any;
+            }
+        }
+        return out;
     }
 
     /**
@@ -133,8 +174,8 @@ final class EmissionSlice {
             double norm = g[Spacetime.TT] + 2 * g[Spacetime.TP] * phd + g[Spacetime.PP] * phd * phd
                     + g[Spacetime.RR] * rd * rd + g[Spacetime.HH] * thd * thd;
             double uT = norm < 0 ? 1.0 / FastMath.sqrt(-norm) : (1 - s) * ut0 + s * ut1;
-            double sth = FastMath.sin(th), cth = FastMath.cos(th);
-            double sph = FastMath.sin(ph), cph = FastMath.cos(ph);
+            double sth = Trig.sin(th), cth = Trig.cos(th);
+            double sph = Trig.sin(ph), cph = Trig.cos(ph);
             double big = FastMath.sqrt(r * r + a2);
             // Cartesian display map x = sqrt(r^2 + a^2) sin(theta) cos(phi), ... and its time derivative
             double px = big * sth * cph, py = big * sth * sph, pz = r * cth;
@@ -223,6 +264,10 @@ final class EmissionSlice {
         int z0 = (int) FastMath.floor(fz - rc);
         int z1 = (int) FastMath.floor(fz + rc);
         if (x1 < 0 || y1 < 0 || z1 < 0 || x0 >= nx || y0 >= ny || z0 >= nz) {
+            return 0.0;
+        }
+        int cx = (int) FastMath.floor(fx), cy = (int) FastMath.floor(fy);
+        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && !nearColumn[cx * ny + cy]) {
             return 0.0;
         }
         x0 = FastMath.max(0, x0);

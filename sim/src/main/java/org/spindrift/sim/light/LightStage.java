@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
 import org.hipparchus.util.FastMath;
+import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
@@ -22,6 +23,11 @@ import org.spindrift.sim.spacetime.Spacetime;
  * from the far side.
  */
 public final class LightStage {
+    /** Relative and absolute tolerance of the general path (Hamilton's equations, affine parameter). */
+    public static final double GENERAL_RTOL = 1.0e-8, GENERAL_ATOL = 1.0e-10;
+    /** Tolerances of the separated path (Kerr and the mass-function family), chosen by `bench light --reference`. */
+    public static final double SEPARATED_RTOL = 1.0e-8, SEPARATED_ATOL = 1.0e-10;
+
     /** Sample spacing along rays in units of the smoothing length. */
     public static final double SAMPLES_PER_H = 1.0;
 
@@ -130,7 +136,9 @@ public final class LightStage {
         double h = smoothingLength(cam);
         double rEm = emissionRadius(history, h, fov, captureRadius);
         EmissionMask mask = EmissionMask.of(history, st.spin(), rEm, 2.0 * h);
-        return TraceSettings.of(rEm, captureRadius, SAMPLES_PER_H * h, lensing).withTolerance(1.0e-8, 1.0e-10)
+        boolean separated = st instanceof MassFunctionSpacetime;
+        return TraceSettings.of(rEm, captureRadius, SAMPLES_PER_H * h, lensing)
+                .withTolerance(separated ? SEPARATED_RTOL : GENERAL_RTOL, separated ? SEPARATED_ATOL : GENERAL_ATOL)
                 .withMask(mask);
     }
 

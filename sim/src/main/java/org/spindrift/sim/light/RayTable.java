@@ -95,7 +95,7 @@ public final class RayTable {
                 base[row] = buf;
             }));
             if (settings.lensing()) {
-                final int[] refine = refinement(camera, ends, closest);
+                final int[] refine = refinement(camera, ends, closest, settings.generalPath() ? null : counts);
                 refineOut[0] = refine;
                 run(pool, () -> IntStream.range(0, n).parallel().forEach(row -> {
                     rows[row] = refineRow(spacetime, camera, settings, row, base[row], refine, counts, rowSteps);
@@ -145,14 +145,22 @@ public final class RayTable {
         }
     }
 
-    /** @return sub-rays per side for every pixel (1: not refined) */
-    static int[] refinement(Camera camera, byte[] ends, double[] closest) {
+    /**
+     * @param counts samples of each pixel's centre ray (where gas may be); null: refine stretched
+     *     pixels also where no gas is seen (the general path)
+     * @return sub-rays per side for every pixel (1: not refined)
+     */
+    static int[] refinement(Camera camera, byte[] ends, double[] closest, int[] counts) {
         int n = camera.pixels();
         double inv = 1.0 / camera.pixelSize();
         int[] k = new int[n * n];
         for (int row = 0; row < n; row++) {
             for (int col = 0; col < n; col++) {
                 int p = row * n + col;
+                k[p] = 1;
+                if (counts != null && !nearEmission(counts, n, row, col)) {
+                    continue;
+                }
                 double stretch = 0;
                 for (int d = 0; d < 4; d++) {
                     int r2 = row + (d == 0 ? 1 : d == 1 ? -1 : 0);
@@ -178,6 +186,22 @@ public final class RayTable {
             }
         }
         return k;
+    }
+
+    /**
+     * @return true when the centre ray of the pixel or of one of its eight neighbours passed
+     *     where gas may be: refinement is spent only there (sub-rays of a pixel lie between these
+     *     rays; a pixel whose whole neighbourhood sees no gas gains nothing from them)
+     */
+    static boolean nearEmission(int[] counts, int n, int row, int col) {
+        for (int r = FastMath.max(0, row - 1); r <= FastMath.min(n - 1, row + 1); r++) {
+            for (int c = FastMath.max(0, col - 1); c <= FastMath.min(n - 1, col + 1); c++) {
+                if (counts[r * n + c] > 0) {
+                    return true;
+                }
+            }
+        }
+        return false;
     }
 
     private static long traceRow(Spacetime spacetime, Camera camera, TraceSettings settings, int row,

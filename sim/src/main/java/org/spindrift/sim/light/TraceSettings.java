@@ -15,10 +15,23 @@ package org.spindrift.sim.light;
  * @param lensing false for straight lines (no bending, no redshift from the photon path; delays kept)
  * @param mask where gas may be (samples only there, long steps elsewhere); null: the whole sphere
  *     r &lt; emissionRadius
+ * @param generalPath true: the general path for every metric, the reference for comparisons:
+ *     Hamilton's equations in the affine parameter, and sub-pixel refinement of every stretched
+ *     pixel; false: the separated equations in Mino time where the metric allows them (Kerr and
+ *     the mass-function family; Hamilton's equations elsewhere), and refinement only of pixels
+ *     whose neighbourhood sees gas
  */
 public record TraceSettings(double emissionRadius, double captureRadius, double endRadius,
                             double sampleSpacing, double relativeTolerance, double absoluteTolerance,
-                            int maxSteps, boolean lensing, EmissionMask mask) {
+                            int maxSteps, boolean lensing, EmissionMask mask, boolean generalPath) {
+    /** Settings on the fast path where the metric allows it. */
+    public TraceSettings(double emissionRadius, double captureRadius, double endRadius, double sampleSpacing,
+                         double relativeTolerance, double absoluteTolerance, int maxSteps, boolean lensing,
+                         EmissionMask mask) {
+        this(emissionRadius, captureRadius, endRadius, sampleSpacing, relativeTolerance, absoluteTolerance, maxSteps,
+                lensing, mask, false);
+    }
+
     /** Default tolerances: tight enough for the validation checks (relative 1e-9). */
     public static TraceSettings of(double emissionRadius, double captureRadius, double sampleSpacing,
                                    boolean lensing) {
@@ -28,11 +41,17 @@ public record TraceSettings(double emissionRadius, double captureRadius, double 
 
     public TraceSettings withTolerance(double rtol, double atol) {
         return new TraceSettings(emissionRadius, captureRadius, endRadius, sampleSpacing, rtol, atol,
-                maxSteps, lensing, mask);
+                maxSteps, lensing, mask, generalPath);
     }
 
     public TraceSettings withMask(EmissionMask m) {
         return new TraceSettings(emissionRadius, captureRadius, endRadius, sampleSpacing, relativeTolerance,
-                absoluteTolerance, maxSteps, lensing, m);
+                absoluteTolerance, maxSteps, lensing, m, generalPath);
+    }
+
+    /** @return a copy that traces with Hamilton's equations in the affine parameter (true) or not */
+    public TraceSettings withGeneralPath(boolean general) {
+        return new TraceSettings(emissionRadius, captureRadius, endRadius, sampleSpacing, relativeTolerance,
+                absoluteTolerance, maxSteps, lensing, mask, general);
     }
 }

@@ -93,6 +93,7 @@ class RayTracerTest {
             // backward ray: reverse the start, i.e. start at +far moving along -x
             l = Camera.initialState(st, far, b, 0.0, 1.0, 0.0, 0.0, y0, g);
             assertEquals(RayEnd.ESCAPED, tr.trace(y0, l, 0.0, null));
+            assertTrue(tr.lastSeparated(), "Schwarzschild rays take the separated path");
             double[] y = tr.lastState();
             double[] d = tr.lastDerivative();
             double r = y[1], th = y[2], ph = y[3];
