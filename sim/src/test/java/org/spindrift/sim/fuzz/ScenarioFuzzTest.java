@@ -107,6 +107,14 @@ class ScenarioFuzzTest {
                         at.add(i);
                     }
                 }
+                if (at.isEmpty()) { // no plain numeric line (numbers in lists only): any scalar
+                    p = SCALAR;
+                    for (int i = 0; i < lines.size(); i++) {
+                        if (p.matcher(lines.get(i)).matches()) {
+                            at.add(i);
+                        }
+                    }
+                }
                 int i = at.get(rnd.nextInt(at.size()));
                 Matcher mm = p.matcher(lines.get(i));
                 mm.matches();
