@@ -197,4 +197,32 @@ class DistinguishTest {
         }
         assertFalse(Files.exists(out), label + ": no study folder");
     }
+
+    /**
+     * A study folder: one CSV row per cell, a manifest whose SHA-256 sums match its files; running
+     * again resumes (no cell redone) and gives byte-identical results; a sweep task of kind study
+     * is checked like the study file.
+     */
+    @Test
+    void folderResumesAndSweepKindChecks() throws Exception {
+        StudyFile s = load(study("[0.0, 2.0]", "[5.0]", 1, PA));
+        Path out = tmp.resolve("st");
+        StudyRun.Summary first = StudyRun.run(s, out, 2, 1, false);
+        assertEquals(2, first.ran());
+        java.util.List<String> rows = Files.readAllLines(out.resolve(StudyRun.CSV));
+        assertEquals(3, rows.size(), "header and one row per cell");
+        assertTrue(rows.get(0).startsWith("cell,deformation,beam_fwhm_uas,sigma_uas"), rows.get(0));
+        assertTrue(org.spindrift.sim.sweep.TaskState.manifestComplete(out, true), "manifest with matching sha256");
+        byte[] csv = Files.readAllBytes(out.resolve(StudyRun.CSV));
+        Files.delete(StudyRun.cellFile(out, 1));
+        StudyRun.Summary again = StudyRun.run(s, out, 1, 2, false);
+        assertEquals(1, again.ran(), "only the missing cell");
+        assertEquals(1, again.skipped());
+        assertTrue(Arrays.equals(csv, Files.readAllBytes(out.resolve(StudyRun.CSV))), "same bytes for any jobs/threads");
+        org.spindrift.sim.sweep.TaskKind kind = org.spindrift.sim.sweep.TaskKinds.get("study");
+        assertTrue(kind != null, "study kind registered");
+        kind.check(s.file(), org.spindrift.sim.scenario.ConfigTreeReader.read(s.file()));
+        // the kind's headline numbers are the first cell's: zero deformation, so nothing to tell apart
+        assertEquals(0.0, kind.outputs(out).get("expected_delta_chi2"), 1e-6);
+    }
 }
