@@ -260,6 +260,19 @@ public final class CompactSourceModel {
 
     private final double[] c = new double[7];
     private final double[] cs = new double[7];
+    /**
+     * Per cell of the last index: the first sample above the previous step's delay window, valid
+     * while {@link #stamp} holds the current (frame, source) pass (steps are walked towards larger
+     * delays, so a cell's position only moves forward and one binary search per pass suffices).
+     */
+    private int[] cursor = new int[0];
+    private int[] stamp = new int[0];
+    private int pass;
+    private Index stamped;
+    /** Delay quantiles of the last radial range (the frame grid while the orbit's radii do not change). */
+    private double qLo = Double.NaN, qHi = Double.NaN;
+    private double[] lastQ;
+    private Index quantiled;
 
     /**
      * Frames of the sources on the run's frame grid.
@@ -279,7 +292,14 @@ public final class CompactSourceModel {
         for (Spot s : spots) {
             spread = FastMath.max(spread, 3.0 * s.sigmaM());
         }
-        double[] q = index.delayQuantiles(rr[0] - spread - 2 * h, rr[1] + spread + 2 * h, 0.02, 0.98);
+        double lo = rr[0] - spread - 2 * h, hi = rr[1] + spread + 2 * h;
+        if (quantiled != index || lo != qLo || hi != qHi) {
+            lastQ = index.delayQuantiles(lo, hi, 0.02, 0.98);
+            quantiled = index;
+            qLo = lo;
+            qHi = hi;
+        }
+        double[] q = lastQ;
         return frames(index, track, spots, positionAngleDeg, LightStage.frameTimes(track, q, frameCadenceM), steadyRatio);
     }
 
@@ -309,6 +329,16 @@ public final class CompactSourceModel {
         double v = FastMath.max(1e-3, track.maxSpeed());
         double step = FastMath.max(1e-3, 0.5 * index.cell / v);   // the blob moves at most a quarter cell per half step
         double tEnd = track.time(track.snapshots() - 1);
+        int cells = index.cellStart.length - 1;
+        if (stamped != index) {
+            if (cursor.length < cells) {
+                cursor = new int[cells];
+                stamp = new int[cells];
+            }
+            java.util.Arrays.fill(stamp, 0);
+            pass = 0;
+            stamped = index;
+        }
         for (int f = 0; f < nf; f++) {
             double to = times[f];
             double e0 = FastMath.max(0.0, to - near[1]);
@@ -319,7 +349,12 @@ public final class CompactSourceModel {
             int steps = (int) FastMath.ceil((e1 - e0) / step);
             double sf = 0, sx = 0, sy = 0;
             for (int k = 0; k < spots.length; k++) {
-                for (int j = 0; j < steps; j++) {
+                if (++pass == Integer.MAX_VALUE) {
+                    java.util.Arrays.fill(stamp, 0);
+                    pass = 1;
+                }
+                // towards larger delays (earlier emission): each cell's first sample above the window only moves forward
+                for (int j = steps - 1; j >= 0; j--) {
                     double a = e0 + j * step;
                     double b = j == steps - 1 ? e1 : a + step;
                     double mid = 0.5 * (a + b);
@@ -344,7 +379,16 @@ public final class CompactSourceModel {
                                 if (from == until) {
                                     continue;
                                 }
-                                int i = firstAbove(index.d, from, until, dLo);
+                                int i;
+                                if (stamp[cellIdx] == pass) {
+                                    i = cursor[cellIdx];
+                                    while (i < until && index.d[i] <= dLo) {
+                                        i++;
+                                    }
+                                } else {
+                                    i = firstAbove(index.d, from, until, dLo);
+                                    stamp[cellIdx] = pass;
+                                }
                                 for (; i < until && index.d[i] <= dHi; i++) {
                                     // cheap test against the blob at mid-step before interpolating at t_e
                                     double qx = index.x[i] - c[0], qy = index.y[i] - c[1], qz = index.z[i] - c[2];
@@ -375,6 +419,7 @@ public final class CompactSourceModel {
                                     sx += val * index.east[i];
                                     sy += val * index.north[i];
                                 }
+                                cursor[cellIdx] = i;
                             }
                         }
                     }
