@@ -27,8 +27,10 @@ import org.spindrift.sim.scenario.FlareEnvelope;
  * and times, so they never need a new table. Samples are kept in cells of a cubic grid, sorted by
  * delay within each cell; a frame visits the emission times of its delay window in steps short
  * enough that the blob moves at most a quarter cell, and in each step only the cells near the
- * blob and the samples whose delay maps into that step. One instance per thread (scratch
- * buffers); {@link Index} is shared read-only. Evaluation allocates only its result arrays.
+ * blob and the samples whose delay maps into that step; within a step the centre is the
+ * second-order expansion of its track about mid-step ({@link CentreTrack#expansion}). One instance
+ * per thread (scratch buffers, sized once per table); {@link Index} is shared read-only.
+ * Evaluation allocates only its result arrays.
  */
 public final class CompactSourceModel {
     /** Gaussian cut-off in standard deviations. */
@@ -258,7 +260,7 @@ public final class CompactSourceModel {
         }
     }
 
-    private final double[] c = new double[7];
+    private final double[] c = new double[17];
     private final double[] cs = new double[7];
     /**
      * Per cell of the last index: the first sample above the previous step's delay window, valid
@@ -358,9 +360,11 @@ public final class CompactSourceModel {
                     double a = e0 + j * step;
                     double b = j == steps - 1 ? e1 : a + step;
                     double mid = 0.5 * (a + b);
-                    if (!track.at(k, mid, c)) {
+                    if (!track.expansion(k, mid, c)) {
                         continue;
                     }
+                    // alive through the step: the centre from its expansion about mid-step, else per sample
+                    boolean smooth = track.aliveThrough(k, a, b);
                     // samples whose delay maps into [a, b): d in (to - b, to - a]
                     double reach = FastMath.sqrt(cut2[k]) + v * 0.5 * (b - a) + 1e-6;
                     double reach2 = reach * reach;
@@ -396,13 +400,29 @@ public final class CompactSourceModel {
                                         continue;
                                     }
                                     double te = to - index.d[i];
-                                    if (!track.at(k, te, cs)) {
-                                        continue;
+                                    double ddx, ddy, ddz;
+                                    double dt = te - mid;
+                                    if (smooth) {
+                                        ddx = index.x[i] - (c[0] + dt * (c[3] + 0.5 * dt * c[6]));
+                                        ddy = index.y[i] - (c[1] + dt * (c[4] + 0.5 * dt * c[7]));
+                                        ddz = index.z[i] - (c[2] + dt * (c[5] + 0.5 * dt * c[8]));
+                                    } else {
+                                        if (!track.at(k, te, cs)) {
+                                            continue;
+                                        }
+                                        ddx = index.x[i] - cs[0];
+                                        ddy = index.y[i] - cs[1];
+                                        ddz = index.z[i] - cs[2];
                                     }
-                                    double ddx = index.x[i] - cs[0], ddy = index.y[i] - cs[1], ddz = index.z[i] - cs[2];
                                     double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
                                     if (d2 >= cut2[k]) {
                                         continue;
+                                    }
+                                    if (smooth) {
+                                        cs[3] = c[9] + dt * c[13];
+                                        cs[4] = c[10] + dt * c[14];
+                                        cs[5] = c[11] + dt * c[15];
+                                        cs[6] = c[12] + dt * c[16];
                                     }
                                     double gInv = Redshift.inverse(index.pr[i], index.pth[i], index.pph[i], cs[3], cs[4],
                                             cs[5], cs[6]);
