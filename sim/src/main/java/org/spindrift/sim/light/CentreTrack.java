@@ -162,19 +162,11 @@ public final class CentreTrack implements EmitterHistory {
      *     ended (captured, escaped) or te lies outside the track
      */
     public boolean at(int s, double te, double[] out) {
-        double f = te / dt;
-        int k = (int) f;
-        if (te < 0 || k >= t.length - 1) {
-            if (k == t.length - 1 && f - k < 1e-9) {
-                k = t.length - 2;
-            } else {
-                return false;
-            }
-        }
-        if (state[s][k] != ALIVE || state[s][k + 1] != ALIVE) {
+        int k = segment(s, te);
+        if (k < 0) {
             return false;
         }
-        double u = f - k;
+        double u = te / dt - k;
         double u2 = u * u, u3 = u2 * u;
         double h00 = 2 * u3 - 3 * u2 + 1, h10 = (u3 - 2 * u2 + u) * dt, h01 = -2 * u3 + 3 * u2, h11 = (u3 - u2) * dt;
         out[0] = h00 * x[s][k] + h10 * vx[s][k] + h01 * x[s][k + 1] + h11 * vx[s][k + 1];
@@ -199,19 +191,11 @@ public final class CentreTrack implements EmitterHistory {
      * @return false as {@link #at}
      */
     public boolean expansion(int s, double te, double[] out) {
-        double f = te / dt;
-        int k = (int) f;
-        if (te < 0 || k >= t.length - 1) {
-            if (k == t.length - 1 && f - k < 1e-9) {
-                k = t.length - 2;
-            } else {
-                return false;
-            }
-        }
-        if (state[s][k] != ALIVE || state[s][k + 1] != ALIVE) {
+        int k = segment(s, te);
+        if (k < 0) {
             return false;
         }
-        double u = f - k, u2 = u * u, u3 = u2 * u;
+        double u = te / dt - k, u2 = u * u, u3 = u2 * u;
         double h00 = 2 * u3 - 3 * u2 + 1, h10 = (u3 - 2 * u2 + u) * dt, h01 = -2 * u3 + 3 * u2, h11 = (u3 - u2) * dt;
         double d00 = (6 * u2 - 6 * u) / dt, d10 = 3 * u2 - 4 * u + 1, d01 = -d00, d11 = 3 * u2 - 2 * u;
         double e00 = (12 * u - 6) / (dt * dt), e10 = (6 * u - 4) / dt, e01 = -e00, e11 = (6 * u - 2) / dt;
@@ -223,6 +207,20 @@ public final class CentreTrack implements EmitterHistory {
         linear(uth[s], k, u, out, 2);
         linear(uph[s], k, u, out, 3);
         return true;
+    }
+
+    /** @return the segment [k, k + 1] holding te with both ends alive, or -1 */
+    private int segment(int s, double te) {
+        double f = te / dt;
+        int k = (int) f;
+        if (te < 0 || k >= t.length - 1) {
+            if (k == t.length - 1 && f - k < 1e-9) {
+                k = t.length - 2;
+            } else {
+                return -1;
+            }
+        }
+        return state[s][k] == ALIVE && state[s][k + 1] == ALIVE ? k : -1;
     }
 
     private static void hermite(double[] p, double[] v, int k, double h00, double h10, double h01, double h11,
