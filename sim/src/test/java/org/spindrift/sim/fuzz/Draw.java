@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.SplittableRandom;
 import java.util.function.Function;
 import java.util.stream.Stream;
+import org.junit.jupiter.api.Assertions;
 import org.junit.jupiter.api.DynamicTest;
 import org.junit.jupiter.api.function.ThrowingConsumer;
 
@@ -26,7 +27,8 @@ final class Draw {
      * @param draw draws one case (its values only; the work is done by check)
      * @param name the case's display name, enough to reproduce it
      * @param check the test of one case
-     * @return the cases, drawn before any runs, each as one dynamic test
+     * @return the cases, drawn before any runs, each as one dynamic test whose failure message starts
+     *     with its name
      */
     static <T> Stream<DynamicTest> cases(int tries, long seed, Function<SplittableRandom, T> draw,
             Function<T, String> name, ThrowingConsumer<T> check) {
@@ -34,7 +36,15 @@ final class Draw {
         List<DynamicTest> tests = new ArrayList<>(tries);
         for (int k = 1; k <= tries; k++) {
             T c = draw.apply(rnd);
-            tests.add(DynamicTest.dynamicTest("try " + k + "/" + tries + ": " + name.apply(c), () -> check.accept(c)));
+            String n = "try " + k + "/" + tries + ": " + name.apply(c);
+            tests.add(DynamicTest.dynamicTest(n, () -> {
+                try {
+                    check.accept(c);
+                } catch (Exception | AssertionError e) {
+                    // the report names dynamic tests by index: the case goes into the message as well
+                    Assertions.fail(n + ": " + e.getMessage(), e);
+                }
+            }));
         }
         return tests.stream();
     }
