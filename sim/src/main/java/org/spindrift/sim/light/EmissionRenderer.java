@@ -52,13 +52,6 @@ public final class EmissionRenderer implements AutoCloseable {
     private final List<double[]> chunkImages = new ArrayList<>();
     /** Consecutive sorted samples per group of the group test. */
     private static final int GROUP = 32;
-    /**
-     * Slice cells as wide as the search reach (so a query visits 3 x 3 columns of cells, each a
-     * contiguous run of particle records); the reference renderer uses half the reach (5 x 5).
-     * Near the gas a query finds about 2 candidates per column (2 x 10^4-particle hot spot, 128^2),
-     * so the per-column cost dominates and fewer, larger columns are faster.
-     */
-    private static final double CELL_OVER_REACH = 1.0;
     /** per group of GROUP sorted samples: bounding box (x, y, z lower then upper) and delay range */
     private final float[] gBox;
     private final float[] gDelay;
@@ -76,9 +69,8 @@ public final class EmissionRenderer implements AutoCloseable {
     }
 
     /**
-     * @param reference true: no group test, and each sample searches the whole bounding box of its
-     *     search sphere (the renderer of earlier versions, kept for benchmarks); the images are the
-     *     same bit for bit
+     * @param reference true: no group test, every sample is queried (the renderer of earlier
+     *     versions, kept for benchmarks); the images are the same bit for bit
      */
     public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
                             int threads, boolean reference) {
@@ -242,8 +234,7 @@ public final class EmissionRenderer implements AutoCloseable {
         }
         EmissionSlice[] built = new EmissionSlice[missing.size()];
         run(() -> IntStream.range(0, built.length).parallel().forEach(i -> built[i] = EmissionSlice.build(
-                history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h, 0.5 * sliceSpacing, rMax,
-                reference ? 0.5 : CELL_OVER_REACH)));
+                history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h, 0.5 * sliceSpacing, rMax)));
         for (int i = 0; i < built.length; i++) {
             cache.put(missing.get(i), built[i]);
         }
