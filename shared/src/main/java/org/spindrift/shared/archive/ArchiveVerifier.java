@@ -43,6 +43,89 @@ public final class ArchiveVerifier {
         lightFiles(a);
     }
 
+    /**
+     * Checks a run folder completely and collects every problem instead of stopping at the first:
+     * the manifest, each listed file's SHA-256 (one line per missing or changed file), files in the
+     * folder the manifest does not list, {@code snapshots.h5} against the manifest and every one of
+     * its snapshots, the light CSV files, and that the image cube can be read. Nothing is written.
+     *
+     * @return one line per problem, empty when the run is sound
+     */
+    public static java.util.List<String> problems(Path folder) {
+        java.util.List<String> out = new java.util.ArrayList<>();
+        RunArchive a;
+        try {
+            a = RunArchive.open(folder);
+        } catch (UserInputException e) {
+            out.add(e.getMessage());
+            return out;
+        }
+        try (a) {
+            boolean manifestOk = collect(out, a, ArchiveLayout.MANIFEST, () -> manifest(a));
+            java.util.Map<String, String> files = manifestOk ? a.files() : java.util.Map.of();
+            java.util.Set<String> damaged = new java.util.HashSet<>();
+            for (java.util.Map.Entry<String, String> e : files.entrySet()) {
+                Path p = folder.resolve(e.getKey());
+                if (!Files.isRegularFile(p, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+                    out.add(a.problem(e.getKey() + " is listed in the manifest but missing").getMessage());
+                    damaged.add(e.getKey());
+                } else if (!AtomicFiles.sha256(p).equals(e.getValue())) {
+                    out.add(a.problem(e.getKey() + " does not match its sha256 in the manifest (changed or damaged"
+                            + " since the run)").getMessage());
+                    damaged.add(e.getKey());
+                }
+            }
+            if (manifestOk) {
+                try {
+                    for (String name : RunFolders.list(folder, "run folder " + folder + ": ")) {
+                        if (!name.equals(ArchiveLayout.MANIFEST) && !files.containsKey(name)) {
+                            out.add(a.problem(name + " is not listed in the manifest (a leftover or a foreign file)")
+                                    .getMessage());
+                        }
+                    }
+                } catch (UserInputException e) {
+                    out.add(e.getMessage());
+                } catch (IOException e) {
+                    out.add(a.problem("cannot list the folder (" + e.getMessage() + ")").getMessage());
+                }
+            }
+            if (manifestOk && !damaged.contains(ArchiveLayout.SNAPSHOTS)) {
+                collect(out, a, ArchiveLayout.SNAPSHOTS, () -> {
+                    snapshots(a);
+                    for (int s = 0; s < a.snapshotCount(); s++) {
+                        a.states(s);
+                        a.r(s);
+                    }
+                });
+            }
+            if (manifestOk) {
+                collect(out, a, "the light files", () -> lightFiles(a));
+                if (a.has(ArchiveLayout.IMAGES) && !damaged.contains(ArchiveLayout.IMAGES)) {
+                    collect(out, a, ArchiveLayout.IMAGES, () -> LightArchive.readCube(folder));
+                }
+                if (a.has(ArchiveLayout.CENTROID) && !damaged.contains(ArchiveLayout.CENTROID)) {
+                    collect(out, a, ArchiveLayout.CENTROID, () -> LightArchive.readTrack(folder));
+                }
+            }
+        }
+        return out;
+    }
+
+    /** Runs one check, adding its problem (a damaged file's exception included) as one line. @return whether it passed */
+    private static boolean collect(java.util.List<String> out, RunArchive a, String file, Runnable check) {
+        try {
+            check.run();
+            return true;
+        } catch (UserInputException e) {
+            out.add(e.getMessage().lines().findFirst().orElse("damaged file"));
+        } catch (RuntimeException | OutOfMemoryError | StackOverflowError e) {
+            String m = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage().lines().findFirst()
+                    .orElse(e.getClass().getSimpleName());
+            out.add(a.problem(file + " cannot be read (" + m + ")").getMessage());
+        }
+        return false;
+    }
+
     /** Types and ranges of the manifest keys the readers rely on. */
     static void manifest(RunArchive a) {
         JsonNode m = a.manifest();

@@ -10,7 +10,6 @@ import java.util.Arrays;
 import java.util.List;
 import nom.tam.fits.BasicHDU;
 import nom.tam.fits.Fits;
-import nom.tam.fits.FitsException;
 import nom.tam.fits.Header;
 import org.spindrift.shared.UserInputException;
 
@@ -99,8 +98,11 @@ public final class LightArchive {
                 }
             }
             return new Track(c[0], c[1], c[2], c[3], c[4], c[5], c[6]);
-        } catch (IOException e) {
-            throw new UserInputException(file + ": cannot read (" + e.getMessage() + ")", e);
+        } catch (IOException | RuntimeException e) {
+            if (e instanceof UserInputException u) {
+                throw u;
+            }
+            throw new UserInputException(file + ": cannot read (" + firstLine(e) + ")", e);
         }
     }
 
@@ -125,8 +127,16 @@ public final class LightArchive {
             double pixUas = Math.abs(h.getDoubleValue("CDELT2", Double.NaN)) * 3.6e9;
             double beam = h.getDoubleValue("BMAJ", 0.0) * 3.6e9;
             return new Cube(frames, pixUas, h.getDoubleValue("CRVAL3", 0.0), h.getDoubleValue("CDELT3", 1.0), beam);
-        } catch (IOException | FitsException e) {
-            throw new UserInputException(file + ": cannot read FITS (" + e.getMessage() + ")", e);
+        } catch (IOException | RuntimeException e) {
+            if (e instanceof UserInputException u) {
+                throw u;
+            }
+            throw new UserInputException(file + ": cannot read FITS (" + firstLine(e) + ")", e);
         }
+    }
+
+    private static String firstLine(Throwable e) {
+        String m = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+        return m.lines().findFirst().orElse(e.getClass().getSimpleName());
     }
 }

@@ -60,7 +60,9 @@ public final class RunArchive implements AutoCloseable {
         }
         JsonNode m;
         try {
-            m = new ObjectMapper().readTree(mf.toFile());
+            // trailing bytes after the object are damage too (a parser stops at the first complete value)
+            m = new ObjectMapper().enable(com.fasterxml.jackson.databind.DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+                    .readTree(mf.toFile());
         } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
             // one line, without the parser's source excerpt
             String msg = e.getOriginalMessage() == null ? "syntax error" : e.getOriginalMessage().lines().findFirst()
@@ -156,7 +158,7 @@ public final class RunArchive implements AutoCloseable {
 
     /** @return a root attribute of {@code snapshots.h5}, or null */
     io.jhdf.api.Attribute hdfAttribute(String name) {
-        return hdf().getAttribute(name);
+        return read(() -> hdf().getAttribute(name));
     }
 
     /** @return the folder */
@@ -311,8 +313,13 @@ public final class RunArchive implements AutoCloseable {
             if (!Files.isRegularFile(p)) {
                 throw new UserInputException("run folder " + folder + ": no " + ArchiveLayout.SNAPSHOTS);
             }
-            hdf = new HdfFile(p);
-            int[] dims = dataset(ArchiveLayout.D_R).getDimensions();
+            HdfFile h = read(() -> new HdfFile(p));
+            hdf = h;
+            int[] dims = read(() -> dataset(ArchiveLayout.D_R).getDimensions());
+            if (dims.length != 2) {
+                throw problem(ArchiveLayout.SNAPSHOTS + ": /" + ArchiveLayout.D_R + " has " + dims.length
+                        + " dimensions, 2 expected (snapshot, particle)");
+            }
             snapshots = dims[0];
             particles = dims[1];
         }
@@ -320,11 +327,34 @@ public final class RunArchive implements AutoCloseable {
     }
 
     private Dataset dataset(String name) {
-        Dataset d = hdf().getDatasetByPath("/" + name);
+        Dataset d = read(() -> {
+            try {
+                return hdf().getDatasetByPath("/" + name);
+            } catch (io.jhdf.exceptions.HdfInvalidPathException e) {
+                return null;
+            }
+        });
         if (d == null) {
             throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.SNAPSHOTS + " has no dataset /" + name);
         }
         return d;
+    }
+
+    /**
+     * Reads from {@code snapshots.h5}, turning whatever a damaged file makes the HDF5 library throw
+     * (wrong types or shapes, broken structures, sizes larger than memory) into one line naming the file.
+     */
+    private <T> T read(java.util.function.Supplier<T> reader) {
+        try {
+            return reader.get();
+        } catch (UserInputException | IndexOutOfBoundsException e) {
+            throw e;
+        } catch (RuntimeException e) {
+            throw problem(ArchiveLayout.SNAPSHOTS + " cannot be read (" + firstLine(e) + "; damaged or not written by"
+                    + " Spindrift)");
+        } catch (OutOfMemoryError e) {
+            throw problem(ArchiveLayout.SNAPSHOTS + " cannot be read (a dataset larger than memory: damaged?)");
+        }
     }
 
     /** @return number of snapshots S */
@@ -341,29 +371,31 @@ public final class RunArchive implements AutoCloseable {
 
     /** @return coordinate time of each snapshot, M */
     public double[] times() {
-        return (double[]) dataset(ArchiveLayout.D_TIME).getData();
+        return read(() -> (double[]) dataset(ArchiveLayout.D_TIME).getData());
     }
 
     /** @return source (0-based) of each kept particle */
     public int[] sourceIndex() {
-        return (int[]) dataset(ArchiveLayout.D_SOURCE_INDEX).getData();
+        return read(() -> (int[]) dataset(ArchiveLayout.D_SOURCE_INDEX).getData());
     }
 
     private Object row(String name, int s, int... inner) {
         if (s < 0 || s >= snapshotCount()) {
             throw new IndexOutOfBoundsException("snapshot " + s + " outside 0.." + (snapshotCount() - 1));
         }
-        Dataset d = dataset(name);
-        int[] dims = d.getDimensions();
-        long[] off = new long[dims.length];
-        off[0] = s;
-        int[] shape = dims.clone();
-        shape[0] = 1;
-        return d.getData(off, shape);
+        return read(() -> {
+            Dataset d = dataset(name);
+            int[] dims = d.getDimensions();
+            long[] off = new long[dims.length];
+            off[0] = s;
+            int[] shape = dims.clone();
+            shape[0] = 1;
+            return d.getData(off, shape);
+        });
     }
 
     private double[] row2(String name, int s) {
-        return ((double[][]) row(name, s))[0];
+        return read(() -> ((double[][]) row(name, s))[0]);
     }
 
     /** @return r of every kept particle at snapshot s */
@@ -392,7 +424,7 @@ public final class RunArchive implements AutoCloseable {
 
     /** @return 4-velocities u^mu at snapshot s, [N][4] (u^t, u^r, u^theta, u^phi) */
     public double[][] velocities(int s) {
-        return ((double[][][]) row(ArchiveLayout.D_U, s))[0];
+        return read(() -> ((double[][][]) row(ArchiveLayout.D_U, s))[0]);
     }
 
     /**
@@ -403,8 +435,8 @@ public final class RunArchive implements AutoCloseable {
         if (s < 0 || s >= snapshotCount()) {
             throw new IndexOutOfBoundsException("snapshot " + s + " outside 0.." + (snapshotCount() - 1));
         }
-        Dataset d = dataset(ArchiveLayout.D_U);
-        double[][] col = ((double[][][]) d.getData(new long[] {s, 0, 0}, new int[] {1, particleCount(), 1}))[0];
+        double[][] col = read(() -> ((double[][][]) dataset(ArchiveLayout.D_U).getData(new long[] {s, 0, 0},
+                new int[] {1, particleCount(), 1}))[0]);
         double[] out = new double[col.length];
         for (int i = 0; i < out.length; i++) {
             out[i] = col[i][0];
@@ -414,12 +446,12 @@ public final class RunArchive implements AutoCloseable {
 
     /** @return emission weights at snapshot s */
     public float[] weights(int s) {
-        return ((float[][]) row(ArchiveLayout.D_WEIGHT, s))[0];
+        return read(() -> ((float[][]) row(ArchiveLayout.D_WEIGHT, s))[0]);
     }
 
     /** @return states at snapshot s (codes of {@link ArchiveLayout}) */
     public byte[] states(int s) {
-        byte[] st = ((byte[][]) row(ArchiveLayout.D_STATE, s))[0];
+        byte[] st = read(() -> ((byte[][]) row(ArchiveLayout.D_STATE, s))[0]);
         ArchiveVerifier.checkSnapshot(this, s, null, st);
         return st;
     }
@@ -429,12 +461,12 @@ public final class RunArchive implements AutoCloseable {
      *     whole of {@code /centre}, small: S x K x 3 numbers; faster than S calls of {@link #centres})
      */
     public double[][][] centreTracks() {
-        return (double[][][]) dataset(ArchiveLayout.D_CENTRE).getData();
+        return read(() -> (double[][][]) dataset(ArchiveLayout.D_CENTRE).getData());
     }
 
     /** @return Cartesian centre of each source at snapshot s, [K][3] */
     public double[][] centres(int s) {
-        return ((double[][][]) row(ArchiveLayout.D_CENTRE, s))[0];
+        return read(() -> ((double[][][]) row(ArchiveLayout.D_CENTRE, s))[0]);
     }
 
     private static Map<String, Double> numbers(JsonNode obj) {

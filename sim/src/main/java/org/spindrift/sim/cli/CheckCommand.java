@@ -51,6 +51,7 @@ public final class CheckCommand implements Callable<Integer> {
         ScenarioRun.Prepared p = ScenarioRun.prepare(ScenarioLoader.load(file));
         if (output != null) {
             org.spindrift.shared.archive.RunArchiveWriter.checkUsable(output, overwrite);
+            ScenarioRun.checkDisk(p, output);
         }
         for (String w : p.warnings()) {
             System.err.println("spindrift: warning: " + w);
@@ -67,6 +68,9 @@ public final class CheckCommand implements Callable<Integer> {
                     s.kind().key(), s.particles(), p.placed().centres()[k].periodM(),
                     p.placed().centres()[k].periodM() * spm / 60);
         }
+        ScenarioRun.DiskEstimate disk = ScenarioRun.diskEstimate(p);
+        out().printf(Locale.ROOT, "  disk: about %.3g MB (snapshots.h5 %.3g MB, images.fits %.3g MB, other files %.3g MB)%n",
+                disk.total() / 1e6, disk.snapshots() / 1e6, disk.images() / 1e6, disk.other() / 1e6);
         if (sc.interferometer() != null) {
             org.spindrift.sim.interferometry.ObservingSetup o = org.spindrift.sim.interferometry.ObservingSetup.of(sc);
             double fringe = o.wavelength() / o.array().longestBaseline() * org.spindrift.shared.Units.UAS_PER_RAD;

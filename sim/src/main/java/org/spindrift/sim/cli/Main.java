@@ -70,6 +70,14 @@ public final class Main implements Runnable {
                 // the disk or the file system failed (full disk, permissions changed during the run)
                 String m = io.getMessage() == null ? io.getClass().getSimpleName() : io.getMessage().lines().findFirst()
                         .orElse("");
+                if (m.contains("No space left on device") || m.contains("Disk quota exceeded")) {
+                    // the user can act on it like on bad input: nothing of the run is left, an old run is intact
+                    c.getErr().println(c.getCommandSpec().qualifiedName() + ": the disk is full (" + m + "); nothing"
+                            + " was written and an earlier run in the folder is unchanged: free some space or write"
+                            + " elsewhere with -o");
+                    c.getErr().flush();
+                    return EXIT_USAGE;
+                }
                 c.getErr().println(c.getCommandSpec().qualifiedName() + ": cannot write or read a file: "
                         + io.getClass().getSimpleName() + ": " + m);
                 c.getErr().flush();

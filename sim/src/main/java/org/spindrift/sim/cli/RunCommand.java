@@ -38,6 +38,8 @@ import picocli.CommandLine.Parameters;
             "                       with an interferometer uv_coverage.png, visibility_amplitude.png,",
             "                       closure_phases.png",
             "The file is checked first (as by 'check'); nothing is written when it has an error.",
+            "Checkpoints of the evolution are written every --checkpoint-every (beside the folder); Ctrl-C or SIGTERM"
+                + " stops with a checkpoint and says how to continue (--resume).",
             "",
             "What a run guarantees: the output folder is locked (a second run into it is refused);"
                 + " the run is built in a hidden folder beside it (.DIR.spindrift-new) and moved in only when"
@@ -66,6 +68,17 @@ public final class RunCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress bar or summary lines.")
     private boolean quiet;
 
+    @Option(names = "--checkpoint-every", paramLabel = "TIME", defaultValue = "10 min",
+            description = "Wall time between checkpoints of the evolution, e.g. '10 min', '30 s', '1 h'; 0 = at every"
+                    + " snapshot (default: ${DEFAULT-VALUE}). Kept beside the run folder (.DIR.spindrift-checkpoint)"
+                    + " until the run is complete.")
+    private String checkpointEvery;
+
+    @Option(names = "--resume",
+            description = "Continue from the last checkpoint of a run into the same folder that was stopped or"
+                    + " killed (the same scenario file); the result is bitwise the same as an uninterrupted run.")
+    private boolean resume;
+
     @picocli.CommandLine.Spec
     private picocli.CommandLine.Model.CommandSpec spec;
 
@@ -83,7 +96,8 @@ public final class RunCommand implements Callable<Integer> {
         long t0 = System.nanoTime();
         ScenarioRun.Prepared p = ScenarioRun.prepare(ls);
         boolean terminal = System.console() != null;
-        ScenarioRun.Outcome o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, !quiet && terminal, overwrite));
+        ScenarioRun.Outcome o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, !quiet && terminal, overwrite,
+                seconds(checkpointEvery), resume));
         if (!quiet) {
             double s = (System.nanoTime() - t0) * 1e-9;
             out().printf(Locale.ROOT, "%s: %d particles over %.1f min (%.0f M), %d snapshots, %.1f s%n",
@@ -96,6 +110,22 @@ public final class RunCommand implements Callable<Integer> {
         }
         out().flush();
         return 0;
+    }
+
+    /** @return a wall time such as "10 min", "30 s", "1 h" or "0" in seconds */
+    static double seconds(String text) {
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("\\s*([0-9]+(?:\\.[0-9]*)?)\\s*(s|min|h)?\\s*")
+                .matcher(text);
+        if (!m.matches() || (m.group(2) == null && Double.parseDouble(m.group(1)) != 0)) {
+            throw new UserInputException("--checkpoint-every '" + text + "': a wall time with a unit, e.g. '10 min',"
+                    + " '30 s', '1 h', or 0 for every snapshot");
+        }
+        double v = Double.parseDouble(m.group(1));
+        return m.group(2) == null ? 0 : v * switch (m.group(2)) {
+            case "min" -> 60;
+            case "h" -> 3600;
+            default -> 1;
+        };
     }
 
     /** Registers {@code run}. */

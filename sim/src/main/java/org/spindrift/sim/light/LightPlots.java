@@ -123,7 +123,14 @@ public final class LightPlots {
             if (xs.isEmpty()) {
                 continue;
             }
-            String label = String.format(Locale.ROOT, "%.0f-%.0f min", t[f0] * min, t[f1] * min);
+            // as many decimals as the bin width needs (light black holes have bins of a fraction of a minute)
+            double width = (t[f1] - t[f0]) * min;
+            int decimals = width > 0 && width < 1 ? (int) Math.min(12, Math.ceil(-Math.log10(width)) + 1) : 0;
+            String label = String.format(Locale.ROOT, "%." + decimals + "f-%." + decimals + "f min", t[f0] * min,
+                    t[f1] * min);
+            if (c.getSeriesMap().containsKey(label)) {
+                label += " (" + (b + 1) + ")";
+            }
             XYSeries ser = c.addSeries(label, xs, ys);
             ser.setLineColor(ramp(b / (double) Math.max(1, bins - 1)));
             ser.setMarker(SeriesMarkers.NONE);

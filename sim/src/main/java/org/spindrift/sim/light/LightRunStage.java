@@ -28,8 +28,7 @@ public final class LightRunStage implements RunStage {
      * @return the problem in words, or null when the cube fits
      */
     public static String budgetProblem(LightSettings s, double t0, double t1, int snapshots) {
-        double cadence = Double.isNaN(s.frameCadenceM()) ? (t1 - t0) / Math.max(1, snapshots - 1) : s.frameCadenceM();
-        double frames = (t1 - t0 + 200.0) / cadence + 1;
+        double frames = frameEstimate(s, t0, t1, snapshots);
         double cube = frames * s.pixels() * (double) s.pixels() * (s.beamFwhmUas() > 0 ? 2 : 1);
         if (cube > MAX_CUBE_PIXELS) {
             return String.format(java.util.Locale.ROOT, "about %.3g frames of %d x %d pixels%s exceed the image"
@@ -37,6 +36,15 @@ public final class LightRunStage implements RunStage {
                     s.beamFwhmUas() > 0 ? " (twice: with and without the beam)" : "", MAX_CUBE_PIXELS);
         }
         return null;
+    }
+
+    /**
+     * @return an upper estimate of the number of frames (the emission window widened by the largest
+     *     expected delay spread of 200 M), before any ray is traced
+     */
+    public static double frameEstimate(LightSettings s, double t0, double t1, int snapshots) {
+        double cadence = Double.isNaN(s.frameCadenceM()) ? (t1 - t0) / Math.max(1, snapshots - 1) : s.frameCadenceM();
+        return (t1 - t0 + 200.0) / cadence + 1;
     }
 
     static void checkBudget(LightSettings s, double t0, double t1, int snapshots) {

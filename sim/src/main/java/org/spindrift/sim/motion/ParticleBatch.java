@@ -53,6 +53,41 @@ public final class ParticleBatch {
     }
 
     /**
+     * Writes the whole integrator state (positions, momenta, own times, next step sizes, the
+     * first-same-as-last derivatives, end states, failure reasons) for a checkpoint; {@link #readState}
+     * restores it bit for bit.
+     */
+    public void writeState(java.io.DataOutputStream out) throws java.io.IOException {
+        out.writeInt(size());
+        for (double[] a : new double[][] {r, th, ph, pr, pth, pt, pphi, t, h, dy}) {
+            for (double v : a) {
+                out.writeLong(Double.doubleToRawLongBits(v));
+            }
+        }
+        out.write(state);
+        out.write(failure);
+    }
+
+    /**
+     * Restores the state written by {@link #writeState}.
+     *
+     * @throws java.io.IOException when the stream holds another number of particles or ends early
+     */
+    public void readState(java.io.DataInputStream in) throws java.io.IOException {
+        int n = in.readInt();
+        if (n != size()) {
+            throw new java.io.IOException("the checkpoint holds " + n + " particles, the run " + size());
+        }
+        for (double[] a : new double[][] {r, th, ph, pr, pth, pt, pphi, t, h, dy}) {
+            for (int i = 0; i < a.length; i++) {
+                a[i] = Double.longBitsToDouble(in.readLong());
+            }
+        }
+        in.readFully(state);
+        in.readFully(failure);
+    }
+
+    /**
      * Sets particle i at time t0 from its covariant momentum (p_t, p_r, p_theta, p_phi), as
      * produced by {@link ZamoFrame} or {@link OrbitSetup}.
      */

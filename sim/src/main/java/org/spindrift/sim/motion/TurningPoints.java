@@ -29,6 +29,42 @@ public final class TurningPoints implements StepListener {
         this.particle = particle;
     }
 
+    /** Writes the recorded turning points (for a checkpoint); {@link #readState} restores them exactly. */
+    public void writeState(java.io.DataOutputStream out) throws java.io.IOException {
+        out.writeInt(nPeri);
+        for (int k = 0; k < nPeri; k++) {
+            out.writeDouble(periT[k]);
+            out.writeDouble(periR[k]);
+            out.writeDouble(periTheta[k]);
+            out.writeDouble(periPhi[k]);
+        }
+        out.writeInt(nPolar);
+        for (int k = 0; k < nPolar; k++) {
+            out.writeDouble(polarT[k]);
+        }
+    }
+
+    /** Replaces the recorded turning points with those written by {@link #writeState}. */
+    public void readState(java.io.DataInputStream in) throws java.io.IOException {
+        int np = in.readInt();
+        if (np < 0 || np > 1 << 26) {
+            throw new java.io.IOException("damaged turning points");
+        }
+        nPeri = 0;
+        for (int k = 0; k < np; k++) {
+            addPeriapsis(in.readDouble(), in.readDouble(), in.readDouble(), in.readDouble());
+        }
+        int nq = in.readInt();
+        if (nq < 0 || nq > 1 << 26) {
+            throw new java.io.IOException("damaged turning points");
+        }
+        polarT = new double[Math.max(16, nq)];
+        for (int k = 0; k < nq; k++) {
+            polarT[k] = in.readDouble();
+        }
+        nPolar = nq;
+    }
+
     /** Records a periapsis known by construction (for example the start of an orbit set up there). */
     public void addPeriapsis(double t, double r, double theta, double phi) {
         if (nPeri == periT.length) {

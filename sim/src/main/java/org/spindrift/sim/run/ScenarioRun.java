@@ -59,7 +59,16 @@ public final class ScenarioRun {
      * @param progress show a progress bar (on a terminal, without --quiet)
      * @param overwrite replace a finished run in the folder (only once the new one is complete)
      */
-    public record Options(Path output, int threads, boolean progress, boolean overwrite) {
+    public record Options(Path output, int threads, boolean progress, boolean overwrite, double checkpointSeconds,
+            boolean resume) {
+        /** Default wall time between checkpoints, s. */
+        public static final double CHECKPOINT_SECONDS = 600;
+
+        /** Options with checkpoints every {@link #CHECKPOINT_SECONDS}, starting from the beginning. */
+        public Options(Path output, int threads, boolean progress, boolean overwrite) {
+            this(output, threads, progress, overwrite, CHECKPOINT_SECONDS, false);
+        }
+
         /** Options that never replace a finished run. */
         public Options(Path output, int threads, boolean progress) {
             this(output, threads, progress, false);
@@ -189,6 +198,102 @@ public final class ScenarioRun {
         }
     }
 
+    /**
+     * Estimated size of a run folder, bytes, by part.
+     *
+     * @param snapshots snapshots.h5 (kept particles x snapshots x 85 bytes, plus times and centres)
+     * @param images images.fits (frames x pixels^2 x 4 bytes)
+     * @param other CSV files (per particle, per source and snapshot, per frame; visibilities per
+     *     frame and station pair), JSON files and plots
+     */
+    public record DiskEstimate(double snapshots, double images, double other) {
+        /** @return the whole run folder, bytes */
+        public double total() {
+            return snapshots + images + other;
+        }
+
+        /** @return the scenario key that drives the largest part */
+        public String key(Scenario sc) {
+            if (snapshots >= images && snapshots >= other) {
+                return sc.run().archiveSubsample() > 0 ? "run.archive_subsample" : "run.snapshot_cadence";
+            }
+            if (images >= other) {
+                return sc.imaging().frameCadence() != null ? "imaging.frame_cadence" : "imaging.pixels";
+            }
+            return sc.interferometer() != null ? "interferometer" : "sources";
+        }
+    }
+
+    /** Bytes per kept particle and snapshot in snapshots.h5: r, theta, phi, x, y, z, u[4] (float64), weight (float32), state. */
+    static final int SNAPSHOT_BYTES = 6 * 8 + 4 * 8 + 4 + 1;
+
+    /**
+     * Room for plots, JSON files and file-system blocks, bytes: the plots of a one-particle run take
+     * 0.7 MB together; the vector plots grow with the snapshots ({@link #PLOT_BYTES_PER_SNAPSHOT}).
+     */
+    static final double FIXED_BYTES = 1.5e6;
+
+    /** Vector-plot bytes per source and snapshot (shape and lag curves). */
+    static final double PLOT_BYTES_PER_SNAPSHOT = 1e3;
+
+    /** @return the estimated size of the run folder of a prepared scenario */
+    public static DiskEstimate diskEstimate(Prepared p) {
+        Scenario sc = p.loaded().scenario();
+        long particles = sc.totalParticles();
+        int sub = sc.run().archiveSubsample();
+        long kept = sub == 0 ? particles : Math.min(particles, sub);
+        int s = p.times().length;
+        int k = sc.sources().size();
+        double snap = (double) SNAPSHOT_BYTES * kept * s + 8.0 * s + 24.0 * s * k + 4.0 * kept + 64e3;
+        org.spindrift.sim.light.LightSettings light = org.spindrift.sim.light.LightSettings.of(sc);
+        double frames = org.spindrift.sim.light.LightRunStage.frameEstimate(light, 0.0, p.durationM(), s);
+        double images = frames * light.pixels() * (double) light.pixels() * 4 + 2880 * 2;
+        // periods.csv ~200 B per particle, shear.csv ~300 B per source and snapshot, light CSVs ~400 B per frame
+        double other = 200.0 * particles + (300.0 + PLOT_BYTES_PER_SNAPSHOT) * s * k + 400.0 * frames + FIXED_BYTES;
+        if (sc.interferometer() != null) {
+            int n = sc.interferometer().stations().size();
+            // visibilities.csv and .uvfits (~400 B per frame and pair), closure files (~150 B per triangle, quadrangle)
+            double pairs = n * (n - 1) / 2.0;
+            double triangles = pairs * (n - 2) / 3.0;
+            other += frames * (400.0 * pairs + 150.0 * triangles * (1 + Math.max(0, n - 3) / 2.0));
+        }
+        return new DiskEstimate(snap, images, other);
+    }
+
+    /**
+     * Refuses a run whose folder would not fit in the free space where it is built (beside the
+     * target folder; an old run there stays until the new one is complete, so it does not count).
+     *
+     * @param folder the run folder asked for
+     */
+    public static void checkDisk(Prepared p, Path folder) throws IOException {
+        Path parent = folder.toAbsolutePath().normalize().getParent();
+        while (parent != null && !java.nio.file.Files.exists(parent)) {
+            parent = parent.getParent();
+        }
+        if (parent == null) {
+            return; // the folder check reports it
+        }
+        checkDisk(p, parent, java.nio.file.Files.getFileStore(parent).getUsableSpace());
+    }
+
+    /** Refuses a run whose estimated folder is larger than free bytes at where. */
+    public static void checkDisk(Prepared p, Path where, double free) {
+        DiskEstimate e = diskEstimate(p);
+        if (e.total() > free) {
+            Scenario sc = p.loaded().scenario();
+            throw p.loaded().error(e.key(sc), String.format(java.util.Locale.ROOT, "the run folder needs about %s on"
+                    + " disk (snapshots.h5 %s, images.fits %s, other files %s), more than the %s free in %s; free some"
+                    + " space, write elsewhere with -o, or keep fewer particles, snapshots or frames", size(e.total()),
+                    size(e.snapshots()), size(e.images()), size(e.other()), size(free), where));
+        }
+    }
+
+    private static String size(double bytes) {
+        return bytes >= 1e9 ? String.format(java.util.Locale.ROOT, "%.3g GB", bytes / 1e9)
+                : String.format(java.util.Locale.ROOT, "%.3g MB", bytes / 1e6);
+    }
+
     /** The light stage's limits and the imaging settings that would give empty or meaningless output. */
     private static void checkImaging(LoadedScenario ls, Scenario sc, double uasPerM, double[] times,
             double captureRadius, List<String> warnings) {
@@ -252,6 +357,7 @@ public final class ScenarioRun {
      */
     public static Outcome run(Prepared p, Options o, List<RunStage> stages) throws IOException {
         RunArchiveWriter.checkUsable(o.output(), o.overwrite()); // before the work, so a bad -o fails at once
+        checkDisk(p, o.output());
         // failed: remove the new run's folder, the old run stays (the writer's own shutdown hook
         // does the same when the run is stopped with Ctrl-C or SIGTERM)
         RunArchiveWriter archive = RunArchiveWriter.create(o.output(), o.overwrite());
@@ -290,12 +396,48 @@ public final class ScenarioRun {
         StepListener events = (i, step) -> turning[i].step(i, step);
         BatchIntegrator.Result result;
         long t0 = System.nanoTime();
-        try (ProgressBar bar = o.progress() ? new ProgressBarBuilder().setTaskName("evolving " + n + " particles")
-                .setInitialMax(p.times().length).setStyle(ProgressBarStyle.ASCII)
-                .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build() : null) {
-            sink.bar = bar;
-            result = integrator.integrate(batch, p.times(), sink, events);
+        Checkpoint cp = new Checkpoint(o.output(), Checkpoint.fingerprint(p.loaded().scenario()));
+        int done = -1;
+        if (o.resume() && cp.exists()) {
+            done = cp.read(batch, turning, sink);
+        } else {
+            if (o.resume()) {
+                System.err.println("spindrift: no checkpoint for " + o.output() + " yet: starting from the beginning");
+            }
+            cp.clear();
         }
+        Stopper stopper = new Stopper(cp, batch, turning, sink, p, o);
+        Runtime.getRuntime().addShutdownHook(stopper);
+        try {
+            int s = p.times().length;
+            try (ProgressBar bar = o.progress() ? new ProgressBarBuilder().setTaskName("evolving " + n + " particles")
+                    .setInitialMax(s).setStyle(ProgressBarStyle.ASCII)
+                    .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build()
+                    : null) {
+                sink.bar = bar;
+                if (done < s - 1) {
+                    // the same barriers as an uninterrupted run: each particle resumes exactly where it stood
+                    final int offset = done + 1;
+                    double[] rest = Arrays.copyOfRange(p.times(), offset, s);
+                    long[] last = {System.nanoTime()};
+                    result = integrator.integrate(batch, rest, (k, t, snap) -> {
+                        sink.accept(k + offset, t, snap);
+                        boolean due = (System.nanoTime() - last[0]) * 1e-9 >= o.checkpointSeconds();
+                        stopper.barrier(k + offset, due);
+                        if (due) {
+                            last[0] = System.nanoTime();
+                        }
+                    }, events);
+                } else {
+                    result = new BatchIntegrator.Result(0, 0, 0, batch.countByState());
+                }
+            }
+            stopper.integrated();
+        } catch (RuntimeException | Error e) {
+            stopper.remove();
+            throw e;
+        }
+        try {
         ParticleHistory history = sink.history();
         long t1 = System.nanoTime();
 
@@ -311,28 +453,153 @@ public final class ScenarioRun {
             stageSeconds.put(stage.name(), (System.nanoTime() - ts) * 1e-9);
         }
         ObjectNode diag = diagnostics(st, batch, q0, result);
+        if (done >= 0) {
+            diag.put("resumed_after_snapshot", done);
+        }
         summary.set("diagnostics", diag);
         archive.writeJson(ArchiveLayout.SUMMARY, summary);
         archive.finish(manifestBody(p, manifest, diag, result));
+        stopper.finished();
+        cp.clear();
         return new Outcome(archive.target(), history, result, (t1 - t0) * 1e-9, (System.nanoTime() - t1) * 1e-9,
                 stageSeconds);
+        } finally {
+            stopper.remove();
+        }
+    }
+
+    /**
+     * Stops a run cleanly on SIGINT/SIGTERM (a shutdown hook): during the evolution the main thread
+     * writes a checkpoint at the next snapshot barrier and the hook waits for it; after the
+     * evolution the hook writes the final one itself (the data no longer change). Either way one
+     * line says how to resume. Also writes the checkpoints that fall due at barriers.
+     */
+    static final class Stopper extends Thread {
+        private static final long WAIT_S = 300;
+        private final Checkpoint cp;
+        private final ParticleBatch batch;
+        private final TurningPoints[] turning;
+        private final HistorySink sink;
+        private final Prepared p;
+        private final Options o;
+        private final java.util.concurrent.CountDownLatch saved = new java.util.concurrent.CountDownLatch(1);
+        private boolean requested;
+        private boolean integrating = true;
+        private boolean finished;
+        private int savedAt = -1;
+
+        Stopper(Checkpoint cp, ParticleBatch batch, TurningPoints[] turning, HistorySink sink, Prepared p, Options o) {
+            super("spindrift-stop");
+            this.cp = cp;
+            this.batch = batch;
+            this.turning = turning;
+            this.sink = sink;
+            this.p = p;
+            this.o = o;
+        }
+
+        /** At the barrier after snapshot k (main thread): writes a checkpoint when due or asked to stop. */
+        void barrier(int k, boolean due) {
+            boolean stop;
+            synchronized (this) {
+                stop = requested;
+            }
+            if (due || stop) {
+                save(k);
+            }
+            if (stop) {
+                stopped(k);
+                saved.countDown();
+                while (true) { // the JVM is exiting: wait for it here, touching nothing more
+                    try {
+                        Thread.sleep(60_000);
+                    } catch (InterruptedException e) {
+                        // keep waiting
+                    }
+                }
+            }
+        }
+
+        private void save(int k) {
+            try {
+                cp.write(k, batch, turning, sink);
+                synchronized (this) {
+                    savedAt = k;
+                }
+            } catch (IOException e) {
+                System.err.println("spindrift: warning: cannot write the checkpoint in " + cp.folder() + " ("
+                        + e.getMessage() + "); the run goes on");
+            }
+        }
+
+        private void stopped(int k) {
+            System.err.println("spindrift: stopped after snapshot " + (k + 1) + " of " + p.times().length
+                    + "; checkpoint in " + cp.folder() + "; continue with: spindrift run " + p.loaded().file() + " -o "
+                    + o.output() + " --resume");
+        }
+
+        /** The evolution is over (main thread). */
+        void integrated() {
+            synchronized (this) {
+                integrating = false;
+            }
+        }
+
+        /** The run folder is complete: nothing to save any more. */
+        synchronized void finished() {
+            finished = true;
+        }
+
+        void remove() {
+            try {
+                Runtime.getRuntime().removeShutdownHook(this);
+            } catch (IllegalStateException e) {
+                // shutting down: this hook is running
+            }
+        }
+
+        @Override public void run() {
+            boolean during;
+            synchronized (this) {
+                if (finished) {
+                    return;
+                }
+                requested = true;
+                during = integrating;
+            }
+            if (during) {
+                try {
+                    saved.await(WAIT_S, java.util.concurrent.TimeUnit.SECONDS);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+                return;
+            }
+            int last = p.times().length - 1;
+            synchronized (this) {
+                if (savedAt != last) {
+                    save(last);
+                }
+            }
+            stopped(last);
+        }
     }
 
     /** Builds the history from the integrator's snapshots. */
-    private static final class HistorySink implements org.spindrift.sim.motion.SnapshotSink {
+    static final class HistorySink implements org.spindrift.sim.motion.SnapshotSink {
         private final Prepared p;
         private final Spacetime st;
         private final double[] g = new double[Spacetime.SIZE];
         private final int n;
-        private final double[][] r;
-        private final double[][] th;
-        private final double[][] ph;
-        private final double[][] ut;
-        private final double[][] ur;
-        private final double[][] uth;
-        private final double[][] uph;
-        private final float[][] w;
-        private final byte[][] state;
+        final double[][] r;
+        final double[][] th;
+        final double[][] ph;
+        final double[][] ut;
+        final double[][] ur;
+        final double[][] uth;
+        final double[][] uph;
+        final float[][] w;
+        final byte[][] state;
         private final FlareEnvelope[] env;
         private final double[] pr;
         private final double[] pth;
@@ -361,7 +628,8 @@ public final class ScenarioRun {
             pth = new double[n];
         }
 
-        @Override public void accept(int k, double t, Snapshot snap) {
+        /** Allocates the rows of snapshot k. */
+        void allocate(int k) {
             r[k] = new double[n];
             th[k] = new double[n];
             ph[k] = new double[n];
@@ -371,6 +639,10 @@ public final class ScenarioRun {
             uph[k] = new double[n];
             w[k] = new float[n];
             state[k] = new byte[n];
+        }
+
+        @Override public void accept(int k, double t, Snapshot snap) {
+            allocate(k);
             snap.copyR(r[k]);
             snap.copyTheta(th[k]);
             snap.copyPhi(ph[k]);

@@ -9,7 +9,7 @@ import java.util.Map;
  * A scenario file as a tree that remembers where each value stands (line numbers), so that
  * every checking message can name file, line and key path. Built by {@link ConfigTreeReader}.
  */
-sealed interface ConfigNode {
+public sealed interface ConfigNode {
     /** @return the 1-based line of the value in the file */
     int line();
 

@@ -17,22 +17,22 @@ import org.spindrift.shared.scenario.TimeSpan;
  * Every section first declares its allowed keys ({@link #allow}), so an unknown key is reported
  * with the nearest valid key suggested.
  */
-final class ConfigSection {
+public final class ConfigSection {
     private final Path file;
     private final String path;
     private final ConfigNode.Obj node;
     private final LineIndex lines;
 
     /** Records key path to line for later (physics) checks. */
-    static final class LineIndex {
+    public static final class LineIndex {
         private final Map<String, Integer> lines = new java.util.HashMap<>();
 
-        void put(String keyPath, int line) {
+        public void put(String keyPath, int line) {
             lines.put(keyPath, line);
         }
 
         /** @return the line of the key path, or of its nearest recorded parent, or -1 */
-        int line(String keyPath) {
+        public int line(String keyPath) {
             String k = keyPath;
             while (true) {
                 Integer l = lines.get(k);
@@ -48,7 +48,7 @@ final class ConfigSection {
         }
     }
 
-    ConfigSection(Path file, String path, ConfigNode.Obj node, LineIndex lines) {
+    public ConfigSection(Path file, String path, ConfigNode.Obj node, LineIndex lines) {
         this.file = file;
         this.path = path;
         this.node = node;
@@ -60,35 +60,51 @@ final class ConfigSection {
     }
 
     /** @return the key path of a key of this section */
-    String key(String k) {
+    public String key(String k) {
         return path.isEmpty() ? k : path + "." + k;
     }
 
-    String path() {
+    public String path() {
         return path;
     }
 
-    int line() {
+    public int line() {
         return node.line();
     }
 
     /** @return an error at a key of this section */
-    UserInputException error(String k, String problem) {
+    public UserInputException error(String k, String problem) {
         Integer l = node.keyLines().get(k);
         return error(file, l == null ? node.line() : l, key(k), problem);
     }
 
-    static UserInputException error(Path file, int line, String keyPath, String problem) {
+    public static UserInputException error(Path file, int line, String keyPath, String problem) {
         String where = line > 0 ? file + ":" + line : file.toString();
         return new UserInputException(where + ": " + (keyPath.isEmpty() ? "" : keyPath + ": ") + problem);
     }
 
-    boolean has(String k) {
+    /** @return the value of a key as written (null when absent), for values of any type */
+    public ConfigNode node(String k) {
+        return node.fields().get(k);
+    }
+
+    /** @return the line of a key of this section (the section's own line when absent) */
+    public int line(String k) {
+        Integer l = node.keyLines().get(k);
+        return l == null ? node.line() : l;
+    }
+
+    /** @return the file being checked */
+    public Path file() {
+        return file;
+    }
+
+    public boolean has(String k) {
         ConfigNode n = node.fields().get(k);
         return n != null && !(n instanceof ConfigNode.Null);
     }
 
-    Set<String> keys() {
+    public Set<String> keys() {
         return node.fields().keySet();
     }
 
@@ -108,7 +124,7 @@ final class ConfigSection {
     }
 
     /** Rejects keys not in the allowed set, suggesting the nearest allowed key. */
-    ConfigSection allow(String... allowed) {
+    public ConfigSection allow(String... allowed) {
         Set<String> ok = new LinkedHashSet<>(Arrays.asList(allowed));
         for (String k : node.fields().keySet()) {
             if (!ok.contains(k)) {
@@ -121,7 +137,7 @@ final class ConfigSection {
     }
 
     /** @return the allowed key closest in Levenshtein distance, or null when none is close */
-    static String nearest(String k, Set<String> allowed) {
+    public static String nearest(String k, Set<String> allowed) {
         String best = null;
         int bestD = Integer.MAX_VALUE;
         String lk = k.toLowerCase(Locale.ROOT);
@@ -167,7 +183,7 @@ final class ConfigSection {
     }
 
     /** @return a sub-section, or null when absent and not required */
-    ConfigSection section(String k, boolean required) {
+    public ConfigSection section(String k, boolean required) {
         ConfigNode n = raw(k, required);
         if (n == null) {
             return null;
@@ -179,7 +195,7 @@ final class ConfigSection {
     }
 
     /** @return the mappings of a list, at least min of them */
-    List<ConfigSection> sections(String k, int min) {
+    public List<ConfigSection> sections(String k, int min) {
         ConfigNode n = raw(k, min > 0);
         List<ConfigSection> out = new ArrayList<>();
         if (n == null) {
@@ -203,20 +219,20 @@ final class ConfigSection {
     }
 
     /** A closed or open numeric interval for messages and checks. */
-    record Range(double lo, boolean loIncl, double hi, boolean hiIncl) {
-        static Range closed(double lo, double hi) {
+    public record Range(double lo, boolean loIncl, double hi, boolean hiIncl) {
+        public static Range closed(double lo, double hi) {
             return new Range(lo, true, hi, true);
         }
 
-        static Range positive(double hi) {
+        public static Range positive(double hi) {
             return new Range(0, false, hi, true);
         }
 
-        static Range nonNegative(double hi) {
+        public static Range nonNegative(double hi) {
             return new Range(0, true, hi, true);
         }
 
-        boolean contains(double v) {
+        public boolean contains(double v) {
             return (loIncl ? v >= lo : v > lo) && (hiIncl ? v <= hi : v < hi);
         }
 
@@ -250,7 +266,7 @@ final class ConfigSection {
     }
 
     /** @return a number in range, or the default when absent (pass NaN default for required) */
-    double number(String k, double dflt, Range range) {
+    public double number(String k, double dflt, Range range) {
         ConfigNode n = raw(k, Double.isNaN(dflt));
         if (n == null) {
             return dflt;
@@ -263,12 +279,12 @@ final class ConfigSection {
     }
 
     /** @return a required number in range */
-    double number(String k, Range range) {
+    public double number(String k, Range range) {
         return number(k, Double.NaN, range);
     }
 
     /** @return an integer in range, or the default when absent */
-    long integer(String k, Long dflt, long lo, long hi) {
+    public long integer(String k, Long dflt, long lo, long hi) {
         ConfigNode n = raw(k, dflt == null);
         if (n == null) {
             return dflt;
@@ -284,7 +300,7 @@ final class ConfigSection {
     }
 
     /** @return a string, or the default when absent (null default: required) */
-    String string(String k, String dflt) {
+    public String string(String k, String dflt) {
         ConfigNode n = raw(k, dflt == null);
         if (n == null) {
             return dflt;
@@ -299,7 +315,7 @@ final class ConfigSection {
     }
 
     /** @return a boolean, or the default when absent */
-    boolean bool(String k, boolean dflt) {
+    public boolean bool(String k, boolean dflt) {
         ConfigNode n = raw(k, false);
         if (n == null) {
             return dflt;
@@ -311,7 +327,7 @@ final class ConfigSection {
     }
 
     /** @return one of the choices (lower-case names), or the default when absent (null: required) */
-    String choice(String k, String dflt, String... choices) {
+    public String choice(String k, String dflt, String... choices) {
         String v = string(k, dflt);
         for (String c : choices) {
             if (c.equals(v)) {

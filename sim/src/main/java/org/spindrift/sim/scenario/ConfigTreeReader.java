@@ -28,14 +28,14 @@ import org.spindrift.shared.UserInputException;
  * (Jackson streaming parser; {@code .json} files with the JSON parser, everything else with the
  * YAML one). Rejects empty files, binary content and duplicate keys.
  */
-final class ConfigTreeReader {
+public final class ConfigTreeReader {
     /** Largest scenario file, bytes (1 MiB; real scenarios are a few kB). */
     static final long MAX_BYTES = 1L << 20;
 
     private ConfigTreeReader() {
     }
 
-    static ConfigNode read(Path file) {
+    public static ConfigNode read(Path file) {
         byte[] bytes;
         try {
             long size = Files.size(file);

@@ -43,11 +43,14 @@ public final class ScenarioLoader {
 
     /** Reads and checks a file. */
     public static LoadedScenario load(Path file) {
-        return fromTree(file, ConfigTreeReader.read(file));
+        return load(file, ConfigTreeReader.read(file));
     }
 
-    /** Checks a scenario already read into a tree (a fit file's inline or modified scenario). */
-    static LoadedScenario fromTree(Path file, ConfigNode root) {
+    /**
+     * Checks a scenario tree already read (for example a sweep's base scenario with axis values
+     * put in); messages name {@code file} and the lines the tree's nodes carry.
+     */
+    public static LoadedScenario load(Path file, ConfigNode root) {
         ConfigSection.LineIndex lines = new ConfigSection.LineIndex();
         if (!(root instanceof ConfigNode.Obj obj)) {
             throw ConfigSection.error(file, root.line(), "", "the file must be a mapping of keys (black_hole, observer,"

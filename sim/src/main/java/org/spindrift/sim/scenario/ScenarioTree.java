@@ -1,12 +1,6 @@
 package org.spindrift.sim.scenario;
 
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.LinkedHashMap;
-import java.util.List;
-import java.util.Map;
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
 import org.spindrift.shared.UserInputException;
 
 /**
@@ -18,9 +12,6 @@ import org.spindrift.shared.UserInputException;
  * missing from the file is added. Immutable.
  */
 public final class ScenarioTree {
-    private static final Pattern SEGMENT = Pattern.compile("([A-Za-z_][A-Za-z0-9_]*)((?:\\[\\d+\\])*)");
-    private static final Pattern INDEX = Pattern.compile("\\[(\\d+)\\]");
-
     private final Path file;
     private final ConfigNode root;
 
@@ -45,56 +36,18 @@ public final class ScenarioTree {
 
     /** Checks the tree with the scenario loader (errors name the file, line and key path). */
     public LoadedScenario load() {
-        return ScenarioLoader.fromTree(file, root);
-    }
-
-    /** One step of a key path: a key, then zero or more list indices. */
-    private record Step(String key, List<Integer> indices) {
-    }
-
-    /** @return the steps of a key path, or null when it is not a key path */
-    private static List<Step> parse(String keyPath) {
-        List<Step> out = new ArrayList<>();
-        for (String part : keyPath.split("\\.", -1)) {
-            Matcher m = SEGMENT.matcher(part);
-            if (!m.matches()) {
-                return null;
-            }
-            List<Integer> idx = new ArrayList<>();
-            Matcher im = INDEX.matcher(m.group(2));
-            while (im.find()) {
-                idx.add(Integer.parseInt(im.group(1)));
-            }
-            out.add(new Step(m.group(1), idx));
-        }
-        return out;
+        return ScenarioLoader.load(file, root);
     }
 
     /** @return whether the text has the form of a key path ({@code a.b[0].c}) */
     public static boolean isKeyPath(String keyPath) {
-        return parse(keyPath) != null;
+        return KeyPath.parse(keyPath) != null;
     }
 
     /** @return the node at a key path, or null when absent */
     private ConfigNode node(String keyPath) {
-        List<Step> steps = parse(keyPath);
-        if (steps == null) {
-            return null;
-        }
-        ConfigNode n = root;
-        for (Step s : steps) {
-            if (!(n instanceof ConfigNode.Obj o)) {
-                return null;
-            }
-            n = o.fields().get(s.key());
-            for (int i : s.indices()) {
-                if (!(n instanceof ConfigNode.Arr a) || i >= a.items().size()) {
-                    return null;
-                }
-                n = a.items().get(i);
-            }
-        }
-        return n;
+        KeyPath kp = KeyPath.parse(keyPath);
+        return kp == null ? null : kp.get(root);
     }
 
     /**
@@ -134,65 +87,29 @@ public final class ScenarioTree {
 
     /** @return a copy with the value at the key path replaced (added when absent), keeping a time's unit */
     public ScenarioTree with(String keyPath, double v) {
-        List<Step> steps = parse(keyPath);
-        if (steps == null) {
+        KeyPath kp = KeyPath.parse(keyPath);
+        if (kp == null) {
             throw new IllegalArgumentException("not a key path: " + keyPath);
         }
         String unit = unit(keyPath);
-        return new ScenarioTree(file, replace(root, steps, 0, v, unit));
-    }
-
-    private static ConfigNode replace(ConfigNode n, List<Step> steps, int at, double v, String unit) {
-        if (at == steps.size()) {
-            int line = n == null ? 0 : n.line();
-            String text = Double.toString(v);
-            return unit != null ? new ConfigNode.Str(text + " " + unit, line) : new ConfigNode.Num(v, false, text, line);
-        }
-        Step s = steps.get(at);
-        ConfigNode.Obj o = n instanceof ConfigNode.Obj ob ? ob : new ConfigNode.Obj(Map.of(), Map.of(), n == null ? 0 : n.line());
-        Map<String, ConfigNode> fields = new LinkedHashMap<>(o.fields());
-        Map<String, Integer> lines = new LinkedHashMap<>(o.keyLines());
-        ConfigNode child = fields.get(s.key());
-        lines.putIfAbsent(s.key(), o.line());
-        fields.put(s.key(), replaceIndexed(child, s.indices(), 0, steps, at, v, unit));
-        return new ConfigNode.Obj(fields, lines, o.line());
-    }
-
-    private static ConfigNode replaceIndexed(ConfigNode n, List<Integer> idx, int k, List<Step> steps, int at, double v,
-                                             String unit) {
-        if (k == idx.size()) {
-            return replace(n, steps, at + 1, v, unit);
-        }
-        if (!(n instanceof ConfigNode.Arr a) || idx.get(k) >= a.items().size()) {
-            throw new IllegalArgumentException("no list entry " + idx.get(k) + " at " + steps.get(at).key());
-        }
-        List<ConfigNode> items = new ArrayList<>(a.items());
-        items.set(idx.get(k), replaceIndexed(items.get(idx.get(k)), idx, k + 1, steps, at, v, unit));
-        return new ConfigNode.Arr(items, a.line());
+        int line = kp.nearestLine(root);
+        String text = Double.toString(v);
+        ConfigNode value = unit != null ? new ConfigNode.Str(text + " " + unit, line)
+                : new ConfigNode.Num(v, false, text, line);
+        return new ScenarioTree(file, kp.put(root, value, line));
     }
 
     /** @return whether the list entries named by the key path exist (the last key itself may be absent) */
     public boolean listsExist(String keyPath) {
-        List<Step> steps = parse(keyPath);
-        if (steps == null) {
+        KeyPath kp = KeyPath.parse(keyPath);
+        if (kp == null) {
             return false;
         }
-        ConfigNode n = root;
-        for (Step s : steps) {
-            if (n == null) {
-                return true;        // an absent mapping is added
-            }
-            if (!(n instanceof ConfigNode.Obj o)) {
-                return false;
-            }
-            n = o.fields().get(s.key());
-            for (int i : s.indices()) {
-                if (!(n instanceof ConfigNode.Arr a) || i >= a.items().size()) {
-                    return false;
-                }
-                n = a.items().get(i);
-            }
+        try {
+            kp.put(root, new ConfigNode.Null(0), 0);
+            return true;
+        } catch (IllegalArgumentException e) {
+            return false;
         }
-        return true;
     }
 }
