@@ -153,17 +153,41 @@ public final class BenchLightCommand implements Callable<Integer> {
                 double[] d = table.delayRange();
                 double tA = h.time(0) + d[1];
                 double tB = h.time(h.snapshots() - 1) + d[0];
-                float[] img = new float[n * n];
-                t0 = System.nanoTime();
-                c0 = cpu();
-                try (EmissionRenderer r = new EmissionRenderer(table, h, p.spacetime(), hK, nt)) {
-                    for (int f = 0; f < frames; f++) {
-                        double t = frames == 1 ? tA : tA + (tB - tA) * f / (frames - 1);
-                        r.render(t, img);
+                float[][] imgs = new float[frames][n * n];
+                double fast = 0;
+                for (boolean old : reference ? new boolean[] {false, true} : new boolean[] {false}) {
+                    t0 = System.nanoTime();
+                    c0 = cpu();
+                    float[] img = new float[n * n];
+                    int differ = 0;
+                    double peak = 0, dFlux = 0, dCentroid = 0;
+                    FrameMoments[] fm = new FrameMoments[frames];
+                    try (EmissionRenderer r = new EmissionRenderer(table, h, p.spacetime(), hK, nt, old)) {
+                        for (int f = 0; f < frames; f++) {
+                            double t = frames == 1 ? tA : tA + (tB - tA) * f / (frames - 1);
+                            r.render(t, old ? img : imgs[f]);
+                            differ += old && !java.util.Arrays.equals(img, imgs[f]) ? 1 : 0;
+                            if (old) {
+                                fm[f] = FrameMoments.of(img, cam);
+                                peak = Math.max(peak, fm[f].flux());
+                            }
+                        }
+                        for (int f = 0; f < frames && old; f++) {
+                            FrameMoments b = FrameMoments.of(imgs[f], cam);
+                            dFlux = Math.max(dFlux, Math.abs(b.flux() - fm[f].flux()) / peak);
+                            if (fm[f].flux() > 0.01 * peak) {
+                                dCentroid = Math.max(dCentroid, Math.hypot(b.x() - fm[f].x(), b.y() - fm[f].y()));
+                            }
+                        }
+                        secs = seconds(t0);
+                        System.out.printf(Locale.ROOT, "  %d frames of %d x %d%s: %.2f s (%.1f CPU s), %.1f frames/s"
+                                        + " (%d emission slices)%s%n", frames, n, n, old ? " (reference renderer)" : "",
+                                secs, cpu() - c0, frames / secs, r.slicesBuilt(), old ? String.format(Locale.ROOT,
+                                        "; speed-up %.2fx wall; %d frames differ bit for bit, flux by at most"
+                                        + " %.1e of the peak, centroid by at most %.1e M (frames above 1%% of the"
+                                        + " peak)", secs / fast, differ, dFlux, dCentroid) : "");
+                        fast = old ? fast : secs;
                     }
-                    secs = seconds(t0);
-                    System.out.printf(Locale.ROOT, "  %d frames of %d x %d: %.2f s (%.1f CPU s), %.1f frames/s"
-                            + " (%d emission slices)%n", frames, n, n, secs, cpu() - c0, frames / secs, r.slicesBuilt());
                 }
             }
             System.out.println(org.spindrift.sim.interferometry.VisibilityBench.run(frames, visPixels, visPoints, nt));

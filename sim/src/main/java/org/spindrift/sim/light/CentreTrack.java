@@ -119,7 +119,8 @@ public final class CentreTrack implements EmitterHistory {
                 tr.uth[s][idx] = u2;
                 tr.uph[s][idx] = u3;
                 tr.state[s][idx] = (byte) snap.stateCode(s);
-                // DESIGN section 3 Cartesian map and its coordinate-time derivative
+                // Cartesian map of Boyer-Lindquist coordinates, x = sqrt(r^2 + a^2) sin(theta) cos(phi), ...
+                // (Boyer & Lindquist 1967, J. Math. Phys. 8, 265; from memory), and its coordinate-time derivative
                 double big = FastMath.sqrt(rr * rr + a2);
                 double sth = FastMath.sin(tt), cth = FastMath.cos(tt), sph = FastMath.sin(pp), cph = FastMath.cos(pp);
                 double rd = u1 / u0, thd = u2 / u0, phd = u3 / u0;
@@ -161,19 +162,11 @@ public final class CentreTrack implements EmitterHistory {
      *     ended (captured, escaped) or te lies outside the track
      */
     public boolean at(int s, double te, double[] out) {
-        double f = te / dt;
-        int k = (int) f;
-        if (te < 0 || k >= t.length - 1) {
-            if (k == t.length - 1 && f - k < 1e-9) {
-                k = t.length - 2;
-            } else {
-                return false;
-            }
-        }
-        if (state[s][k] != ALIVE || state[s][k + 1] != ALIVE) {
+        int k = segment(s, te);
+        if (k < 0) {
             return false;
         }
-        double u = f - k;
+        double u = te / dt - k;
         double u2 = u * u, u3 = u2 * u;
         double h00 = 2 * u3 - 3 * u2 + 1, h10 = (u3 - 2 * u2 + u) * dt, h01 = -2 * u3 + 3 * u2, h11 = (u3 - u2) * dt;
         out[0] = h00 * x[s][k] + h10 * vx[s][k] + h01 * x[s][k + 1] + h11 * vx[s][k + 1];
@@ -184,6 +177,77 @@ public final class CentreTrack implements EmitterHistory {
         out[4] = w * ur[s][k] + u * ur[s][k + 1];
         out[5] = w * uth[s][k] + u * uth[s][k + 1];
         out[6] = w * uph[s][k] + u * uph[s][k + 1];
+        return true;
+    }
+
+    /**
+     * Second-order expansion of centre s about time te: position, velocity and acceleration of the
+     * cubic Hermite interpolant of {@link #at} (its first and second derivatives), and the linear
+     * 4-velocity with its slope, so that a caller can evaluate x(te + dt) = x + v dt + a dt^2 / 2
+     * and u(te + dt) = u + u' dt near te without locating the segment per call (Taylor expansion of
+     * the same spline; within a segment the position differs from {@link #at} by the third-order term).
+     *
+     * @param out length 17: x, y, z, vx, vy, vz, ax, ay, az, u^t, u^r, u^theta, u^phi and their slopes
+     * @return false as {@link #at}
+     */
+    public boolean expansion(int s, double te, double[] out) {
+        int k = segment(s, te);
+        if (k < 0) {
+            return false;
+        }
+        double u = te / dt - k, u2 = u * u, u3 = u2 * u;
+        double h00 = 2 * u3 - 3 * u2 + 1, h10 = (u3 - 2 * u2 + u) * dt, h01 = -2 * u3 + 3 * u2, h11 = (u3 - u2) * dt;
+        double d00 = (6 * u2 - 6 * u) / dt, d10 = 3 * u2 - 4 * u + 1, d01 = -d00, d11 = 3 * u2 - 2 * u;
+        double e00 = (12 * u - 6) / (dt * dt), e10 = (6 * u - 4) / dt, e01 = -e00, e11 = (6 * u - 2) / dt;
+        hermite(x[s], vx[s], k, h00, h10, h01, h11, d00, d10, d01, d11, e00, e10, e01, e11, out, 0);
+        hermite(y[s], vy[s], k, h00, h10, h01, h11, d00, d10, d01, d11, e00, e10, e01, e11, out, 1);
+        hermite(z[s], vz[s], k, h00, h10, h01, h11, d00, d10, d01, d11, e00, e10, e01, e11, out, 2);
+        linear(ut[s], k, u, out, 0);
+        linear(ur[s], k, u, out, 1);
+        linear(uth[s], k, u, out, 2);
+        linear(uph[s], k, u, out, 3);
+        return true;
+    }
+
+    /** @return the segment [k, k + 1] holding te with both ends alive, or -1 */
+    private int segment(int s, double te) {
+        double f = te / dt;
+        int k = (int) f;
+        if (te < 0 || k >= t.length - 1) {
+            if (k == t.length - 1 && f - k < 1e-9) {
+                k = t.length - 2;
+            } else {
+                return -1;
+            }
+        }
+        return state[s][k] == ALIVE && state[s][k + 1] == ALIVE ? k : -1;
+    }
+
+    private static void hermite(double[] p, double[] v, int k, double h00, double h10, double h01, double h11,
+                                double d00, double d10, double d01, double d11, double e00, double e10, double e01,
+                                double e11, double[] out, int c) {
+        double p0 = p[k], p1 = p[k + 1], v0 = v[k], v1 = v[k + 1];
+        out[c] = h00 * p0 + h10 * v0 + h01 * p1 + h11 * v1;
+        out[3 + c] = d00 * p0 + d10 * v0 + d01 * p1 + d11 * v1;
+        out[6 + c] = e00 * p0 + e10 * v0 + e01 * p1 + e11 * v1;
+    }
+
+    private void linear(double[] q, int k, double u, double[] out, int c) {
+        out[9 + c] = (1 - u) * q[k] + u * q[k + 1];
+        out[13 + c] = (q[k + 1] - q[k]) / dt;
+    }
+
+    /** @return true when centre s is alive over the whole interval [t0, t1] inside the track */
+    public boolean aliveThrough(int s, double t0, double t1) {
+        if (t0 < 0 || t1 > t[t.length - 1] + 1e-9 * dt) {
+            return false;
+        }
+        int k0 = (int) (t0 / dt), k1 = FastMath.min(t.length - 1, (int) FastMath.ceil(t1 / dt));
+        for (int k = k0; k <= k1; k++) {
+            if (state[s][k] != ALIVE) {
+                return false;
+            }
+        }
         return true;
     }
 

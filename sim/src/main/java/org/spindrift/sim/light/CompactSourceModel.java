@@ -27,8 +27,10 @@ import org.spindrift.sim.scenario.FlareEnvelope;
  * and times, so they never need a new table. Samples are kept in cells of a cubic grid, sorted by
  * delay within each cell; a frame visits the emission times of its delay window in steps short
  * enough that the blob moves at most a quarter cell, and in each step only the cells near the
- * blob and the samples whose delay maps into that step. One instance per thread (scratch
- * buffers); {@link Index} is shared read-only. Evaluation allocates only its result arrays.
+ * blob and the samples whose delay maps into that step; within a step the centre is the
+ * second-order expansion of its track about mid-step ({@link CentreTrack#expansion}). One instance
+ * per thread (scratch buffers, sized once per table); {@link Index} is shared read-only.
+ * Evaluation allocates only its result arrays.
  */
 public final class CompactSourceModel {
     /** Gaussian cut-off in standard deviations. */
@@ -258,8 +260,21 @@ public final class CompactSourceModel {
         }
     }
 
-    private final double[] c = new double[7];
+    private final double[] c = new double[17];
     private final double[] cs = new double[7];
+    /**
+     * Per cell of the last index: the first sample above the previous step's delay window, valid
+     * while {@link #stamp} holds the current (frame, source) pass (steps are walked towards larger
+     * delays, so a cell's position only moves forward and one binary search per pass suffices).
+     */
+    private int[] cursor = new int[0];
+    private int[] stamp = new int[0];
+    private int pass;
+    private Index stamped;
+    /** Delay quantiles of the last radial range (the frame grid while the orbit's radii do not change). */
+    private double qLo = Double.NaN, qHi = Double.NaN;
+    private double[] lastQ;
+    private Index quantiled;
 
     /**
      * Frames of the sources on the run's frame grid.
@@ -279,7 +294,14 @@ public final class CompactSourceModel {
         for (Spot s : spots) {
             spread = FastMath.max(spread, 3.0 * s.sigmaM());
         }
-        double[] q = index.delayQuantiles(rr[0] - spread - 2 * h, rr[1] + spread + 2 * h, 0.02, 0.98);
+        double lo = rr[0] - spread - 2 * h, hi = rr[1] + spread + 2 * h;
+        if (quantiled != index || lo != qLo || hi != qHi) {
+            lastQ = index.delayQuantiles(lo, hi, 0.02, 0.98);
+            quantiled = index;
+            qLo = lo;
+            qHi = hi;
+        }
+        double[] q = lastQ;
         return frames(index, track, spots, positionAngleDeg, LightStage.frameTimes(track, q, frameCadenceM), steadyRatio);
     }
 
@@ -309,6 +331,16 @@ public final class CompactSourceModel {
         double v = FastMath.max(1e-3, track.maxSpeed());
         double step = FastMath.max(1e-3, 0.5 * index.cell / v);   // the blob moves at most a quarter cell per half step
         double tEnd = track.time(track.snapshots() - 1);
+        int cells = index.cellStart.length - 1;
+        if (stamped != index) {
+            if (cursor.length < cells) {
+                cursor = new int[cells];
+                stamp = new int[cells];
+            }
+            java.util.Arrays.fill(stamp, 0);
+            pass = 0;
+            stamped = index;
+        }
         for (int f = 0; f < nf; f++) {
             double to = times[f];
             double e0 = FastMath.max(0.0, to - near[1]);
@@ -319,13 +351,20 @@ public final class CompactSourceModel {
             int steps = (int) FastMath.ceil((e1 - e0) / step);
             double sf = 0, sx = 0, sy = 0;
             for (int k = 0; k < spots.length; k++) {
-                for (int j = 0; j < steps; j++) {
+                if (++pass == Integer.MAX_VALUE) {
+                    java.util.Arrays.fill(stamp, 0);
+                    pass = 1;
+                }
+                // towards larger delays (earlier emission): each cell's first sample above the window only moves forward
+                for (int j = steps - 1; j >= 0; j--) {
                     double a = e0 + j * step;
                     double b = j == steps - 1 ? e1 : a + step;
                     double mid = 0.5 * (a + b);
-                    if (!track.at(k, mid, c)) {
+                    if (!track.expansion(k, mid, c)) {
                         continue;
                     }
+                    // alive through the step: the centre from its expansion about mid-step, else per sample
+                    boolean smooth = track.aliveThrough(k, a, b);
                     // samples whose delay maps into [a, b): d in (to - b, to - a]
                     double reach = FastMath.sqrt(cut2[k]) + v * 0.5 * (b - a) + 1e-6;
                     double reach2 = reach * reach;
@@ -344,7 +383,16 @@ public final class CompactSourceModel {
                                 if (from == until) {
                                     continue;
                                 }
-                                int i = firstAbove(index.d, from, until, dLo);
+                                int i;
+                                if (stamp[cellIdx] == pass) {
+                                    i = cursor[cellIdx];
+                                    while (i < until && index.d[i] <= dLo) {
+                                        i++;
+                                    }
+                                } else {
+                                    i = firstAbove(index.d, from, until, dLo);
+                                    stamp[cellIdx] = pass;
+                                }
                                 for (; i < until && index.d[i] <= dHi; i++) {
                                     // cheap test against the blob at mid-step before interpolating at t_e
                                     double qx = index.x[i] - c[0], qy = index.y[i] - c[1], qz = index.z[i] - c[2];
@@ -352,13 +400,29 @@ public final class CompactSourceModel {
                                         continue;
                                     }
                                     double te = to - index.d[i];
-                                    if (!track.at(k, te, cs)) {
-                                        continue;
+                                    double ddx, ddy, ddz;
+                                    double dt = te - mid;
+                                    if (smooth) {
+                                        ddx = index.x[i] - (c[0] + dt * (c[3] + 0.5 * dt * c[6]));
+                                        ddy = index.y[i] - (c[1] + dt * (c[4] + 0.5 * dt * c[7]));
+                                        ddz = index.z[i] - (c[2] + dt * (c[5] + 0.5 * dt * c[8]));
+                                    } else {
+                                        if (!track.at(k, te, cs)) {
+                                            continue;
+                                        }
+                                        ddx = index.x[i] - cs[0];
+                                        ddy = index.y[i] - cs[1];
+                                        ddz = index.z[i] - cs[2];
                                     }
-                                    double ddx = index.x[i] - cs[0], ddy = index.y[i] - cs[1], ddz = index.z[i] - cs[2];
                                     double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
                                     if (d2 >= cut2[k]) {
                                         continue;
+                                    }
+                                    if (smooth) {
+                                        cs[3] = c[9] + dt * c[13];
+                                        cs[4] = c[10] + dt * c[14];
+                                        cs[5] = c[11] + dt * c[15];
+                                        cs[6] = c[12] + dt * c[16];
                                     }
                                     double gInv = Redshift.inverse(index.pr[i], index.pth[i], index.pph[i], cs[3], cs[4],
                                             cs[5], cs[6]);
@@ -375,6 +439,7 @@ public final class CompactSourceModel {
                                     sx += val * index.east[i];
                                     sy += val * index.north[i];
                                 }
+                                cursor[cellIdx] = i;
                             }
                         }
                     }

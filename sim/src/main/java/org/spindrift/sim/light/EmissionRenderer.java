@@ -50,6 +50,13 @@ public final class EmissionRenderer implements AutoCloseable {
     private final int[] binStart;
     private final double binOrigin;
     private final List<double[]> chunkImages = new ArrayList<>();
+    /** Consecutive sorted samples per group of the group test. */
+    private static final int GROUP = 32;
+    /** per group of GROUP sorted samples: bounding box (x, y, z lower then upper) and delay range */
+    private final float[] gBox;
+    private final float[] gDelay;
+    /** true: every sample queries its slice with the bounding-box search of earlier versions */
+    private final boolean reference;
     private int slicesBuilt;
 
     /**
@@ -58,6 +65,16 @@ public final class EmissionRenderer implements AutoCloseable {
      */
     public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
                             int threads) {
+        this(table, history, spacetime, smoothingLength, threads, false);
+    }
+
+    /**
+     * @param reference true: no group test, every sample is queried (the renderer of earlier
+     *     versions, kept for benchmarks); the images are the same bit for bit
+     */
+    public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
+                            int threads, boolean reference) {
+        this.reference = reference;
         this.history = history;
         this.spacetime = spacetime;
         this.pixels = table.camera().pixels();
@@ -137,6 +154,27 @@ public final class EmissionRenderer implements AutoCloseable {
             spph[j] = table.pph[i];
             sdl[j] = table.dl[i];
             pix[j] = owner[i];
+        }
+        int groups = (m + GROUP - 1) / GROUP;
+        gBox = new float[6 * groups];
+        gDelay = new float[2 * groups];
+        for (int g = 0; g < groups; g++) {
+            float dLo = Float.POSITIVE_INFINITY, dHi = Float.NEGATIVE_INFINITY;
+            float x0 = dLo, y0 = dLo, z0 = dLo, x1 = dHi, y1 = dHi, z1 = dHi;
+            for (int j = g * GROUP; j < Math.min(m, (g + 1) * GROUP); j++) {
+                x0 = Math.min(x0, sx[j]);
+                y0 = Math.min(y0, sy[j]);
+                z0 = Math.min(z0, sz[j]);
+                x1 = Math.max(x1, sx[j]);
+                y1 = Math.max(y1, sy[j]);
+                z1 = Math.max(z1, sz[j]);
+                dLo = Math.min(dLo, sd[j]);
+                dHi = Math.max(dHi, sd[j]);
+            }
+            float[] box = {x0, y0, z0, x1, y1, z1};
+            System.arraycopy(box, 0, gBox, 6 * g, 6);
+            gDelay[2 * g] = dLo;
+            gDelay[2 * g + 1] = dHi;
         }
     }
 
@@ -230,8 +268,35 @@ public final class EmissionRenderer implements AutoCloseable {
         }
     }
 
-    /** Adds the emission seen by sorted samples i0..i1-1 (each from the slice its emission time rounds to). */
+    /**
+     * Adds the emission seen by sorted samples i0..i1-1 (each from the slice its emission time rounds
+     * to). Samples go in groups of {@link #GROUP} consecutive ones: a group none of whose slices has
+     * a particle within reach of the group's bounding box is skipped whole (exact: each of its
+     * samples would find no particle), which spares the per-sample set-up on the many samples away
+     * from the gas at the frame's emission times.
+     */
     private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
+        if (reference) {
+            renderRange(i0, i1, tObs, jLo, window, acc);
+            return;
+        }
+        for (int g = i0 / GROUP; g * GROUP < i1; g++) {
+            int a = Math.max(i0, g * GROUP), b = Math.min(i1, (g + 1) * GROUP);
+            int w0 = (int) Math.max(0, sliceIndex(tObs - gDelay[2 * g + 1]) - jLo);
+            int w1 = (int) Math.min(window.length - 1, sliceIndex(tObs - gDelay[2 * g]) - jLo);
+            boolean any = false;
+            for (int w = w0; w <= w1 && !any; w++) {
+                EmissionSlice sl = window[w];
+                any = sl != null && sl.mayReach(gBox[6 * g], gBox[6 * g + 1], gBox[6 * g + 2], gBox[6 * g + 3],
+                        gBox[6 * g + 4], gBox[6 * g + 5]);
+            }
+            if (any) {
+                renderRange(a, b, tObs, jLo, window, acc);
+            }
+        }
+    }
+
+    private void renderRange(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
         for (int i = i0; i < i1; i++) {
             double tE = tObs - sd[i];
             int w = (int) (sliceIndex(tE) - jLo);

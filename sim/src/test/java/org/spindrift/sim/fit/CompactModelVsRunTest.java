@@ -115,10 +115,17 @@ public class CompactModelVsRunTest {
                 medC, 100 * medC / radius, worstC, 100 * worstC / radius, 100 * medF, 100 * worstF);
         System.out.println(msg);
         assertTrue(n >= 10, msg);
-        // Measured (64-96 px): face-on medians 1.5 % / 1.2 %, worst 7 % / 5 %; at i = 60 deg medians
-        // about 3 %, and single frames with the spot behind the hole (strongly lensed, thin images)
-        // differ by up to 40 %. This is short of the 1 % / 2 % aim for the fast model; the tolerances
-        // below record what is reached so that a regression shows.
+        // Target not met: centroid within 1 % of the track radius and flux within 2 % in every frame.
+        // Measured here (96 px): face-on medians 1.4 % / 1.2 %, worst 7 % / 5 %; at i = 60 deg medians
+        // about 3 % / 2-4 %, worst 31 % / 30 % in the frames with the spot behind the hole. Why: at 96 px
+        // the run is not a converged reference there. The fast model alone, i = 60 deg, 96 px against
+        // the same model at 384 px (frames 40-132 M): with the spot in front of the hole at most
+        // 0.07 M (0.8 %) and 0.5 % in flux, i.e. within the target; behind the hole up to 1.6 M and 13 %,
+        // 0.65 M and 7 % at 192 px (the thin, strongly lensed images are sampled by few rays, and the
+        // error falls as the pixels shrink). The run carries an error of the same kind, from a table
+        // refined elsewhere (its mask), so run and model disagree by the sum of two sampling errors;
+        // the run also shears the spot, the model does not. The tolerances below record what is
+        // reached so that a regression shows.
         assertTrue(medC <= medianTol * radius, msg);
         assertTrue(medF <= medianTol, msg);
         assertTrue(worstC <= worstTol * radius, msg);

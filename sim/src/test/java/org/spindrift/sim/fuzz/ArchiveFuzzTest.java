@@ -12,21 +12,18 @@ import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Random;
+import java.util.SplittableRandom;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.TimeoutException;
 import java.util.stream.Stream;
-import net.jqwik.api.Arbitraries;
-import net.jqwik.api.Arbitrary;
-import net.jqwik.api.Combinators;
-import net.jqwik.api.Example;
-import net.jqwik.api.ForAll;
-import net.jqwik.api.Property;
-import net.jqwik.api.Provide;
-import net.jqwik.api.lifecycle.AfterContainer;
-import net.jqwik.api.lifecycle.BeforeContainer;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.DynamicTest;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestFactory;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.ArchiveVerifier;
@@ -34,7 +31,7 @@ import org.spindrift.shared.archive.LightArchive;
 import org.spindrift.shared.archive.RunArchive;
 
 /**
- * Property-based fuzzing of the run-archive readers: a finished run with one file truncated,
+ * Fuzzing (seeded generated cases) of the run-archive readers: a finished run with one file truncated,
  * bit-flipped, zeroed in part or deleted. {@code verify} answers exit 2 with one line per problem
  * (exit 0 only when no byte changed); the readers without the sha256 check (as {@code view
  * --no-verify} uses them) return values or one line naming the file, never another exception or
@@ -45,7 +42,7 @@ class ArchiveFuzzTest {
     static Path pristine;
     static List<String> files;
 
-    @BeforeContainer static void runOnce() throws Exception {
+    @BeforeAll static void runOnce() throws Exception {
         work = Files.createTempDirectory("spindrift-archive-fuzz");
         Path file = Files.writeString(work.resolve("small.yaml"), ScenarioFuzzTest.SMALL);
         pristine = work.resolve("pristine");
@@ -56,7 +53,7 @@ class ArchiveFuzzTest {
         }
     }
 
-    @AfterContainer static void tearDown() throws IOException {
+    @AfterAll static void tearDown() throws IOException {
         Cli.delete(work);
     }
 
@@ -68,14 +65,16 @@ class ArchiveFuzzTest {
     record Case(String file, Damage damage, long seed) {
     }
 
-    @Provide Arbitrary<Case> damages() {
+    /** @return a file (weighted), a damage and a seed */
+    static Case drawDamage(SplittableRandom rnd) {
         // snapshots.h5 and the manifest more often: their readers are the most complex
-        Arbitrary<String> file = Arbitraries.frequencyOf(
-                net.jqwik.api.Tuple.of(4, Arbitraries.just(ArchiveLayout.SNAPSHOTS)),
-                net.jqwik.api.Tuple.of(2, Arbitraries.just(ArchiveLayout.MANIFEST)),
-                net.jqwik.api.Tuple.of(1, Arbitraries.just(ArchiveLayout.IMAGES)),
-                net.jqwik.api.Tuple.of(2, Arbitraries.of(files)));
-        return Combinators.combine(file, Arbitraries.of(Damage.class), Arbitraries.longs()).as(Case::new);
+        String file = switch (Draw.weighted(rnd, 4, 2, 1, 2)) {
+            case 0 -> ArchiveLayout.SNAPSHOTS;
+            case 1 -> ArchiveLayout.MANIFEST;
+            case 2 -> ArchiveLayout.IMAGES;
+            default -> Draw.oneOf(rnd, files);
+        };
+        return new Case(file, Draw.oneOf(rnd, Damage.values()), rnd.nextLong());
     }
 
     /** @return a damaged copy of the pristine run, and whether any byte changed */
@@ -196,13 +195,13 @@ class ArchiveFuzzTest {
         }
     }
 
-    @Property(tries = 30, seed = "20261203") void damagedArchivesAreReportedInOneLinePerProblem(
-            @ForAll("damages") Case c) throws Exception {
-        check(c);
+    @TestFactory Stream<DynamicTest> damagedArchivesAreReportedInOneLinePerProblem() {
+        return Draw.cases(30, Draw.SEED, ArchiveFuzzTest::drawDamage, c -> c.file() + " " + c.damage() + " seed "
+                + c.seed(), ArchiveFuzzTest::check);
     }
 
     /** Damage that once broke the contract: "file damage seed" per line. */
-    @Example void corpus() throws Exception {
+    @Test void corpus() throws Exception {
         Path corpus = Path.of("src", "test", "resources", "fuzz-corpus", "archives.txt");
         List<String> lines = Files.readAllLines(corpus, StandardCharsets.UTF_8).stream()
                 .filter(l -> !l.isBlank() && !l.startsWith("#")).toList();
@@ -212,7 +211,7 @@ class ArchiveFuzzTest {
         }
     }
 
-    @Example void aPristineRunVerifies() {
+    @Test void aPristineRunVerifies() {
         assertEquals(List.of(), ArchiveVerifier.problems(pristine));
     }
 }

@@ -11,18 +11,16 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.Random;
-import net.jqwik.api.Arbitraries;
-import net.jqwik.api.Arbitrary;
-import net.jqwik.api.Combinators;
-import net.jqwik.api.Example;
-import net.jqwik.api.ForAll;
-import net.jqwik.api.Property;
-import net.jqwik.api.Provide;
-import net.jqwik.api.lifecycle.AfterContainer;
-import net.jqwik.api.lifecycle.BeforeContainer;
+import java.util.SplittableRandom;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.DynamicTest;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestFactory;
 
 /**
- * Property-based fuzzing of fit files and their data: the fit demo (with a synthetic centroid
+ * Fuzzing (seeded generated cases) of fit files and their data: the fit demo (with a synthetic centroid
  * track as its data) mutated as the scenario files are, and its data CSV truncated, bit-flipped,
  * given non-UTF-8 bytes, non-finite numbers or a removed column, through {@code check}: exit 0,
  * or exit 2 with one line; never another status, a stack trace, a hang or a file written.
@@ -32,7 +30,7 @@ class FitFuzzTest {
     static Path fitDemo;
     static byte[] data;
 
-    @BeforeContainer static void setUp() throws IOException {
+    @BeforeAll static void setUp() throws IOException {
         work = Files.createTempDirectory("spindrift-fit-fuzz");
         Path configs = Files.isDirectory(Path.of("..", "configs")) ? Path.of("..", "configs") : Path.of("configs");
         fitDemo = configs.resolve("fit-demo.yaml");
@@ -49,7 +47,7 @@ class FitFuzzTest {
         Files.createDirectories(work.resolve("runs").resolve("fit-demo-truth"));
     }
 
-    @AfterContainer static void tearDown() throws IOException {
+    @AfterAll static void tearDown() throws IOException {
         Cli.delete(work);
     }
 
@@ -129,18 +127,20 @@ class FitFuzzTest {
         Files.delete(fit);
     }
 
-    @Provide Arbitrary<Case> cases() {
-        Arbitrary<ScenarioFuzzTest.Mutation> m = Arbitraries.of(ScenarioFuzzTest.Mutation.class).injectNull(0.4);
-        return Combinators.combine(m, Arbitraries.longs(), Arbitraries.of(DataDamage.class), Arbitraries.longs())
-                .as(Case::new);
+    /** @return a mutation of the fit file (none with probability 0.4), a data damage, and their seeds */
+    static Case drawCase(SplittableRandom rnd) {
+        ScenarioFuzzTest.Mutation m = Draw.oneOfOrNull(rnd, 0.4, ScenarioFuzzTest.Mutation.values());
+        long fileSeed = rnd.nextLong();
+        return new Case(m, fileSeed, Draw.oneOf(rnd, DataDamage.values()), rnd.nextLong());
     }
 
-    @Property(tries = 25, seed = "20261203") void damagedFitFilesAndDataAreCheckedOrRefusedInOneLine(
-            @ForAll("cases") Case c) throws Exception {
-        check(c);
+    @TestFactory Stream<DynamicTest> damagedFitFilesAndDataAreCheckedOrRefusedInOneLine() {
+        return Draw.cases(25, Draw.SEED, FitFuzzTest::drawCase, c -> "fit " + (c.fileMutation() == null ? "unchanged"
+                : c.fileMutation() + " seed " + c.fileSeed()) + " / data " + c.dataDamage() + " seed " + c.dataSeed(),
+                FitFuzzTest::check);
     }
 
-    @Example void theUndamagedFitChecks() throws Exception {
+    @Test void theUndamagedFitChecks() throws Exception {
         check(new Case(null, 0, DataDamage.NONE, 0));
     }
 }

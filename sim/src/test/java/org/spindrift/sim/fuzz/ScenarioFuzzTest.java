@@ -11,22 +11,19 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
+import java.util.SplittableRandom;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
-import net.jqwik.api.Arbitraries;
-import net.jqwik.api.Arbitrary;
-import net.jqwik.api.Combinators;
-import net.jqwik.api.Example;
-import net.jqwik.api.ForAll;
-import net.jqwik.api.Property;
-import net.jqwik.api.Provide;
-import net.jqwik.api.lifecycle.AfterContainer;
-import net.jqwik.api.lifecycle.BeforeContainer;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.DynamicTest;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestFactory;
 import org.spindrift.shared.archive.ArchiveVerifier;
 
 /**
- * Property-based fuzzing of the scenario reader and checks: the demo scenarios, mutated (wrong
+ * Fuzzing (seeded generated cases) of the scenario reader and checks: the demo scenarios, mutated (wrong
  * types, out-of-range and non-finite numbers, 1e400, deleted, duplicated and unknown keys, deep
  * nesting, alias bombs, huge strings, non-UTF-8 bytes, truncation, flipped bytes), go through
  * {@code check -o DIR}; a small scenario, mutated in its values, goes through {@code run}. Every
@@ -44,7 +41,7 @@ class ScenarioFuzzTest {
 
     static List<Path> demos;
 
-    @BeforeContainer static void setUp() throws IOException {
+    @BeforeAll static void setUp() throws IOException {
         work = Files.createTempDirectory("spindrift-fuzz");
         Path configs = Files.isDirectory(Path.of("..", "configs")) ? Path.of("..", "configs") : Path.of("configs");
         try (Stream<Path> s = Files.list(configs)) {
@@ -61,7 +58,7 @@ class ScenarioFuzzTest {
         }
     }
 
-    @AfterContainer static void tearDown() throws IOException {
+    @AfterAll static void tearDown() throws IOException {
         Cli.delete(work);
     }
 
@@ -234,24 +231,30 @@ class ScenarioFuzzTest {
         return (String.join("\n", lines) + "\n").getBytes(StandardCharsets.UTF_8);
     }
 
-    @Provide Arbitrary<Case> mutatedDemos() {
+    /** One draw: the file to mutate, the mutation and its seed. */
+    record Draft(Path target, Mutation mutation, long seed) {
+        @Override public String toString() {
+            return target.getFileName() + " " + mutation + " seed " + seed;
+        }
+    }
+
+    /** @return a demo or the station file, a mutation and a seed, each equally likely */
+    static Draft drawDemo(SplittableRandom rnd) {
         List<Path> targets = new ArrayList<>(demos);
         targets.add(arrayFile());
-        return Combinators.combine(Arbitraries.of(targets), Arbitraries.of(Mutation.class), Arbitraries.longs())
-                .as((d, m, s) -> {
-                    try {
-                        if (d.equals(arrayFile())) {
-                            // the station file of the interferometer demo, read through its scenario
-                            Case a = mutate(d, m, s);
-                            Path scenario = demos.stream().filter(p -> p.getFileName().toString().equals(
-                                    "flare-array.yaml")).findFirst().orElseThrow();
-                            return new Case("case.yaml", Files.readAllBytes(scenario), a.how(), a.bytes());
-                        }
-                        return mutate(d, m, s);
-                    } catch (IOException e) {
-                        throw new java.io.UncheckedIOException(e);
-                    }
-                });
+        return new Draft(Draw.oneOf(rnd, targets), Draw.oneOf(rnd, Mutation.values()), rnd.nextLong());
+    }
+
+    /** @return the mutated case of a draw */
+    static Case mutatedDemo(Draft d) throws IOException {
+        if (d.target().equals(arrayFile())) {
+            // the station file of the interferometer demo, read through its scenario
+            Case a = mutate(d.target(), d.mutation(), d.seed());
+            Path scenario = demos.stream().filter(p -> p.getFileName().toString().equals(
+                    "flare-array.yaml")).findFirst().orElseThrow();
+            return new Case("case.yaml", Files.readAllBytes(scenario), a.how(), a.bytes());
+        }
+        return mutate(d.target(), d.mutation(), d.seed());
     }
 
     /** Checks one case: the contract, and that nothing is left beside the scenario. */
@@ -264,33 +267,38 @@ class ScenarioFuzzTest {
         if (c.arrayBytes() != null) {
             Files.write(array, c.arrayBytes());
         }
-        List<String> before = Cli.listing(work);
-        Cli.Result r = Cli.run(c.how(), "check", file.toString(), "-o", dir.resolve("out").toString());
-        assertEquals(before, Cli.listing(work), c.how() + ": check must not write anything");
-        if (r.code() == 0) {
-            assertTrue(r.out().contains(": ok:"), c.how() + ": " + r.out());
+        try {
+            List<String> before = Cli.listing(work);
+            Cli.Result r = Cli.run(c.how(), "check", file.toString(), "-o", dir.resolve("out").toString());
+            assertEquals(before, Cli.listing(work), c.how() + ": check must not write anything");
+            if (r.code() == 0) {
+                assertTrue(r.out().contains(": ok:"), c.how() + ": " + r.out());
+            }
+            return r;
+        } finally {
+            // restored even after a failure, so the next case starts from the pristine set-up
+            Files.deleteIfExists(file);
+            Files.write(array, pristineArray);
         }
-        Files.delete(file);
-        Files.write(array, pristineArray);
-        return r;
     }
 
-    @Property(tries = 60, seed = "20261203") void mutatedDemosAreCheckedOrRefusedInOneLine(@ForAll("mutatedDemos") Case c)
-            throws Exception {
-        checkCase(c);
+    @TestFactory Stream<DynamicTest> mutatedDemosAreCheckedOrRefusedInOneLine() {
+        return Draw.cases(60, Draw.SEED, ScenarioFuzzTest::drawDemo, Draft::toString, d -> checkCase(mutatedDemo(d)));
     }
 
-    /** Mutations of values only, for a run small enough to finish in a second or two. */
-    @Provide Arbitrary<String> mutatedSmallScenarios() {
-        String[][] keys = {{"spin: 0.0", "spin: "}, {"inclination_deg: 30", "inclination_deg: "},
-            {"particles: 3", "particles: "}, {"sigma_M: 0.3", "sigma_M: "}, {"radius_M: 8.0", "radius_M: "},
-            {"duration: 40 M", "duration: "}, {"snapshot_cadence: 4 M", "snapshot_cadence: "},
-            {"tolerance: 1.0e-8", "tolerance: "}, {"field_of_view_M: 24", "field_of_view_M: "},
-            {"pixels: 16", "pixels: "}, {"mass_solar: 1.0e6", "mass_solar: "}};
-        String[] values = {"0", "-1", "1", "2", "0.5", "1e-3", "1e400", "NaN", ".inf", "text", "[1]", "3 M", "1 min",
-            "0.99", "1.01", "4", "64", "100000", "1e-20", "5e8"};
-        return Combinators.combine(Arbitraries.of(keys), Arbitraries.of(values))
-                .as((k, v) -> SMALL.replace(k[0], k[1] + v));
+    /** The lines of the small scenario whose values are mutated ({line, key}), and the values put there. */
+    static final String[][] SMALL_KEYS = {{"spin: 0.0", "spin: "}, {"inclination_deg: 30", "inclination_deg: "},
+        {"particles: 3", "particles: "}, {"sigma_M: 0.3", "sigma_M: "}, {"radius_M: 8.0", "radius_M: "},
+        {"duration: 40 M", "duration: "}, {"snapshot_cadence: 4 M", "snapshot_cadence: "},
+        {"tolerance: 1.0e-8", "tolerance: "}, {"field_of_view_M: 24", "field_of_view_M: "},
+        {"pixels: 16", "pixels: "}, {"mass_solar: 1.0e6", "mass_solar: "}};
+    static final String[] SMALL_VALUES = {"0", "-1", "1", "2", "0.5", "1e-3", "1e400", "NaN", ".inf", "text", "[1]",
+        "3 M", "1 min", "0.99", "1.01", "4", "64", "100000", "1e-20", "5e8"};
+
+    /** @return one key of the small scenario and its new value, each equally likely: {old line, new line} */
+    static String[] drawSmallMutation(SplittableRandom rnd) {
+        String[] k = Draw.oneOf(rnd, SMALL_KEYS);
+        return new String[] {k[0], k[1] + Draw.oneOf(rnd, SMALL_VALUES)};
     }
 
     static final String SMALL = String.join("\n",
@@ -300,9 +308,10 @@ class ScenarioFuzzTest {
             "  duration: 40 M", "  snapshot_cadence: 4 M", "  tolerance: 1.0e-8", "imaging:", "  field_of_view_M: 24",
             "  pixels: 16", "");
 
-    @Property(tries = 8, seed = "20261203") void mutatedSmallRunsFinishSoundOrAreRefusedInOneLine(
-            @ForAll("mutatedSmallScenarios") String text) throws Exception {
-        runCase(text);
+    /** Mutations of values only, for a run small enough to finish in a second or two. */
+    @TestFactory Stream<DynamicTest> mutatedSmallRunsFinishSoundOrAreRefusedInOneLine() {
+        return Draw.cases(8, Draw.SEED, ScenarioFuzzTest::drawSmallMutation, m -> m[0] + " -> " + m[1],
+                m -> runCase(SMALL.replace(m[0], m[1])));
     }
 
     /** Runs one scenario text: a sound run folder, or a refusal in one line leaving nothing but the lock file. */
@@ -326,7 +335,7 @@ class ScenarioFuzzTest {
     }
 
     /** The unmutated demos (and the station file beside the interferometer demo) check clean in this set-up. */
-    @Example void everyDemoChecksUnchanged() throws Exception {
+    @Test void everyDemoChecksUnchanged() throws Exception {
         for (Path d : demos) {
             Cli.Result r = checkCase(new Case("case.yaml", Files.readAllBytes(d), d.getFileName().toString()));
             assertEquals(0, r.code(), d + ": " + r.err());
@@ -334,7 +343,7 @@ class ScenarioFuzzTest {
     }
 
     /** Every case that once broke the contract, kept as a plain file. */
-    @Example void corpus() throws Exception {
+    @Test void corpus() throws Exception {
         Path corpus = Path.of("src", "test", "resources", "fuzz-corpus", "scenarios");
         List<Path> cases;
         try (Stream<Path> s = Files.list(corpus)) {

@@ -9,19 +9,16 @@ import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Random;
+import java.util.SplittableRandom;
 import java.util.stream.Stream;
-import net.jqwik.api.Arbitraries;
-import net.jqwik.api.Arbitrary;
-import net.jqwik.api.Combinators;
-import net.jqwik.api.Example;
-import net.jqwik.api.ForAll;
-import net.jqwik.api.Property;
-import net.jqwik.api.Provide;
-import net.jqwik.api.lifecycle.AfterContainer;
-import net.jqwik.api.lifecycle.BeforeContainer;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.DynamicTest;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestFactory;
 
 /**
- * Property-based fuzzing of sweep files and sweep folders: the demo sweep mutated as the scenarios
+ * Fuzzing (seeded generated cases) of sweep files and sweep folders: the demo sweep mutated as the scenarios
  * are, through {@code sweep plan} (exit 0 and a folder {@code sweep status} reads, or exit 2 with one
  * line and nothing written); and a planned folder with one file truncated, bit-flipped or deleted,
  * through {@code sweep status --verify} (exit 0 or 2, no stack trace, no hang).
@@ -30,7 +27,7 @@ class SweepFuzzTest {
     static Path work;
     static Path demo;
 
-    @BeforeContainer static void setUp() throws IOException {
+    @BeforeAll static void setUp() throws IOException {
         work = Files.createTempDirectory("spindrift-sweep-fuzz");
         Path configs = Files.isDirectory(Path.of("..", "configs")) ? Path.of("..", "configs") : Path.of("configs");
         demo = configs.resolve("sweeps").resolve("radius-inclination.yaml");
@@ -38,7 +35,7 @@ class SweepFuzzTest {
         Files.copy(configs.resolve("hotspot-kerr.yaml"), work.resolve("hotspot-kerr.yaml"));
     }
 
-    @AfterContainer static void tearDown() throws IOException {
+    @AfterAll static void tearDown() throws IOException {
         Cli.delete(work);
     }
 
@@ -51,13 +48,21 @@ class SweepFuzzTest {
         Path file = work.resolve("sweeps").resolve(name);
         Files.write(file, bytes);
         Path out = work.resolve("out");
-        List<String> before = Cli.listing(work);
-        Cli.Result r = Cli.run(how, "sweep", "plan", file.toString(), "-o", out.toString());
-        if (r.code() == 0) {
-            Cli.runLines(how + " (status)", "sweep", "status", out.toString(), "--verify");
-        } else {
-            List<String> after = Cli.listing(work).stream().filter(n -> !lockOrSelf(n)).toList();
-            assertEquals(before.stream().filter(n -> !lockOrSelf(n)).toList(), after, how + ": nothing written");
+        Cli.Result r;
+        try {
+            List<String> before = Cli.listing(work);
+            r = Cli.run(how, "sweep", "plan", file.toString(), "-o", out.toString());
+            if (r.code() == 0) {
+                Cli.runLines(how + " (status)", "sweep", "status", out.toString(), "--verify");
+            } else {
+                List<String> after = Cli.listing(work).stream().filter(n -> !lockOrSelf(n)).toList();
+                assertEquals(before.stream().filter(n -> !lockOrSelf(n)).toList(), after, how + ": nothing written");
+            }
+        } catch (Throwable t) {
+            // cleared after a failure too, so the next case starts from the pristine set-up
+            Cli.delete(out);
+            Files.deleteIfExists(file);
+            throw t;
         }
         if (!keep) {
             Cli.delete(out);
@@ -66,30 +71,37 @@ class SweepFuzzTest {
         return r;
     }
 
-    @Provide Arbitrary<ScenarioFuzzTest.Case> mutated() {
-        return Combinators.combine(Arbitraries.of(ScenarioFuzzTest.Mutation.class), Arbitraries.longs())
-                .as((m, s) -> {
-                    try {
-                        return ScenarioFuzzTest.mutate(demo, m, s);
-                    } catch (IOException e) {
-                        throw new java.io.UncheckedIOException(e);
-                    }
+    @TestFactory Stream<DynamicTest> mutatedSweepFilesArePlannedOrRefusedInOneLine() {
+        return Draw.cases(20, Draw.SEED, rnd -> new ScenarioFuzzTest.Draft(demo, Draw.oneOf(rnd,
+                ScenarioFuzzTest.Mutation.values()), rnd.nextLong()), ScenarioFuzzTest.Draft::toString, d -> {
+                    ScenarioFuzzTest.Case c = ScenarioFuzzTest.mutate(demo, d.mutation(), d.seed());
+                    plan(c.how(), c.bytes(), c.name(), false);
                 });
     }
 
-    @Property(tries = 20, seed = "20261203") void mutatedSweepFilesArePlannedOrRefusedInOneLine(
-            @ForAll("mutated") ScenarioFuzzTest.Case c) throws Exception {
-        plan(c.how(), c.bytes(), c.name(), false);
-    }
-
-    @Example void theDemoSweepPlans() throws Exception {
+    @Test void theDemoSweepPlans() throws Exception {
         assertEquals(0, plan("demo", Files.readAllBytes(demo), "demo.yaml", false).code());
     }
 
-    @Property(tries = 12, seed = "20261203") void damagedSweepFoldersAreReportedWithoutTraces(
-            @ForAll("damage") long seed) throws Exception {
-        assertEquals(0, plan("demo", Files.readAllBytes(demo), "demo.yaml", true).code());
+    @TestFactory Stream<DynamicTest> damagedSweepFoldersAreReportedWithoutTraces() {
+        return Draw.cases(12, Draw.SEED, SplittableRandom::nextLong, seed -> "demo sweep folder damage seed " + seed,
+                SweepFuzzTest::damagedSweepFolder);
+    }
+
+    /** Plans the demo sweep, damages one file of the folder as the seed says, and reads it with --verify. */
+    static void damagedSweepFolder(long seed) throws Exception {
         Path out = work.resolve("out");
+        try {
+            damageAndRead(seed, out);
+        } finally {
+            // the same clean-up after a failure, so the next case starts from the pristine set-up
+            Cli.delete(out);
+            Files.deleteIfExists(work.resolve("sweeps").resolve("demo.yaml"));
+        }
+    }
+
+    private static void damageAndRead(long seed, Path out) throws Exception {
+        assertEquals(0, plan("demo", Files.readAllBytes(demo), "demo.yaml", true).code());
         List<Path> files;
         try (Stream<Path> s = Files.walk(out)) {
             files = s.filter(Files::isRegularFile).sorted().toList();
@@ -112,9 +124,5 @@ class SweepFuzzTest {
         assertTrue(r.code() == 0 || !r.err().isBlank(), how);
         Cli.delete(out);
         Files.delete(work.resolve("sweeps").resolve("demo.yaml"));
-    }
-
-    @Provide Arbitrary<Long> damage() {
-        return Arbitraries.longs();
     }
 }

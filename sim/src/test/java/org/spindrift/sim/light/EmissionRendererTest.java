@@ -1,0 +1,82 @@
+package org.spindrift.sim.light;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import org.hipparchus.analysis.integration.SimpsonIntegrator;
+import org.junit.jupiter.api.Test;
+import org.spindrift.sim.spacetime.Spacetime;
+
+/**
+ * The frame renderer (group test of 32 samples) against the reference renderer (every sample
+ * queried): the test skips only samples that find no particle, so the images agree bit for bit;
+ * and the kernel's normalisation.
+ */
+class EmissionRendererTest {
+    /** Frames of a spot of 2000 particles, a = 0.5, i = 60 deg, 48 x 48, from both renderers. */
+    @Test
+    void framesMatchTheReferenceRendererAndDoNotDependOnTheThreadCount() {
+        double a = 0.5;
+        Spacetime st = LightTestSupport.kerr(a);
+        // alpha = 1 (g^3 without pow) and alpha = 0.5 (g^2.5 by pow)
+        for (double alpha : new double[] {1.0, 0.5}) {
+            CircularSpotHistory h = new CircularSpotHistory(st, 6.0, 0.3, 0.4, 2000, 0.0, 200.0, 101, alpha, 5L);
+            LightSettings s = new LightSettings(60.0, 0.0, 20.0, 48, 2.0, true, 1.0e6, 1.0e-3, 0.0, 0.0, 0.0, 1.0, 7L);
+            Camera cam = s.camera();
+            double hK = LightStage.smoothingLength(cam);
+            TraceSettings ts = LightStage.traceSettings(h, st, cam, LightTestSupport.captureRadius(a), s.fieldOfViewM(),
+                    true);
+            RayTable table = RayTable.trace(st, cam, ts, 2);
+            double[] d = table.delayRange();
+            double tA = h.time(0) + d[1], tB = h.time(h.snapshots() - 1) + d[0];
+            int frames = 8, n = cam.pixels();
+            float[][] fast1 = new float[frames][n * n], fast2 = new float[frames][n * n], ref = new float[frames][n * n];
+            try (EmissionRenderer r1 = new EmissionRenderer(table, h, st, hK, 1);
+                 EmissionRenderer r2 = new EmissionRenderer(table, h, st, hK, 2);
+                 EmissionRenderer rr = new EmissionRenderer(table, h, st, hK, 2, true)) {
+                for (int f = 0; f < frames; f++) {
+                    double t = tA + (tB - tA) * f / (frames - 1);
+                    r1.render(t, fast1[f]);
+                    r2.render(t, fast2[f]);
+                    rr.render(t, ref[f]);
+                }
+            }
+            double peak = 0;
+            for (int f = 0; f < frames; f++) {
+                assertArrayEquals(fast1[f], fast2[f], "frame " + f + " independent of the thread count");
+                peak = Math.max(peak, FrameMoments.of(ref[f], cam).flux());
+            }
+            assertTrue(peak > 0, "the spot is seen");
+            for (int f = 0; f < frames; f++) {
+                assertArrayEquals(ref[f], fast1[f], "frame " + f + " equals the reference renderer's");
+                FrameMoments mf = FrameMoments.of(fast1[f], cam), mr = FrameMoments.of(ref[f], cam);
+                // and so do the frames' moments (the quantities the outputs report)
+                assertEquals(mr.flux(), mf.flux(), 1e-9 * peak, "flux of frame " + f);
+                if (mr.flux() > 0.01 * peak) {
+                    assertEquals(mr.x(), mf.x(), 1e-9, "centroid x of frame " + f);
+                    assertEquals(mr.y(), mf.y(), 1e-9, "centroid y of frame " + f);
+                }
+                for (int k = 0; k < n * n; k++) {
+                    assertEquals(ref[f][k], fast1[f][k], 1e-9 * Math.abs(ref[f][k]) + 1e-30f, "pixel " + k);
+                }
+            }
+        }
+    }
+
+    /**
+     * The kernel normalised by 1/(pi h^3) integrates to 1 over its support (Monaghan &amp; Lattanzio
+     * 1985, A&amp;A 149, 135, eq. 2.4 and its normalisation; quadrature by Hipparchus' Simpson
+     * integrator), and vanishes from r = 2h on.
+     */
+    @Test
+    void kernelIsNormalised() {
+        double h = 0.3;
+        double invH = 1 / h, norm = Kernel.norm(h);
+        SimpsonIntegrator simpson = new SimpsonIntegrator(1e-12, 1e-14, 3, 30);
+        double inner = simpson.integrate(1_000_000, r -> 4 * Math.PI * r * r * Kernel.w(r * r, invH, norm), 0, h);
+        double outer = simpson.integrate(1_000_000, r -> 4 * Math.PI * r * r * Kernel.w(r * r, invH, norm), h, 2 * h);
+        assertEquals(1.0, inner + outer, 1e-10, "integral of W over space");
+        assertEquals(0.0, Kernel.w(4 * h * h, invH, norm), 0.0, "zero at r = 2h");
+    }
+}
