@@ -175,15 +175,29 @@ class RunFolderSafetyTest {
         assertTrue(e.getMessage().contains("is a file, not a folder"), e.getMessage());
         e = assertThrows(UserInputException.class, () -> RunArchiveWriter.checkUsable(file, false));
         assertTrue(e.getMessage().contains("not a folder"), e.getMessage());
-        // a read-only parent (root may write anywhere, so this part needs an ordinary user)
-        Assumptions.assumeFalse("root".equals(System.getProperty("user.name")), "running as root");
+        // a read-only parent: permission bits for an ordinary user; root ignores those, so as root
+        // the parent is a tmpfs mounted read-only (the kernel refuses writes even to root)
         Path ro = Files.createDirectories(tmp.resolve("ro"));
-        assertTrue(ro.toFile().setWritable(false, false));
+        boolean root = "root".equals(System.getProperty("user.name"));
+        if (root) {
+            Process pr = new ProcessBuilder("mount", "-t", "tmpfs", "-o", "ro,size=64k", "tmpfs", ro.toString())
+                    .redirectErrorStream(true).start();
+            boolean mounted = pr.waitFor(30, TimeUnit.SECONDS) && pr.exitValue() == 0;
+            Assumptions.assumeTrue(mounted, "running as root without the right to mount a read-only tmpfs");
+        } else {
+            assertTrue(ro.toFile().setWritable(false, false));
+        }
         try {
             e = assertThrows(UserInputException.class, () -> RunArchiveWriter.create(ro.resolve("run")));
             assertTrue(e.getMessage().contains("not writable"), e.getMessage());
+            assertFalse(Files.exists(ro.resolve("run")));
         } finally {
-            ro.toFile().setWritable(true, false);
+            if (root) {
+                new ProcessBuilder("umount", ro.toString()).redirectErrorStream(true).start()
+                        .waitFor(30, TimeUnit.SECONDS);
+            } else {
+                ro.toFile().setWritable(true, false);
+            }
         }
     }
 
