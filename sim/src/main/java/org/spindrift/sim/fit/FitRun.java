@@ -10,14 +10,12 @@ import java.util.List;
 import java.util.Locale;
 import java.util.SplittableRandom;
 import java.util.function.IntConsumer;
-import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
-import me.tongfei.progressbar.ProgressBarBuilder;
-import me.tongfei.progressbar.ProgressBarStyle;
 import org.hipparchus.distribution.continuous.ChiSquaredDistribution;
 import org.hipparchus.util.FastMath;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.archive.RunArchiveWriter;
+import org.spindrift.sim.run.ProgressBars;
 import org.spindrift.sim.scenario.FitFile;
 import org.spindrift.sim.scenario.FitFileLoader;
 
@@ -191,9 +189,7 @@ public final class FitRun {
     }
 
     private static ProgressBar bar(Options o, String task, int max) {
-        return o.progress() ? new ProgressBarBuilder().setTaskName(task).setInitialMax(max)
-                .setStyle(ProgressBarStyle.ASCII).setConsumer(new ConsoleProgressBarConsumer(System.err))
-                .setUpdateIntervalMillis(250).build() : null;
+        return ProgressBars.open(o.progress(), task, max);
     }
 
     private static IntConsumer step(ProgressBar bar) {

@@ -9,10 +9,7 @@ import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
-import me.tongfei.progressbar.ProgressBarBuilder;
-import me.tongfei.progressbar.ProgressBarStyle;
 import org.spindrift.shared.Units;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.RunArchiveWriter;
@@ -410,10 +407,7 @@ public final class ScenarioRun {
         Runtime.getRuntime().addShutdownHook(stopper);
         try {
             int s = p.times().length;
-            try (ProgressBar bar = o.progress() ? new ProgressBarBuilder().setTaskName("evolving " + n + " particles")
-                    .setInitialMax(s).setStyle(ProgressBarStyle.ASCII)
-                    .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build()
-                    : null) {
+            try (ProgressBar bar = ProgressBars.open(o.progress(), "evolving " + n + " particles", s)) {
                 sink.bar = bar;
                 if (done < s - 1) {
                     // the same barriers as an uninterrupted run: each particle resumes exactly where it stood

@@ -18,13 +18,11 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.stream.Stream;
-import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
-import me.tongfei.progressbar.ProgressBarBuilder;
-import me.tongfei.progressbar.ProgressBarStyle;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.archive.AtomicFiles;
 import org.spindrift.sim.fit.FitModel;
+import org.spindrift.sim.run.ProgressBars;
 
 /**
  * A whole study into one folder: every cell (resuming: a cell whose record {@code
@@ -81,9 +79,7 @@ public final class StudyRun {
             t.setDaemon(true);
             return t;
         });
-        try (ProgressBar bar = progress ? new ProgressBarBuilder().setTaskName("study " + study.name())
-                .setInitialMax(todo.size()).setStyle(ProgressBarStyle.ASCII)
-                .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(500).build() : null) {
+        try (ProgressBar bar = ProgressBars.open(progress, "study " + study.name(), todo.size())) {
             List<Future<?>> fs = new ArrayList<>();
             for (int i : todo) {
                 fs.add(pool.submit(() -> {

@@ -23,13 +23,11 @@ import java.util.concurrent.atomic.AtomicInteger;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
-import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
-import me.tongfei.progressbar.ProgressBarBuilder;
-import me.tongfei.progressbar.ProgressBarStyle;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.Version;
 import org.spindrift.shared.archive.AtomicFiles;
+import org.spindrift.sim.run.ProgressBars;
 import org.spindrift.sim.scenario.ConfigNode;
 
 /**
@@ -84,9 +82,7 @@ public final class SweepPlanner {
         // every task's tree: axis paths are put in (errors name the axis), then checked by its kind
         TaskKind.Estimate[] est = new TaskKind.Estimate[total];
         String[] sha = new String[total];
-        try (ProgressBar bar = progress && total >= 20 ? new ProgressBarBuilder().setTaskName("checking tasks")
-                .setInitialMax(total).setStyle(ProgressBarStyle.ASCII)
-                .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(500).build() : null) {
+        try (ProgressBar bar = ProgressBars.open(progress && total >= 20, "checking tasks", total)) {
             checkAll(sf, points, est, sha, Math.max(1, threads), bar);
         }
         long heapMax = 0;

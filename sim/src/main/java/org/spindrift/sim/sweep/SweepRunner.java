@@ -17,12 +17,10 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
-import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
-import me.tongfei.progressbar.ProgressBarBuilder;
-import me.tongfei.progressbar.ProgressBarStyle;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.archive.AtomicFiles;
+import org.spindrift.sim.run.ProgressBars;
 
 /**
  * {@code sweep run}: runs a selection of a sweep's tasks, J at a time with T threads each. A task
@@ -93,9 +91,7 @@ public final class SweepRunner {
             t.setDaemon(true);
             return t;
         });
-        try (ProgressBar bar = progress ? new ProgressBarBuilder().setTaskName("sweep " + plan.name())
-                .setInitialMax(tasks.size()).setStyle(ProgressBarStyle.ASCII)
-                .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(500).build() : null) {
+        try (ProgressBar bar = ProgressBars.open(progress, "sweep " + plan.name(), tasks.size())) {
             List<Future<?>> fs = new ArrayList<>();
             for (int t : tasks) {
                 fs.add(pool.submit(() -> {
