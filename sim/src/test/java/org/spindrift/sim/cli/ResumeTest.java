@@ -36,7 +36,24 @@ class ResumeTest {
         try (var s = Files.list(checkpoint)) {
             return s.map(p -> p.getFileName().toString()).filter(n -> n.matches("rows-\\d+-\\d+\\.bin"))
                     .mapToInt(n -> Integer.parseInt(n.substring(12, 18))).max().orElse(-1);
+        } catch (java.nio.file.NoSuchFileException | java.io.UncheckedIOException e) {
+            return -1; // removed by the run as it completed
         }
+    }
+
+    /**
+     * Waits until the checkpoint holds snapshot {@code row} or the process ends.
+     *
+     * @return true when the process is still running and has checkpointed that far
+     */
+    private static boolean reachesRow(Process p, Path checkpoint, int row) throws Exception {
+        while (p.isAlive()) {
+            if (lastRow(checkpoint) >= row) {
+                return true;
+            }
+            Thread.sleep(2);
+        }
+        return false;
     }
 
     private Process child(Path file, Path out, Path log, String... extra) throws IOException {
@@ -69,8 +86,13 @@ class ResumeTest {
             boolean last = attempt >= 4;
             Process p = child(file, out, log, attempt == 0 ? new String[0] : new String[] {"--resume"});
             if (!last) {
-                long delay = 400 + rnd.nextInt(3000);
-                if (!p.waitFor(delay, TimeUnit.MILLISECONDS)) {
+                // The first three interruptions land at seeded snapshots of the evolution (watched
+                // through the checkpoint, so the outcome does not depend on the machine's speed);
+                // the fourth after a seeded delay, wherever the run then is (often the light stage).
+                boolean stopped = attempt < 3
+                        ? reachesRow(p, checkpoint, 10 + 30 * attempt + rnd.nextInt(25))
+                        : !p.waitFor(rnd.nextInt(1500), TimeUnit.MILLISECONDS);
+                if (stopped) {
                     if (attempt == 2) {
                         p.destroy(); // SIGTERM: a checkpoint and one line saying how to resume
                         assertTrue(p.waitFor(120, TimeUnit.SECONDS));
