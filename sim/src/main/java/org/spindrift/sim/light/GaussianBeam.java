@@ -18,7 +18,7 @@ public final class GaussianBeam {
      * @param n image side in pixels
      */
     public GaussianBeam(double fwhmPixels, int n) {
-        double sigma = fwhmPixels / (2.0 * FastMath.sqrt(2.0 * FastMath.log(2.0)));
+        double sigma = sigmaOf(fwhmPixels);
         half = (int) FastMath.ceil(4.0 * sigma);
         taps = new double[2 * half + 1];
         double sum = 0;
@@ -31,6 +31,11 @@ public final class GaussianBeam {
         }
         this.n = n;
         scratch = new float[n * n];
+    }
+
+    /** @return the standard deviation of a Gaussian of full width at half maximum fwhm: fwhm / (2 sqrt(2 ln 2)) */
+    public static double sigmaOf(double fwhm) {
+        return fwhm / (2.0 * FastMath.sqrt(2.0 * FastMath.log(2.0)));
     }
 
     /** Convolves src into dst (both N x N row-major; may be the same array). Not thread-safe. */
