@@ -13,6 +13,7 @@ import org.spindrift.shared.scenario.SourceShape;
 import org.spindrift.sim.light.Camera;
 import org.spindrift.sim.light.CentreTrack;
 import org.spindrift.sim.light.CompactSourceModel;
+import org.spindrift.sim.light.GaussianBeam;
 import org.spindrift.sim.light.LightSettings;
 import org.spindrift.sim.light.LightStage;
 import org.spindrift.sim.light.RayTable;
@@ -218,11 +219,14 @@ public final class FitModel {
             return new CompactSourceModel.Index(RayTable.trace(st, cam, ts, cache.threads), cell);
         });
         double cadence = sc.imaging().frameCadence() == null ? times[1] - times[0] : sc.imaging().frameCadence().toM(spm);
+        // with a beam the model reports the beam-convolved image's peak, as a run's mock data do
+        double beamSigmaM = GaussianBeam.sigmaOf(sc.instrument().beamFwhmUas()) / Units.uasPerM(bh.massSolar(),
+                bh.distanceMpc());
         return atTimes != null
                 ? light.frames(index, track, spots, sc.observer().positionAngleDeg(), atTimes,
-                        sc.instrument().steadySourceFluxRatio())
+                        sc.instrument().steadySourceFluxRatio(), beamSigmaM)
                 : light.frames(index, track, spots, sc.observer().positionAngleDeg(), cadence,
-                        sc.instrument().steadySourceFluxRatio());
+                        sc.instrument().steadySourceFluxRatio(), beamSigmaM);
     }
 
     /** Gaussian size of a source per axis: sigma of a ball, the rms of an ellipsoid's axes. */

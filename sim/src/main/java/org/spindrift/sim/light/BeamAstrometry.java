@@ -59,8 +59,16 @@ public final class BeamAstrometry {
      * @return whether there was positive flux
      */
     public boolean peak(double[] x, double[] y, double[] f, int count, double[] out) {
+        return peak(x, y, f, 0, count, out);
+    }
+
+    /**
+     * As {@link #peak(double[], double[], double[], int, double[])} over the points from index
+     * {@code from} (inclusive) to {@code to} (exclusive).
+     */
+    public boolean peak(double[] x, double[] y, double[] f, int from, int to, double[] out) {
         double tot = 0, cx = 0, cy = 0;
-        for (int i = 0; i < count; i++) {
+        for (int i = from; i < to; i++) {
             if (f[i] > 0) {
                 tot += f[i];
                 cx += f[i] * x[i];
@@ -78,7 +86,7 @@ public final class BeamAstrometry {
         // the brightest points, each at least one sigma from the starts chosen before it
         for (int k = 0; k < BRIGHT_STARTS; k++) {
             int best = -1;
-            for (int i = 0; i < count; i++) {
+            for (int i = from; i < to; i++) {
                 if (f[i] > 0 && (best < 0 || f[i] > f[best]) && farFromStarts(x[i], y[i], ns)) {
                     best = i;
                 }
@@ -92,8 +100,8 @@ public final class BeamAstrometry {
         }
         double bestValue = Double.NEGATIVE_INFINITY;
         for (int k = 0; k < ns; k++) {
-            climb(x, y, f, count, starts[2 * k], starts[2 * k + 1], at);
-            double v = convolved(x, y, f, count, at[0], at[1]);
+            climb(x, y, f, from, to, starts[2 * k], starts[2 * k + 1], at);
+            double v = convolved(x, y, f, from, to, at[0], at[1]);
             if (v > bestValue) {
                 bestValue = v;
                 out[0] = at[0];
@@ -159,12 +167,12 @@ public final class BeamAstrometry {
     }
 
     /** Mean-shift climb from (x0, y0) to a stationary point of B, written to end. */
-    private void climb(double[] x, double[] y, double[] f, int count, double x0, double y0, double[] end) {
+    private void climb(double[] x, double[] y, double[] f, int from, int to, double x0, double y0, double[] end) {
         double ax = x0, ay = y0;
         double tol2 = TOLERANCE_SIGMAS * TOLERANCE_SIGMAS * sigma * sigma;
         for (int step = 0; step < MAX_STEPS; step++) {
             double sw = 0, swx = 0, swy = 0;
-            for (int i = 0; i < count; i++) {
+            for (int i = from; i < to; i++) {
                 if (!(f[i] > 0)) {
                     continue;
                 }
@@ -194,9 +202,9 @@ public final class BeamAstrometry {
     }
 
     /** @return B at (ax, ay) (without the constant normalisation) */
-    private double convolved(double[] x, double[] y, double[] f, int count, double ax, double ay) {
+    private double convolved(double[] x, double[] y, double[] f, int from, int to, double ax, double ay) {
         double b = 0;
-        for (int i = 0; i < count; i++) {
+        for (int i = from; i < to; i++) {
             if (f[i] > 0) {
                 double dx = x[i] - ax, dy = y[i] - ay;
                 b += f[i] * FastMath.exp(-(dx * dx + dy * dy) * inv2s2);

@@ -241,22 +241,26 @@ public final class CompactSourceModel {
      * @param steadyX centroid with the steady source, M, and steadyY
      * @param steadyFlux the steady source's flux
      * @param coveredFrom first fully covered observer time, M (and coveredTo the last)
+     * @param astrometricX the position the instrument reports, M (and astrometricY): with a beam the
+     *     peak of the beam-convolved image with the steady source ({@link BeamAstrometry}), without
+     *     one the centroid with the steady source (the same arrays as steadyX, steadyY)
      */
     public record Frames(double[] timesM, double[] flux, double[] x, double[] y, double[] steadyX, double[] steadyY,
-                         double steadyFlux, double coveredFrom, double coveredTo) {
+                         double steadyFlux, double coveredFrom, double coveredTo, double[] astrometricX,
+                         double[] astrometricY) {
         /** @return flux with the steady source, linearly interpolated at observer time t (M), as mock data are */
         public double fluxWithSteadyAt(double t) {
             return LightStage.interpolate(timesM, flux, t) + steadyFlux;
         }
 
-        /** @return the east offset with the steady source at t (M), linearly interpolated */
+        /** @return the reported east offset (astrometricX) at t (M), linearly interpolated as mock data are */
         public double xAt(double t) {
-            return LightStage.interpolate(timesM, steadyX, t);
+            return LightStage.interpolate(timesM, astrometricX, t);
         }
 
-        /** @return the north offset with the steady source at t (M), linearly interpolated */
+        /** @return the reported north offset (astrometricY) at t (M), linearly interpolated */
         public double yAt(double t) {
-            return LightStage.interpolate(timesM, steadyY, t);
+            return LightStage.interpolate(timesM, astrometricY, t);
         }
     }
 
@@ -275,6 +279,14 @@ public final class CompactSourceModel {
     private double qLo = Double.NaN, qHi = Double.NaN;
     private double[] lastQ;
     private Index quantiled;
+    /** Beam-peak scratch: one frame's pixel sums, the pixels touched, then every frame's pixels in a row. */
+    private double[] pixelSum = new double[0];
+    private int[] touched = new int[0];
+    private int touchedCount;
+    private double[] beamX = new double[0], beamY = new double[0], beamF = new double[0];
+    private int[] frameStart = new int[0];
+    private int beamUsed;
+    private BeamAstrometry beam;
 
     /**
      * Frames of the sources on the run's frame grid.
@@ -288,6 +300,15 @@ public final class CompactSourceModel {
      */
     public Frames frames(Index index, CentreTrack track, Spot[] spots, double positionAngleDeg, double frameCadenceM,
                          double steadyRatio) {
+        return frames(index, track, spots, positionAngleDeg, frameCadenceM, steadyRatio, 0.0);
+    }
+
+    /**
+     * As {@link #frames(Index, CentreTrack, Spot[], double, double, double)} for an instrument with
+     * a circular Gaussian beam of standard deviation beamSigmaM (M; 0: none).
+     */
+    public Frames frames(Index index, CentreTrack track, Spot[] spots, double positionAngleDeg, double frameCadenceM,
+                         double steadyRatio, double beamSigmaM) {
         double h = index.smoothing;
         double[] rr = track.radialRange();
         double spread = 0;
@@ -302,7 +323,8 @@ public final class CompactSourceModel {
             qHi = hi;
         }
         double[] q = lastQ;
-        return frames(index, track, spots, positionAngleDeg, LightStage.frameTimes(track, q, frameCadenceM), steadyRatio);
+        return frames(index, track, spots, positionAngleDeg, LightStage.frameTimes(track, q, frameCadenceM), steadyRatio,
+                beamSigmaM);
     }
 
     /**
@@ -312,6 +334,21 @@ public final class CompactSourceModel {
      */
     public Frames frames(Index index, CentreTrack track, Spot[] spots, double positionAngleDeg, double[] times,
                          double steadyRatio) {
+        return frames(index, track, spots, positionAngleDeg, times, steadyRatio, 0.0);
+    }
+
+    /**
+     * Frames at given observer times with a beam of standard deviation beamSigmaM (M; 0: none).
+     * With a beam, each frame's samples are also summed per pixel, and the reported position is
+     * the peak of the beam-convolved pixel image with the steady source ({@link BeamAstrometry};
+     * pixels as points at their centres, as in a run's light stage).
+     */
+    public Frames frames(Index index, CentreTrack track, Spot[] spots, double positionAngleDeg, double[] times,
+                         double steadyRatio, double beamSigmaM) {
+        boolean beamed = beamSigmaM > 0;
+        if (beamed) {
+            prepareBeam(index, times.length, beamSigmaM);
+        }
         double h = index.smoothing;
         int nf = times.length;
         double[] flux = new double[nf], fx = new double[nf], fy = new double[nf];
@@ -345,6 +382,9 @@ public final class CompactSourceModel {
             double to = times[f];
             double e0 = FastMath.max(0.0, to - near[1]);
             double e1 = FastMath.min(tEnd, to - near[0]);
+            if (beamed) {
+                frameStart[f] = beamUsed;
+            }
             if (!(e1 > e0)) {
                 continue;
             }
@@ -438,12 +478,18 @@ public final class CompactSourceModel {
                                     sf += val;
                                     sx += val * index.east[i];
                                     sy += val * index.north[i];
+                                    if (beamed) {
+                                        addToPixel(index, index.east[i], index.north[i], val);
+                                    }
                                 }
                                 cursor[cellIdx] = i;
                             }
                         }
                     }
                 }
+            }
+            if (beamed) {
+                keepFramePixels(index);
             }
             // pixel values are float in the renderer's images; the moments use double sums
             flux[f] = sf * index.area;
@@ -464,7 +510,90 @@ public final class CompactSourceModel {
         double fs = steadyRatio * LightStage.meanCoveredFlux(times, flux, coveredFrom, coveredTo);
         double[] sxo = new double[nf], syo = new double[nf];
         LightStage.withSteadySource(flux, fx, fy, fs, sxo, syo);
-        return new Frames(times, flux, fx, fy, sxo, syo, fs, coveredFrom, coveredTo);
+        double[] ax = sxo, ay = syo;
+        if (beamed) {
+            ax = new double[nf];
+            ay = new double[nf];
+            beamPeaks(nf, fs, pa, ax, ay);
+        }
+        return new Frames(times, flux, fx, fy, sxo, syo, fs, coveredFrom, coveredTo, ax, ay);
+    }
+
+    private void prepareBeam(Index index, int nf, double sigmaM) {
+        int np = index.camera.pixels() * index.camera.pixels();
+        if (pixelSum.length != np) {
+            pixelSum = new double[np];
+            touched = new int[np];
+        }
+        touchedCount = 0;
+        if (frameStart.length < nf + 1) {
+            frameStart = new int[nf + 1];
+        }
+        java.util.Arrays.fill(frameStart, 0, nf + 1, 0);
+        beamUsed = 0;
+        if (beam == null || beam.sigma() != sigmaM) {
+            beam = new BeamAstrometry(sigmaM);
+        }
+    }
+
+    /** Adds a sample's value to its pixel (the pixel of a PA = 0 sky offset, inverting {@link Camera#skyX}, skyY). */
+    private void addToPixel(Index index, double east, double north, double val) {
+        Camera cam = index.camera;
+        int n = cam.pixels();
+        int col = (int) FastMath.rint(0.5 * n - 0.5 - east / cam.pixelSize());
+        int row = (int) FastMath.rint(north / cam.pixelSize() + 0.5 * n - 0.5);
+        int p = row * n + col;
+        if (pixelSum[p] == 0) {
+            touched[touchedCount++] = p;
+        }
+        pixelSum[p] += val;
+    }
+
+    /** Appends the frame's pixels (flux units, PA = 0 offsets) after one slot for the steady source, and clears them. */
+    private void keepFramePixels(Index index) {
+        int need = beamUsed + touchedCount + 1;
+        if (beamX.length < need) {
+            int size = FastMath.max(need, 2 * beamX.length);
+            beamX = java.util.Arrays.copyOf(beamX, size);
+            beamY = java.util.Arrays.copyOf(beamY, size);
+            beamF = java.util.Arrays.copyOf(beamF, size);
+        }
+        Camera cam = index.camera;
+        int n = cam.pixels();
+        beamUsed++;       // the steady source's slot, filled once its flux is known
+        for (int t = 0; t < touchedCount; t++) {
+            int p = touched[t];
+            beamX[beamUsed] = cam.skyX(p % n);
+            beamY[beamUsed] = cam.skyY(p / n);
+            beamF[beamUsed++] = pixelSum[p] * index.area;
+            pixelSum[p] = 0;
+        }
+        touchedCount = 0;
+    }
+
+    /** Beam peaks of the kept frames with the steady source of flux fs at the hole, rotated to the position angle. */
+    private void beamPeaks(int nf, double fs, Camera pa, double[] ax, double[] ay) {
+        double[] p = new double[2];
+        for (int f = 0; f < nf; f++) {
+            int from = frameStart[f];
+            int to = f + 1 < nf ? frameStart[f + 1] : beamUsed;
+            if (to == from) {
+                ax[f] = 0;     // no light reached this frame's window: only the steady source
+                ay[f] = 0;
+                continue;
+            }
+            beamX[from] = 0;
+            beamY[from] = 0;
+            beamF[from] = fs;
+            if (!beam.peak(beamX, beamY, beamF, from, to, p)) {
+                ax[f] = 0;
+                ay[f] = 0;
+                continue;
+            }
+            // PA = 0 screen offsets (alpha = -east0, beta = north0) rotated to the position angle, as the centroid
+            ax[f] = pa.east(-p[0], p[1]);
+            ay[f] = pa.north(-p[0], p[1]);
+        }
     }
 
     /** @return the first index in [from, until) whose value is above v (values sorted) */

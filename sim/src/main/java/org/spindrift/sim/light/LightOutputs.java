@@ -41,7 +41,7 @@ public final class LightOutputs {
 
     /** Header of centroid.csv. */
     public static final String CENTROID_HEADER = "t_obs_min,t_obs_M,x_uas,y_uas,flux,x_with_steady_uas,"
-            + "y_with_steady_uas,sigma_xx_uas2,sigma_yy_uas2,sigma_xy_uas2";
+            + "y_with_steady_uas,sigma_xx_uas2,sigma_yy_uas2,sigma_xy_uas2,x_astrometric_uas,y_astrometric_uas";
     /** Header of lightcurve.csv. */
     public static final String LIGHTCURVE_HEADER = "t_obs_min,t_obs_M,flux,flux_with_steady,flux_over_mean";
     /** Header of mock_astrometry.csv. */
@@ -78,9 +78,10 @@ public final class LightOutputs {
                 w.newLine();
                 for (int f = 0; f < t.length; f++) {
                     FrameMoments m = r.moments().get(f);
-                    w.write(String.format(Locale.ROOT, "%.6f,%.6f,%.6f,%.6f,%.8e,%.6f,%.6f,%.6f,%.6f,%.6f",
+                    w.write(String.format(Locale.ROOT, "%.6f,%.6f,%.6f,%.6f,%.8e,%.6f,%.6f,%.6f,%.6f,%.6f,%.6f,%.6f",
                             t[f] * min, t[f], m.x() * uas, m.y() * uas, m.flux(), r.steadyX()[f] * uas,
-                            r.steadyY()[f] * uas, m.xx() * uas * uas, m.yy() * uas * uas, m.xy() * uas * uas));
+                            r.steadyY()[f] * uas, m.xx() * uas * uas, m.yy() * uas * uas, m.xy() * uas * uas,
+                            r.astrometricX()[f] * uas, r.astrometricY()[f] * uas));
                     w.newLine();
                 }
             }

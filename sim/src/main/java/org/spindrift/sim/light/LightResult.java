@@ -14,6 +14,9 @@ import java.util.List;
  * @param rawImages per-frame images before the beam (the same arrays when there is no beam)
  * @param steadyFlux flux of the steady point source (same units as the frame fluxes)
  * @param steadyX centroid east offset with the steady source, M, per frame (and steadyY)
+ * @param astrometricX the position the instrument reports, M, per frame (and astrometricY): with a
+ *     beam the peak of the beam-convolved image with the steady source ({@link BeamAstrometry}),
+ *     without one the centroid with the steady source (the same arrays as steadyX, steadyY)
  * @param mock mock astrometric epochs (null when no noise was asked)
  * @param smoothingLength kernel smoothing length, M
  * @param emissionRadius outer radius of the emission region, M
@@ -23,7 +26,7 @@ import java.util.List;
  */
 public record LightResult(LightSettings settings, Camera camera, double[] timesM, List<FrameMoments> moments,
                           float[][] images, float[][] rawImages, double steadyFlux, double[] steadyX, double[] steadyY,
-                          MockAstrometry mock, double smoothingLength, double emissionRadius, TableStats table,
+                          double[] astrometricX, double[] astrometricY, MockAstrometry mock, double smoothingLength, double emissionRadius, TableStats table,
                           double coveredFrom, double coveredTo) {
     /** @return whether frame f lies in the fully covered observer-time interval */
     public boolean covered(int f) {
@@ -40,7 +43,8 @@ public record LightResult(LightSettings settings, Camera camera, double[] timesM
     }
 
     /**
-     * Mock astrometric epochs: observer time (M), centroid with steady source plus Gaussian noise (M).
+     * Mock astrometric epochs: observer time (M), the reported position (astrometricX, astrometricY)
+     * plus Gaussian noise (M).
      */
     public record MockAstrometry(double[] timesM, double[] x, double[] y, double sigmaUas) {
     }

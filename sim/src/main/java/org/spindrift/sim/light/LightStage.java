@@ -84,10 +84,36 @@ public final class LightStage {
         double[] sx = new double[times.length];
         double[] sy = new double[times.length];
         withSteadySource(flux, cx, cy, fs, sx, sy);
-        LightResult.MockAstrometry mock = s.noiseUas() > 0 ? mock(s, times, sx, sy) : null;
-        return new LightResult(s, cam, times, moments, images, raw, fs, sx, sy, mock, h, ts.emissionRadius(),
+        double[] ax = sx, ay = sy;
+        if (beamOn(s)) {
+            // what the instrument reports: the peak of the beam-convolved image with the steady source
+            ax = new double[times.length];
+            ay = new double[times.length];
+            beamPeaks(raw, cam, GaussianBeam.sigmaOf(s.beamFwhmUas() / s.uasPerM()), fs, ax, ay);
+        }
+        LightResult.MockAstrometry mock = s.noiseUas() > 0 ? mock(s, times, ax, ay) : null;
+        return new LightResult(s, cam, times, moments, images, raw, fs, sx, sy, ax, ay, mock, h, ts.emissionRadius(),
                 new LightResult.TableStats(table.rays(), table.samples(), table.steps(), secs),
                 coveredFrom, coveredTo);
+    }
+
+    /**
+     * Beam-peak positions of unbeamed frames: per frame the peak of the image convolved with a
+     * circular Gaussian beam of standard deviation sigmaM (M), with the steady point source of flux
+     * fs (flux units: intensity sum times pixel area) at the hole ({@link BeamAstrometry}); 0 for a
+     * frame with no flux at all.
+     *
+     * @param x out: east offsets, M (and y north)
+     */
+    static void beamPeaks(float[][] raw, Camera cam, double sigmaM, double fs, double[] x, double[] y) {
+        BeamAstrometry beam = new BeamAstrometry(sigmaM);
+        double steady = fs / (cam.pixelSize() * cam.pixelSize());
+        double[] p = new double[2];
+        for (int f = 0; f < raw.length; f++) {
+            boolean any = beam.peak(raw[f], cam, steady, p);
+            x[f] = any ? p[0] : 0.0;
+            y[f] = any ? p[1] : 0.0;
+        }
     }
 
     /**

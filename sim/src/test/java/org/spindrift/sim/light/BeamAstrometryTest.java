@@ -157,4 +157,31 @@ class BeamAstrometryTest {
         assertFalse(narrow.peak(new float[n * n], cam, 0.0, out), "no flux: no position");
         assertTrue(Double.isNaN(out[0]));
     }
+    /**
+     * The light stage's beam positions: a frame of a few lit pixels with a steady source of the
+     * same flux (flux units: intensity sum times pixel area). A beam 1000 times the field gives the
+     * flux-weighted centroid with the steady source, F c / (F + F_s) (common practice, no source);
+     * a narrow beam gives the brightest pixel, since the steady source is fainter than it.
+     */
+    @Test
+    void lightStageBeamPeaksMatchTheLimits() {
+        Camera cam = new Camera(30, 0, 12.0, 16, 1000.0);
+        int n = cam.pixels();
+        float[] img = new float[n * n];
+        img[3 * n + 4] = 1.0f;
+        img[3 * n + 5] = 3.0f;
+        img[10 * n + 12] = 2.0f;
+        FrameMoments m = FrameMoments.of(img, cam);
+        double fs = 0.4 * m.flux();
+        double[] sx = new double[1], sy = new double[1];
+        LightStage.withSteadySource(new double[] {m.flux()}, new double[] {m.x()}, new double[] {m.y()}, fs, sx, sy);
+        double[] x = new double[2], y = new double[2];
+        LightStage.beamPeaks(new float[][] {img, new float[n * n]}, cam, 1000 * cam.fieldOfView(), fs, x, y);
+        assertEquals(sx[0], x[0], 1e-6 * cam.pixelSize());
+        assertEquals(sy[0], y[0], 1e-6 * cam.pixelSize());
+        assertEquals(0.0, x[1], 1e-12, "a frame without flare flux: the steady source at the hole");
+        LightStage.beamPeaks(new float[][] {img}, cam, 0.05 * cam.pixelSize(), fs, x, y);
+        assertEquals(cam.skyX(5), x[0], 1e-12);
+        assertEquals(cam.skyY(3), y[0], 1e-12);
+    }
 }
