@@ -44,10 +44,13 @@ public final class CellStudy {
      * @param truthX truth centroid at the epochs, micro-arcseconds (and y)
      * @param referenceX best reference (noise-free) centroid at the epochs (and y)
      * @param evaluations model evaluations
+     * @param boundary whether the reference deformation lies on the boundary of the family's range
+     *     (the significance then uses the Chernoff mixture, see {@link Wilks})
      */
     public record Result(StudyFile.Cell cell, double[] epochsMin, int extra, double expected, double[] delta,
                          double[] truthValues, double[] referenceBest, double[] referenceMedian, double[] truthX,
-                         double[] truthY, double[] referenceX, double[] referenceY, long evaluations) {
+                         double[] truthY, double[] referenceX, double[] referenceY, long evaluations,
+                         boolean boundary) {
         /** @return the q-th percentile of the realisations' Delta chi-square */
         public double deltaPercentile(double q) {
             return percentile(delta, q);
@@ -55,12 +58,12 @@ public final class CellStudy {
 
         /** @return the significance of the noise-free statistic, sigma */
         public double expectedSigma() {
-            return Wilks.sigma(expected, extra);
+            return Wilks.sigma(expected, extra, boundary);
         }
 
         /** @return the significance of the median statistic, sigma */
         public double medianSigma() {
-            return Wilks.sigma(deltaPercentile(50), extra);
+            return Wilks.sigma(deltaPercentile(50), extra, boundary);
         }
     }
 
@@ -129,7 +132,7 @@ public final class CellStudy {
             refMedian[i] = percentile(refBest[i], 50);
         }
         return new Result(cell, t, 1, refExact.chiSquare(), delta, truthValues, refExact.best(), refMedian, tp.x(),
-                tp.y(), rp.x(), rp.y(), evaluations);
+                tp.y(), rp.x(), rp.y(), evaluations, referenceOnBoundary(truth));
     }
 
     /** Checks that the campaign fits in the truth's run for a cell (traces its table; writes nothing). */
@@ -178,6 +181,15 @@ public final class CellStudy {
                     + " are not all allowed by the truth family; choose a smaller step");
         }
         return new double[] {d, d + s, d + 2 * s};
+    }
+
+    /**
+     * @return whether the reference deformation is allowed but a value a thousandth of a step
+     *     below or above it is not: the null hypothesis then sits on the boundary of the family
+     */
+    boolean referenceOnBoundary(ScenarioTree truth) {
+        double r = study.referenceValue(), e = 1e-3 * study.step();
+        return allowed(truth, r) && (!allowed(truth, r - e) || !allowed(truth, r + e));
     }
 
     private boolean allowed(ScenarioTree truth, double v) {

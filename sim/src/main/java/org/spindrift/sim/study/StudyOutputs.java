@@ -39,6 +39,7 @@ final class StudyOutputs {
         o.put("epochs", r.epochsMin().length);
         o.put("realisations", r.delta().length);
         o.put("extra_parameters", r.extra());
+        o.put("null_on_boundary", r.boundary() ? 1 : 0);
         o.put("expected_delta_chi2", r.expected());
         o.put("expected_sigma", r.expectedSigma());
         o.put("delta_chi2_p16", r.deltaPercentile(16));
@@ -66,7 +67,7 @@ final class StudyOutputs {
 
     private static final String[] NUMBERS = {"deformation", "beam_fwhm_uas", "sigma_uas", "epochs", "realisations",
         "extra_parameters", "expected_delta_chi2", "expected_sigma", "delta_chi2_p16", "delta_chi2_p50", "delta_chi2_p84",
-        "median_sigma"};
+        "median_sigma", "null_on_boundary"};
 
     static void write(StudyFile s, Path dir, JsonNode[] cells, String sha) throws IOException {
         Map<String, String> files = new LinkedHashMap<>();
@@ -105,7 +106,9 @@ final class StudyOutputs {
         j.put("reference_deformation", s.referenceValue());
         j.put("model", "fast compact-source model of the fit engine (ray table per spacetime and inclination)");
         j.put("statistic", "Delta chi-square = chi-square(reference best fit) - chi-square(truth family best fit);"
-                + " significance: Wilks' theorem with extra_parameters degrees of freedom, two-sided normal equivalent");
+                + " significance: Wilks' theorem with extra_parameters degrees of freedom, or where null_on_boundary is 1"
+                + " (the reference deformation on the edge of the family's range) the 50:50 mixture of chi-square with"
+                + " extra_parameters - 1 and extra_parameters degrees of freedom; two-sided normal equivalent");
         ArrayNode arr = j.putArray("cells");
         for (JsonNode c : cells) {
             ObjectNode cc = ((ObjectNode) c).deepCopy();
@@ -187,7 +190,7 @@ final class StudyOutputs {
                         continue;
                     }
                     double at = contour(n.path("expected_delta_chi2").asDouble(), n.path("sigma_uas").asDouble(),
-                            n.path("extra_parameters").asInt(), level);
+                            n.path("extra_parameters").asInt(), n.path("null_on_boundary").asInt() == 1, level);
                     if (Double.isFinite(at)) {
                         xs.add(at);
                         ys.add(d);
@@ -215,7 +218,7 @@ final class StudyOutputs {
     }
 
     /** @return the precision at which the expected statistic reaches the level (NaN when it never does) */
-    static double contour(double expected, double sigma0, int k, double level) {
+    static double contour(double expected, double sigma0, int k, boolean boundary, double level) {
         if (!(expected > 0)) {
             return Double.NaN;
         }
@@ -223,7 +226,7 @@ final class StudyOutputs {
         for (int it = 0; it < 200; it++) {
             double mid = 0.5 * (lo + hi);
             double sg = FastMath.exp(mid);
-            double sig = Wilks.sigma(expected * sigma0 * sigma0 / (sg * sg), k);
+            double sig = Wilks.sigma(expected * sigma0 * sigma0 / (sg * sg), k, boundary);
             if (sig > level) {
                 lo = mid;
             } else {
