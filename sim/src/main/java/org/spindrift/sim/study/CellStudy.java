@@ -4,6 +4,9 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.ConcurrentHashMap;
 import org.hipparchus.random.Well19937c;
 import org.hipparchus.util.FastMath;
 import org.spindrift.shared.UserInputException;
@@ -67,16 +70,47 @@ public final class CellStudy {
         }
     }
 
+    /**
+     * Noise-free fits shared by the cells of one process that differ only in precision: uniform
+     * astrometric weights do not move a best fit, so the fits to the exact truth are done once at
+     * 1 micro-arcsecond and their chi-square scales as 1/sigma^2 (common practice, no source).
+     * Without photometry only; the cells then also start their realisations' fits from these
+     * optima (fewer steps, the same minima).
+     */
+    public static final class Shared {
+        private final Map<String, CompletableFuture<NoiseFree>> fits = new ConcurrentHashMap<>();
+    }
+
+    /**
+     * Fits to the noise-free truth at unit sigma.
+     *
+     * @param reference the reference's best fit (chi-square at 1 micro-arcsecond)
+     * @param nodes best fits of the truth family at the profile nodes (null at the reference value)
+     * @param evaluations model evaluations of these fits
+     */
+    record NoiseFree(LeastSquaresFit.Result reference, LeastSquaresFit.Result[] nodes, long evaluations) {
+    }
+
     private final StudyFile study;
     private final FitModel.Cache cache;
     private final int threads;
+    private final Shared shared;
     private long evaluations;
 
     /** @param cache tables shared by the cells of one process */
     public CellStudy(StudyFile study, FitModel.Cache cache, int threads) {
+        this(study, cache, threads, new Shared());
+    }
+
+    /**
+     * @param cache tables shared by the cells of one process
+     * @param shared noise-free fits shared by the cells of one process
+     */
+    public CellStudy(StudyFile study, FitModel.Cache cache, int threads, Shared shared) {
         this.study = study;
         this.cache = cache;
         this.threads = threads;
+        this.shared = shared;
     }
 
     /** Runs one cell. @throws UserInputException when the campaign does not fit in the truth's run */
@@ -106,19 +140,43 @@ public final class CellStudy {
 
         // noise-free data: the truth family reaches chi-square 0 at the truth
         FitData exact = data(t, tp.x(), tp.y(), fluxTruth, cell.sigmaUas(), sflux);
-        LeastSquaresFit.Result refExact = fit(reference, exact);
-        FitModel.Prediction rp = new FitModel(fitFile(reference, study.free()), exact, cache).predict(refExact.best());
+        double[] refStart = truthValues;
+        double[][] nodeStart = {truthValues, truthValues, truthValues};
+        int laterStarts = study.starts();
+        double expected;
+        double[] refExactBest;
+        if (fluxTruth == null) {
+            NoiseFree nf = noiseFree(cell, t, tp, reference, truth, nodes);
+            expected = nf.reference().chiSquare() / (cell.sigmaUas() * cell.sigmaUas());
+            refExactBest = nf.reference().best();
+            refStart = refExactBest;
+            for (int j = 0; j < 3; j++) {
+                if (nf.nodes()[j] != null) {
+                    nodeStart[j] = nf.nodes()[j].best();
+                }
+            }
+            // the realisations start at the noise-free optima: one start each suffices
+            laterStarts = 1;
+            synchronized (this) {
+                evaluations += nf.evaluations();
+            }
+        } else {
+            LeastSquaresFit.Result refExact = fit(reference, exact, truthValues, study.starts());
+            expected = refExact.chiSquare();
+            refExactBest = refExact.best();
+        }
+        FitModel.Prediction rp = new FitModel(fitFile(reference, study.free()), exact, cache).predict(refExactBest);
 
         int n = study.realisations();
         double[] delta = new double[n];
         double[][] refBest = new double[k][n];
         for (int r = 0; r < n; r++) {
             FitData d = noisy(t, tp, fluxTruth, cell, sflux, r);
-            LeastSquaresFit.Result ref = fit(reference, d);
+            LeastSquaresFit.Result ref = fit(reference, d, refStart, laterStarts);
             double[] chi = new double[3];
             for (int j = 0; j < 3; j++) {
                 chi[j] = nodes[j] == study.referenceValue() ? ref.chiSquare()
-                        : fit(truth.with(study.deformationKey(), nodes[j]), d).chiSquare();
+                        : fit(truth.with(study.deformationKey(), nodes[j]), d, nodeStart[j], laterStarts).chiSquare();
             }
             double alt = profileMinimum(nodes, chi, study.step(), v -> allowed(truth, v));
             // the reference is one point of the profile: the statistic is never negative (rounding aside)
@@ -131,8 +189,25 @@ public final class CellStudy {
         for (int i = 0; i < k; i++) {
             refMedian[i] = percentile(refBest[i], 50);
         }
-        return new Result(cell, t, 1, refExact.chiSquare(), delta, truthValues, refExact.best(), refMedian, tp.x(),
+        return new Result(cell, t, 1, expected, delta, truthValues, refExactBest, refMedian, tp.x(),
                 tp.y(), rp.x(), rp.y(), evaluations, referenceOnBoundary(truth));
+    }
+
+    /**
+     * The reference's noise-free chi-square fitted directly at the cell's own precision (no shared
+     * fit): what the shared unit-sigma fit divided by sigma^2 stands for.
+     */
+    double noiseFreeChiSquareDirect(StudyFile.Cell cell) {
+        ScenarioTree truth = study.truthTree(cell.deformation(), cell.beamUas());
+        double[] t = epochs(truth);
+        FitData zero = data(t, new double[t.length], new double[t.length], null, cell.sigmaUas(), Double.NaN);
+        FitModel.Prediction tp = new FitModel(fitFile(truth, List.of()), zero, cache).predict(new double[0]);
+        double[] start = new double[study.free().size()];
+        for (int i = 0; i < start.length; i++) {
+            start[i] = study.free().get(i).start();
+        }
+        return fit(truth.with(study.deformationKey(), study.referenceValue()),
+                data(t, tp.x(), tp.y(), null, cell.sigmaUas(), Double.NaN), start, study.starts()).chiSquare();
     }
 
     /** Checks that the campaign fits in the truth's run for a cell (traces its table; writes nothing). */
@@ -221,22 +296,72 @@ public final class CellStudy {
         return FastMath.min(smallest, c[1] - (c[2] - c[0]) * (c[2] - c[0]) / (8 * curv));
     }
 
-    private LeastSquaresFit.Result fit(ScenarioTree tree, FitData d) {
+    /**
+     * The noise-free fits of a cell's deformation and beam at 1 micro-arcsecond, done once per
+     * process (the first cell to ask computes them, others wait).
+     */
+    private NoiseFree noiseFree(StudyFile.Cell cell, double[] t, FitModel.Prediction tp, ScenarioTree reference,
+                                ScenarioTree truth, double[] nodes) {
+        String key = cell.deformation() + "|" + cell.beamUas();
+        CompletableFuture<NoiseFree> mine = new CompletableFuture<>();
+        CompletableFuture<NoiseFree> f = shared.fits.putIfAbsent(key, mine);
+        if (f == null) {
+            try {
+                FitData unit = data(t, tp.x(), tp.y(), null, 1.0, Double.NaN);
+                int k = study.free().size();
+                double[] start = new double[k];
+                for (int i = 0; i < k; i++) {
+                    start[i] = study.free().get(i).start();
+                }
+                long[] ev = new long[1];
+                LeastSquaresFit.Result ref = fitCounted(reference, unit, start, study.starts(), ev);
+                LeastSquaresFit.Result[] nf = new LeastSquaresFit.Result[3];
+                for (int j = 0; j < 3; j++) {
+                    if (nodes[j] != study.referenceValue() && nodes[j] != cell.deformation()) {
+                        nf[j] = fitCounted(truth.with(study.deformationKey(), nodes[j]), unit, start, study.starts(), ev);
+                    }
+                }
+                mine.complete(new NoiseFree(ref, nf, ev[0]));
+            } catch (RuntimeException e) {
+                mine.completeExceptionally(e);
+                shared.fits.remove(key, mine);
+                throw e;
+            }
+            f = mine;
+        }
+        try {
+            return f.join();
+        } catch (java.util.concurrent.CompletionException e) {
+            if (e.getCause() instanceof RuntimeException re) {
+                throw re;
+            }
+            throw e;
+        }
+    }
+
+    private LeastSquaresFit.Result fit(ScenarioTree tree, FitData d, double[] start, int starts) {
+        long[] ev = new long[1];
+        LeastSquaresFit.Result r = fitCounted(tree, d, start, starts, ev);
+        synchronized (this) {
+            evaluations += ev[0];
+        }
+        return r;
+    }
+
+    /** A least-squares fit of the study's free parameters from start (more starts drawn in the bounds). */
+    private LeastSquaresFit.Result fitCounted(ScenarioTree tree, FitData d, double[] start, int starts, long[] ev) {
         FitFile ff = fitFile(tree, study.free());
         ThreadLocal<FitModel> models = ThreadLocal.withInitial(() -> new FitModel(ff, d, cache));
         int k = study.free().size();
-        double[] lo = new double[k], hi = new double[k], start = new double[k];
+        double[] lo = new double[k], hi = new double[k];
         for (int i = 0; i < k; i++) {
             FitFile.Free f = study.free().get(i);
             lo[i] = f.min();
             hi[i] = f.max();
-            start[i] = f.start();
         }
         LeastSquaresFit.Result r = LeastSquaresFit.fit((p, out) -> models.get().residuals(p, out), d.residuals(), lo, hi,
-                start, study.starts(), MAX_EVALUATIONS, study.seed(), threads, null);
-        synchronized (this) {
-            evaluations += r.evaluations();
-        }
+                start, starts, MAX_EVALUATIONS, study.seed(), threads, null);
+        ev[0] += r.evaluations();
         return r;
     }
 

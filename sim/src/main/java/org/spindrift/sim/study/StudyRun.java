@@ -57,6 +57,7 @@ public final class StudyRun {
         String sha = AtomicFiles.sha256(study.file());
         checkFolder(dir);
         FitModel.Cache cache = new FitModel.Cache(threads);
+        CellStudy.Shared shared = new CellStudy.Shared();
         for (int d = 0; d < study.deformations().length; d++) {
             // the campaign must fit in every truth's run: checked before anything is written
             new CellStudy(study, cache, threads).checkCampaign(study.cell(d * study.sigmasUas().length
@@ -83,7 +84,7 @@ public final class StudyRun {
             List<Future<?>> fs = new ArrayList<>();
             for (int i : todo) {
                 fs.add(pool.submit(() -> {
-                    CellStudy.Result r = new CellStudy(study, cache, threads).run(study.cell(i));
+                    CellStudy.Result r = new CellStudy(study, cache, threads, shared).run(study.cell(i));
                     ObjectNode rec = StudyOutputs.cellJson(study, r, sha);
                     AtomicFiles.write(cellFile(dir, i), tmp -> JSON.writeValue(tmp.toFile(), rec));
                     records[i] = rec;
