@@ -29,6 +29,8 @@ import org.hipparchus.util.Pair;
 public final class LeastSquaresFit {
     /** Relative step of the forward differences, of each parameter's range. */
     public static final double STEP = 1.0e-4;
+    /** Relative tolerance of the cost and of the parameters at which a start stops (fits). */
+    public static final double TOLERANCE = 1.0e-8;
 
     /** Residual function r(p) (whitened); may be called from several threads with its own model each. */
     public interface Residuals {
@@ -60,6 +62,16 @@ public final class LeastSquaresFit {
      */
     public static Result fit(Residuals r, int m, double[] lo, double[] hi, double[] start, int starts, int maxEvaluations,
                              long seed, int workers, IntConsumer progress) {
+        return fit(r, m, lo, hi, start, starts, maxEvaluations, seed, workers, progress, TOLERANCE);
+    }
+
+    /**
+     * As {@link #fit(Residuals, int, double[], double[], double[], int, int, long, int, IntConsumer)}
+     * with a relative tolerance of the cost and of the parameters (the chi-square is then known to
+     * about 2 x tolerance x chi-square).
+     */
+    public static Result fit(Residuals r, int m, double[] lo, double[] hi, double[] start, int starts, int maxEvaluations,
+                             long seed, int workers, IntConsumer progress, double tolerance) {
         int k = lo.length;
         ForkJoinPool pool = new ForkJoinPool(Math.max(1, workers));
         int[] evals = new int[1];
@@ -110,8 +122,8 @@ public final class LeastSquaresFit {
                         }).build();
                 LeastSquaresOptimizer.Optimum o;
                 try {
-                    o = new LevenbergMarquardtOptimizer().withCostRelativeTolerance(1e-8)
-                            .withParameterRelativeTolerance(1e-8).optimize(problem);
+                    o = new LevenbergMarquardtOptimizer().withCostRelativeTolerance(tolerance)
+                            .withParameterRelativeTolerance(tolerance).optimize(problem);
                 } catch (org.hipparchus.exception.MathIllegalStateException e) {
                     chis[s] = Double.NaN;     // evaluation budget exhausted from this start
                     if (progress != null) {

@@ -34,6 +34,11 @@ import org.spindrift.sim.scenario.ScenarioTree;
 public final class CellStudy {
     /** Largest number of model evaluations per least-squares start. */
     static final int MAX_EVALUATIONS = 2000;
+    /**
+     * Relative tolerance of the least-squares fits: chi-square to about 2e-6 of itself, far below
+     * the spread of the statistic over realisations (of order sqrt(2 Delta chi-square) + 1).
+     */
+    static final double TOLERANCE = 1.0e-6;
 
     /**
      * @param cell the cell
@@ -360,7 +365,7 @@ public final class CellStudy {
             hi[i] = f.max();
         }
         LeastSquaresFit.Result r = LeastSquaresFit.fit((p, out) -> models.get().residuals(p, out), d.residuals(), lo, hi,
-                start, starts, MAX_EVALUATIONS, study.seed(), threads, null);
+                start, starts, MAX_EVALUATIONS, study.seed(), threads, null, TOLERANCE);
         ev[0] += r.evaluations();
         return r;
     }

@@ -19,6 +19,7 @@ import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.spindrift.sim.cli.Main;
 import org.spindrift.sim.fit.FitModel;
+import org.spindrift.sim.light.CompactSourceModel;
 import picocli.CommandLine;
 
 /**
@@ -143,6 +144,39 @@ class DistinguishTest {
         assertEquals(3.0, Wilks.sigma(11.83, 2), 0.01);
         assertEquals(5.0, Wilks.sigma(28.74, 2), 0.01);
         assertEquals(0.0, Wilks.sigma(0.0, 1));
+    }
+
+    /**
+     * The beam reaches the study's model through the truth scenario: with a 40 micro-arcsecond
+     * (4 M) beam and a steady source of half the mean flare flux 6 M away from the spot (3.5 beam
+     * sigmas, so resolved), the reported position is the peak on the spot's primary image, near the
+     * flare's own flux centroid (within a few per cent for the secondary image's pull), not the
+     * centroid with the steady source F c / (F + F_s), about 1.5 times closer to the hole (common
+     * practice, no source); without a beam it is that centroid.
+     */
+    @Test
+    void beamSetsTheReportedPosition() throws Exception {
+        StudyFile s = load(study("[3.0]", "[1.0]", 1, PA).replace("beam_fwhm_uas: [0]", "beam_fwhm_uas: [0, 40]")
+                .replace("campaign_min: 8", "campaign_min: 8\n  steady_source_flux_ratio: 0.5"));
+        FitModel.Cache cache = new FitModel.Cache(2);
+        var beamed = FitModel.frames(s.truthTree(3.0, 40.0).load(), cache, new CompactSourceModel());
+        var plain = FitModel.frames(s.truthTree(3.0, 0.0).load(), cache, new CompactSourceModel());
+        double[] toFlare = new double[beamed.timesM().length], toSteady = new double[toFlare.length];
+        int n = 0;
+        for (int f = 0; f < toFlare.length; f++) {
+            double t = beamed.timesM()[f];
+            if (t < beamed.coveredFrom() || t > beamed.coveredTo() || !(beamed.flux()[f] > 0)) {
+                continue;
+            }
+            double a = FastMath.hypot(beamed.astrometricX()[f], beamed.astrometricY()[f]);
+            toFlare[n] = a / FastMath.hypot(beamed.x()[f], beamed.y()[f]);
+            toSteady[n++] = a / FastMath.hypot(beamed.steadyX()[f], beamed.steadyY()[f]);
+            assertEquals(plain.steadyX()[f], plain.astrometricX()[f], 0.0, "no beam: the steady centroid");
+        }
+        assertTrue(n >= 5, "covered frames: " + n);
+        double mf = CellStudy.percentile(Arrays.copyOf(toFlare, n), 50), ms = CellStudy.percentile(Arrays.copyOf(toSteady, n), 50);
+        assertTrue(mf > 0.97 && mf < 1.15, "beam peak over flare centroid: " + mf);
+        assertTrue(ms > 1.35, "beam peak over centroid with the steady source: " + ms);
     }
 
     /** The parabola's vertex through three points of a quadratic profile is its exact minimum. */
