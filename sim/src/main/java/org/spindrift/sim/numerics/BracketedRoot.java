@@ -29,9 +29,9 @@ public final class BracketedRoot {
     private double after;
 
     /**
-     * Narrows [a, b] by bisection to the sign change of g. The side of a point is the sign of
-     * g there compared with g(a) (a point where g is exactly zero counts as past the change
-     * when g(a) is positive, as not past it when g(a) is negative or zero).
+     * Narrows [a, b] by bisection to the sign change of g. A point stays on the side of a while
+     * g there has the strict sign of g(a); a point where g is exactly zero counts as past the
+     * change (near the root g is quantised to a few ulps, so exact zeros do occur).
      *
      * @param g the function; g(b) must lie on the other side from g(a)
      * @param a start of the bracket
@@ -45,7 +45,8 @@ public final class BracketedRoot {
         final boolean startPositive = ga > 0;
         for (int it = 0; it < MAX_HALVINGS && hi - lo > 2 * Math.ulp(hi); it++) {
             final double mid = 0.5 * (lo + hi);
-            if ((g.applyAsDouble(mid) > 0) == startPositive) {
+            final double gm = g.applyAsDouble(mid);
+            if (startPositive ? gm > 0 : gm < 0) {
                 lo = mid;
             } else {
                 hi = mid;
