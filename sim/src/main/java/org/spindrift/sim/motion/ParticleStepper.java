@@ -178,25 +178,60 @@ final class ParticleStepper implements DenseStep {
             }
         }
         // 8th-order solution and the two embedded error estimates (Hipparchus' estimateError form),
-        // over the non-zero weights (stages 0 and 5..11), one loop over the components
+        // over the non-zero weights (stages 0 and 5..11), five independent sums per quantity
         final double[] k = this.k;
-        double e1 = 0.0;
-        double e2 = 0.0;
-        for (int c = 0; c < N; c++) {
-            final double b = Dop853Sums.B0 * k[c] + Dop853Sums.B5 * k[25 + c] + Dop853Sums.B6 * k[30 + c]
-                    + Dop853Sums.B7 * k[35 + c] + Dop853Sums.B8 * k[40 + c] + Dop853Sums.B9 * k[45 + c]
-                    + Dop853Sums.B10 * k[50 + c] + Dop853Sums.B11 * k[55 + c];
-            final double f = Dop853Sums.E5_0 * k[c] + Dop853Sums.E5_5 * k[25 + c] + Dop853Sums.E5_6 * k[30 + c]
-                    + Dop853Sums.E5_7 * k[35 + c] + Dop853Sums.E5_8 * k[40 + c] + Dop853Sums.E5_9 * k[45 + c]
-                    + Dop853Sums.E5_10 * k[50 + c] + Dop853Sums.E5_11 * k[55 + c];
-            final double g = Dop853Sums.E3_0 * k[c] + Dop853Sums.E3_5 * k[25 + c] + Dop853Sums.E3_6 * k[30 + c]
-                    + Dop853Sums.E3_7 * k[35 + c] + Dop853Sums.E3_8 * k[40 + c] + Dop853Sums.E3_9 * k[45 + c]
-                    + Dop853Sums.E3_10 * k[50 + c] + Dop853Sums.E3_11 * k[55 + c];
-            y1[c] = y0[c] + h * b;
-            final double sc = tol(c);
-            e1 += sq(f / sc);
-            e2 += sq(g / sc);
-        }
+        final double b0 = Dop853Sums.B0 * k[0] + Dop853Sums.B5 * k[25] + Dop853Sums.B6 * k[30]
+                + Dop853Sums.B7 * k[35] + Dop853Sums.B8 * k[40] + Dop853Sums.B9 * k[45] + Dop853Sums.B10 * k[50]
+                + Dop853Sums.B11 * k[55];
+        final double b1 = Dop853Sums.B0 * k[1] + Dop853Sums.B5 * k[26] + Dop853Sums.B6 * k[31]
+                + Dop853Sums.B7 * k[36] + Dop853Sums.B8 * k[41] + Dop853Sums.B9 * k[46] + Dop853Sums.B10 * k[51]
+                + Dop853Sums.B11 * k[56];
+        final double b2 = Dop853Sums.B0 * k[2] + Dop853Sums.B5 * k[27] + Dop853Sums.B6 * k[32]
+                + Dop853Sums.B7 * k[37] + Dop853Sums.B8 * k[42] + Dop853Sums.B9 * k[47] + Dop853Sums.B10 * k[52]
+                + Dop853Sums.B11 * k[57];
+        final double b3 = Dop853Sums.B0 * k[3] + Dop853Sums.B5 * k[28] + Dop853Sums.B6 * k[33]
+                + Dop853Sums.B7 * k[38] + Dop853Sums.B8 * k[43] + Dop853Sums.B9 * k[48] + Dop853Sums.B10 * k[53]
+                + Dop853Sums.B11 * k[58];
+        final double b4 = Dop853Sums.B0 * k[4] + Dop853Sums.B5 * k[29] + Dop853Sums.B6 * k[34]
+                + Dop853Sums.B7 * k[39] + Dop853Sums.B8 * k[44] + Dop853Sums.B9 * k[49] + Dop853Sums.B10 * k[54]
+                + Dop853Sums.B11 * k[59];
+        final double f0 = Dop853Sums.E5_0 * k[0] + Dop853Sums.E5_5 * k[25] + Dop853Sums.E5_6 * k[30]
+                + Dop853Sums.E5_7 * k[35] + Dop853Sums.E5_8 * k[40] + Dop853Sums.E5_9 * k[45]
+                + Dop853Sums.E5_10 * k[50] + Dop853Sums.E5_11 * k[55];
+        final double f1 = Dop853Sums.E5_0 * k[1] + Dop853Sums.E5_5 * k[26] + Dop853Sums.E5_6 * k[31]
+                + Dop853Sums.E5_7 * k[36] + Dop853Sums.E5_8 * k[41] + Dop853Sums.E5_9 * k[46]
+                + Dop853Sums.E5_10 * k[51] + Dop853Sums.E5_11 * k[56];
+        final double f2 = Dop853Sums.E5_0 * k[2] + Dop853Sums.E5_5 * k[27] + Dop853Sums.E5_6 * k[32]
+                + Dop853Sums.E5_7 * k[37] + Dop853Sums.E5_8 * k[42] + Dop853Sums.E5_9 * k[47]
+                + Dop853Sums.E5_10 * k[52] + Dop853Sums.E5_11 * k[57];
+        final double f3 = Dop853Sums.E5_0 * k[3] + Dop853Sums.E5_5 * k[28] + Dop853Sums.E5_6 * k[33]
+                + Dop853Sums.E5_7 * k[38] + Dop853Sums.E5_8 * k[43] + Dop853Sums.E5_9 * k[48]
+                + Dop853Sums.E5_10 * k[53] + Dop853Sums.E5_11 * k[58];
+        final double f4 = Dop853Sums.E5_0 * k[4] + Dop853Sums.E5_5 * k[29] + Dop853Sums.E5_6 * k[34]
+                + Dop853Sums.E5_7 * k[39] + Dop853Sums.E5_8 * k[44] + Dop853Sums.E5_9 * k[49]
+                + Dop853Sums.E5_10 * k[54] + Dop853Sums.E5_11 * k[59];
+        final double g0 = Dop853Sums.E3_0 * k[0] + Dop853Sums.E3_5 * k[25] + Dop853Sums.E3_6 * k[30]
+                + Dop853Sums.E3_7 * k[35] + Dop853Sums.E3_8 * k[40] + Dop853Sums.E3_9 * k[45]
+                + Dop853Sums.E3_10 * k[50] + Dop853Sums.E3_11 * k[55];
+        final double g1 = Dop853Sums.E3_0 * k[1] + Dop853Sums.E3_5 * k[26] + Dop853Sums.E3_6 * k[31]
+                + Dop853Sums.E3_7 * k[36] + Dop853Sums.E3_8 * k[41] + Dop853Sums.E3_9 * k[46]
+                + Dop853Sums.E3_10 * k[51] + Dop853Sums.E3_11 * k[56];
+        final double g2 = Dop853Sums.E3_0 * k[2] + Dop853Sums.E3_5 * k[27] + Dop853Sums.E3_6 * k[32]
+                + Dop853Sums.E3_7 * k[37] + Dop853Sums.E3_8 * k[42] + Dop853Sums.E3_9 * k[47]
+                + Dop853Sums.E3_10 * k[52] + Dop853Sums.E3_11 * k[57];
+        final double g3 = Dop853Sums.E3_0 * k[3] + Dop853Sums.E3_5 * k[28] + Dop853Sums.E3_6 * k[33]
+                + Dop853Sums.E3_7 * k[38] + Dop853Sums.E3_8 * k[43] + Dop853Sums.E3_9 * k[48]
+                + Dop853Sums.E3_10 * k[53] + Dop853Sums.E3_11 * k[58];
+        final double g4 = Dop853Sums.E3_0 * k[4] + Dop853Sums.E3_5 * k[29] + Dop853Sums.E3_6 * k[34]
+                + Dop853Sums.E3_7 * k[39] + Dop853Sums.E3_8 * k[44] + Dop853Sums.E3_9 * k[49]
+                + Dop853Sums.E3_10 * k[54] + Dop853Sums.E3_11 * k[59];
+        y1[0] = y0[0] + h * b0;
+        y1[1] = y0[1] + h * b1;
+        y1[2] = y0[2] + h * b2;
+        y1[3] = y0[3] + h * b3;
+        y1[4] = y0[4] + h * b4;
+        double e1 = sq(f0 / tol(0)) + sq(f1 / tol(1)) + sq(f2 / tol(2)) + sq(f3 / tol(3)) + sq(f4 / tol(4));
+        double e2 = sq(g0 / tol(0)) + sq(g1 / tol(1)) + sq(g2 / tol(2)) + sq(g3 / tol(3)) + sq(g4 / tol(4));
         double den = e1 + 0.01 * e2;
         if (den <= 0.0) {
             den = 1.0;
