@@ -1,6 +1,8 @@
 /**
- * Small numerical tools shared by the physics packages: the one bracketed root finder
- * ({@link org.spindrift.sim.numerics.BracketedRoot}). Owns no physics; imports only the JDK and
- * Hipparchus, so every engine package may use it.
+ * Numerical tools shared by the physics packages, with no physics of their own: the one
+ * bracketed root finder ({@code BracketedRoot}: allocation-free bisection for event functions on
+ * an integrator's dense output, Hipparchus' bracketing Brent solver for expensive functions).
+ *
+ * Dependencies: the JDK and Hipparchus only; every engine package may import it.
  */
 package org.spindrift.sim.numerics;

@@ -1,10 +1,8 @@
 /**
- * Spacetimes: the metric families ({@code Spacetime}, {@code MassFunctionSpacetime},
- * {@code JohannsenPsaltisSpacetime}) with analytic first derivatives, their construction from a
- * family name ({@code Spacetimes}), circular orbits, horizons and landmarks, and the
- * allocation-free {@code Trig}.
+ * Metric families (Kerr and the mass-function family, Johannsen-Psaltis), their analytic
+ * derivatives, horizons, circular orbits and landmarks (ISCO, photon orbits, capture radius),
+ * and allocation-free trigonometry.
  *
- * <p>May import: {@code sim.numerics}, {@code shared} and Hipparchus; no other engine package
- * (everything else builds on this one).
+ * Dependencies: may import numerics and org.spindrift.shared only.
  */
 package org.spindrift.sim.spacetime;
