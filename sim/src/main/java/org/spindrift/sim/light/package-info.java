@@ -1,6 +1,7 @@
 /**
  * Light from the gas to a distant observer: camera, ray tracing (separated Mino-time and
- * general paths), the ray table, emission slices and frame rendering, beam, moments, the light
+ * general paths), the ray table, emission slices and frame rendering, beam and the beam-peak
+ * astrometry (the position an instrument reports), moments, the light
  * outputs, and the compact-source model used by fits.
  *
  * Dependencies: may import spacetime, motion and org.spindrift.shared; not the scenario
