@@ -103,7 +103,7 @@ public final class SkyPanel implements AutoCloseable {
         FontAtlas font = o.font();
         float lh = font.lineHeight(FontAtlas.Size.SMALL);
         o.text(x + 10, y + 8, "Sky (observer's view)", FontAtlas.Size.LARGE, Palette.TEXT);
-        boolean curve = track != null && track.hasFlux() && track.size() > 1;
+        boolean curve = track != null && track.size() > 1;
         int curveH = curve ? Math.max(70, Math.min(150, h / 5)) : 0;
         int side = Math.max(10, Math.min(w - 20, h - 96 - (curve ? curveH + 34 : 0)));
         int ix = x + (w - side) / 2;
