@@ -241,7 +241,7 @@ public final class RunArchive implements AutoCloseable {
      *     (landmark absent, for example no horizon) reads as NaN
      */
     public Map<String, Double> landmarks() {
-        return numbers(manifest.path("landmarks"));
+        return numbers(manifest.path(ArchiveLayout.LANDMARKS));
     }
 
     /** @return the diagnostics object of the manifest */
@@ -252,7 +252,7 @@ public final class RunArchive implements AutoCloseable {
     /** @return end-state counts (alive, captured, escaped, failed) */
     public Map<String, Long> endStates() {
         Map<String, Long> out = new LinkedHashMap<>();
-        Iterator<Map.Entry<String, JsonNode>> it = manifest.path("end_states").fields();
+        Iterator<Map.Entry<String, JsonNode>> it = manifest.path(ArchiveLayout.END_STATES).fields();
         while (it.hasNext()) {
             Map.Entry<String, JsonNode> e = it.next();
             if (e.getValue().isNumber()) {
