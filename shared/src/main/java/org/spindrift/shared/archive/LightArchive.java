@@ -81,11 +81,15 @@ public final class LightArchive {
             }
             List<String> cols = Arrays.asList(header.split(","));
             int[] idx = new int[k];
+            List<String> missing = new ArrayList<>();
             for (int i = 0; i < k; i++) {
                 idx[i] = cols.indexOf(names[i]);
                 if (idx[i] < 0) {
-                    throw new UserInputException(file + ": header has no column " + names[i]);
+                    missing.add(names[i]);
                 }
+            }
+            if (!missing.isEmpty()) {
+                throw new UserInputException(file + ": line 1: header has no column " + String.join(", ", missing));
             }
             List<double[]> rows = new ArrayList<>();
             String line;
