@@ -774,7 +774,7 @@ public final class ScenarioRun {
         for (EndState e : EndState.values()) {
             es.put(e.key(), res.count(e));
         }
-        extra.fields().forEachRemaining(e -> m.set(e.getKey(), e.getValue()));
+        extra.properties().forEach(e -> m.set(e.getKey(), e.getValue()));
         return m;
     }
 
