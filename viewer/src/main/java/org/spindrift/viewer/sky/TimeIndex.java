@@ -1,12 +1,12 @@
 package org.spindrift.viewer.sky;
 
-/** Look-up in a non-decreasing array of times. */
-final class TimeIndex {
+/** Look-up in a non-decreasing array of times (binary search, no allocation). */
+public final class TimeIndex {
     private TimeIndex() {
     }
 
     /** @return the index of the last time at or before t, or -1 (none, or an empty array) */
-    static int lastAtOrBefore(double[] times, double t) {
+    public static int lastAtOrBefore(double[] times, double t) {
         int lo = 0;
         int hi = times.length - 1;
         if (hi < 0 || t < times[0]) {
