@@ -45,6 +45,13 @@ public final class ArchiveColumns {
     /** Columns of {@link ArchiveLayout#MOCK_ASTROMETRY}. */
     public static final List<String> MOCK_ASTROMETRY = List.of(T_OBS_MIN, T_OBS_M, X_UAS, Y_UAS, SIGMA_UAS);
 
+    /** Columns of {@link ArchiveLayout#PERIODS} (one row per kept particle; empty where not measurable). */
+    public static final List<String> PERIODS = List.of("source", "particle", "mean_r_M", "period_phi_M", "period_r_M",
+            "period_theta_M", "periastron_advance_deg", "period_phi_min", "period_r_min", "period_theta_min");
+    /** Columns of {@link ArchiveLayout#SHEAR} (one row per source and snapshot). */
+    public static final List<String> SHEAR = List.of("source", "snapshot", "time_M", "time_min", "alive", "centre_x_M",
+            "centre_y_M", "centre_z_M", "centre_r_M", "major_M", "minor_M", "aspect_ratio", "orientation_deg",
+            "azimuthal_extent_deg", "stationary_radius_M", "inner_arm_M", "outer_arm_M");
     /** Columns of {@link ArchiveLayout#VISIBILITIES} (u, v, w in wavelengths; flux densities in Jy). */
     public static final List<String> VISIBILITIES = List.of(T_OBS_MIN, T_OBS_M, "frame", "scan", "station1",
             "station2", "u_lambda", "v_lambda", "w_lambda", "baseline_lambda", "elevation1_deg", "elevation2_deg",

@@ -79,6 +79,8 @@ class ArchiveFormatDocTest {
         check(doc, "`mock_astrometry.csv`:", ArchiveColumns.MOCK_ASTROMETRY);
         check(doc, "`visibilities.csv`:", ArchiveColumns.VISIBILITIES);
         check(doc, "`closure_phases.csv`:", ArchiveColumns.CLOSURE_PHASES);
+        check(doc, "`periods.csv` (one row per kept particle):", ArchiveColumns.PERIODS);
+        check(doc, "`shear.csv` (one row per source and snapshot):", ArchiveColumns.SHEAR);
     }
 
     /** The columns appear in order in the document after the marker (which must occur once). */
