@@ -159,7 +159,8 @@ public final class LightArchive {
     /**
      * The image cube of a run, read one frame at a time (nom-tam-fits tiles). Pixel i (1-based) of
      * axis k lies at CRVALk + CDELTk (i - CRPIXk) (Greisen &amp; Calabretta 2002, A&amp;A 395, 1061,
-     * eq. 1 and 3 with the unit matrix); the sky axes in degrees, the time axis in minutes.
+     * eq. 1 and 3 with the unit matrix); the sky axes in degrees, the time axis in minutes. Used by
+     * one thread at a time.
      */
     public static final class CubeFile implements AutoCloseable {
         private final Path file;
@@ -168,8 +169,20 @@ public final class LightArchive {
         private final int nx;
         private final int ny;
         private final int frames;
-        private final Header header;
+        private final boolean cube;
+        private final double cdelt1;
+        private final double cdelt2;
+        private final double crpix1;
+        private final double crpix2;
+        private final double crval3;
+        private final double cdelt3;
+        private final double crpix3;
+        private final double bmaj;
+        /** Tile corner and size, reused for every frame (reading a frame allocates only the tile). */
+        private final int[] corner;
+        private final int[] size;
 
+        /** Reads the header's numbers once: the accessors are called per drawn frame and must not allocate. */
         private CubeFile(Path file, Fits fits, ImageHDU hdu, int nx, int ny, int frames) {
             this.file = file;
             this.fits = fits;
@@ -177,7 +190,18 @@ public final class LightArchive {
             this.nx = nx;
             this.ny = ny;
             this.frames = frames;
-            this.header = hdu.getHeader();
+            Header h = hdu.getHeader();
+            cube = h.getIntValue("NAXIS", 0) == 3;
+            cdelt1 = h.getDoubleValue("CDELT1");
+            cdelt2 = h.getDoubleValue("CDELT2");
+            crpix1 = h.getDoubleValue("CRPIX1", (nx + 1) / 2.0);
+            crpix2 = h.getDoubleValue("CRPIX2", (ny + 1) / 2.0);
+            crval3 = h.getDoubleValue("CRVAL3", 0.0);
+            cdelt3 = h.getDoubleValue("CDELT3", 1.0);
+            crpix3 = h.getDoubleValue("CRPIX3", 1.0);
+            bmaj = h.getDoubleValue("BMAJ", 0.0);
+            corner = cube ? new int[3] : new int[2];
+            size = cube ? new int[] {1, ny, nx} : new int[] {ny, nx};
         }
 
         static CubeFile open(Path file) {
@@ -248,38 +272,37 @@ public final class LightArchive {
 
         /** @return signed pixel size along x, micro-arcseconds (CDELT1; negative: east to the left) */
         public double pixelUasX() {
-            return header.getDoubleValue("CDELT1") * UAS_PER_DEG;
+            return cdelt1 * UAS_PER_DEG;
         }
 
         /** @return signed pixel size along y, micro-arcseconds (CDELT2) */
         public double pixelUasY() {
-            return header.getDoubleValue("CDELT2") * UAS_PER_DEG;
+            return cdelt2 * UAS_PER_DEG;
         }
 
         /** @return reference pixel along x (1-based, FITS), where the offset is CRVAL1 (the black hole) */
         public double crpix1() {
-            return header.getDoubleValue("CRPIX1", (nx + 1) / 2.0);
+            return crpix1;
         }
 
         /** @return reference pixel along y (1-based, FITS) */
         public double crpix2() {
-            return header.getDoubleValue("CRPIX2", (ny + 1) / 2.0);
+            return crpix2;
         }
 
         /** @return observer time of frame f (0-based), minutes */
         public double timeMin(int f) {
-            return header.getDoubleValue("CRVAL3", 0.0)
-                    + (f + 1 - header.getDoubleValue("CRPIX3", 1.0)) * cadenceMin();
+            return crval3 + (f + 1 - crpix3) * cdelt3;
         }
 
         /** @return interval between frames, minutes */
         public double cadenceMin() {
-            return header.getDoubleValue("CDELT3", 1.0);
+            return cdelt3;
         }
 
         /** @return beam FWHM, micro-arcseconds (0 when the images are not convolved) */
         public double beamFwhmUas() {
-            return header.getDoubleValue("BMAJ", 0.0) * UAS_PER_DEG;
+            return bmaj * UAS_PER_DEG;
         }
 
         /**
@@ -288,8 +311,9 @@ public final class LightArchive {
          */
         public void readFrame(int f, FloatBuffer dest) {
             try {
-                int[] corner = hdu.getAxes().length == 3 ? new int[] {f, 0, 0} : new int[] {0, 0};
-                int[] size = corner.length == 3 ? new int[] {1, ny, nx} : new int[] {ny, nx};
+                if (cube) {
+                    corner[0] = f;
+                }
                 Object tile = hdu.getTiler().getTile(corner, size);
                 if (tile instanceof float[] a) {
                     dest.put(0, a);
