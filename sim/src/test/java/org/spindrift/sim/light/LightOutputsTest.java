@@ -55,7 +55,11 @@ class LightOutputsTest {
         List<String> c = Files.readAllLines(dir.resolve("centroid.csv"), StandardCharsets.UTF_8);
         // the header as docs/archive-format.md gives it, spelled out (not taken from the writer's constants)
         assertEquals("t_obs_min,t_obs_M,x_uas,y_uas,flux,x_with_steady_uas,y_with_steady_uas,sigma_xx_uas2,"
-                + "sigma_yy_uas2,sigma_xy_uas2", c.get(0));
+                + "sigma_yy_uas2,sigma_xy_uas2,x_astrometric_uas,y_astrometric_uas", c.get(0));
+        // with the beam the reported position is the beam peak, written as computed
+        String[] row = c.get(1 + r.timesM().length / 2).split(",");
+        assertEquals(r.astrometricX()[r.timesM().length / 2] * r.settings().uasPerM(), Double.parseDouble(row[10]), 1e-5);
+        assertEquals(r.astrometricY()[r.timesM().length / 2] * r.settings().uasPerM(), Double.parseDouble(row[11]), 1e-5);
         assertEquals(r.timesM().length + 1, c.size());
         assertTrue(Files.exists(dir.resolve("mock_astrometry.csv")), "noise asked: mock data written");
         try (var s = Files.list(dir)) {
