@@ -8,6 +8,7 @@ import org.hipparchus.util.FastMath;
 import org.spindrift.sim.light.Camera;
 import org.spindrift.sim.light.RayEnd;
 import org.spindrift.sim.light.RayTracer;
+import org.spindrift.sim.light.SchwarzschildRays;
 import org.spindrift.sim.light.ScreenProbe;
 import org.spindrift.sim.light.TraceSettings;
 import org.spindrift.sim.spacetime.Landmarks;
@@ -17,7 +18,7 @@ import org.spindrift.sim.spacetime.Spacetime;
  * The light checks: the backward ray tracer and the camera against the Kerr shadow edge
  * (Bardeen 1973), the Schwarzschild deflection (Epstein &amp; Shapiro 1980 to second order, Darwin
  * 1959 exactly) and the face-on direct image radius of an equatorial ring (quadrature). The
- * reference values come from {@link LightReferences}; tolerances are named here with their reason.
+ * reference values come from {@link LightReferences} and {@link SchwarzschildRays}; tolerances are named here with their reason.
  */
 public final class LightChecks {
     /**
@@ -172,7 +173,7 @@ public final class LightChecks {
             double measured = end == RayEnd.ESCAPED ? deflection(tr.lastState(), tr.lastDerivative()) : Double.NaN;
             double b = FastMath.abs(l);   // p_t = -1: |p_phi| is the impact parameter
             String at = String.format(Locale.ROOT, "b = %s M", b0);
-            out.add(new Check(grp, "deflection angle, " + at + " (rad)", LightReferences.deflectionExact(b),
+            out.add(new Check(grp, "deflection angle, " + at + " (rad)", SchwarzschildRays.deflectionExact(b),
                     "Darwin 1959, Proc. R. Soc. A 249, 180: exact integral, Hipparchus quadrature", measured,
                     DEFLECTION_EXACT_TOL));
             out.add(new Check(grp, "deflection angle, " + at + " (rad)", LightReferences.deflectionSecondOrder(b),
@@ -221,7 +222,7 @@ public final class LightChecks {
                     hi = mid;
                 }
             }
-            double expected = LightReferences.faceOnImpactParameter(re);
+            double expected = SchwarzschildRays.faceOnImpactParameter(re);
             out.add(new Check("Face-on direct image (Schwarzschild)", String.format(Locale.ROOT,
                     "screen radius of the direct image of the ring r = %s M, i = 0 (M)", re), expected,
                     "Darwin 1959 / Luminet 1979, A&A 75, 228, eq. 3: azimuth sweep pi/2, Hipparchus quadrature",

@@ -12,7 +12,6 @@ import org.junit.jupiter.api.Test;
 class LightValidationTest {
     private static void assertAllPass(List<Check> checks) {
         assertFalse(checks.isEmpty());
-        checks.forEach(c -> System.out.println(c.quantity() + " diff " + c.difference() + " tol " + c.tolerance()));
         String failed = checks.stream().filter(c -> !c.passed())
                 .map(c -> c.quantity() + ": measured " + c.measured() + " reference " + c.reference() + " tol "
                         + c.tolerance())

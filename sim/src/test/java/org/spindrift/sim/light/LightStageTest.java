@@ -23,7 +23,7 @@ class LightStageTest {
         CircularSpotHistory h = new CircularSpotHistory(st, re, 0.0, 0.3, 300, 0.0, 1.6 * period, 200, 1.0, 3L);
         LightSettings s = settings(0.0, 30.0, 64, period / 40.0, 1.0);
         LightResult res = LightStage.run(s, st, LightTestSupport.captureRadius(0.0), h, 2);
-        double expected = RayTracerTest.primaryImpactParameter(re);
+        double expected = SchwarzschildRays.faceOnImpactParameter(re);
         Camera cam = res.camera();
         int n = cam.pixels();
         double prevAngle = Double.NaN;
@@ -49,7 +49,7 @@ class LightStageTest {
                 }
             }
             double cx = sx / w, cy = sy / w;
-            // Darwin 1959 / Luminet 1979 quadrature (RayTracerTest.primaryImpactParameter)
+            // Darwin 1959 / Luminet 1979 quadrature (SchwarzschildRays.faceOnImpactParameter)
             assertEquals(expected, FastMath.hypot(cx, cy), 0.02 * expected, "primary image radius, frame " + f);
             double pa = FastMath.atan2(cx, cy);              // position angle, north through east
             if (!Double.isNaN(prevAngle)) {
@@ -78,7 +78,7 @@ class LightStageTest {
         double re = 8.0;
         Camera cam = new Camera(0.0, 0.0, 30.0, 64, 1.0e4);
         TraceSettings ts = TraceSettings.of(30.0, LightTestSupport.captureRadius(0.0), 0.01, true);
-        double b = RayTracerTest.primaryImpactParameter(re);
+        double b = SchwarzschildRays.faceOnImpactParameter(re);
         SampleBuffer buf = new SampleBuffer(64);
         RayTracer tr = new RayTracer(st, ts);
         double[] y0 = new double[6];
