@@ -1,24 +1,13 @@
 package org.spindrift.validation;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
-import static org.junit.jupiter.api.Assertions.assertFalse;
-import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.spindrift.validation.CheckAssertions.assertAllPass;
 
 import java.util.List;
-import java.util.stream.Collectors;
 import org.junit.jupiter.api.Test;
 
 /** The light checks of {@code spindrift validate}, run in the build. */
 class LightValidationTest {
-    private static void assertAllPass(List<Check> checks) {
-        assertFalse(checks.isEmpty());
-        String failed = checks.stream().filter(c -> !c.passed())
-                .map(c -> c.quantity() + ": measured " + c.measured() + " reference " + c.reference() + " tol "
-                        + c.tolerance())
-                .collect(Collectors.joining("\n"));
-        assertTrue(failed.isEmpty(), failed);
-    }
-
     @Test
     void shadowEdgeMatchesSyngeAndBardeen() {
         List<Check> checks = LightChecks.shadow();
