@@ -22,6 +22,16 @@ import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 class TurningPointsTest {
     /** Bisection "to the resolution of t": a few ulps of the root time. */
     private static final int ROOT_ULPS = 4;
+    /** Values of the analytic components at the located root: a few ulps of values of order 1-10. */
+    private static final double AT_ROOT = 1e-15;
+    /** Root times over 40 passages: the ulps of the root plus the rounding of 1.3 + 2 pi k. */
+    private static final double PASSAGE_ROUNDING = 1e-14;
+    /** Periapsis radius of the integrated orbit, M: located on the dense output of a step held to 1e-12. */
+    private static final double INTEGRATED_RADIUS = 1e-9;
+    /** theta of an equatorial orbit: p_theta = 0 exactly, so theta stays pi/2 up to rounding. */
+    private static final double EQUATORIAL = 1e-12;
+    /** Advance per radial period, rad: the integration keeps the phase to about 1e-10 per orbit (our choice). */
+    private static final double ADVANCE = 1e-8;
     private static final double T_P = 1.3;
     private static final double T_POLAR = 2.0;
 
@@ -65,9 +75,9 @@ class TurningPointsTest {
         tp.step(3, step(1.0, 1.6, ORBIT));
         assertEquals(1, tp.periapsisCount());
         assertEquals(T_P, tp.periapsisTime(0), ulps(T_P));
-        assertEquals(10 + Math.cos(T_P), tp.periapsisR(0), 1e-15 * 10);
-        assertEquals(0.5 * Math.PI + 0.1 * Math.sin(T_P), tp.periapsisTheta(0), 1e-15);
-        assertEquals(0.7 * T_P, tp.periapsisPhi(0), 1e-15);
+        assertEquals(10 + Math.cos(T_P), tp.periapsisR(0), AT_ROOT * 10);
+        assertEquals(0.5 * Math.PI + 0.1 * Math.sin(T_P), tp.periapsisTheta(0), AT_ROOT);
+        assertEquals(0.7 * T_P, tp.periapsisPhi(0), AT_ROOT);
         assertEquals(0, tp.polarCount(), "p_theta stays negative over the step");
     }
 
@@ -104,12 +114,12 @@ class TurningPointsTest {
         assertEquals(expected, tp.periapsisCount());
         for (int k = 1; k < tp.periapsisCount(); k++) {
             double exact = T_P + 2 * Math.PI * (k - 1);
-            assertEquals(exact, tp.periapsisTime(k), ulps(exact) + 1e-14, "passage " + k);
+            assertEquals(exact, tp.periapsisTime(k), ulps(exact) + PASSAGE_ROUNDING, "passage " + k);
         }
         assertEquals(1 + (int) Math.floor((end - T_POLAR) / (2 * Math.PI)), tp.polarCount());
         for (int k = 0; k < tp.polarCount(); k++) {
             double exact = T_POLAR + 2 * Math.PI * k;
-            assertEquals(exact, tp.polarTime(k), ulps(exact) + 1e-14, "polar turning point " + k);
+            assertEquals(exact, tp.polarTime(k), ulps(exact) + PASSAGE_ROUNDING, "polar turning point " + k);
         }
         // checkpoint round trip is exact
         ByteArrayOutputStream buf = new ByteArrayOutputStream();
@@ -163,10 +173,9 @@ class TurningPointsTest {
         double advance = 4 * Math.sqrt(p / d) * LegendreEllipticIntegral.bigK(4 * e / d) - 2 * Math.PI;
         for (int k = 1; k < tp.periapsisCount(); k++) {
             // r_p = p M / (1 + e) by the definition of p and e; equatorial orbit
-            assertEquals(p / (1 + e), tp.periapsisR(k), 1e-9, "periapsis radius " + k);
-            assertEquals(0.5 * Math.PI, tp.periapsisTheta(k), 1e-12, "equatorial " + k);
-            // the integration keeps the phase to about 1e-10 rad per orbit at tolerance 1e-12 (our choice: 1e-8)
-            assertEquals(2 * Math.PI + advance, tp.periapsisPhi(k) - tp.periapsisPhi(k - 1), 1e-8, "advance " + k);
+            assertEquals(p / (1 + e), tp.periapsisR(k), INTEGRATED_RADIUS, "periapsis radius " + k);
+            assertEquals(0.5 * Math.PI, tp.periapsisTheta(k), EQUATORIAL, "equatorial " + k);
+            assertEquals(2 * Math.PI + advance, tp.periapsisPhi(k) - tp.periapsisPhi(k - 1), ADVANCE, "advance " + k);
         }
     }
 }

@@ -51,6 +51,9 @@ class ConfigSectionTest {
             "  neg: -3 min",              // 26
             "");
 
+    /** A unit conversion in double precision: one division, rounding only. */
+    private static final double CONVERSION = 1e-15;
+
     @TempDir Path dir;
     private Path file;
     private ConfigSection.LineIndex lines;
@@ -139,8 +142,8 @@ class ConfigSectionTest {
     @Test
     void distancesConvertToMegaparsecs() {
         // SI prefixes: 1 Mpc = 1e3 kpc = 1e6 pc
-        assertEquals(0.8, cfg.distanceMpc("dist", 100), 1e-15);
-        assertEquals(0.1, cfg.distanceMpc("near", 100), 1e-15);
+        assertEquals(0.8, cfg.distanceMpc("dist", 100), CONVERSION);
+        assertEquals(0.1, cfg.distanceMpc("near", 100), CONVERSION);
         assertEquals(40.0, cfg.distanceMpc("far", 100), 0.0);
         fails(16, "cfg.far", "value '40 Mpc' is out of range; allowed (0, 10 Mpc]", () -> cfg.distanceMpc("far", 10));
         fails(5, "cfg.count", "needs a unit: write for example '12 Mpc' (units: Mpc, kpc or pc)",
