@@ -28,8 +28,10 @@ public final class LightChecks {
     public static final double START_PLANE = 1.0e4;
     /** Spin of the Kerr shadow check. */
     public static final double SHADOW_SPIN = 0.9;
-    /** Inclination of the Kerr shadow check, deg (away from edge-on, where beta^2 has its simplest form). */
+    /** Inclination of the Schwarzschild shadow check, deg. */
     public static final double SHADOW_INCLINATION_DEG = 60.0;
+    /** Inclinations of the Kerr shadow checks, deg: edge-on (beta^2 = eta) and inclined. */
+    public static final double[] KERR_SHADOW_INCLINATIONS_DEG = {90.0, 60.0};
     /** Positions of the checked edge points along the range of photon-orbit radii that reach the screen. */
     public static final double[] SHADOW_FRACTIONS = {0.1, 0.3, 0.5, 0.7, 0.9};
     /**
@@ -68,6 +70,8 @@ public final class LightChecks {
     /** Halvings of the bisection for the face-on screen radius (2^-30 of a bracket of about b). */
     public static final int FACE_ON_HALVINGS = 30;
 
+    private static final String SHADOW_GROUP = "Shadow edge";
+
     private LightChecks() {
     }
 
@@ -85,24 +89,32 @@ public final class LightChecks {
 
     /**
      * The Schwarzschild shadow radius sqrt(27) and points of the Kerr shadow edge at
-     * {@link #SHADOW_SPIN}, {@link #SHADOW_INCLINATION_DEG}: the distance from a point inside the
-     * shadow to the capture boundary, found by bisection along the direction of each published edge
-     * point.
+     * {@link #SHADOW_SPIN} and {@link #KERR_SHADOW_INCLINATIONS_DEG}: the distance from a point
+     * inside the shadow to the capture boundary, found by bisection along the direction of each
+     * published edge point.
      */
     public static List<Check> shadow() {
         List<Check> out = new ArrayList<>();
-        double inc = FastMath.toRadians(SHADOW_INCLINATION_DEG);
         Spacetime sch = MotionChecks.kerr(0.0);
         Camera cam = new Camera(SHADOW_INCLINATION_DEG, 0.0, 20.0, 64, START_PLANE);
-        String g = "Shadow edge";
         double w0 = 1.0;
         double r0 = new ScreenProbe(sch, cam, shadowSettings(sch)).captureEdge(0.0, 0.0, w0, 4.0, 7.0);
-        out.add(new Check(g, String.format(Locale.ROOT, "Schwarzschild shadow radius along screen angle %s rad,"
+        out.add(new Check(SHADOW_GROUP, String.format(Locale.ROOT, "Schwarzschild shadow radius along screen angle %s rad,"
                 + " i = %s deg (M)", w0, SHADOW_INCLINATION_DEG), FastMath.sqrt(27.0),
                 "Synge 1966, MNRAS 131, 463: critical impact parameter sqrt(27) M", r0, SHADOW_TOL));
 
+        for (double incDeg : KERR_SHADOW_INCLINATIONS_DEG) {
+            out.addAll(kerrShadow(incDeg));
+        }
+        return out;
+    }
+
+    private static List<Check> kerrShadow(double incDeg) {
+        List<Check> out = new ArrayList<>();
+        double inc = FastMath.toRadians(incDeg);
         double a = SHADOW_SPIN;
         Spacetime st = MotionChecks.kerr(a);
+        Camera cam = new Camera(incDeg, 0.0, 20.0, 64, START_PLANE);
         ScreenProbe probe = new ScreenProbe(st, cam, shadowSettings(st));
         double[] range = visibleOrbits(a, inc);
         double centre = 0.5 * (LightReferences.shadowEdge(a, range[0], inc)[0]
@@ -114,9 +126,9 @@ public final class LightChecks {
             double dx = e[0] - centre;
             double expected = FastMath.hypot(dx, beta);
             double got = probe.captureEdge(centre, 0.0, FastMath.atan2(beta, dx), 0.5 * expected, 1.5 * expected);
-            out.add(new Check(g, String.format(Locale.ROOT, "Kerr a = %s, i = %s deg: distance from (alpha, beta) ="
-                    + " (%.4f, 0) to the edge point of the photon orbit r = %.4f, beta %s 0 (M)", a,
-                    SHADOW_INCLINATION_DEG, centre, r, beta > 0 ? ">" : "<"), expected,
+            out.add(new Check(SHADOW_GROUP, String.format(Locale.ROOT, "Kerr a = %s, i = %s deg: distance from"
+                    + " (alpha, beta) = (%.4f, 0) to the edge point of the photon orbit r = %.4f, beta %s 0 (M)", a,
+                    incDeg, centre, r, beta > 0 ? ">" : "<"), expected,
                     "Bardeen 1973 (Black Holes, Les Houches, p. 215): alpha = -lambda / sin i, beta^2 = eta"
                             + " + a^2 cos^2 i - lambda^2 cot^2 i; photon orbits of Bardeen, Press & Teukolsky 1972",
                     got, SHADOW_TOL));
@@ -126,7 +138,8 @@ public final class LightChecks {
 
     /**
      * @return the radii {r1, r2} between the prograde and retrograde photon orbits whose spherical
-     *     photon orbits reach an observer at inclination inc (beta^2 &gt;= 0 between them)
+     *     photon orbits reach an observer at inclination inc (beta^2 &gt;= 0 between them); edge-on
+     *     these are the equatorial photon orbits themselves (eta = 0 there)
      */
     static double[] visibleOrbits(double a, double inc) {
         double lo = LightReferences.photonOrbit(a, true);
@@ -145,10 +158,10 @@ public final class LightChecks {
         }
         BrentSolver brent = new BrentSolver(1e-14);
         double step = (hi - lo) / n;
-        double r1 = brent.solve(200, r -> LightReferences.shadowEdge(a, r, inc)[1], lo + (first - 1) * step,
-                lo + first * step);
-        double r2 = brent.solve(200, r -> LightReferences.shadowEdge(a, r, inc)[1], lo + last * step,
-                lo + (last + 1) * step);
+        double r1 = LightReferences.shadowEdge(a, lo, inc)[1] >= 0 ? lo : brent.solve(200,
+                r -> LightReferences.shadowEdge(a, r, inc)[1], lo + (first - 1) * step, lo + first * step);
+        double r2 = LightReferences.shadowEdge(a, hi, inc)[1] >= 0 ? hi : brent.solve(200,
+                r -> LightReferences.shadowEdge(a, r, inc)[1], lo + last * step, lo + (last + 1) * step);
         return new double[] {r1, r2};
     }
 

@@ -58,7 +58,11 @@ class LightReferencesTest {
 
     @Test
     void visibleOrbitsEndWhereBetaVanishes() {
-        double inc = Math.toRadians(LightChecks.SHADOW_INCLINATION_DEG);
+        // edge-on, every spherical photon orbit between the two equatorial ones reaches the observer
+        double[] edgeOn = LightChecks.visibleOrbits(LightChecks.SHADOW_SPIN, Math.PI / 2);
+        assertEquals(LightReferences.photonOrbit(LightChecks.SHADOW_SPIN, true), edgeOn[0], CLOSED_FORM);
+        assertEquals(LightReferences.photonOrbit(LightChecks.SHADOW_SPIN, false), edgeOn[1], CLOSED_FORM);
+        double inc = Math.toRadians(60.0);
         double[] r = LightChecks.visibleOrbits(LightChecks.SHADOW_SPIN, inc);
         assertTrue(r[0] > LightReferences.photonOrbit(LightChecks.SHADOW_SPIN, true) && r[1] < LightReferences
                 .photonOrbit(LightChecks.SHADOW_SPIN, false) && r[0] < r[1]);

@@ -11,7 +11,8 @@ class LightValidationTest {
     @Test
     void shadowEdgeMatchesSyngeAndBardeen() {
         List<Check> checks = LightChecks.shadow();
-        assertEquals(1 + LightChecks.SHADOW_FRACTIONS.length, checks.size());
+        assertEquals(1 + LightChecks.KERR_SHADOW_INCLINATIONS_DEG.length * LightChecks.SHADOW_FRACTIONS.length,
+                checks.size());
         assertAllPass(checks);
     }
 
