@@ -18,7 +18,8 @@ import org.spindrift.sim.spacetime.Spacetime;
  * The light checks: the backward ray tracer and the camera against the Kerr shadow edge
  * (Bardeen 1973), the Schwarzschild deflection (Epstein &amp; Shapiro 1980 to second order, Darwin
  * 1959 exactly) and the face-on direct image radius of an equatorial ring (quadrature). The
- * reference values come from {@link LightReferences} and {@link SchwarzschildRays}; tolerances are named here with their reason.
+ * reference values come from {@link LightReferences} and {@link SchwarzschildRays}; tolerances
+ * are named here with their reason.
  */
 public final class LightChecks {
     /**
@@ -43,7 +44,7 @@ public final class LightChecks {
     public static final double[] DEFLECTION_B = {200.0, 400.0, 800.0};
     /** Start (and end) distance of the deflected rays, M: the bending beyond it is about M b / d^2 &lt; 1e-11. */
     public static final double DEFLECTION_DISTANCE = 1.0e7;
-    /** Relative and absolute tolerance of the tracer for the deflection rays. */
+    /** Relative tolerance of the tracer for the deflection rays (absolute: 1e-2 of it). */
     public static final double DEFLECTION_RAY_TOL = 1.0e-12;
     /**
      * Allowed difference from the exact deflection, rad: about 100 x the 1e-13 measured with the
@@ -99,8 +100,8 @@ public final class LightChecks {
         Camera cam = new Camera(SHADOW_INCLINATION_DEG, 0.0, 20.0, 64, START_PLANE);
         double w0 = 1.0;
         double r0 = new ScreenProbe(sch, cam, shadowSettings(sch)).captureEdge(0.0, 0.0, w0, 4.0, 7.0);
-        out.add(new Check(SHADOW_GROUP, String.format(Locale.ROOT, "Schwarzschild shadow radius along screen angle %s rad,"
-                + " i = %s deg (M)", w0, SHADOW_INCLINATION_DEG), FastMath.sqrt(27.0),
+        out.add(new Check(SHADOW_GROUP, String.format(Locale.ROOT, "Schwarzschild shadow radius along screen"
+                + " angle %s rad, i = %s deg (M)", w0, SHADOW_INCLINATION_DEG), FastMath.sqrt(27.0),
                 "Synge 1966, MNRAS 131, 463: critical impact parameter sqrt(27) M", r0, SHADOW_TOL));
 
         for (double incDeg : KERR_SHADOW_INCLINATIONS_DEG) {

@@ -58,7 +58,8 @@ class CentreTrackExpansionTest {
                 assertEquals(p[c], e[c], SAME_INTERPOLANT, "position component " + c + " at t = " + t);
             }
             assertEquals(big, Math.hypot(e[0], e[1]), TRACK_REL * big, "radius at t = " + t);
-            assertEquals(big * omega, Math.sqrt(e[3] * e[3] + e[4] * e[4] + e[5] * e[5]), TRACK_REL * big * omega, "speed");
+            assertEquals(big * omega, Math.sqrt(e[3] * e[3] + e[4] * e[4] + e[5] * e[5]), TRACK_REL * big * omega,
+                    "speed");
             double acc = Math.sqrt(e[6] * e[6] + e[7] * e[7] + e[8] * e[8]);
             assertEquals(big * omega * omega, acc, ACCELERATION_REL * big * omega * omega, "acceleration at t = " + t);
             // towards the axis

@@ -50,7 +50,10 @@ class EmissionSliceAndMaskTest {
         return 1.0 / Math.sqrt(-(gtt + 2 * gtp * w + gpp * w * w));
     }
 
-    /** Cubic-spline kernel W(d, h) = (1 / (pi h^3)) {1 - 3/2 q^2 + 3/4 q^3; 1/4 (2 - q)^3; 0} (Monaghan 1992, ARA&A 30, 543). */
+    /**
+     * Cubic-spline kernel W(d, h) = (1 / (pi h^3)) {1 - 3/2 q^2 + 3/4 q^3; 1/4 (2 - q)^3; 0}, q = d/h
+     * (Monaghan 1992, ARA&amp;A 30, 543).
+     */
     private static double kernel(double d) {
         double q = d / H;
         double c = 1.0 / (Math.PI * H * H * H);

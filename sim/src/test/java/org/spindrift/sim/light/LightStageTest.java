@@ -68,7 +68,8 @@ class LightStageTest {
             }
             double cx = sx / w, cy = sy / w;
             // Darwin 1959 / Luminet 1979 quadrature (SchwarzschildRays.faceOnImpactParameter)
-            assertEquals(expected, FastMath.hypot(cx, cy), IMAGE_RADIUS_REL * expected, "primary image radius, frame " + f);
+            assertEquals(expected, FastMath.hypot(cx, cy), IMAGE_RADIUS_REL * expected,
+                    "primary image radius, frame " + f);
             double pa = FastMath.atan2(cx, cy);              // position angle, north through east
             if (!Double.isNaN(prevAngle)) {
                 turned += FastMath.IEEEremainder(pa - prevAngle, 2 * FastMath.PI);

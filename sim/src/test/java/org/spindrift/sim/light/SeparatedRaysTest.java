@@ -43,10 +43,13 @@ class SeparatedRaysTest {
         // the targets of the light stage: positions within 1e-3 M, g within 1e-4 relative (the
         // crossing point's error bounds the direct image's: the screen-to-equator map stretches)
         for (int c = 0; c < RayAccuracy.CROSSINGS; c++) {
-            assertTrue(r.positionMax()[c] < CROSSING_POSITION, "crossing points differ by " + r.positionMax()[c] + " M at " + c);
+            assertTrue(r.positionMax()[c] < CROSSING_POSITION,
+                    "crossing points differ by " + r.positionMax()[c] + " M at " + c);
             // delays: the step control holds t to 1e-8 of the 1e4 M travel time from the camera plane per step
-            assertTrue(r.delayMax()[c] < CROSSING_DELAY_MAX, "delays differ by " + r.delayMax()[c] + " M at crossing " + c);
-            assertTrue(r.redshiftMax()[c] < CROSSING_REDSHIFT, "g differs by " + r.redshiftMax()[c] + " at crossing " + c);
+            assertTrue(r.delayMax()[c] < CROSSING_DELAY_MAX,
+                    "delays differ by " + r.delayMax()[c] + " M at crossing " + c);
+            assertTrue(r.redshiftMax()[c] < CROSSING_REDSHIFT,
+                    "g differs by " + r.redshiftMax()[c] + " at crossing " + c);
         }
         assertTrue(r.position99()[0] < CROSSING_POSITION, "crossing points differ by " + r.position99()[0] + " M");
         assertTrue(r.delay99()[0] < CROSSING_DELAY_99, "delays differ by " + r.delay99()[0] + " M");

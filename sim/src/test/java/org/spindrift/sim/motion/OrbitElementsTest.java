@@ -65,7 +65,8 @@ class OrbitElementsTest {
             double e2 = ((p - 2) * (p - 2) - 4 * e * e) / (p * (p - 3 - e * e));
             double l2 = p * p / (p - 3 - e * e);
             assertEquals(Math.sqrt(e2), s.energy(), ORDER_ONE, "E at p=" + p + " e=" + e);
-            assertEquals(Math.sqrt(l2), s.angularMomentum(), ANGULAR_MOMENTUM_NEAR_SEPARATRIX, "L at p=" + p + " e=" + e);
+            assertEquals(Math.sqrt(l2), s.angularMomentum(), ANGULAR_MOMENTUM_NEAR_SEPARATRIX,
+                    "L at p=" + p + " e=" + e);
             assertEquals(0.0, s.carter());
         }
     }
@@ -184,7 +185,8 @@ class OrbitElementsTest {
         for (double r : m.samples()[1]) {
             rMax = Math.max(rMax, r);
         }
-        assertTrue(rMax <= s.apoapsis() + INTEGRATED_TURNING_POINT && rMax > s.apoapsis() - SAMPLED_APOAPSIS, "max r " + rMax + " vs " + s.apoapsis());
+        assertTrue(rMax <= s.apoapsis() + INTEGRATED_TURNING_POINT && rMax > s.apoapsis() - SAMPLED_APOAPSIS,
+                "max r " + rMax + " vs " + s.apoapsis());
         assertTrue(m.massShellDriftMax() < MASS_SHELL_DRIFT);
         assertTrue(m.carterDriftMax() < CARTER_DRIFT * s.carter());
     }

@@ -89,7 +89,8 @@ class ConfigSectionTest {
         fails(25, "cfg.unit_in_value", "must be a number, got '5 Msun' (units belong in the key name, not the value)",
                 () -> cfg.number("unit_in_value", Range.closed(0, 1)));
         fails(18, "cfg.list", "must be a number, got a list", () -> cfg.number("list", Range.closed(0, 1)));
-        fails(19, "cfg.empty", "missing required key 'empty' (it is empty)", () -> cfg.number("empty", Range.closed(0, 1)));
+        fails(19, "cfg.empty",
+                "missing required key 'empty' (it is empty)", () -> cfg.number("empty", Range.closed(0, 1)));
         UserInputException e = assertThrows(UserInputException.class, () -> cfg.number("absent", Range.closed(0, 1)));
         assertTrue(e.getMessage().startsWith(file + ":") && e.getMessage().endsWith(
                 ": cfg.absent: missing required key 'absent'"), e.getMessage());
@@ -135,7 +136,8 @@ class ConfigSectionTest {
                 () -> cfg.time("orbits", null, false, false, true));
         fails(14, "cfg.odd", "unit 'fortnights' is not allowed here; allowed units: min, M or orbits",
                 () -> cfg.time("odd", null, false, true, true));
-        fails(26, "cfg.neg", "value -3 is out of range; allowed (0, 1e9]", () -> cfg.time("neg", null, false, false, true));
+        fails(26, "cfg.neg", "value -3 is out of range; allowed (0, 1e9]", () -> cfg.time("neg", null, false, false,
+                true));
         assertEquals(null, cfg.time("absent", null, true, false, true), "optional and absent");
     }
 

@@ -147,7 +147,8 @@ class LandmarksTest {
             double slope = (CircularOrbits.energy(st, r + h, pro) - CircularOrbits.energy(st, r - h, pro)) / (2 * h);
             double slopeOut = (CircularOrbits.energy(st, 1.2 * r + h, pro) - CircularOrbits.energy(st, 1.2 * r - h, pro))
                     / (2 * h);
-            assertTrue(Math.abs(slope) < FLAT_AT_ISCO * Math.abs(slopeOut), family + " dE/dr at ISCO " + slope + " vs " + slopeOut);
+            assertTrue(Math.abs(slope) < FLAT_AT_ISCO * Math.abs(slopeOut),
+                    family + " dE/dr at ISCO " + slope + " vs " + slopeOut);
             assertTrue(CircularOrbits.verticalEpicyclicSquared(st, r, pro) > 0.0);
             // photon orbit: E diverges there (BPT 1972 eq. 2.18 discussion)
             double ph = l.photonOrbit(pro);
