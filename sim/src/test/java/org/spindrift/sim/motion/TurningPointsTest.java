@@ -12,6 +12,7 @@ import java.io.IOException;
 import java.util.function.DoubleUnaryOperator;
 import org.hipparchus.special.elliptic.legendre.LegendreEllipticIntegral;
 import org.junit.jupiter.api.Test;
+import org.spindrift.sim.numerics.BracketedRoot;
 import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 
@@ -20,7 +21,7 @@ import org.spindrift.sim.spacetime.MassFunctionSpacetime;
  * closed form, and on an integrated Schwarzschild orbit against the exact periastron advance.
  */
 class TurningPointsTest {
-    /** Bisection "to the resolution of t": a few ulps of the root time. */
+    /** Located "to the resolution of t" (the middle of a bracket two ulps wide): a few ulps of the root time. */
     private static final int ROOT_ULPS = 4;
     /** Values of the analytic components at the located root: a few ulps of values of order 1-10. */
     private static final double AT_ROOT = 1e-15;
@@ -37,6 +38,7 @@ class TurningPointsTest {
 
     /** A dense step over [t0, t1] of analytic components (R, TH, PH, PR, PTH). */
     private static DenseStep step(double t0, double t1, DoubleUnaryOperator... f) {
+        BracketedRoot root = new BracketedRoot();
         return new DenseStep() {
             @Override public double t0() {
                 return t0;
@@ -56,6 +58,31 @@ class TurningPointsTest {
 
             @Override public double at(int c, double t) {
                 return f[c].applyAsDouble(t);
+            }
+
+            private double g(EventFunction g, double t) {
+                double[] y = new double[f.length];
+                for (int c = 0; c < f.length; c++) {
+                    y[c] = f[c].applyAsDouble(t);
+                }
+                return g.g(t, y, 0);
+            }
+
+            @Override public double gStart(EventFunction g) {
+                return g(g, t0);
+            }
+
+            @Override public double gEnd(EventFunction g) {
+                return g(g, t1);
+            }
+
+            // events located with the engine's shared root finder, as the integrator's steps do
+            @Override public double locate(EventFunction g) {
+                return root.locate(t -> g(g, t), t0, g(g, t0), t1);
+            }
+
+            @Override public double locatedBefore() {
+                return root.before();
             }
         };
     }
