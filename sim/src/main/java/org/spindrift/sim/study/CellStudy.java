@@ -80,7 +80,8 @@ public final class CellStudy {
      * astrometric weights do not move a best fit, so the fits to the exact truth are done once at
      * 1 micro-arcsecond and their chi-square scales as 1/sigma^2 (common practice, no source).
      * Without photometry only; the cells then also start their realisations' fits from these
-     * optima (fewer steps, the same minima).
+     * optima, once each (the noise-free fits carry the study's extra starts; in the demo this
+     * saved about a fifth of the steps per fit).
      */
     public static final class Shared {
         private final Map<String, CompletableFuture<NoiseFree>> fits = new ConcurrentHashMap<>();
@@ -160,7 +161,7 @@ public final class CellStudy {
                     nodeStart[j] = nf.nodes()[j].best();
                 }
             }
-            // the realisations start at the noise-free optima: one start each suffices
+            // the realisations start once, at the noise-free optima (which carry the study's starts)
             laterStarts = 1;
             synchronized (this) {
                 evaluations += nf.evaluations();
