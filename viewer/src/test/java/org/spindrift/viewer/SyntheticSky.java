@@ -77,8 +77,9 @@ final class SyntheticSky {
         project(centre[0], centre[1], centre[2], p);
         double tObs = t - p[2];
         if (sw > 0) {
-            csv.append(String.format(Locale.ROOT, "%.6f,%.6f,%.6f,%.6f,%.6g,%.6f,%.6f,0,0,0%n", tObs * mSeconds / 60,
-                    tObs, sx / sw, sy / sw, sw, sx / sw, sy / sw));
+            // no steady source, no beam: the centroid columns and the reported position coincide
+            csv.append(String.format(Locale.ROOT, "%.6f,%.6f,%.6f,%.6f,%.6g,%.6f,%.6f,0,0,0,%.6f,%.6f%n",
+                    tObs * mSeconds / 60, tObs, sx / sw, sy / sw, sw, sx / sw, sy / sw, sx / sw, sy / sw));
         }
         if (img != null) {
             frames.add(img);
