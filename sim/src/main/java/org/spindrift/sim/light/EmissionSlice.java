@@ -1,5 +1,6 @@
 package org.spindrift.sim.light;
 
+import java.util.Arrays;
 import org.hipparchus.util.FastMath;
 import org.spindrift.sim.spacetime.Spacetime;
 import org.spindrift.sim.spacetime.Trig;
@@ -47,8 +48,17 @@ final class EmissionSlice {
     private final boolean[] nearColumn;
     /** Dilation of {@link #nearColumn} in cells. */
     static final int NEAR = 3;
+    /**
+     * Per cell: the smallest squared gap, in cell units, between this cell and an occupied cell
+     * (gap per axis max(|offset| - 1, 0), offsets up to {@link #NEAR}; {@link #FAR} when there is
+     * none). It bounds from below the distance from any point of the cell to any particle, so a
+     * sample whose cell has a gap beyond its search radius sees no particle.
+     */
+    private final byte[] gap2;
+    /** Value of {@link #gap2} for cells with no occupied cell within {@link #NEAR} cells. */
+    private static final byte FAR = 100;
 
-    private EmissionSlice(double tau, int count, float[][] cols, int[] cellStart, double ox, double oy,
+    private EmissionSlice(double tau, int count, double[] pos, float[] att, int[] cellStart, double ox, double oy,
                           double oz, double cell, int nx, int ny, int nz, double reach, double vmax) {
         this.tau = tau;
         this.count = count;
@@ -64,15 +74,9 @@ final class EmissionSlice {
         this.reach = reach;
         this.vmax = vmax;
         nearColumn = columns(cellStart, nx, ny, nz);
-
-        pos = new double[REC * count];
-        att = new float[REC * count];
-        for (int p = 0; p < count; p++) {
-            for (int c = 0; c < REC; c++) {
-                pos[REC * p + c] = cols[c][p];
-                att[REC * p + c] = cols[REC + c][p];
-            }
-        }
+        gap2 = gaps(cellStart, nx, ny, nz);
+        this.pos = pos;
+        this.att = att;
     }
 
     /** Occupied (x, y) columns dilated by NEAR cells in x and y (two one-dimensional passes). */
@@ -102,6 +106,52 @@ final class EmissionSlice {
             }
         }
         return out;
+    }
+
+    /**
+     * Squared gaps to the nearest occupied cell: the minimum over offsets of the sum of squared
+     * per-axis gaps separates into three one-dimensional minimum passes (z, then y, then x), as
+     * in separable distance transforms (e.g. Felzenszwalb &amp; Huttenlocher 2012, Theory of
+     * Computing 8, 415), here over offsets of at most {@link #NEAR} cells.
+     */
+    private static byte[] gaps(int[] cellStart, int nx, int ny, int nz) {
+        int cells = nx * ny * nz;
+        byte[] a = new byte[cells];
+        byte[] b = new byte[cells];
+        Arrays.fill(a, FAR);
+        for (int c = 0; c < cells; c++) {            // along z: from the occupied cells
+            if (cellStart[c + 1] > cellStart[c]) {
+                stamp(a, c, 0, c % nz, nz, 1);
+            }
+        }
+        Arrays.fill(b, FAR);
+        for (int c = 0; c < cells; c++) {            // along y
+            if (a[c] < FAR) {
+                stamp(b, c, a[c], (c / nz) % ny, ny, nz);
+            }
+        }
+        Arrays.fill(a, FAR);
+        for (int c = 0; c < cells; c++) {            // along x
+            if (b[c] < FAR) {
+                stamp(a, c, b[c], c / (ny * nz), nx, ny * nz);
+            }
+        }
+        return a;
+    }
+
+    /**
+     * out[c + d * stride] = min(out[..], v + g(d)^2) for |d| &lt;= NEAR inside the line, g(d) =
+     * max(|d| - 1, 0); i is the cell's index along its line of len cells.
+     */
+    private static void stamp(byte[] out, int c, int v, int i, int len, int stride) {
+        for (int d = Math.max(-NEAR, -i); d <= Math.min(NEAR, len - 1 - i); d++) {
+            int g = Math.max(Math.abs(d) - 1, 0);
+            int k = c + d * stride;
+            int w = v + g * g;
+            if (w < out[k]) {
+                out[k] = (byte) w;
+            }
+        }
     }
 
     /**
@@ -237,15 +287,17 @@ final class EmissionSlice {
             start[c + 1] += start[c];
         }
         int[] fill = new int[cells];
-        float[][] cols = new float[12][m];
+        double[] pos = new double[REC * m];
+        float[] att = new float[REC * m];
         for (int p = 0; p < m; p++) {              // stable counting sort by cell
             int c = cellOf[p];
-            int dst = start[c] + fill[c]++;
-            for (int q = 0; q < 12; q++) {
-                cols[q][dst] = tmp[q][p];
+            int dst = REC * (start[c] + fill[c]++);
+            for (int q = 0; q < REC; q++) {
+                pos[dst + q] = tmp[q][p];
+                att[dst + q] = tmp[REC + q][p];
             }
         }
-        return new EmissionSlice(tau, m, cols, start, minX, minY, minZ, cell, gx, gy, gz, reach, vmax);
+        return new EmissionSlice(tau, m, pos, att, start, minX, minY, minZ, cell, gx, gy, gz, reach, vmax);
     }
 
     /**
@@ -292,6 +344,68 @@ final class EmissionSlice {
     }
 
     /**
+     * The same sum as {@link #emissivity} (the same particles in the same order, so the same
+     * number bit for bit), with two exact shortcuts: a sample whose cell is farther than its
+     * search radius from every occupied cell ({@link #gap2}) returns at once, and columns of
+     * cells whose (x, y) gap from the sample exceeds the search radius are not visited.
+     */
+    double emissivityNear(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
+                          double invH, double norm, double support2) {
+        double rs = Math.sqrt(support2) + vmax * Math.abs(dtE);
+        double fx = (sx - ox) * invCell, fy = (sy - oy) * invCell, fz = (sz - oz) * invCell;
+        double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
+        double rc2 = rc * rc;
+        int x0 = (int) Math.floor(fx - rc);
+        int x1 = (int) Math.floor(fx + rc);
+        int y0 = (int) Math.floor(fy - rc);
+        int y1 = (int) Math.floor(fy + rc);
+        int z0 = (int) Math.floor(fz - rc);
+        int z1 = (int) Math.floor(fz + rc);
+        if (x1 < 0 || y1 < 0 || z1 < 0 || x0 >= nx || y0 >= ny || z0 >= nz) {
+            return 0.0;
+        }
+        int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy), cz = (int) Math.floor(fz);
+        if (cx >= 0 && cy >= 0 && cz >= 0 && cx < nx && cy < ny && cz < nz && rc < NEAR
+                && gap2[(cx * ny + cy) * nz + cz] > rc2) {
+            return 0.0;
+        }
+        x0 = Math.max(0, x0);
+        y0 = Math.max(0, y0);
+        z0 = Math.max(0, z0);
+        x1 = Math.min(nx - 1, x1);
+        y1 = Math.min(ny - 1, y1);
+        z1 = Math.min(nz - 1, z1);
+        double sum = 0.0;
+        for (int ix = x0; ix <= x1; ix++) {
+            // gap from the sample to the column's x interval [ix, ix + 1), cell units
+            double gx = ix > fx ? ix - fx : fx - (ix + 1) > 0 ? fx - (ix + 1) : 0.0;
+            double gx2 = gx * gx;
+            for (int iy = y0; iy <= y1; iy++) {
+                double gy = iy > fy ? iy - fy : fy - (iy + 1) > 0 ? fy - (iy + 1) : 0.0;
+                if (gx2 + gy * gy > rc2) {
+                    continue;
+                }
+                int base = (ix * ny + iy) * nz;
+                sum = sumCells(sum, cellStart[base + z0], cellStart[base + z1 + 1], sx, sy, sz, dtE, pr, pth, pphi,
+                        invH, norm, support2);
+            }
+        }
+        return sum;
+    }
+
+    /** @return sum plus the term of the particle record at q at squared distance d2 (within the support) */
+    private double term(double sum, int q, double d2, double pr, double pth, double pphi, double invH, double norm) {
+        double gInv = Redshift.inverse(pr, pth, pphi, att[q], att[q + 1], att[q + 2], att[q + 3]);
+        if (!(gInv > 0)) {
+            return sum;
+        }
+        double e = att[q + 5];
+        // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
+        double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
+        return sum + att[q + 4] * Kernel.w(d2, invH, norm) * gp;
+    }
+
+    /**
      * @return true when some particle of the slice may lie within the reach of a sample in the box
      * [x0, x1] x [y0, y1] x [z0, z1] (conservative: widened by 1e-3 relative and 1e-2 cells; exact
      * when false, since every sample query then visits only empty cells)
@@ -327,14 +441,7 @@ final class EmissionSlice {
             if (d2 >= support2) {
                 continue;
             }
-            double gInv = Redshift.inverse(pr, pth, pphi, att[q], att[q + 1], att[q + 2], att[q + 3]);
-            if (!(gInv > 0)) {
-                continue;
-            }
-            double e = att[q + 5];
-            // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
-            double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
-            sum += att[q + 4] * Kernel.w(d2, invH, norm) * gp;
+            sum = term(sum, q, d2, pr, pth, pphi, invH, norm);
         }
         return sum;
     }
