@@ -55,6 +55,12 @@ final class EmissionSlice {
      * sample whose cell has a gap beyond its search radius sees no particle.
      */
     private final byte[] gap2;
+    /**
+     * Per (x, y) column of cells: the lowest and highest occupied z cell ({@code zLo > zHi} when
+     * the column is empty). Small enough to stay in cache, so a query skips empty columns and
+     * columns whose particles are all too far in z without reading the cell list.
+     */
+    private final byte[] zLo, zHi;
     /** Value of {@link #gap2} for cells with no occupied cell within {@link #NEAR} cells. */
     private static final byte FAR = 100;
 
@@ -75,6 +81,19 @@ final class EmissionSlice {
         this.vmax = vmax;
         nearColumn = columns(cellStart, nx, ny, nz);
         gap2 = gaps(cellStart, nx, ny, nz);
+        zLo = new byte[nx * ny];
+        zHi = new byte[nx * ny];
+        for (int c = 0; c < nx * ny; c++) {
+            int lo = nz, hi = -1;
+            for (int k = 0; k < nz; k++) {
+                if (cellStart[c * nz + k + 1] > cellStart[c * nz + k]) {
+                    lo = Math.min(lo, k);
+                    hi = k;
+                }
+            }
+            zLo[c] = (byte) lo;
+            zHi[c] = (byte) hi;
+        }
         this.pos = pos;
         this.att = att;
     }
@@ -385,9 +404,19 @@ final class EmissionSlice {
                 if (gx2 + gy * gy > rc2) {
                     continue;
                 }
-                int base = (ix * ny + iy) * nz;
-                sum = sumCells(sum, cellStart[base + z0], cellStart[base + z1 + 1], sx, sy, sz, dtE, pr, pth, pphi,
-                        invH, norm, support2);
+                int col = ix * ny + iy;
+                int lo = zLo[col], hi = zHi[col];
+                if (lo > z1 || hi < z0) {
+                    continue;
+                }
+                // gap from the sample to the column's occupied z cells [lo, hi + 1)
+                double gz = lo > fz ? lo - fz : fz - (hi + 1) > 0 ? fz - (hi + 1) : 0.0;
+                if (gx2 + gy * gy + gz * gz > rc2) {
+                    continue;
+                }
+                int base = col * nz;
+                sum = sumCells(sum, cellStart[base + Math.max(z0, lo)], cellStart[base + Math.min(z1, hi) + 1], sx, sy,
+                        sz, dtE, pr, pth, pphi, invH, norm, support2);
             }
         }
         return sum;
