@@ -458,6 +458,16 @@ final class EmissionSlice {
         return false;
     }
 
+    /**
+     * The kernel sum straight from its definition, over every particle of the slice with no cell
+     * list (in record order, so the same number as the queries bit for bit): what the queries
+     * and their shortcuts are checked against.
+     */
+    double emissivityAllParticles(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
+                                  double invH, double norm, double support2) {
+        return sumCells(0.0, 0, count, sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
+    }
+
     /** @return sum plus the kernel sum over the particle records from..to-1 (contiguous cells along z) */
     private double sumCells(double sum, int from, int to, double sx, double sy, double sz, double dtE, double pr,
                             double pth, double pphi, double invH, double norm, double support2) {
