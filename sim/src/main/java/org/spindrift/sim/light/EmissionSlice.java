@@ -321,57 +321,32 @@ final class EmissionSlice {
 
     /**
      * Emissivity sum over the particles near a sample: sum_p w_p W(|x - x_p(t_e)|, h) g_p^(2+alpha_p)
-     * with x_p(t_e) = x_p(tau) + v_p (t_e - tau).
+     * with x_p(t_e) = x_p(tau) + v_p (t_e - tau). The query of the per-sample reference renderer.
      */
     double emissivity(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
                       double invH, double norm, double support2) {
+        return query(false, sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
+    }
+
+    /**
+     * The same sum as {@link #emissivity} (the same particles in the same order, so the same
+     * number bit for bit), with exact shortcuts: a sample whose cell is farther than its search
+     * radius from every occupied cell ({@link #gap2}) returns at once, and columns of cells whose
+     * (x, y) gap from the sample, or whose occupied z range, is beyond the search radius are not
+     * visited.
+     */
+    double emissivityNear(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
+                          double invH, double norm, double support2) {
+        return query(true, sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
+    }
+
+    private double query(boolean near, double sx, double sy, double sz, double dtE, double pr, double pth,
+                         double pphi, double invH, double norm, double support2) {
         // a particle within the support at t_e is within 2h + vmax |t_e - tau| of the sample at tau
         double rs = Math.sqrt(support2) + vmax * Math.abs(dtE);
         double fx = (sx - ox) * invCell, fy = (sy - oy) * invCell, fz = (sz - oz) * invCell;
         // search radius in cell units, widened by a relative 1e-6 against float/double rounding
         // of the stored positions and velocities (never narrower than needed)
-        double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
-        int x0 = (int) FastMath.floor(fx - rc);
-        int x1 = (int) FastMath.floor(fx + rc);
-        int y0 = (int) FastMath.floor(fy - rc);
-        int y1 = (int) FastMath.floor(fy + rc);
-        int z0 = (int) FastMath.floor(fz - rc);
-        int z1 = (int) FastMath.floor(fz + rc);
-        if (x1 < 0 || y1 < 0 || z1 < 0 || x0 >= nx || y0 >= ny || z0 >= nz) {
-            return 0.0;
-        }
-        int cx = (int) FastMath.floor(fx), cy = (int) FastMath.floor(fy);
-        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && !nearColumn[cx * ny + cy]) {
-            return 0.0;
-        }
-        x0 = FastMath.max(0, x0);
-        y0 = FastMath.max(0, y0);
-        z0 = FastMath.max(0, z0);
-        x1 = FastMath.min(nx - 1, x1);
-        y1 = FastMath.min(ny - 1, y1);
-        z1 = FastMath.min(nz - 1, z1);
-        double sum = 0.0;
-        for (int ix = x0; ix <= x1; ix++) {
-            for (int iy = y0; iy <= y1; iy++) {
-                int base = (ix * ny + iy) * nz;
-                // cells along z are contiguous
-                sum = sumCells(sum, cellStart[base + z0], cellStart[base + z1 + 1], sx, sy, sz, dtE, pr, pth, pphi,
-                        invH, norm, support2);
-            }
-        }
-        return sum;
-    }
-
-    /**
-     * The same sum as {@link #emissivity} (the same particles in the same order, so the same
-     * number bit for bit), with two exact shortcuts: a sample whose cell is farther than its
-     * search radius from every occupied cell ({@link #gap2}) returns at once, and columns of
-     * cells whose (x, y) gap from the sample exceeds the search radius are not visited.
-     */
-    double emissivityNear(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
-                          double invH, double norm, double support2) {
-        double rs = Math.sqrt(support2) + vmax * Math.abs(dtE);
-        double fx = (sx - ox) * invCell, fy = (sy - oy) * invCell, fz = (sz - oz) * invCell;
         double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
         double rc2 = rc * rc;
         int x0 = (int) Math.floor(fx - rc);
@@ -384,8 +359,9 @@ final class EmissionSlice {
             return 0.0;
         }
         int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy), cz = (int) Math.floor(fz);
-        if (cx >= 0 && cy >= 0 && cz >= 0 && cx < nx && cy < ny && cz < nz && rc < NEAR
-                && gap2[(cx * ny + cy) * nz + cz] > rc2) {
+        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && (near
+                ? cz >= 0 && cz < nz && gap2[(cx * ny + cy) * nz + cz] > rc2
+                : !nearColumn[cx * ny + cy])) {
             return 0.0;
         }
         x0 = Math.max(0, x0);
@@ -400,38 +376,26 @@ final class EmissionSlice {
             double gx = ix > fx ? ix - fx : fx - (ix + 1) > 0 ? fx - (ix + 1) : 0.0;
             double gx2 = gx * gx;
             for (int iy = y0; iy <= y1; iy++) {
-                double gy = iy > fy ? iy - fy : fy - (iy + 1) > 0 ? fy - (iy + 1) : 0.0;
-                if (gx2 + gy * gy > rc2) {
-                    continue;
-                }
                 int col = ix * ny + iy;
-                int lo = zLo[col], hi = zHi[col];
-                if (lo > z1 || hi < z0) {
-                    continue;
+                int za = z0, zb = z1;
+                if (near) {
+                    double gy = iy > fy ? iy - fy : fy - (iy + 1) > 0 ? fy - (iy + 1) : 0.0;
+                    int lo = zLo[col], hi = zHi[col];
+                    // gap from the sample to the column's occupied z cells [lo, hi + 1)
+                    double gz = lo > fz ? lo - fz : fz - (hi + 1) > 0 ? fz - (hi + 1) : 0.0;
+                    if (lo > z1 || hi < z0 || gx2 + gy * gy + gz * gz > rc2) {
+                        continue;
+                    }
+                    za = Math.max(z0, lo);
+                    zb = Math.min(z1, hi);
                 }
-                // gap from the sample to the column's occupied z cells [lo, hi + 1)
-                double gz = lo > fz ? lo - fz : fz - (hi + 1) > 0 ? fz - (hi + 1) : 0.0;
-                if (gx2 + gy * gy + gz * gz > rc2) {
-                    continue;
-                }
+                // cells along z are contiguous
                 int base = col * nz;
-                sum = sumCells(sum, cellStart[base + Math.max(z0, lo)], cellStart[base + Math.min(z1, hi) + 1], sx, sy,
-                        sz, dtE, pr, pth, pphi, invH, norm, support2);
+                sum = sumCells(sum, cellStart[base + za], cellStart[base + zb + 1], sx, sy, sz, dtE, pr, pth, pphi,
+                        invH, norm, support2);
             }
         }
         return sum;
-    }
-
-    /** @return sum plus the term of the particle record at q at squared distance d2 (within the support) */
-    private double term(double sum, int q, double d2, double pr, double pth, double pphi, double invH, double norm) {
-        double gInv = Redshift.inverse(pr, pth, pphi, att[q], att[q + 1], att[q + 2], att[q + 3]);
-        if (!(gInv > 0)) {
-            return sum;
-        }
-        double e = att[q + 5];
-        // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
-        double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
-        return sum + att[q + 4] * Kernel.w(d2, invH, norm) * gp;
     }
 
     /**
@@ -480,7 +444,14 @@ final class EmissionSlice {
             if (d2 >= support2) {
                 continue;
             }
-            sum = term(sum, q, d2, pr, pth, pphi, invH, norm);
+            double gInv = Redshift.inverse(pr, pth, pphi, att[q], att[q + 1], att[q + 2], att[q + 3]);
+            if (!(gInv > 0)) {
+                continue;
+            }
+            double e = att[q + 5];
+            // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
+            double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
+            sum += att[q + 4] * Kernel.w(d2, invH, norm) * gp;
         }
         return sum;
     }
