@@ -44,11 +44,21 @@ public final class FitModel {
         private final Map<String, Object[]> spacetimes = new ConcurrentHashMap<>();
         private final Map<String, CompactSourceModel.Index> tables = new ConcurrentHashMap<>();
         private final int threads;
+        private final RayTable.Refinement refinement;
         private volatile int traced;
 
         /** @param threads threads for tracing tables (results do not depend on it) */
         public Cache(int threads) {
+            this(threads, null);
+        }
+
+        /**
+         * @param threads threads for tracing tables (results do not depend on it)
+         * @param refinement sub-pixel refinement of the tables (null: the model's own rule)
+         */
+        public Cache(int threads, RayTable.Refinement refinement) {
             this.threads = threads;
+            this.refinement = refinement;
         }
 
         /** @return tables traced so far */
@@ -215,7 +225,9 @@ public final class FitModel {
             TraceSettings ts = TraceSettings.of(rEm, capture, LightStage.SAMPLES_PER_H * h, ls0.lensing())
                     .withTolerance(1.0e-8, 1.0e-10);
             cache.traced++;
-            return new CompactSourceModel.Index(RayTable.trace(st, cam, ts, cache.threads), cell);
+            RayTable.Refinement rule = cache.refinement != null ? cache.refinement
+                    : CompactSourceModel.refinement(cam, spots);
+            return new CompactSourceModel.Index(RayTable.trace(st, cam, ts, cache.threads, rule), cell);
         });
         double cadence = sc.imaging().frameCadence() == null ? times[1] - times[0] : sc.imaging().frameCadence().toM(spm);
         return atTimes != null

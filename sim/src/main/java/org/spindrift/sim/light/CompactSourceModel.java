@@ -260,6 +260,29 @@ public final class CompactSourceModel {
         }
     }
 
+    /**
+     * The table refinement for compact sources: neighbouring rays that pass the emission region
+     * further apart than about the smallest blob's width sample its images badly (a Riemann sum
+     * of a Gaussian is accurate while the spacing stays below about 1.5 sigma, and poor once it is
+     * several sigma), so stretched pixels get k sub-rays per side with a spacing of about
+     * sigma (common practice, no source).
+     */
+    public static RayTable.Refinement refinement(Camera camera, Spot[] spots) {
+        double h = LightStage.smoothingLength(camera);
+        double s = Double.POSITIVE_INFINITY;
+        for (Spot sp : spots) {
+            s = FastMath.min(s, FastMath.sqrt(sp.sigmaM() * sp.sigmaM() + KERNEL_VARIANCE * h * h));
+        }
+        double threshold = FastMath.max(0.5, FastMath.min(RayTable.STRETCH_THRESHOLD, SPACING_SIGMAS * s
+                / camera.pixelSize()));
+        return new RayTable.Refinement(threshold, MAX_RAYS, RayTable.MAX_REFINE);
+    }
+
+    /** Sub-ray spacing, in blob standard deviations, that stretched pixels are refined to. */
+    static double SPACING_SIGMAS = Double.parseDouble(System.getProperty("spindrift.spacing", "1.0"));
+    /** Largest number of sub-rays per side of a stretched pixel. */
+    static int MAX_RAYS = Integer.getInteger("spindrift.maxrays", 12);
+
     private final double[] c = new double[17];
     private final double[] cs = new double[7];
     /**
