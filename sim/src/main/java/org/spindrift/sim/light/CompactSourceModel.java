@@ -22,6 +22,14 @@ import org.spindrift.sim.scenario.FlareEnvelope;
  * variance is 0.3 h^2 (second moment of the M4 kernel of Monaghan &amp; Lattanzio 1985, integrated
  * here: <r^2> = 0.9 h^2), cut at 4 sigma (a 3-D Gaussian keeps 99.9 % of its mass there).
  *
+ * <p>A spot on a circular equatorial orbit with the run's shear velocity model is sheared as its
+ * members are: its Gaussian lives in curvilinear offsets from the centre (radial, along the orbit,
+ * vertical), with the azimuthal offset growing linearly with the radial one ({@link #shearRate}).
+ * The flare envelope is linear within each emission-time step (as a run's weights are between
+ * snapshots). The table's stretched pixels are refined so that neighbouring sub-rays pass the
+ * emission region at most about one blob width apart ({@link #refinement}): a thin, demagnified
+ * image sampled more coarsely than that is summed badly.
+ *
  * <p>The table is traced once at position angle 0: another position angle rotates the sky
  * offsets ({@link Camera#east}, {@link Camera#north}); mass and distance only rescale the angles
  * and times, so they never need a new table. Samples are kept in cells of a cubic grid, sorted by
@@ -37,6 +45,8 @@ public final class CompactSourceModel {
     public static final double CUT_SIGMAS = 4.0;
     /** Per-axis variance of the cubic-spline kernel in units of h^2 (see the class comment). */
     public static final double KERNEL_VARIANCE = 0.3;
+    private static final double TWO_PI = 2 * FastMath.PI;
+    private static final double INV_TWO_PI_15 = FastMath.pow(2 * FastMath.PI, -1.5);
     /** Width of the radius bins of the delay quantiles, M. */
     static final double R_BIN = 0.25;
 
@@ -48,6 +58,8 @@ public final class CompactSourceModel {
         final Camera camera;
         final int m;
         final float[] x, y, z, d, pr, pth, pph, dl, east, north;
+        /** Cylindrical radius and azimuth of each sample (for sheared spots). */
+        final double[] rho, phi;
         final int[] cellStart;
         final double lo, cell, inv;
         final int n;
@@ -109,6 +121,8 @@ public final class CompactSourceModel {
             dl = new float[m];
             east = new float[m];
             north = new float[m];
+            rho = new double[m];
+            phi = new double[m];
             cellStart = new int[n * n * n + 1];
             int pixels = camera.pixels();
             double dLo = Double.POSITIVE_INFINITY, dHi = Double.NEGATIVE_INFINITY;
@@ -122,6 +136,8 @@ public final class CompactSourceModel {
                 pth[j] = table.pth[i];
                 pph[j] = table.pph[i];
                 dl[j] = table.dl[i];
+                rho[j] = FastMath.hypot(x[j], y[j]);
+                phi[j] = FastMath.atan2(y[j], x[j]);
                 int k = owner[i];
                 east[j] = (float) camera.skyX(k % pixels);
                 north[j] = (float) camera.skyY(k / pixels);
@@ -294,8 +310,15 @@ public final class CompactSourceModel {
      * @param sigmaM Gaussian size of the source per axis, M (before the kernel is added)
      * @param weight emission weight
      * @param flare flare envelope in emitter time
+     * @param shearRate for a spot on a circular equatorial orbit whose members circle at their own
+     *     radius: azimuthal offset per radial offset per unit time, 1/M (0: no shear; see
+     *     {@link #shearRate})
      */
-    public record Spot(double sigmaM, double weight, FlareEnvelope flare) {
+    public record Spot(double sigmaM, double weight, FlareEnvelope flare, double shearRate) {
+        /** A spot that keeps its shape (no shear). */
+        public Spot(double sigmaM, double weight, FlareEnvelope flare) {
+            this(sigmaM, weight, flare, 0.0);
+        }
     }
 
     /**
@@ -344,10 +367,25 @@ public final class CompactSourceModel {
         return new RayTable.Refinement(threshold, MAX_RAYS, RayTable.MAX_REFINE);
     }
 
+    /**
+     * Shear of a spot on a circular equatorial orbit at Boyer-Lindquist radius r whose members
+     * circle at their own radius (the run's shear velocity model): a member placed a Cartesian
+     * radial offset u from the centre has d r = u sqrt(r^2 + a^2) / r and falls behind by
+     * d phi = Omega'(r) d r t, an azimuthal offset sqrt(r^2 + a^2) d phi, so offsets (u, w)
+     * become (u, w + s t u) with s = (r^2 + a^2) Omega'(r) / r (linear differential rotation,
+     * e.g. the kinematic shear of Bardeen, Press &amp; Teukolsky 1972, sec. II, with Omega' of
+     * {@code CircularOrbits.omegaDerivative}).
+     *
+     * @param omegaDerivative dOmega/dr at r, 1/M^2
+     */
+    public static double shearRate(double r, double spin, double omegaDerivative) {
+        return (r * r + spin * spin) * omegaDerivative / r;
+    }
+
     /** Sub-ray spacing, in blob standard deviations, that stretched pixels are refined to. */
-    static double SPACING_SIGMAS = Double.parseDouble(System.getProperty("spindrift.spacing", "1.0"));
+    static final double SPACING_SIGMAS = 1.0;
     /** Largest number of sub-rays per side of a stretched pixel. */
-    static int MAX_RAYS = Integer.getInteger("spindrift.maxrays", 12);
+    static final int MAX_RAYS = 12;
 
     private final double[] c = new double[17];
     private final double[] cs = new double[7];
@@ -405,13 +443,16 @@ public final class CompactSourceModel {
         int nf = times.length;
         double[] flux = new double[nf], fx = new double[nf], fy = new double[nf];
         double[] sig2 = new double[spots.length], cut2 = new double[spots.length], norm = new double[spots.length];
-        double[] halfInv = new double[spots.length];
         double cutMax = 0;
+        double tEnd = track.time(track.snapshots() - 1);
+        double[] blob2 = new double[spots.length], kern2 = new double[spots.length];
         for (int k = 0; k < spots.length; k++) {
+            blob2[k] = spots[k].sigmaM() * spots[k].sigmaM();
+            kern2[k] = KERNEL_VARIANCE * h * h;
             double s2 = spots[k].sigmaM() * spots[k].sigmaM() + KERNEL_VARIANCE * h * h;
             sig2[k] = s2;
-            halfInv[k] = 0.5 / s2;
             cut2[k] = CUT_SIGMAS * CUT_SIGMAS * s2;
+            // a sheared spot keeps its radial and vertical widths (its arc lies along the orbit)
             cutMax = FastMath.max(cutMax, CUT_SIGMAS * FastMath.sqrt(s2));
             // normalised 3-D Gaussian (2 pi sigma^2)^(-3/2)
             norm[k] = FastMath.pow(2 * FastMath.PI * s2, -1.5);
@@ -421,7 +462,6 @@ public final class CompactSourceModel {
         double[] near = index.delayRange(rr[0] - cutMax - 1e-3, rr[1] + cutMax + 1e-3);
         double v = FastMath.max(1e-3, track.maxSpeed());
         double step = FastMath.max(1e-3, 0.5 * index.cell / v);   // the blob moves at most a quarter cell per half step
-        double tEnd = track.time(track.snapshots() - 1);
         int cells = index.cellStart.length - 1;
         if (stamped != index) {
             if (cursor.length < cells) {
@@ -456,8 +496,20 @@ public final class CompactSourceModel {
                     }
                     // alive through the step: the centre from its expansion about mid-step, else per sample
                     boolean smooth = track.aliveThrough(k, a, b);
+                    // the envelope linear over the step (as a run's weights are between snapshots), times weight and norm
+                    double fa = spots[k].weight() * spots[k].flare().at(a);
+                    double fSlope = (spots[k].weight() * spots[k].flare().at(b) - fa) / (b - a);
                     // samples whose delay maps into [a, b): d in (to - b, to - a]
-                    double reach = FastMath.sqrt(cut2[k]) + v * 0.5 * (b - a) + 1e-6;
+                    double sRate = spots[k].shearRate();
+                    boolean sheared = sRate != 0.0 && smooth;
+                    double shMax = sRate * FastMath.max(FastMath.abs(a), FastMath.abs(b));
+                    // the sheared ellipse's largest axis is below the square root of its trace
+                    double reach = (sheared ? CUT_SIGMAS * FastMath.sqrt(sig2[k] * 2 + blob2[k] * shMax * shMax)
+                            : FastMath.sqrt(cut2[k])) + v * 0.5 * (b - a) + 1e-6;
+                    // circular frame of the centre at mid-step: cylindrical radius, azimuth, angular velocity
+                    double rhoC = FastMath.hypot(c[0], c[1]);
+                    double phiC = FastMath.atan2(c[1], c[0]);
+                    double omC = (c[0] * c[4] - c[1] * c[3]) / (rhoC * rhoC);
                     double reach2 = reach * reach;
                     int x0 = index.clamp((int) FastMath.floor((c[0] - reach - index.lo) * index.inv));
                     int x1 = index.clamp((int) FastMath.floor((c[0] + reach - index.lo) * index.inv));
@@ -505,8 +557,25 @@ public final class CompactSourceModel {
                                         ddy = index.y[i] - cs[1];
                                         ddz = index.z[i] - cs[2];
                                     }
-                                    double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
-                                    if (d2 >= cut2[k]) {
+                                    double q;
+                                    double nk = norm[k];
+                                    if (sheared) {
+                                        // curvilinear offsets from the centre on its circle: radial u, along
+                                        // the orbit w, vertical ddz; sheared Gaussian plus the kernel
+                                        double dphi = index.phi[i] - phiC - omC * dt;
+                                        dphi -= TWO_PI * FastMath.rint(dphi / TWO_PI);
+                                        double u = index.rho[i] - rhoC, w = rhoC * dphi;
+                                        double sh = sRate * te;
+                                        double aa = blob2[k] + kern2[k], bb = blob2[k] * sh;
+                                        double cc = blob2[k] * (1 + sh * sh) + kern2[k];
+                                        double det = aa * cc - bb * bb;
+                                        q = (cc * u * u - 2 * bb * u * w + aa * w * w) / det + ddz * ddz / aa;
+                                        // (2 pi)^(-3/2) / sqrt(det aa)
+                                        nk = INV_TWO_PI_15 / FastMath.sqrt(det * aa);
+                                    } else {
+                                        q = (ddx * ddx + ddy * ddy + ddz * ddz) / sig2[k];
+                                    }
+                                    if (q >= CUT_SIGMAS * CUT_SIGMAS) {
                                         continue;
                                     }
                                     if (smooth) {
@@ -523,8 +592,7 @@ public final class CompactSourceModel {
                                     double e = 2.0 + track.spectralIndex(k);
                                     double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
                                     // emitter-frame density: weight x envelope / u^t (MTW 1973, sect. 22.3), Gaussian profile
-                                    double dens = spots[k].weight() * spots[k].flare().at(te) / cs[3] * norm[k]
-                                            * gaussian(d2 * halfInv[k]);
+                                    double dens = (fa + (te - a) * fSlope) / cs[3] * nk * gaussian(0.5 * q);
                                     double val = index.dl[i] * dens * gp;
                                     sf += val;
                                     sx += val * index.east[i];
