@@ -511,94 +511,114 @@ public final class CompactSourceModel {
                     double phiC = FastMath.atan2(c[1], c[0]);
                     double omC = (c[0] * c[4] - c[1] * c[3]) / (rhoC * rhoC);
                     double reach2 = reach * reach;
-                    int x0 = index.clamp((int) FastMath.floor((c[0] - reach - index.lo) * index.inv));
-                    int x1 = index.clamp((int) FastMath.floor((c[0] + reach - index.lo) * index.inv));
-                    int y0 = index.clamp((int) FastMath.floor((c[1] - reach - index.lo) * index.inv));
-                    int y1 = index.clamp((int) FastMath.floor((c[1] + reach - index.lo) * index.inv));
-                    int z0 = index.clamp((int) FastMath.floor((c[2] - reach - index.lo) * index.inv));
-                    int z1 = index.clamp((int) FastMath.floor((c[2] + reach - index.lo) * index.inv));
                     double dLo = to - b, dHi = to - a;
-                    for (int ix = x0; ix <= x1; ix++) {
-                        for (int iy = y0; iy <= y1; iy++) {
-                            for (int iz = z0; iz <= z1; iz++) {
-                                int cellIdx = (ix * index.n + iy) * index.n + iz;
-                                int from = index.cellStart[cellIdx], until = index.cellStart[cellIdx + 1];
-                                if (from == until) {
-                                    continue;
-                                }
-                                int i;
-                                if (stamp[cellIdx] == pass) {
-                                    i = cursor[cellIdx];
-                                    while (i < until && index.d[i] <= dLo) {
-                                        i++;
-                                    }
-                                } else {
-                                    i = firstAbove(index.d, from, until, dLo);
-                                    stamp[cellIdx] = pass;
-                                }
-                                for (; i < until && index.d[i] <= dHi; i++) {
-                                    // cheap test against the blob at mid-step before interpolating at t_e
-                                    double qx = index.x[i] - c[0], qy = index.y[i] - c[1], qz = index.z[i] - c[2];
-                                    if (qx * qx + qy * qy + qz * qz > reach2) {
+                    // cells to visit: a box about the centre, or for a sheared spot boxes along its arc
+                    // (points cell/2 apart on the centre's circle, each box as wide as the radial and
+                    // vertical reach; a cell met twice in a step adds nothing the second time, its
+                    // cursor being past the step's delays)
+                    int arcPts = 1;
+                    double box = reach, arcFrom = 0, arcStep = 0;
+                    if (sheared) {
+                        double half = FastMath.min(FastMath.PI, reach / rhoC);
+                        arcPts = 2 * (int) FastMath.ceil(half / (0.5 * index.cell / rhoC)) + 1;
+                        arcFrom = phiC - half;
+                        arcStep = 2 * half / (arcPts - 1);
+                        box = FastMath.sqrt(cut2[k]) + v * 0.5 * (b - a) + 0.5 * index.cell + 1e-6;
+                    }
+                    for (int ap = 0; ap < arcPts; ap++) {
+                        double bx = c[0], by = c[1];
+                        if (sheared) {
+                            bx = rhoC * FastMath.cos(arcFrom + ap * arcStep);
+                            by = rhoC * FastMath.sin(arcFrom + ap * arcStep);
+                        }
+                        int x0 = index.clamp((int) FastMath.floor((bx - box - index.lo) * index.inv));
+                        int x1 = index.clamp((int) FastMath.floor((bx + box - index.lo) * index.inv));
+                        int y0 = index.clamp((int) FastMath.floor((by - box - index.lo) * index.inv));
+                        int y1 = index.clamp((int) FastMath.floor((by + box - index.lo) * index.inv));
+                        int z0 = index.clamp((int) FastMath.floor((c[2] - box - index.lo) * index.inv));
+                        int z1 = index.clamp((int) FastMath.floor((c[2] + box - index.lo) * index.inv));
+                        for (int ix = x0; ix <= x1; ix++) {
+                            for (int iy = y0; iy <= y1; iy++) {
+                                for (int iz = z0; iz <= z1; iz++) {
+                                    int cellIdx = (ix * index.n + iy) * index.n + iz;
+                                    int from = index.cellStart[cellIdx], until = index.cellStart[cellIdx + 1];
+                                    if (from == until) {
                                         continue;
                                     }
-                                    double te = to - index.d[i];
-                                    double ddx, ddy, ddz;
-                                    double dt = te - mid;
-                                    if (smooth) {
-                                        ddx = index.x[i] - (c[0] + dt * (c[3] + 0.5 * dt * c[6]));
-                                        ddy = index.y[i] - (c[1] + dt * (c[4] + 0.5 * dt * c[7]));
-                                        ddz = index.z[i] - (c[2] + dt * (c[5] + 0.5 * dt * c[8]));
+                                    int i;
+                                    if (stamp[cellIdx] == pass) {
+                                        i = cursor[cellIdx];
+                                        while (i < until && index.d[i] <= dLo) {
+                                            i++;
+                                        }
                                     } else {
-                                        if (!track.at(k, te, cs)) {
+                                        i = firstAbove(index.d, from, until, dLo);
+                                        stamp[cellIdx] = pass;
+                                    }
+                                    for (; i < until && index.d[i] <= dHi; i++) {
+                                        // cheap test against the blob at mid-step before interpolating at t_e
+                                        double qx = index.x[i] - c[0], qy = index.y[i] - c[1], qz = index.z[i] - c[2];
+                                        if (qx * qx + qy * qy + qz * qz > reach2) {
                                             continue;
                                         }
-                                        ddx = index.x[i] - cs[0];
-                                        ddy = index.y[i] - cs[1];
-                                        ddz = index.z[i] - cs[2];
+                                        double te = to - index.d[i];
+                                        double ddx, ddy, ddz;
+                                        double dt = te - mid;
+                                        if (smooth) {
+                                            ddx = index.x[i] - (c[0] + dt * (c[3] + 0.5 * dt * c[6]));
+                                            ddy = index.y[i] - (c[1] + dt * (c[4] + 0.5 * dt * c[7]));
+                                            ddz = index.z[i] - (c[2] + dt * (c[5] + 0.5 * dt * c[8]));
+                                        } else {
+                                            if (!track.at(k, te, cs)) {
+                                                continue;
+                                            }
+                                            ddx = index.x[i] - cs[0];
+                                            ddy = index.y[i] - cs[1];
+                                            ddz = index.z[i] - cs[2];
+                                        }
+                                        double q;
+                                        double nk = norm[k];
+                                        if (sheared) {
+                                            // curvilinear offsets from the centre on its circle: radial u, along
+                                            // the orbit w, vertical ddz; sheared Gaussian plus the kernel
+                                            double dphi = index.phi[i] - phiC - omC * dt;
+                                            dphi -= TWO_PI * FastMath.rint(dphi / TWO_PI);
+                                            double u = index.rho[i] - rhoC, w = rhoC * dphi;
+                                            double sh = sRate * te;
+                                            double aa = blob2[k] + kern2[k], bb = blob2[k] * sh;
+                                            double cc = blob2[k] * (1 + sh * sh) + kern2[k];
+                                            double det = aa * cc - bb * bb;
+                                            q = (cc * u * u - 2 * bb * u * w + aa * w * w) / det + ddz * ddz / aa;
+                                            // (2 pi)^(-3/2) / sqrt(det aa)
+                                            nk = INV_TWO_PI_15 / FastMath.sqrt(det * aa);
+                                        } else {
+                                            q = (ddx * ddx + ddy * ddy + ddz * ddz) / sig2[k];
+                                        }
+                                        if (q >= CUT_SIGMAS * CUT_SIGMAS) {
+                                            continue;
+                                        }
+                                        if (smooth) {
+                                            cs[3] = c[9] + dt * c[13];
+                                            cs[4] = c[10] + dt * c[14];
+                                            cs[5] = c[11] + dt * c[15];
+                                            cs[6] = c[12] + dt * c[16];
+                                        }
+                                        double gInv = Redshift.inverse(index.pr[i], index.pth[i], index.pph[i], cs[3], cs[4],
+                                                cs[5], cs[6]);
+                                        if (!(gInv > 0)) {
+                                            continue;
+                                        }
+                                        double e = 2.0 + track.spectralIndex(k);
+                                        double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
+                                        // emitter-frame density: weight x envelope / u^t (MTW 1973, sect. 22.3), Gaussian profile
+                                        double dens = (fa + (te - a) * fSlope) / cs[3] * nk * gaussian(0.5 * q);
+                                        double val = index.dl[i] * dens * gp;
+                                        sf += val;
+                                        sx += val * index.east[i];
+                                        sy += val * index.north[i];
                                     }
-                                    double q;
-                                    double nk = norm[k];
-                                    if (sheared) {
-                                        // curvilinear offsets from the centre on its circle: radial u, along
-                                        // the orbit w, vertical ddz; sheared Gaussian plus the kernel
-                                        double dphi = index.phi[i] - phiC - omC * dt;
-                                        dphi -= TWO_PI * FastMath.rint(dphi / TWO_PI);
-                                        double u = index.rho[i] - rhoC, w = rhoC * dphi;
-                                        double sh = sRate * te;
-                                        double aa = blob2[k] + kern2[k], bb = blob2[k] * sh;
-                                        double cc = blob2[k] * (1 + sh * sh) + kern2[k];
-                                        double det = aa * cc - bb * bb;
-                                        q = (cc * u * u - 2 * bb * u * w + aa * w * w) / det + ddz * ddz / aa;
-                                        // (2 pi)^(-3/2) / sqrt(det aa)
-                                        nk = INV_TWO_PI_15 / FastMath.sqrt(det * aa);
-                                    } else {
-                                        q = (ddx * ddx + ddy * ddy + ddz * ddz) / sig2[k];
-                                    }
-                                    if (q >= CUT_SIGMAS * CUT_SIGMAS) {
-                                        continue;
-                                    }
-                                    if (smooth) {
-                                        cs[3] = c[9] + dt * c[13];
-                                        cs[4] = c[10] + dt * c[14];
-                                        cs[5] = c[11] + dt * c[15];
-                                        cs[6] = c[12] + dt * c[16];
-                                    }
-                                    double gInv = Redshift.inverse(index.pr[i], index.pth[i], index.pph[i], cs[3], cs[4],
-                                            cs[5], cs[6]);
-                                    if (!(gInv > 0)) {
-                                        continue;
-                                    }
-                                    double e = 2.0 + track.spectralIndex(k);
-                                    double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
-                                    // emitter-frame density: weight x envelope / u^t (MTW 1973, sect. 22.3), Gaussian profile
-                                    double dens = (fa + (te - a) * fSlope) / cs[3] * nk * gaussian(0.5 * q);
-                                    double val = index.dl[i] * dens * gp;
-                                    sf += val;
-                                    sx += val * index.east[i];
-                                    sy += val * index.north[i];
+                                    cursor[cellIdx] = i;
                                 }
-                                cursor[cellIdx] = i;
                             }
                         }
                     }
