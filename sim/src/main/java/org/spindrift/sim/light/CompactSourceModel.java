@@ -482,6 +482,13 @@ public final class CompactSourceModel {
             int steps = (int) FastMath.ceil((e1 - e0) / step);
             double sf = 0, sx = 0, sy = 0;
             for (int k = 0; k < spots.length; k++) {
+                if (spots[k].shearRate() != 0.0 && track.aliveThrough(k, 0.0, tEnd)) {
+                    ring(index, track, spots[k], k, to, e0, e1, sig2[k], blob2[k], kern2[k]);
+                    sf += acc[0];
+                    sx += acc[1];
+                    sy += acc[2];
+                    continue;
+                }
                 if (++pass == Integer.MAX_VALUE) {
                     java.util.Arrays.fill(stamp, 0);
                     pass = 1;
@@ -644,6 +651,120 @@ public final class CompactSourceModel {
         double[] sxo = new double[nf], syo = new double[nf];
         LightStage.withSteadySource(flux, fx, fy, fs, sxo, syo);
         return new Frames(times, flux, fx, fy, sxo, syo, fs, coveredFrom, coveredTo);
+    }
+
+    /** Sums of the last {@link #ring} call: flux, flux x east, flux x north. */
+    private final double[] acc = new double[3];
+    /** Cells of the annulus about the last sheared orbit, and the orbit they were listed for. */
+    private int[] ringCells = new int[0];
+    private int ringCount;
+    private double ringRho = Double.NaN, ringZ = Double.NaN, ringBox = Double.NaN;
+    private Index ringIndex;
+
+    /**
+     * A sheared spot on its circular orbit, one frame: the orbit's centre has constant cylindrical
+     * radius, height, angular velocity and 4-velocity, so every sample of the cells of the annulus
+     * about it whose delay maps into the emission window [e0, e1] is weighed at its own emission
+     * time without stepping (a sheared spot becomes an arc and then a ring, and stepping a box along
+     * it would visit the same cells many times). Sums into {@link #acc}.
+     */
+    private void ring(Index index, CentreTrack track, Spot spot, int k, double to, double e0, double e1, double sig2,
+                      double blob2, double kern2) {
+        acc[0] = 0;
+        acc[1] = 0;
+        acc[2] = 0;
+        double tm = 0.5 * (e0 + e1);
+        if (!track.expansion(k, tm, c)) {
+            return;
+        }
+        double rhoC = FastMath.hypot(c[0], c[1]);
+        double phiM = FastMath.atan2(c[1], c[0]);
+        double omC = (c[0] * c[4] - c[1] * c[3]) / (rhoC * rhoC);
+        double zC = c[2];
+        double box = CUT_SIGMAS * FastMath.sqrt(sig2) + 1e-6;
+        // the listing keeps a margin of a cell diagonal beyond the half cell it needs: a circle moved
+        // by integration drift less than a quarter cell is still covered
+        if (ringIndex != index || FastMath.abs(rhoC - ringRho) > 0.25 * index.cell
+                || FastMath.abs(zC - ringZ) > 0.25 * index.cell || box != ringBox) {
+            listAnnulus(index, rhoC, zC, box);
+        }
+        double ut = c[9], ur = c[10], uth = c[11], uph = c[12];
+        double e = 2.0 + track.spectralIndex(k);
+        double sRate = spot.shearRate();
+        double dLo = to - e1, dHi = to - e0;
+        double cutQ = CUT_SIGMAS * CUT_SIGMAS;
+        double sf = 0, sx = 0, sy = 0;
+        for (int ci = 0; ci < ringCount; ci++) {
+            int cellIdx = ringCells[ci];
+            int until = index.cellStart[cellIdx + 1];
+            for (int i = firstAbove(index.d, index.cellStart[cellIdx], until, dLo); i < until && index.d[i] <= dHi; i++) {
+                double u = index.rho[i] - rhoC, dz = index.z[i] - zC;
+                if (FastMath.abs(u) > box || FastMath.abs(dz) > box) {
+                    continue;
+                }
+                double te = to - index.d[i];
+                double dphi = index.phi[i] - phiM - omC * (te - tm);
+                dphi -= TWO_PI * FastMath.rint(dphi / TWO_PI);
+                double w = rhoC * dphi;
+                double sh = sRate * te;
+                double aa = blob2 + kern2, bb = blob2 * sh, cc = blob2 * (1 + sh * sh) + kern2;
+                double det = aa * cc - bb * bb;
+                double q = (cc * u * u - 2 * bb * u * w + aa * w * w) / det + dz * dz / aa;
+                if (q >= cutQ) {
+                    continue;
+                }
+                double gInv = Redshift.inverse(index.pr[i], index.pth[i], index.pph[i], ut, ur, uth, uph);
+                if (!(gInv > 0)) {
+                    continue;
+                }
+                double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
+                // emitter-frame density: weight x envelope / u^t (MTW 1973, sect. 22.3), sheared Gaussian
+                double dens = spot.weight() * spot.flare().at(te) / ut * INV_TWO_PI_15 / FastMath.sqrt(det * aa)
+                        * gaussian(0.5 * q);
+                double val = index.dl[i] * dens * gp;
+                sf += val;
+                sx += val * index.east[i];
+                sy += val * index.north[i];
+            }
+        }
+        acc[0] = sf;
+        acc[1] = sx;
+        acc[2] = sy;
+    }
+
+    /** Lists the non-empty cells that can hold samples within box of the circle (rhoC, zC). */
+    private void listAnnulus(Index index, double rhoC, double zC, double box) {
+        double diag = index.cell * FastMath.sqrt(3.0);
+        double reach = rhoC + box + diag;
+        int x0 = index.clamp((int) FastMath.floor((-reach - index.lo) * index.inv));
+        int x1 = index.clamp((int) FastMath.floor((reach - index.lo) * index.inv));
+        int z0 = index.clamp((int) FastMath.floor((zC - box - index.lo) * index.inv));
+        int z1 = index.clamp((int) FastMath.floor((zC + box - index.lo) * index.inv));
+        int need = (x1 - x0 + 1) * (x1 - x0 + 1) * (z1 - z0 + 1);
+        if (ringCells.length < need) {
+            ringCells = new int[need];
+        }
+        ringCount = 0;
+        for (int ix = x0; ix <= x1; ix++) {
+            double cx = index.lo + (ix + 0.5) * index.cell;
+            for (int iy = x0; iy <= x1; iy++) {
+                double cy = index.lo + (iy + 0.5) * index.cell;
+                double rc = FastMath.sqrt(cx * cx + cy * cy);
+                if (FastMath.abs(rc - rhoC) > box + diag) {
+                    continue;
+                }
+                for (int iz = z0; iz <= z1; iz++) {
+                    int cellIdx = (ix * index.n + iy) * index.n + iz;
+                    if (index.cellStart[cellIdx + 1] > index.cellStart[cellIdx]) {
+                        ringCells[ringCount++] = cellIdx;
+                    }
+                }
+            }
+        }
+        ringIndex = index;
+        ringRho = rhoC;
+        ringZ = zC;
+        ringBox = box;
     }
 
     /** Entries per unit of the exponent in {@link #GAUSS}. */
