@@ -354,7 +354,7 @@ public final class CompactSourceModel {
      * further apart than about the smallest blob's width sample its images badly (a Riemann sum
      * of a Gaussian is accurate while the spacing stays below about 1.5 sigma, and poor once it is
      * several sigma), so stretched pixels get k sub-rays per side with a spacing of about
-     * sigma (common practice, no source).
+     * sigma (common practice, no source), at least half a pixel.
      */
     public static RayTable.Refinement refinement(Camera camera, Spot[] spots) {
         double h = LightStage.smoothingLength(camera);
@@ -364,6 +364,8 @@ public final class CompactSourceModel {
         }
         double threshold = FastMath.max(0.5, FastMath.min(RayTable.STRETCH_THRESHOLD, SPACING_SIGMAS * s
                 / camera.pixelSize()));
+        // rounded to a power of sqrt(2), so that a fit of the spot's size does not trace a table per value
+        threshold = FastMath.pow(2.0, FastMath.rint(2.0 * FastMath.log(threshold) / FastMath.log(2.0)) / 2.0);
         return new RayTable.Refinement(threshold, MAX_RAYS, RayTable.MAX_REFINE);
     }
 
@@ -657,6 +659,7 @@ public final class CompactSourceModel {
     private final double[] acc = new double[3];
     /** Cells of the annulus about the last sheared orbit, and the orbit they were listed for. */
     private int[] ringCells = new int[0];
+    private double[] ringPhi = new double[0];
     private int ringCount;
     private double ringRho = Double.NaN, ringZ = Double.NaN, ringBox = Double.NaN;
     private Index ringIndex;
@@ -694,10 +697,37 @@ public final class CompactSourceModel {
         double dLo = to - e1, dHi = to - e0;
         double cutQ = CUT_SIGMAS * CUT_SIGMAS;
         double sf = 0, sx = 0, sy = 0;
+        // a cell sees the spot only while the centre's azimuth is within the arc's half-width (at the
+        // largest shear of the window) plus the cell's own extent: one emission-time interval per turn
+        double shMax = FastMath.abs(sRate) * e1;
+        double halfW = CUT_SIGMAS * FastMath.sqrt(blob2 * (1 + shMax * shMax) + kern2);
+        double dPhi = (halfW + index.cell * FastMath.sqrt(3.0)) / FastMath.max(rhoC - box - index.cell, 1e-3);
+        boolean whole = dPhi >= FastMath.PI || !(FastMath.abs(omC) > 0);
         for (int ci = 0; ci < ringCount; ci++) {
             int cellIdx = ringCells[ci];
-            int until = index.cellStart[cellIdx + 1];
-            for (int i = firstAbove(index.d, index.cellStart[cellIdx], until, dLo); i < until && index.d[i] <= dHi; i++) {
+            int from = index.cellStart[cellIdx], until = index.cellStart[cellIdx + 1];
+            int m0 = 0, m1 = 0;
+            double rel = 0;
+            if (!whole) {
+                rel = ringPhi[ci] - phiM;
+                // turns m with |rel + 2 pi m - omC (te - tm)| <= dPhi for some te in [e0, e1]
+                double p0 = omC * (e0 - tm), p1 = omC * (e1 - tm);
+                double lo = FastMath.min(p0, p1) - dPhi - rel, hi = FastMath.max(p0, p1) + dPhi - rel;
+                m0 = (int) FastMath.ceil(lo / TWO_PI);
+                m1 = (int) FastMath.floor(hi / TWO_PI);
+            }
+            for (int m = m0; m <= m1; m++) {
+            double wLo = dLo, wHi = dHi;
+            if (!whole) {
+                double ta = tm + (rel + TWO_PI * m - dPhi) / omC, tb = tm + (rel + TWO_PI * m + dPhi) / omC;
+                double tLo = FastMath.max(e0, FastMath.min(ta, tb)), tHi = FastMath.min(e1, FastMath.max(ta, tb));
+                if (!(tHi >= tLo)) {
+                    continue;
+                }
+                wLo = FastMath.max(dLo, to - tHi - 1e-9);
+                wHi = FastMath.min(dHi, to - tLo + 1e-9);
+            }
+            for (int i = firstAbove(index.d, from, until, wLo); i < until && index.d[i] <= wHi; i++) {
                 double u = index.rho[i] - rhoC, dz = index.z[i] - zC;
                 if (FastMath.abs(u) > box || FastMath.abs(dz) > box) {
                     continue;
@@ -726,6 +756,7 @@ public final class CompactSourceModel {
                 sx += val * index.east[i];
                 sy += val * index.north[i];
             }
+            }
         }
         acc[0] = sf;
         acc[1] = sx;
@@ -743,6 +774,7 @@ public final class CompactSourceModel {
         int need = (x1 - x0 + 1) * (x1 - x0 + 1) * (z1 - z0 + 1);
         if (ringCells.length < need) {
             ringCells = new int[need];
+            ringPhi = new double[need];
         }
         ringCount = 0;
         for (int ix = x0; ix <= x1; ix++) {
@@ -756,6 +788,7 @@ public final class CompactSourceModel {
                 for (int iz = z0; iz <= z1; iz++) {
                     int cellIdx = (ix * index.n + iy) * index.n + iz;
                     if (index.cellStart[cellIdx + 1] > index.cellStart[cellIdx]) {
+                        ringPhi[ringCount] = FastMath.atan2(cy, cx);
                         ringCells[ringCount++] = cellIdx;
                     }
                 }
