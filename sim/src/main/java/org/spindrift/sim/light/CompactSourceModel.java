@@ -251,7 +251,7 @@ public final class CompactSourceModel {
             for (int bin = b0; bin <= b1; bin++) {
                 int from = rStart[bin], until = rStart[bin + 1];
                 if (bin * R_BIN >= rLo && (bin + 1) * R_BIN <= rHi) {
-                    count += upperBound(dByR, from, until, v) - from;
+                    count += firstAbove(dByR, from, until, v) - from;
                 } else {
                     for (int j = from; j < until && dByR[j] <= v; j++) {
                         if (rByR[j] >= rLo && rByR[j] <= rHi) {
@@ -261,19 +261,6 @@ public final class CompactSourceModel {
                 }
             }
             return count;
-        }
-
-        private static int upperBound(float[] a, int from, int until, float v) {
-            int lo = from, hi = until;
-            while (lo < hi) {
-                int mid = (lo + hi) >>> 1;
-                if (a[mid] <= v) {
-                    lo = mid + 1;
-                } else {
-                    hi = mid;
-                }
-            }
-            return lo;
         }
 
         /** @return the smallest and largest delay of the samples with radius in [rLo, rHi] ({dmin, dmax} when none) */
