@@ -1,8 +1,8 @@
 package org.spindrift.sim.light;
 
 import java.util.Arrays;
+import java.util.function.DoubleUnaryOperator;
 import org.hipparchus.util.FastMath;
-import org.spindrift.sim.scenario.FlareEnvelope;
 
 /**
  * A fast light model of compact sources, for fitting: each source is a small Gaussian blob about
@@ -227,9 +227,9 @@ public final class CompactSourceModel {
      *
      * @param sigmaM Gaussian size of the source per axis, M (before the kernel is added)
      * @param weight emission weight
-     * @param flare flare envelope in emitter time
+     * @param flare flare envelope against emitter time (M), peak 1
      */
-    public record Spot(double sigmaM, double weight, FlareEnvelope flare) {
+    public record Spot(double sigmaM, double weight, DoubleUnaryOperator flare) {
     }
 
     /**
@@ -432,7 +432,7 @@ public final class CompactSourceModel {
                                     double e = 2.0 + track.spectralIndex(k);
                                     double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
                                     // emitter-frame density: weight x envelope / u^t (MTW 1973, sect. 22.3), Gaussian profile
-                                    double dens = spots[k].weight() * spots[k].flare().at(te) / cs[3] * norm[k]
+                                    double dens = spots[k].weight() * spots[k].flare().applyAsDouble(te) / cs[3] * norm[k]
                                             * FastMath.exp(-0.5 * d2 / sig2[k]);
                                     double val = index.dl[i] * dens * gp;
                                     sf += val;

@@ -2,7 +2,7 @@ package org.spindrift.sim.light;
 
 import java.util.List;
 import org.spindrift.shared.scenario.Source;
-import org.spindrift.sim.run.ParticleHistory;
+import org.spindrift.sim.history.ParticleHistory;
 
 /** {@link EmitterHistory} over the run's {@link ParticleHistory} (no copies). */
 public final class HistoryEmitters implements EmitterHistory {

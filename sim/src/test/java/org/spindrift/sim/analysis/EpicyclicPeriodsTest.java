@@ -11,6 +11,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.scenario.VelocityModel;
+import org.spindrift.sim.pipeline.AnalysisStage;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.run.TestScenarios;
 import org.spindrift.sim.scenario.LoadedScenario;

@@ -8,7 +8,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.spindrift.shared.scenario.VelocityModel;
-import org.spindrift.sim.run.ParticleHistory;
+import org.spindrift.sim.history.ParticleHistory;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.run.TestScenarios;
 import org.spindrift.sim.scenario.LoadedScenario;

@@ -148,13 +148,13 @@ class ResumeTest {
         Path file = Files.writeString(tmp.resolve("a.yaml"), text);
         Path out = tmp.resolve("out");
         // a run that fails after its evolution keeps its checkpoint (checkpoints at every snapshot)
-        List<org.spindrift.sim.run.RunStage> failing = new ArrayList<>(org.spindrift.sim.run.ScenarioRun.stages());
-        failing.add(0, new org.spindrift.sim.run.RunStage() {
+        List<org.spindrift.sim.pipeline.RunStage> failing = new ArrayList<>(org.spindrift.sim.run.ScenarioRun.stages());
+        failing.add(0, new org.spindrift.sim.pipeline.RunStage() {
             @Override public String name() {
                 return "failing";
             }
 
-            @Override public void run(org.spindrift.sim.run.RunContext ctx) throws IOException {
+            @Override public void run(org.spindrift.sim.pipeline.RunContext ctx) throws IOException {
                 throw new IOException("simulated failure");
             }
         });
