@@ -85,9 +85,11 @@ class ScenarioRunTest {
             long alive = a.endStates().get("alive");
             assertEquals(120, alive + a.endStates().get("captured") + a.endStates().get("escaped")
                     + a.endStates().get("failed"));
-            // diagnostics: mass shell kept to the tolerance's order
-            assertTrue(a.diagnostics().path("hamiltonian_error_max").asDouble() < 1e-7, a.diagnostics().toString());
-            assertTrue(a.diagnostics().path("carter_relative_drift_max").asDouble() < 1e-6, a.diagnostics().toString());
+            // diagnostics (largest over every snapshot of every particle, tolerance 1e-10 per step): the mass
+            // shell and the Carter constant kept far below the orbit's own scale (common practice, no source)
+            assertTrue(a.diagnostics().path("hamiltonian_error_max").asDouble() < 1e-6, a.diagnostics().toString());
+            assertTrue(a.diagnostics().path("hamiltonian_error_median").asDouble() < 1e-9, a.diagnostics().toString());
+            assertTrue(a.diagnostics().path("carter_drift_max").asDouble() < 1e-6, a.diagnostics().toString());
             // the manifest's scenario echo is itself a scenario file that reads back to the same scenario
             Path echo = tmp.resolve("echo.json");
             Files.writeString(echo, a.manifest().get("scenario").toString());
