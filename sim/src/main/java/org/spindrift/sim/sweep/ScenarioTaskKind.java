@@ -15,7 +15,6 @@ import org.spindrift.shared.archive.LightArchive;
 import org.spindrift.shared.archive.RunArchive;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.sim.history.Subsample;
-import org.spindrift.sim.pipeline.SnapshotStage;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.scenario.ConfigNode;
 import org.spindrift.sim.scenario.ScenarioLoader;
