@@ -17,7 +17,6 @@ import org.spindrift.sim.light.LightSettings;
 import org.spindrift.sim.light.LightStage;
 import org.spindrift.sim.light.RayTable;
 import org.spindrift.sim.light.TraceSettings;
-import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.run.SnapshotGrid;
 import org.spindrift.sim.scenario.FitFile;
 import org.spindrift.sim.scenario.FlareEnvelope;

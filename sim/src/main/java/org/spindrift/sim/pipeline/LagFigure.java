@@ -6,7 +6,6 @@ import static org.spindrift.sim.pipeline.Charts.chart;
 import static org.spindrift.sim.pipeline.Charts.fmt;
 import static org.spindrift.sim.pipeline.Charts.vline;
 
-import java.awt.BasicStroke;
 import java.awt.Color;
 import java.util.ArrayList;
 import java.util.List;

@@ -6,9 +6,7 @@ import static org.spindrift.sim.pipeline.Charts.chart;
 
 import java.awt.BasicStroke;
 import java.awt.Color;
-import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.Styler;
