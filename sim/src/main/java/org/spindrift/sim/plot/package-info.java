@@ -1,0 +1,5 @@
+/**
+ * What a plot that cannot be drawn does ({@code PlotGuard}): inside a run it is recorded and the
+ * data are kept, elsewhere the failure goes through. Imports nothing of the engine.
+ */
+package org.spindrift.sim.plot;
