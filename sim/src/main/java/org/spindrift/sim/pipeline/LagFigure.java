@@ -7,6 +7,7 @@ import static org.spindrift.sim.pipeline.Charts.fmt;
 import static org.spindrift.sim.pipeline.Charts.vline;
 
 import java.awt.Color;
+import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -28,7 +29,7 @@ final class LagFigure implements RunFigure {
         return "plots/lag.png";
     }
 
-    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws java.io.IOException {
+    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws IOException {
         Charts.save(ctx, file(), lag(ctx, analysis.shapes()), 1, ctx.scenario().sources().size());
     }
 

@@ -8,6 +8,7 @@ import static org.spindrift.sim.pipeline.Charts.vline;
 
 import java.awt.BasicStroke;
 import java.awt.Color;
+import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -15,8 +16,8 @@ import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
-import org.spindrift.sim.analysis.AnalysisResult;
 import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.sim.analysis.AnalysisResult;
 import org.spindrift.sim.analysis.ParticlePeriods;
 import org.spindrift.sim.analysis.Stats;
 import org.spindrift.sim.history.ParticleHistory;
@@ -33,7 +34,7 @@ final class PeriodsFigure implements RunFigure {
         return "plots/periods.png";
     }
 
-    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws java.io.IOException {
+    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws IOException {
         Charts.save(ctx, file(), periods(ctx, analysis.periods()), 1, 2);
     }
 

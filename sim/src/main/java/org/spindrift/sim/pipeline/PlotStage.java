@@ -1,5 +1,6 @@
 package org.spindrift.sim.pipeline;
 
+import java.io.IOException;
 import java.util.List;
 import org.spindrift.sim.analysis.AnalysisResult;
 import org.spindrift.sim.plot.PlotGuard;
@@ -18,7 +19,7 @@ public final class PlotStage implements RunStage {
         return "plots";
     }
 
-    @Override public void run(RunContext ctx) throws java.io.IOException {
+    @Override public void run(RunContext ctx) throws IOException {
         AnalysisResult analysis = ctx.results().requireAnalysis("the plots");
         PlotGuard guard = RunNotes.guard(ctx);
         for (RunFigure f : FIGURES) {

@@ -7,6 +7,7 @@ import static org.spindrift.sim.pipeline.Charts.circle;
 import static org.spindrift.sim.pipeline.Charts.fmt;
 
 import java.awt.Color;
+import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -14,9 +15,9 @@ import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
-import org.spindrift.sim.analysis.AnalysisResult;
 import org.spindrift.shared.Coordinates;
 import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.sim.analysis.AnalysisResult;
 import org.spindrift.sim.analysis.ShearAnalysis;
 import org.spindrift.sim.analysis.Stats;
 import org.spindrift.sim.history.ParticleHistory;
@@ -27,17 +28,17 @@ import org.spindrift.sim.history.Subsample;
  * times, coloured by r, with the capture radius (or horizon), the ISCO and the Omega-maximum radius.
  */
 final class PositionsFigure implements RunFigure {
+    /** Panel size, chosen so that the plot area is square with the legend at the right. */
+    static final int PANEL_W = 700;
+    static final int PANEL_H = 540;
+
     @Override public String file() {
         return "plots/positions.png";
     }
 
-    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws java.io.IOException {
+    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws IOException {
         Charts.save(ctx, file(), positions(ctx), 2, 2);
     }
-
-    /** Panel size, chosen so that the plot area is square with the legend at the right. */
-    static final int PANEL_W = 700;
-    static final int PANEL_H = 540;
 
     private static List<XYChart> positions(RunContext ctx) {
         ParticleHistory h = ctx.history();

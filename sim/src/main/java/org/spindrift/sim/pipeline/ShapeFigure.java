@@ -6,6 +6,7 @@ import static org.spindrift.sim.pipeline.Charts.chart;
 
 import java.awt.BasicStroke;
 import java.awt.Color;
+import java.io.IOException;
 import java.util.List;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
@@ -24,7 +25,7 @@ final class ShapeFigure implements RunFigure {
         return "plots/shape.png";
     }
 
-    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws java.io.IOException {
+    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws IOException {
         Charts.save(ctx, file(), List.of(shape(ctx, analysis.shapes())), 1, 1);
     }
 
