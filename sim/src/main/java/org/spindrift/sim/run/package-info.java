@@ -3,7 +3,10 @@
  * before any work (memory, disk, image budget), the evolution (integrator, history recorder,
  * motion diagnostics, turning points), checkpoints and the shutdown hook, the manifest, and
  * {@code ScenarioRun}, which runs them and the pipeline's stages in order. Progress goes to a
- * {@code ProgressListener} that the command line provides. Sits above the pipeline; fit, sweeps,
- * studies and the command line use it.
+ * {@code ProgressListener} that the command line provides; the progress-bar look for runs, fits,
+ * sweeps and studies is {@code ProgressBars}.
+ *
+ * Dependencies: may import pipeline, the physics packages (spacetime, motion, history, scenario,
+ * light) and org.spindrift.shared.
  */
 package org.spindrift.sim.run;
