@@ -3,6 +3,7 @@ package org.spindrift.sim.pipeline;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import org.hipparchus.util.FastMath;
+import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.sim.light.EmitterHistory;
 import org.spindrift.sim.light.FrameBudget;
 import org.spindrift.sim.light.FrameMoments;
@@ -19,6 +20,15 @@ import org.spindrift.sim.light.LightStage;
  * object to the manifest and the summary; the {@link LightResult} goes to {@link StageResults#light()}.
  */
 public final class LightRunStage implements RunStage {
+    /** @return the spectral index of each source of a scenario, in its order */
+    public static double[] spectralIndices(Scenario sc) {
+        double[] alpha = new double[sc.sources().size()];
+        for (int k = 0; k < alpha.length; k++) {
+            alpha[k] = sc.sources().get(k).emission().spectralIndex();
+        }
+        return alpha;
+    }
+
     @Override public String name() {
         return "light";
     }
@@ -29,7 +39,7 @@ public final class LightRunStage implements RunStage {
                 ctx.history().snapshots());
         // rays stop where particles do: the capture radius (manifest landmarks.capture_radius)
         double capture = ctx.landmark("capture_radius");
-        EmitterHistory h = new HistoryEmitters(ctx.history(), ctx.scenario().sources());
+        EmitterHistory h = new HistoryEmitters(ctx.history(), spectralIndices(ctx.scenario()));
         if (ctx.progress()) {
             System.err.printf("spindrift: light: tracing %d x %d rays%n", s.pixels(), s.pixels());
         }
