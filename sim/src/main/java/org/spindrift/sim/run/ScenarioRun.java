@@ -126,18 +126,13 @@ public final class ScenarioRun {
         double uasPerM = Units.uasPerM(sc.blackHole().massSolar(), sc.blackHole().distanceMpc());
         SourceSetup.Placed placed = SourceSetup.place(sc, st, capture);
         double[] times = SnapshotGrid.times(ls, secondsPerM, placed.centres()[0].periodM());
-        int s = times.length;
-        double cadence = times[1] - times[0];
         double duration = sc.run().duration().toM(secondsPerM, placed.centres()[0].periodM());
         List<String> warnings = new ArrayList<>();
-        // the grid ends at the last whole cadence: the manifest records both durations; a cut of more
-        // than 1 % of the run is worth a warning (durations in orbits are rarely whole cadences)
-        if (duration - times[s - 1] > DURATION_CUT_WARNING * duration) {
-            warnings.add(ls.error("run.duration", "the duration of " + fmt(duration) + " M is not a whole number of"
-                    + " snapshot cadences (" + fmt(cadence) + " M): the run ends at the last whole one, "
-                    + fmt(times[s - 1]) + " M").getMessage());
+        String cut = SnapshotGrid.cutWarning(ls, duration, times);
+        if (cut != null) {
+            warnings.add(cut);
         }
-        RunLimits.checkMemory(ls, sc.totalParticles(), s, Runtime.getRuntime().maxMemory());
+        RunLimits.checkMemory(ls, sc.totalParticles(), times.length, Runtime.getRuntime().maxMemory());
         RunLimits.checkImaging(ls, sc, uasPerM, times, capture, warnings);
         return new Prepared(ls, st, landmarks, capture, placed, times, secondsPerM, uasPerM, List.copyOf(warnings),
                 duration);
@@ -237,10 +232,4 @@ public final class ScenarioRun {
         }
     }
 
-    /** Fraction of the requested duration lost to whole cadences above which the run warns. */
-    static final double DURATION_CUT_WARNING = 0.01;
-
-    static String fmt(double v) {
-        return SnapshotGrid.fmt(v);
-    }
 }

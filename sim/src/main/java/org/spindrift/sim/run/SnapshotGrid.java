@@ -43,6 +43,27 @@ public final class SnapshotGrid {
         return times;
     }
 
+    /** Fraction of the requested duration lost to whole cadences above which the run warns. */
+    static final double DURATION_CUT_WARNING = 0.01;
+
+    /**
+     * The grid ends at the last whole cadence (the manifest records both durations); a cut of more
+     * than {@link #DURATION_CUT_WARNING} of the run is worth a warning, since durations in orbits
+     * are rarely whole cadences.
+     *
+     * @param duration the duration the scenario asks for, M
+     * @return the warning ({@code FILE:LINE: run.duration: ...}), or null
+     */
+    static String cutWarning(LoadedScenario ls, double duration, double[] times) {
+        int s = times.length;
+        if (duration - times[s - 1] > DURATION_CUT_WARNING * duration) {
+            return ls.error("run.duration", "the duration of " + fmt(duration) + " M is not a whole number of"
+                    + " snapshot cadences (" + fmt(times[1] - times[0]) + " M): the run ends at the last whole one, "
+                    + fmt(times[s - 1]) + " M").getMessage();
+        }
+        return null;
+    }
+
     static String fmt(double v) {
         return String.format(java.util.Locale.ROOT, "%.6g", v);
     }
