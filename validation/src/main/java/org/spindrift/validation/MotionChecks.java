@@ -3,14 +3,10 @@ package org.spindrift.validation;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import org.hipparchus.ode.ODEState;
-import org.hipparchus.ode.OrdinaryDifferentialEquation;
-import org.hipparchus.ode.nonstiff.DormandPrince853Integrator;
-import org.hipparchus.ode.sampling.ODEStateInterpolator;
-import org.hipparchus.ode.sampling.ODEStepHandler;
 import org.hipparchus.util.FastMath;
 import org.spindrift.sim.motion.BatchIntegrator;
 import org.spindrift.sim.motion.GeodesicEquations;
+import org.spindrift.sim.motion.HipparchusOde;
 import org.spindrift.sim.motion.MinoFrequencies;
 import org.spindrift.sim.motion.OrbitElements;
 import org.spindrift.sim.motion.OrbitMeasurement;
@@ -258,38 +254,13 @@ public final class MotionChecks {
 
     /** @return rows (r, theta, phi) at the given times from Hipparchus */
     static double[][] hipparchusTrajectory(Spacetime st, OrbitElements.Solution s, double[] times) {
-        GeodesicEquations eq = new GeodesicEquations(st);
-        double pt = s.start().pT();
-        double pphi = s.start().pPhi();
-        OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
-            @Override public int getDimension() {
-                return 5;
-            }
-
-            @Override public double[] computeDerivatives(double t, double[] y) {
-                double[] dy = new double[5];
-                eq.coordinateTime(pt, pphi, y, 0, dy, 0);
-                return dy;
-            }
-        };
-        DormandPrince853Integrator integ = new DormandPrince853Integrator(1e-10, 1e4, HIPPARCHUS_TOL, HIPPARCHUS_TOL);
-        double[][] out = new double[times.length][3];
-        integ.addStepHandler(new ODEStepHandler() {
-            private int next;
-
-            @Override public void handleStep(ODEStateInterpolator in) {
-                while (next < times.length && times[next] <= in.getCurrentState().getTime()) {
-                    double[] y = in.getInterpolatedState(times[next]).getPrimaryState();
-                    out[next][0] = y[0];
-                    out[next][1] = y[1];
-                    out[next][2] = y[2];
-                    next++;
-                }
-            }
-        });
         var x = s.start();
-        integ.integrate(ode, new ODEState(0, new double[] {x.r(), x.theta(), x.phi(), x.pR(), x.pTheta()}),
-                times[times.length - 1]);
+        double[][] ys = new HipparchusOde(new GeodesicEquations(st), x.pT(), x.pPhi()).sample(0,
+                new double[] {x.r(), x.theta(), x.phi(), x.pR(), x.pTheta()}, times, HIPPARCHUS_TOL, 1e4);
+        double[][] out = new double[times.length][];
+        for (int k = 0; k < times.length; k++) {
+            out[k] = new double[] {ys[k][0], ys[k][1], ys[k][2]};
+        }
         return out;
     }
 

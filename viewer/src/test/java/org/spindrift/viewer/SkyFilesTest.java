@@ -14,12 +14,14 @@ import nom.tam.fits.Header;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.spindrift.shared.UserInputException;
+import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.viewer.sky.CentroidTrack;
 import org.spindrift.viewer.sky.ImageCube;
 
 /**
- * The sky files as the light stage writes them: a FITS cube with a linear time axis in minutes
- * and celestial offsets in degrees, and centroid.csv. World coordinates of pixel p follow the
+ * The sky files as the light stage writes them, read by the viewer through the shared archive
+ * reader: a FITS cube with a linear time axis in minutes and celestial offsets in degrees, and
+ * centroid.csv. World coordinates of pixel p follow the
  * linear WCS rule x = CRVAL + CDELT (p - CRPIX) (Greisen &amp; Calabretta 2002, A&amp;A 395,
  * 1061, eq. 1 and 3 with the unit matrix).
  */
@@ -40,7 +42,7 @@ class SkyFilesTest {
                 }
             }
         }
-        Path file = tmp.resolve("images.fits");
+        Path file = tmp.resolve(ArchiveLayout.IMAGES);
         try (Fits fits = new Fits()) {
             BasicHDU<?> hdu = Fits.makeHDU(cube);
             Header h = hdu.getHeader();
@@ -60,7 +62,7 @@ class SkyFilesTest {
             fits.addHDU(hdu);
             fits.write(file.toFile());
         }
-        try (ImageCube c = ImageCube.open(file, M_SECONDS, 9.8704)) {
+        try (ImageCube c = ImageCube.open(tmp, M_SECONDS)) {
             assertEquals(nx, c.width());
             assertEquals(ny, c.height());
             assertEquals(nf, c.frames());
@@ -81,10 +83,13 @@ class SkyFilesTest {
     }
 
     @Test void centroidTableOfTheLightStage() throws Exception {
-        Path file = tmp.resolve("centroid.csv");
-        Files.writeString(file, "t_obs_min,t_obs_M,x_uas,y_uas,flux,x_with_steady_uas\n"
-                + "1.0,2.0,3.5,-4.0,10,0\n1.5,3.0,NaN,NaN,0,0\n2.0,4.0,-1.0,2.0,12,0\n");
-        CentroidTrack t = CentroidTrack.read(file, M_SECONDS);
+        Path file = tmp.resolve(ArchiveLayout.CENTROID);
+        // the header line of the format document, written out by hand (not taken from our constants)
+        String header = "t_obs_min,t_obs_M,x_uas,y_uas,flux,x_with_steady_uas,y_with_steady_uas,sigma_xx_uas2,"
+                + "sigma_yy_uas2,sigma_xy_uas2\n";
+        Files.writeString(file, header
+                + "1.0,2.0,3.5,-4.0,10,0,0,0,0,0\n1.5,3.0,NaN,NaN,0,0,0,0,0,0\n2.0,4.0,-1.0,2.0,12,0,0,0,0,0\n");
+        CentroidTrack t = CentroidTrack.read(tmp);
         assertEquals(3, t.size());
         assertEquals(2.0, t.t(0), "t_obs_M is taken as is");
         assertEquals(3.5, t.x(0));
@@ -94,11 +99,26 @@ class SkyFilesTest {
         assertEquals(1, t.indexAt(3.5));
         assertEquals(-1, t.indexAt(1.0));
         assertEquals(4.0, t.maxOffset());
-        Files.writeString(file, "t_obs_min,x_uas,y_uas\n1.0,0,0\n");
-        assertEquals(60 / M_SECONDS, CentroidTrack.read(file, M_SECONDS).t(0), 1e-12, "minutes converted to M");
-        Files.writeString(file, "t_obs_M,x_uas,y_uas\n3,0,0\n2,0,0\n");
-        UserInputException e = assertThrows(UserInputException.class, () -> CentroidTrack.read(file, M_SECONDS));
-        assertTrue(e.getMessage().contains("decreases"), e.getMessage());
+        Files.writeString(file, header + "1,3,0,0,1,0,0,0,0,0\n1,2,0,0,1,0,0,0,0,0\n");
+        UserInputException e = assertThrows(UserInputException.class, () -> CentroidTrack.read(tmp));
+        assertTrue(e.getMessage().contains("decreases") && e.getMessage().contains("line 3"), e.getMessage());
         assertFalse(e.getMessage().contains("\n"));
+        // the old invented aliases are not read: one name per column
+        Files.writeString(file, "t_obs,centroid_x_uas,centroid_y_uas\n1,0,0\n");
+        e = assertThrows(UserInputException.class, () -> CentroidTrack.read(tmp));
+        assertTrue(e.getMessage().contains("t_obs_min"), e.getMessage());
+    }
+
+    @Test void cubeInAnotherUnitIsRefused() throws Exception {
+        try (Fits fits = new Fits()) {
+            BasicHDU<?> hdu = Fits.makeHDU(new float[2][4][4]);
+            hdu.getHeader().addValue("CUNIT1", "arcsec", "");
+            hdu.getHeader().addValue("CDELT1", -1e-6, "");
+            hdu.getHeader().addValue("CDELT2", 1e-6, "");
+            fits.addHDU(hdu);
+            fits.write(tmp.resolve(ArchiveLayout.IMAGES).toFile());
+        }
+        UserInputException e = assertThrows(UserInputException.class, () -> ImageCube.open(tmp, M_SECONDS));
+        assertTrue(e.getMessage().contains("CUNIT1") && e.getMessage().contains("deg"), e.getMessage());
     }
 }

@@ -4,18 +4,18 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.util.Locale;
-import nom.tam.fits.BinaryTable;
-import nom.tam.fits.BinaryTableHDU;
 import nom.tam.fits.Fits;
 import nom.tam.fits.FitsException;
 import nom.tam.fits.ImageHDU;
+import org.spindrift.shared.archive.ArchiveColumns;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.RunArchiveWriter;
 
 /**
  * Invented sky products for the synthetic runs (no ray tracing: straight projection onto the
- * observer's screen, flat-space delays), in the shape the viewer reads: centroid.csv with
- * t_obs_M, x_uas, y_uas and images.fits with a frame cube and a table of frame times.
+ * observer's screen, flat-space delays), in the layout the light stage writes
+ * (docs/archive-format.md): centroid.csv with all its columns (no steady source, moments left 0)
+ * and images.fits with a frame cube on a linear time axis in minutes.
  */
 final class SyntheticSky {
     static final int PIX = 64;
@@ -24,7 +24,7 @@ final class SyntheticSky {
     private final double inc;
     private final double pa;
     private final double uasPerM;
-    private final StringBuilder csv = new StringBuilder("t_obs_M,t_obs_min,x_uas,y_uas,flux\n");
+    private final StringBuilder csv = new StringBuilder(ArchiveColumns.header(ArchiveColumns.CENTROID) + "\n");
     private final java.util.List<float[][]> frames = new java.util.ArrayList<>();
     private final java.util.List<Double> frameTimes = new java.util.ArrayList<>();
     private final double mSeconds;
@@ -77,8 +77,8 @@ final class SyntheticSky {
         project(centre[0], centre[1], centre[2], p);
         double tObs = t - p[2];
         if (sw > 0) {
-            csv.append(String.format(Locale.ROOT, "%.6f,%.6f,%.6f,%.6f,%.6g%n", tObs, tObs * mSeconds / 60,
-                    sx / sw, sy / sw, sw));
+            csv.append(String.format(Locale.ROOT, "%.6f,%.6f,%.6f,%.6f,%.6g,%.6f,%.6f,0,0,0%n", tObs * mSeconds / 60,
+                    tObs, sx / sw, sy / sw, sw, sx / sw, sy / sw));
         }
         if (img != null) {
             frames.add(img);
@@ -101,15 +101,17 @@ final class SyntheticSky {
                 img.getHeader().addValue("CDELT2", pixDeg, "deg");
                 img.getHeader().addValue("CRPIX2", PIX / 2.0 + 0.5, "black hole");
                 img.getHeader().addValue("CUNIT2", "deg", "");
+                // a linear time axis through the first and last frame (the invented delays make the
+                // frames nearly, not exactly, evenly spaced)
+                int n = frameTimes.size();
+                double t0 = frameTimes.get(0) * mSeconds / 60;
+                double dt = n > 1 ? (frameTimes.get(n - 1) - frameTimes.get(0)) / (n - 1) * mSeconds / 60 : 1.0;
+                img.getHeader().addValue("CTYPE3", "TIME", "observer time");
+                img.getHeader().addValue("CUNIT3", ArchiveLayout.IMAGE_TIME_UNIT, "");
+                img.getHeader().addValue("CRPIX3", 1.0, "");
+                img.getHeader().addValue("CRVAL3", t0, "");
+                img.getHeader().addValue("CDELT3", dt, "");
                 f.addHDU(img);
-                double[] t = new double[frameTimes.size()];
-                for (int i = 0; i < t.length; i++) {
-                    t[i] = frameTimes.get(i);
-                }
-                BinaryTable table = BinaryTable.fromColumnMajor(new Object[] {t});
-                BinaryTableHDU th = table.toHDU();
-                th.setColumnName(0, "T_OBS_M", "observer time of the frame, M");
-                f.addHDU(th);
                 f.write(tmp.toFile());
             } catch (FitsException e) {
                 throw new IOException(e);

@@ -39,6 +39,10 @@ public final class ArchiveLayout {
     public static final String CLOSURE_AMPLITUDES = "closure_amplitudes.csv";
     /** Visibilities in the random-groups UVFITS layout (interferometry stage). */
     public static final String UVFITS = "visibilities.uvfits";
+    /** CUNIT1 and CUNIT2 of the image cube: sky offsets in degrees (the FITS WCS default). */
+    public static final String IMAGE_SKY_UNIT = "deg";
+    /** CUNIT3 of the image cube: observer time in minutes. */
+    public static final String IMAGE_TIME_UNIT = "min";
     /** Folder of plots. */
     public static final String PLOTS = "plots";
 
@@ -75,6 +79,60 @@ public final class ArchiveLayout {
     public static final byte ESCAPED = 2;
     /** Particle state code: integration failed. */
     public static final byte FAILED = 3;
+
+    /** Manifest key of the per-state particle counts ({@link EndStateName}). */
+    public static final String END_STATES = "end_states";
+
+    /** Name of each particle state code in the manifest's {@code end_states} object. */
+    public enum EndStateName {
+        /** {@link #ALIVE}. */
+        ALIVE(ArchiveLayout.ALIVE),
+        /** {@link #CAPTURED}. */
+        CAPTURED(ArchiveLayout.CAPTURED),
+        /** {@link #ESCAPED}. */
+        ESCAPED(ArchiveLayout.ESCAPED),
+        /** {@link #FAILED}. */
+        FAILED(ArchiveLayout.FAILED);
+
+        private final byte code;
+
+        EndStateName(byte code) {
+            this.code = code;
+        }
+
+        /** @return the code stored in the {@code state} dataset */
+        public byte code() {
+            return code;
+        }
+
+        /** @return the key in the manifest's {@code end_states} object */
+        public String key() {
+            return name().toLowerCase(java.util.Locale.ROOT);
+        }
+    }
+
+    /** Manifest key of the landmark radii object (values in M; a JSON null when absent). */
+    public static final String LANDMARKS = "landmarks";
+    /** Landmark: outer horizon radius. */
+    public static final String LM_HORIZON_OUTER = "horizon_outer";
+    /** Landmark: equatorial radius of the ergosurface. */
+    public static final String LM_ERGOSURFACE_EQUATOR = "ergosurface_equator";
+    /** Landmark: prograde innermost stable circular orbit. */
+    public static final String LM_ISCO_PROGRADE = "isco_prograde";
+    /** Landmark: retrograde innermost stable circular orbit. */
+    public static final String LM_ISCO_RETROGRADE = "isco_retrograde";
+    /** Landmark: prograde circular photon orbit. */
+    public static final String LM_PHOTON_ORBIT_PROGRADE = "photon_orbit_prograde";
+    /** Landmark: retrograde circular photon orbit. */
+    public static final String LM_PHOTON_ORBIT_RETROGRADE = "photon_orbit_retrograde";
+    /** Landmark: prograde marginally bound circular orbit. */
+    public static final String LM_MARGINALLY_BOUND_PROGRADE = "marginally_bound_prograde";
+    /** Landmark: radius of the maximum of the orbital frequency Omega(r), where one exists. */
+    public static final String LM_OMEGA_MAX_RADIUS = "omega_max_radius";
+    /** Landmark: the maximum of Omega(r), 1/M. */
+    public static final String LM_OMEGA_MAX_VALUE = "omega_max_value";
+    /** Landmark: where the run stops particles (horizon + margin, or the surface). */
+    public static final String LM_CAPTURE_RADIUS = "capture_radius";
 
     /** Prefix of a file being written; see {@link AtomicFiles}. */
     public static final String PARTIAL_PREFIX = ".";

@@ -156,7 +156,7 @@ public final class ArchiveVerifier {
         if (!files.isObject()) {
             throw a.problem(RunArchive.typeProblem("files", files, "a mapping of file names to sha256"));
         }
-        files.fields().forEachRemaining(e -> {
+        files.properties().forEach(e -> {
             if (!RunFolders.safeName(e.getKey())) {
                 throw a.problem(ArchiveLayout.MANIFEST + ": files: '" + e.getKey() + "' is not a file name inside the run folder");
             }

@@ -241,7 +241,7 @@ public final class RunArchive implements AutoCloseable {
      *     (landmark absent, for example no horizon) reads as NaN
      */
     public Map<String, Double> landmarks() {
-        return numbers(manifest.path("landmarks"));
+        return numbers(manifest.path(ArchiveLayout.LANDMARKS));
     }
 
     /** @return the diagnostics object of the manifest */
@@ -252,7 +252,7 @@ public final class RunArchive implements AutoCloseable {
     /** @return end-state counts (alive, captured, escaped, failed) */
     public Map<String, Long> endStates() {
         Map<String, Long> out = new LinkedHashMap<>();
-        Iterator<Map.Entry<String, JsonNode>> it = manifest.path("end_states").fields();
+        Iterator<Map.Entry<String, JsonNode>> it = manifest.path(ArchiveLayout.END_STATES).properties().iterator();
         while (it.hasNext()) {
             Map.Entry<String, JsonNode> e = it.next();
             if (e.getValue().isNumber()) {
@@ -275,7 +275,7 @@ public final class RunArchive implements AutoCloseable {
     /** @return the files listed in the manifest with their SHA-256 */
     public Map<String, String> files() {
         Map<String, String> out = new LinkedHashMap<>();
-        manifest.path("files").fields().forEachRemaining(e -> out.put(e.getKey(), e.getValue().asText()));
+        manifest.path("files").properties().forEach(e -> out.put(e.getKey(), e.getValue().asText()));
         return Collections.unmodifiableMap(out);
     }
 
@@ -471,7 +471,7 @@ public final class RunArchive implements AutoCloseable {
 
     private static Map<String, Double> numbers(JsonNode obj) {
         Map<String, Double> out = new LinkedHashMap<>();
-        Iterator<Map.Entry<String, JsonNode>> it = obj.fields();
+        Iterator<Map.Entry<String, JsonNode>> it = obj.properties().iterator();
         while (it.hasNext()) {
             Map.Entry<String, JsonNode> e = it.next();
             JsonNode v = e.getValue();

@@ -246,7 +246,7 @@ public final class RunArchiveWriter {
         m.put("format_version", ArchiveLayout.FORMAT_VERSION);
         m.put("code_version", Version.get());
         m.put("created_utc", Instant.now().truncatedTo(ChronoUnit.SECONDS).toString());
-        body.fields().forEachRemaining(e -> {
+        body.properties().forEach(e -> {
             if (!m.has(e.getKey())) {
                 m.set(e.getKey(), e.getValue());
             }

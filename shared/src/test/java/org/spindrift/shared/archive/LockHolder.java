@@ -7,6 +7,8 @@ public final class LockHolder {
     private LockHolder() {
     }
 
+    // "try": the lock is the try block's whole purpose, held until the block ends, never read
+    @SuppressWarnings("try")
     public static void main(String[] args) throws Exception {
         try (FolderLock l = FolderLock.acquire(Path.of(args[0]))) {
             System.out.println("locked");

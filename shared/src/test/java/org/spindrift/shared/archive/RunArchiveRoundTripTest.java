@@ -42,7 +42,7 @@ class RunArchiveRoundTripTest {
             byte[] st = new byte[N];
             for (int i = 0; i < N; i++) {
                 wt[i] = (float) (0.25 * i + s);
-                st[i] = (byte) (i == 4 && s == 2 ? ArchiveLayout.CAPTURED : ArchiveLayout.ALIVE);
+                st[i] = i == 4 && s == 2 ? ArchiveLayout.CAPTURED : ArchiveLayout.ALIVE;
             }
             sw.add(10.0 * s, c[0], c[1], c[2], c[3], c[4], c[5], c[6], wt, st,
                     new double[][] {{s, 1, 2}, {s, 3, 4}});

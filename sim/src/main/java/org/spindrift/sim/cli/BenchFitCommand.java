@@ -10,6 +10,7 @@ import java.util.Random;
 import java.util.concurrent.Callable;
 import java.util.stream.Stream;
 import org.spindrift.shared.UserInputException;
+import org.spindrift.shared.archive.ArchiveColumns;
 import org.spindrift.sim.fit.FitModel;
 import org.spindrift.sim.fit.FitRun;
 import picocli.CommandLine.Command;
@@ -25,6 +26,9 @@ import picocli.CommandLine.Option;
         description = {"Time the fit engine: one model evaluation of --epochs epochs with the ray table reused and"
                 + " with a new spin (retrace), a 6-parameter least-squares fit, --walkers x --steps sampling."})
 public final class BenchFitCommand implements Callable<Integer> {
+    /** Columns of the synthetic astrometry files (those the fit reads). */
+    private static final java.util.List<String> FIT_COLUMNS = java.util.List.of(ArchiveColumns.T_OBS_MIN,
+            ArchiveColumns.X_UAS, ArchiveColumns.Y_UAS, ArchiveColumns.SIGMA_UAS);
     @Option(names = "--epochs", paramLabel = "N", defaultValue = "100", description = "Data epochs (default: ${DEFAULT-VALUE}).")
     int epochs;
 
@@ -81,7 +85,7 @@ public final class BenchFitCommand implements Callable<Integer> {
         try {
             Files.writeString(dir.resolve("truth.yaml"), SCENARIO);
             // placeholder data at the truth to build the model, then mock data from the model itself
-            StringBuilder csv = new StringBuilder("t_obs_min,x_uas,y_uas,sigma_uas\n");
+            StringBuilder csv = new StringBuilder(ArchiveColumns.header(FIT_COLUMNS) + "\n");
             for (int i = 0; i < epochs; i++) {
                 csv.append(String.format(Locale.ROOT, "%.6f,0,0,1%n", 4.0 + 16.0 * i / (epochs - 1)));
             }
@@ -93,7 +97,7 @@ public final class BenchFitCommand implements Callable<Integer> {
             double[] truth = {8.0, 0.0, 20.0, 1.0e6, 0.3, 0.0};
             FitModel.Prediction pt = new FitModel(p0.fit(), p0.data(), p0.cache()).predict(truth);
             Random rng = new Random(1);
-            csv = new StringBuilder("t_obs_min,x_uas,y_uas,sigma_uas\n");
+            csv = new StringBuilder(ArchiveColumns.header(FIT_COLUMNS) + "\n");
             for (int i = 0; i < epochs; i++) {
                 csv.append(String.format(Locale.ROOT, "%.6f,%.6f,%.6f,2%n", p0.data().timeMin()[i],
                         pt.x()[i] + 2 * rng.nextGaussian(), pt.y()[i] + 2 * rng.nextGaussian()));

@@ -9,6 +9,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import java.util.stream.Stream;
 import org.spindrift.shared.UserInputException;
+import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.scenario.BlackHole;
 import org.spindrift.shared.scenario.Observer;
 import org.spindrift.shared.scenario.Scenario;
@@ -143,7 +144,7 @@ public final class BenchLightCommand implements Callable<Integer> {
                 if (ref != null) {
                     System.out.printf(Locale.ROOT, "  speed-up over the general path: %.2fx wall, %.2fx CPU%n",
                             ref[0] / secs, ref[1] / cpuSecs);
-                    accuracy(p.spacetime(), cam, ts, p.landmarks().get("isco_prograde"));
+                    accuracy(p.spacetime(), cam, ts, p.landmarks().get(ArchiveLayout.LM_ISCO_PROGRADE));
                 }
                 if (n != framePixels) {
                     continue;

@@ -1,22 +1,15 @@
 package org.spindrift.sim.cli;
 
 import java.util.Locale;
-import java.util.SplittableRandom;
 import java.util.concurrent.Callable;
-import org.hipparchus.ode.ODEState;
-import org.hipparchus.ode.OrdinaryDifferentialEquation;
-import org.hipparchus.ode.nonstiff.DormandPrince853Integrator;
-import org.hipparchus.ode.sampling.ODEStateInterpolator;
-import org.hipparchus.ode.sampling.ODEStepHandler;
 import org.hipparchus.util.FastMath;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.sim.motion.BatchIntegrator;
 import org.spindrift.sim.motion.GeodesicEquations;
-import org.spindrift.sim.motion.InitialState;
+import org.spindrift.sim.motion.HipparchusOde;
 import org.spindrift.sim.motion.MotionDiagnostics;
-import org.spindrift.sim.motion.OrbitSetup;
+import org.spindrift.sim.motion.ParticleBall;
 import org.spindrift.sim.motion.ParticleBatch;
-import org.spindrift.sim.motion.ZamoFrame;
 import org.spindrift.sim.spacetime.CircularOrbits;
 import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.MassFunctionSpacetime;
@@ -26,10 +19,10 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 
 /**
- * {@code spindrift bench motion}: a Gaussian ball of test masses around a prograde circular
- * orbit in Kerr, integrated with {@link BatchIntegrator} on 1 and 2 threads, and a subset of
+ * {@code spindrift bench motion}: a Gaussian ball of test masses ({@link ParticleBall}) around a
+ * prograde circular orbit in Kerr, integrated with {@link BatchIntegrator} on 1 and 2 threads, and a subset of
  * the same particles with Hipparchus' DormandPrince853Integrator at the same tolerance, each
- * particle separately with the same snapshot times (dense output through a step handler).
+ * particle separately with the same snapshot times ({@link HipparchusOde#sample}).
  */
 @Command(name = "motion", mixinStandardHelpOptions = true,
         description = {"Time the batched motion integrator: a ball (sigma 0.5 M by default) around the prograde circular"
@@ -91,7 +84,7 @@ public final class BenchMotionCommand implements Callable<Integer> {
         for (int k = 0; k < nSnap; k++) {
             times[k] = tEnd * (k + 1) / nSnap;
         }
-        ParticleBatch initial = ball(st, particles, sigma, 20261201L);
+        ParticleBatch initial = ParticleBall.around(st, R0, sigma, particles, 20261201L);
         BatchIntegrator.Config cfg = BatchIntegrator.Config.of(Landmarks.captureRadius(st))
                 .withTolerance(tolerance, tolerance);
         System.out.printf(Locale.ROOT, "bench motion: %d particles, sigma %.2f M, circular orbit r = %.1f M, a = %.2f,"
@@ -239,68 +232,22 @@ public final class BenchMotionCommand implements Callable<Integer> {
     /** @return {seconds, evaluations, max |H + 1/2|, thread CPU seconds} for the first n particles with Hipparchus */
     private double[] hipparchus(Spacetime st, ParticleBatch b, int n, double[] times, double tol) {
         final GeodesicEquations eq = new GeodesicEquations(st);
-        final long[] evals = {0};
-        final double[] worst = {0};
+        long evals = 0;
+        double worst = 0;
         long t0 = System.nanoTime();
         long c0 = threadCpuNanos();
         for (int i = 0; i < n; i++) {
             final double pt = b.pT(i);
             final double pphi = b.pPhi(i);
-            OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
-                @Override public int getDimension() {
-                    return 5;
-                }
-
-                @Override public double[] computeDerivatives(double t, double[] y) {
-                    double[] dy = new double[5];
-                    eq.coordinateTime(pt, pphi, y, 0, dy, 0);
-                    evals[0]++;
-                    return dy;
-                }
-            };
-            DormandPrince853Integrator integ = new DormandPrince853Integrator(1e-10, 1e4, tol, tol);
-            integ.addStepHandler(new ODEStepHandler() {
-                private int next;
-
-                @Override public void handleStep(ODEStateInterpolator in) {
-                    while (next < times.length && times[next] <= in.getCurrentState().getTime()) {
-                        double[] y = in.getInterpolatedState(times[next]).getPrimaryState();
-                        double h = eq.hamiltonian(y[0], y[1], pt, pphi, y[3], y[4]);
-                        worst[0] = FastMath.max(worst[0], FastMath.abs(h + 0.5));
-                        next++;
-                    }
-                }
-            });
-            integ.integrate(ode, new ODEState(0, new double[] {b.r(i), b.theta(i), b.phi(i), b.pR(i), b.pTheta(i)}),
-                    times[times.length - 1]);
+            HipparchusOde ode = new HipparchusOde(new GeodesicEquations(st), pt, pphi);
+            double[][] ys = ode.sample(0, new double[] {b.r(i), b.theta(i), b.phi(i), b.pR(i), b.pTheta(i)}, times,
+                    tol, 1e4);
+            for (double[] y : ys) {
+                double h = eq.hamiltonian(y[0], y[1], pt, pphi, y[3], y[4]);
+                worst = FastMath.max(worst, FastMath.abs(h + 0.5));
+            }
+            evals += ode.evaluations();
         }
-        return new double[] {(System.nanoTime() - t0) * 1e-9, evals[0], worst[0], (threadCpuNanos() - c0) * 1e-9};
-    }
-
-    /** A Gaussian ball around (R0, equator, phi = 0), every member with the centre's ZAMO velocity. */
-    static ParticleBatch ball(Spacetime st, int n, double sigma, long seed) {
-        InitialState c = OrbitSetup.circular(st, R0, true, 0.0);
-        ZamoFrame z = new ZamoFrame(st);
-        double[] v = new double[3];
-        z.localVelocity(c.r(), c.theta(), c.pT(), c.pR(), c.pTheta(), c.pPhi(), v);
-        SplittableRandom rnd = new SplittableRandom(seed);
-        ParticleBatch b = new ParticleBatch(n);
-        double[] p = new double[4];
-        for (int i = 0; i < n; i++) {
-            double x = R0 + sigma * gauss(rnd);
-            double y = sigma * gauss(rnd);
-            double zz = sigma * gauss(rnd);
-            double r = FastMath.sqrt(x * x + y * y + zz * zz);
-            double th = FastMath.acos(zz / r);
-            double ph = FastMath.atan2(y, x);
-            z.momentum(r, th, 0, 0, v[2], p);
-            b.set(i, 0.0, r, th, ph, p[0], p[1], p[2], p[3]);
-        }
-        return b;
-    }
-
-    /** Box-Muller normal deviate (Box &amp; Muller 1958, Ann. Math. Stat. 29, 610). */
-    private static double gauss(SplittableRandom rnd) {
-        return FastMath.sqrt(-2 * FastMath.log(1 - rnd.nextDouble())) * FastMath.cos(2 * FastMath.PI * rnd.nextDouble());
+        return new double[] {(System.nanoTime() - t0) * 1e-9, evals, worst, (threadCpuNanos() - c0) * 1e-9};
     }
 }

@@ -10,6 +10,7 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import org.spindrift.shared.UserInputException;
+import org.spindrift.shared.archive.ArchiveColumns;
 
 /**
  * Measured data of a fit, read from CSV files with a header row (columns in configs/README.md):
@@ -29,7 +30,7 @@ import org.spindrift.shared.UserInputException;
 public record FitData(double[] timeMin, double[] x, double[] y, double[] sx, double[] sy, double[] rho,
                       double[] fluxTimeMin, double[] flux, double[] sflux) {
     /** Time columns accepted, with their factor to minutes. */
-    private static final String[] TIME_COLUMNS = {"t_obs_min", "t_obs_s", "t_obs_h", "t_obs_d"};
+    private static final String[] TIME_COLUMNS = {ArchiveColumns.T_OBS_MIN, "t_obs_s", "t_obs_h", "t_obs_d"};
     private static final double[] TIME_FACTORS = {1.0, 1.0 / 60.0, 60.0, 1440.0};
 
     /** @return the number of residuals (two per astrometric epoch, one per flux point) */
@@ -47,11 +48,11 @@ public record FitData(double[] timeMin, double[] x, double[] y, double[] sx, dou
     public static FitData read(Path astrometry, Path photometry, double fluxError) {
         Table a = Table.read(astrometry);
         double[] t = a.time();
-        double[] x = a.column("x_uas", true);
-        double[] y = a.column("y_uas", true);
+        double[] x = a.column(ArchiveColumns.X_UAS, true);
+        double[] y = a.column(ArchiveColumns.Y_UAS, true);
         double[] sx, sy;
-        if (a.has("sigma_uas")) {
-            sx = a.sigma("sigma_uas");
+        if (a.has(ArchiveColumns.SIGMA_UAS)) {
+            sx = a.sigma(ArchiveColumns.SIGMA_UAS);
             sy = sx.clone();
         } else if (a.has("sigma_x_uas") || a.has("sigma_y_uas")) {
             sx = a.sigma("sigma_x_uas");
@@ -192,12 +193,13 @@ public record FitData(double[] timeMin, double[] x, double[] y, double[] sx, dou
                 }
             }
             throw error(1, "header", "needs an observer-time column with its unit: " + String.join(", ", TIME_COLUMNS)
-                    + (has("t_obs_M") ? " (t_obs_M alone is not enough: M depends on the fitted mass)" : ""));
+                    + (has(ArchiveColumns.T_OBS_M) ? " (t_obs_M alone is not enough: M depends on the fitted mass)" : ""));
         }
 
         /** @return the flux column (flux_with_steady preferred, as a run's lightcurve.csv has it), or null */
         String fluxColumn() {
-            return has("flux_with_steady") ? "flux_with_steady" : has("flux") ? "flux" : null;
+            return has(ArchiveColumns.FLUX_WITH_STEADY) ? ArchiveColumns.FLUX_WITH_STEADY
+                    : has(ArchiveColumns.FLUX) ? ArchiveColumns.FLUX : null;
         }
 
         double[] fluxSigma(double[] f, double relative) {

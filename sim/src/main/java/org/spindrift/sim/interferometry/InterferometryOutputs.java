@@ -16,6 +16,7 @@ import nom.tam.fits.Header;
 import nom.tam.fits.RandomGroupsHDU;
 import org.hipparchus.util.FastMath;
 import org.spindrift.shared.Version;
+import org.spindrift.shared.archive.ArchiveColumns;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.sim.light.LightOutputs;
 
@@ -36,15 +37,11 @@ public final class InterferometryOutputs {
     public static final String VISIBILITIES = ArchiveLayout.VISIBILITIES, CLOSURE_PHASES = ArchiveLayout.CLOSURE_PHASES,
             CLOSURE_AMPLITUDES = ArchiveLayout.CLOSURE_AMPLITUDES, UVFITS = ArchiveLayout.UVFITS;
     /** Header of visibilities.csv. */
-    public static final String VIS_HEADER = "t_obs_min,t_obs_M,frame,scan,station1,station2,u_lambda,v_lambda,w_lambda,"
-            + "baseline_lambda,elevation1_deg,elevation2_deg,re_jy,im_jy,amp_jy,phase_deg,sigma_jy,model_re_jy,"
-            + "model_im_jy";
+    public static final String VIS_HEADER = ArchiveColumns.header(ArchiveColumns.VISIBILITIES);
     /** Header of closure_phases.csv. */
-    public static final String CP_HEADER = "t_obs_min,t_obs_M,frame,station1,station2,station3,closure_phase_deg,"
-            + "sigma_deg,model_deg,steady_deg,steady_sigma_deg";
+    public static final String CP_HEADER = ArchiveColumns.header(ArchiveColumns.CLOSURE_PHASES);
     /** Header of closure_amplitudes.csv. */
-    public static final String CA_HEADER = "t_obs_min,t_obs_M,frame,station1,station2,station3,station4,numerator,"
-            + "denominator,log_closure_amp,sigma,model,steady,steady_sigma";
+    public static final String CA_HEADER = ArchiveColumns.header(ArchiveColumns.CLOSURE_AMPLITUDES);
     /** Nominal Julian date of observer time zero (2000-01-01 12:00; the array's time is set by the sidereal time). */
     public static final double EPOCH_JD = 2451545.0;
 

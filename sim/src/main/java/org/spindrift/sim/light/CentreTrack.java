@@ -115,7 +115,7 @@ public final class CentreTrack implements EmitterHistory {
                 tr.ur[s][idx] = u1;
                 tr.uth[s][idx] = u2;
                 tr.uph[s][idx] = u3;
-                tr.state[s][idx] = (byte) snap.stateCode(s);
+                tr.state[s][idx] = snap.stateCode(s);
                 // Cartesian map of Boyer-Lindquist coordinates, x = sqrt(r^2 + a^2) sin(theta) cos(phi), ...
                 // (Boyer & Lindquist 1967, J. Math. Phys. 8, 265; from memory), and its coordinate-time derivative
                 double big = FastMath.sqrt(rr * rr + a2);

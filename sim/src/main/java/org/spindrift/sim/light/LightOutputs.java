@@ -13,6 +13,7 @@ import nom.tam.fits.Fits;
 import nom.tam.fits.FitsException;
 import nom.tam.fits.Header;
 import org.spindrift.shared.Version;
+import org.spindrift.shared.archive.ArchiveColumns;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.AtomicFiles;
 
@@ -40,12 +41,11 @@ public final class LightOutputs {
     public static final String SPIN_PA_CARD = "SPINPA";
 
     /** Header of centroid.csv. */
-    public static final String CENTROID_HEADER = "t_obs_min,t_obs_M,x_uas,y_uas,flux,x_with_steady_uas,"
-            + "y_with_steady_uas,sigma_xx_uas2,sigma_yy_uas2,sigma_xy_uas2";
+    public static final String CENTROID_HEADER = ArchiveColumns.header(ArchiveColumns.CENTROID);
     /** Header of lightcurve.csv. */
-    public static final String LIGHTCURVE_HEADER = "t_obs_min,t_obs_M,flux,flux_with_steady,flux_over_mean";
+    public static final String LIGHTCURVE_HEADER = ArchiveColumns.header(ArchiveColumns.LIGHTCURVE);
     /** Header of mock_astrometry.csv. */
-    public static final String MOCK_HEADER = "t_obs_min,t_obs_M,x_uas,y_uas,sigma_uas";
+    public static final String MOCK_HEADER = ArchiveColumns.header(ArchiveColumns.MOCK_ASTROMETRY);
 
     private LightOutputs() {
     }
@@ -154,9 +154,9 @@ public final class LightOutputs {
             h.addValue("CTYPE1", OFFSET_CTYPE1, "east offset from the black hole (CRVAL = 0,0)");
             h.addValue("CTYPE2", OFFSET_CTYPE2, "north offset from the black hole");
             h.addValue("CTYPE3", "TIME", "observer time");
-            h.addValue("CUNIT1", "deg", "");
-            h.addValue("CUNIT2", "deg", "");
-            h.addValue("CUNIT3", "min", "");
+            h.addValue("CUNIT1", ArchiveLayout.IMAGE_SKY_UNIT, "");
+            h.addValue("CUNIT2", ArchiveLayout.IMAGE_SKY_UNIT, "");
+            h.addValue("CUNIT3", ArchiveLayout.IMAGE_TIME_UNIT, "");
             h.addValue("CRPIX1", 0.5 * (n + 1), "black hole at the image centre");
             h.addValue("CRPIX2", 0.5 * (n + 1), "black hole at the image centre");
             h.addValue("CRPIX3", 1.0, "");

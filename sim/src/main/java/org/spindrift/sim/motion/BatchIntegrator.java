@@ -7,14 +7,16 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.Supplier;
 import org.hipparchus.util.FastMath;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
  * Advances a {@link ParticleBatch} of test masses in coordinate time with the adaptive
  * Dormand-Prince 8(5,3) method ({@link Dop853}; Dormand &amp; Prince 1980; Hairer, Norsett &amp;
- * Wanner 1993), calling {@link GeodesicEquations#coordinateTime} for the right-hand side. It
- * knows nothing about black holes beyond two radii that end a trajectory.
+ * Wanner 1993). It sees the physics only through {@link BatchEquations} (by default the
+ * coordinate-time {@link GeodesicEquations}, one instance per worker) and two terminal
+ * {@link EventFunction}s built from the radii of {@link Config}.
  *
  * <p>Design:
  * <ul>
@@ -28,9 +30,10 @@ import org.spindrift.sim.spacetime.Spacetime;
  *   <li>Each worker owns a {@link ParticleStepper} with the stage scratch (16 stages x 5
  *       doubles); the batch keeps only {@link ParticleBatch#BYTES_PER_PARTICLE} bytes per
  *       particle plus the snapshot buffer (5 doubles and a byte). Nothing is allocated per step.</li>
- *   <li>End states: captured when r falls below {@link Config#captureRadius} (outer horizon +
- *       delta, or the surface radius of a horizonless object), escaped when r exceeds
- *       {@link Config#escapeRadius}, both located on the continuous extension by bisection;
+ *   <li>End states: captured when the event function g = r - {@link Config#captureRadius}
+ *       (outer horizon + delta, or the surface radius of a horizonless object) turns negative,
+ *       escaped when g = {@link Config#escapeRadius} - r does; the sign change is located on
+ *       the continuous extension with the shared root finder ({@link DenseStep#locate});
  *       failed when a non-finite value or dt/dlambda &lt;= 0 persists as the step shrinks below
  *       {@link Config#minStep}, or the step budget runs out.</li>
  * </ul>
@@ -105,11 +108,22 @@ public final class BatchIntegrator {
         }
     }
 
-    private final Spacetime spacetime;
+    private final Supplier<? extends BatchEquations> equations;
     private final Config config;
 
+    /** Geodesics of the spacetime in coordinate time ({@link GeodesicEquations}). */
     public BatchIntegrator(Spacetime spacetime, Config config) {
-        this.spacetime = spacetime;
+        this(() -> new GeodesicEquations(spacetime), config);
+    }
+
+    /**
+     * @param equations makes one instance of the equations per worker thread (an instance may
+     *     keep scratch space); their dimension must be {@link GeodesicEquations#DIM_T}, the
+     *     layout of {@link ParticleBatch}
+     * @param config the settings
+     */
+    public BatchIntegrator(Supplier<? extends BatchEquations> equations, Config config) {
+        this.equations = equations;
         this.config = config;
     }
 
@@ -204,6 +218,10 @@ public final class BatchIntegrator {
         private final long[] acc;
         private final long[] rej;
         private final ParticleStepper st;
+        /** Terminal events, checked in this order at the end of every accepted step. */
+        private final EventFunction[] terminal;
+        /** The end state each terminal event leads to. */
+        private final EndState[] outcome = {EndState.CAPTURED, EndState.ESCAPED};
 
         Worker(ParticleBatch b, Snapshot snap, double[] times, StepListener listener, long[] evals, long[] acc,
                long[] rej) {
@@ -214,8 +232,12 @@ public final class BatchIntegrator {
             this.evals = evals;
             this.acc = acc;
             this.rej = rej;
-            this.st = new ParticleStepper(new GeodesicEquations(spacetime), config.absTol(), config.relTol(),
+            this.st = new ParticleStepper(equations.get(), config.absTol(), config.relTol(),
                     config.minStep(), config.maxStep());
+            this.terminal = new EventFunction[] {
+                EventFunction.above(GeodesicEquations.R, config.captureRadius()),
+                EventFunction.below(GeodesicEquations.R, config.escapeRadius()),
+            };
         }
 
         void run(int k, AtomicInteger next, int nChunks) {
@@ -299,8 +321,6 @@ public final class BatchIntegrator {
                 }
                 hh = st.initialStep();
             }
-            final double rCap = config.captureRadius();
-            final double rEsc = config.escapeRadius();
             long steps = 0;
             while (true) {
                 final double room = limit - t;
@@ -335,10 +355,9 @@ public final class BatchIntegrator {
                 if (listener != null) {
                     listener.step(i, st);
                 }
-                final double rNew = st.end(GeodesicEquations.R);
-                if (rNew < rCap || rNew > rEsc) {
-                    final boolean captured = rNew < rCap;
-                    final double tEnd = crossing(captured ? rCap : rEsc, t, tNew);
+                final int ev = firedEvent();
+                if (ev >= 0) {
+                    final double tEnd = st.locate(terminal[ev], tNew);
                     boolean wrote = false;
                     if (target < tEnd) {
                         writeDense(i, target);
@@ -349,7 +368,7 @@ public final class BatchIntegrator {
                     b.ph[i] = st.at(GeodesicEquations.PH, tEnd);
                     b.pr[i] = st.at(GeodesicEquations.PR, tEnd);
                     b.pth[i] = st.at(GeodesicEquations.PTH, tEnd);
-                    end(i, captured ? EndState.CAPTURED : EndState.ESCAPED, Failure.NONE, tEnd);
+                    end(i, outcome[ev], Failure.NONE, tEnd);
                     if (!wrote) {
                         writeState(i);
                     }
@@ -388,22 +407,14 @@ public final class BatchIntegrator {
             }
         }
 
-        /** Time in [ta, tb] where r crosses rc on the continuous extension (bisection). */
-        private double crossing(double rc, double ta, double tb) {
-            double lo = ta;
-            double hi = tb;
-            double gLo = st.start(GeodesicEquations.R) - rc;
-            for (int it = 0; it < 200 && hi - lo > 2 * FastMath.ulp(hi); it++) {
-                double mid = 0.5 * (lo + hi);
-                double g = st.at(GeodesicEquations.R, mid) - rc;
-                if ((g > 0) == (gLo > 0)) {
-                    lo = mid;
-                    gLo = g;
-                } else {
-                    hi = mid;
+        /** @return the index of the first terminal event whose g is negative at the end of the step, or -1 */
+        private int firedEvent() {
+            for (int e = 0; e < terminal.length; e++) {
+                if (st.gEnd(terminal[e]) < 0.0) {
+                    return e;
                 }
             }
-            return hi;
+            return -1;
         }
     }
 }

@@ -24,4 +24,23 @@ public interface DenseStep {
      * costs three extra right-hand-side evaluations; later calls are polynomial evaluations.
      */
     double at(int c, double t);
+
+    /** @return g(t0, y(t0)) of an event function at the start of the step */
+    double gStart(EventFunction g);
+
+    /** @return g(t1, y(t1)) of an event function at the end of the step */
+    double gEnd(EventFunction g);
+
+    /**
+     * Locates the sign change of g inside the step on the continuous extension with the shared
+     * bisection ({@link org.spindrift.sim.numerics.BracketedRoot#locate}), g(t0) and g(t1)
+     * lying on different sides.
+     *
+     * @return the end of the final bracket (at most two ulps wide) past the sign change;
+     *     {@link #locatedBefore} gives the other end
+     */
+    double locate(EventFunction g);
+
+    /** @return the end of the last {@link #locate} bracket before the sign change */
+    double locatedBefore();
 }

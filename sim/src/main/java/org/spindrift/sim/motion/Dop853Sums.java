@@ -7,7 +7,10 @@ package org.spindrift.sim.motion;
  * coefficients as constants. Generated once from the tableau's zero pattern, which the static
  * initialiser checks. Why: the loops over the tableau rows (a branch per term, loads of
  * coefficients and offsets) were about a third of {@link ParticleStepper}'s time in the
- * {@code bench motion} profile (JFR, measured, no source). Stage scratch layout: k[i * 5 + c].
+ * {@code bench motion} profile (JFR, measured, no source); and a loop over the five components
+ * around the written-out terms (here and in {@link ParticleStepper#attempt}) still cost 5 to 7 %
+ * of its thread CPU time (three alternating runs each, measured, no source), so the components
+ * are written out too. Stage scratch layout: k[i * 5 + c].
  */
 final class Dop853Sums {
     private Dop853Sums() {

@@ -25,8 +25,11 @@ import org.spindrift.sim.spacetime.Trig;
  * <p>For the Kerr-like {@link MassFunctionSpacetime} the coordinate-time form uses Carter's
  * separated Hamiltonian instead of the 15 metric components (same equations, about half the
  * arithmetic; see {@link #coordinateTimeSeparated}).
+ *
+ * <p>As {@link BatchEquations} (what the batch integrator sees) the equations are the
+ * coordinate-time form with the constants (c0, c1) = (p_t, p_phi).
  */
-public final class GeodesicEquations {
+public final class GeodesicEquations implements BatchEquations {
     /** State index of r in the coordinate-time form. */
     public static final int R = 0;
     /** State index of theta in the coordinate-time form. */
@@ -57,6 +60,16 @@ public final class GeodesicEquations {
         this.spacetime = spacetime;
         this.mass = separated && spacetime instanceof MassFunctionSpacetime m ? m.massFunction() : null;
         this.a = spacetime.spin();
+    }
+
+    /** @return {@link #DIM_T}: the coordinate-time state (r, theta, phi, p_r, p_theta) */
+    @Override public int dimension() {
+        return DIM_T;
+    }
+
+    /** The coordinate-time form: {@link #coordinateTime} with c0 = p_t, c1 = p_phi. */
+    @Override public double derivatives(double c0, double c1, double[] y, int yOff, double[] dy, int dyOff) {
+        return coordinateTime(c0, c1, y, yOff, dy, dyOff);
     }
 
     /** @return the spacetime */

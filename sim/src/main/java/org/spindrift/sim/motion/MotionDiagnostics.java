@@ -41,7 +41,7 @@ public final class MotionDiagnostics implements SnapshotSink {
 
     @Override public void accept(int index, double t, Snapshot s) {
         for (int i = 0; i < s.size(); i++) {
-            if (s.stateCode(i) != 0) {
+            if (s.stateCode(i) != EndState.ALIVE.code()) {
                 continue;
             }
             double h = eq.hamiltonian(s.r(i), s.theta(i), s.pT(i), s.pPhi(i), s.pR(i), s.pTheta(i));

@@ -11,45 +11,29 @@ import java.util.Arrays;
  * the step size is set, h &gt; 0) and its end state. That is {@value #BYTES_PER_PARTICLE} bytes
  * per particle; the stage scratch of the Runge-Kutta method lives in the worker threads, not
  * here. When a particle has ended, t is the time at which it ended and the state is the state
- * there.
+ * there. Readers that need no more than the state see it as a {@link ParticleView}.
  */
-public final class ParticleBatch {
+public final class ParticleBatch extends ParticleColumns {
     /** Bytes of integrator state per particle: 14 doubles and 2 bytes. */
     public static final int BYTES_PER_PARTICLE = (9 + GeodesicEquations.DIM_T) * Double.BYTES + 2;
 
-    final double[] r;
-    final double[] th;
-    final double[] ph;
-    final double[] pr;
-    final double[] pth;
     final double[] pt;
     final double[] pphi;
     final double[] t;
     final double[] h;
     /** d/dt of (r, theta, phi, p_r, p_theta) at time t, particle i at [5 i .. 5 i + 4]; valid when h[i] &gt; 0. */
     final double[] dy;
-    final byte[] state;
     final byte[] failure;
 
     /** @param n number of particles, all initially unset (r = 0, alive) */
     public ParticleBatch(int n) {
-        r = new double[n];
-        th = new double[n];
-        ph = new double[n];
-        pr = new double[n];
-        pth = new double[n];
+        super(n);
         pt = new double[n];
         pphi = new double[n];
         t = new double[n];
         h = new double[n];
         dy = new double[GeodesicEquations.DIM_T * n];
-        state = new byte[n];
         failure = new byte[n];
-    }
-
-    /** @return the number of particles */
-    public int size() {
-        return r.length;
     }
 
     /**
@@ -111,41 +95,17 @@ public final class ParticleBatch {
         set(i, t0, s.r(), s.theta(), s.phi(), s.pT(), s.pR(), s.pTheta(), s.pPhi());
     }
 
-    public double r(int i) {
-        return r[i];
-    }
-
-    public double theta(int i) {
-        return th[i];
-    }
-
-    public double phi(int i) {
-        return ph[i];
-    }
-
-    public double pR(int i) {
-        return pr[i];
-    }
-
-    public double pTheta(int i) {
-        return pth[i];
-    }
-
-    public double pT(int i) {
+    @Override public double pT(int i) {
         return pt[i];
     }
 
-    public double pPhi(int i) {
+    @Override public double pPhi(int i) {
         return pphi[i];
     }
 
     /** @return the particle's own time: end of its last step, or the time it ended */
     public double time(int i) {
         return t[i];
-    }
-
-    public EndState endState(int i) {
-        return EndState.ofCode(state[i]);
     }
 
     public Failure failure(int i) {

@@ -1,17 +1,22 @@
 package org.spindrift.sim.motion;
 
+import java.util.function.DoubleUnaryOperator;
 import org.hipparchus.util.FastMath;
+import org.spindrift.sim.numerics.BracketedRoot;
 
 /**
  * Adaptive DOP853 stepping of one particle at a time in coordinate time (tableau:
  * {@link Dop853}; error norm and step-size control as in Hairer, Norsett &amp; Wanner 1993,
- * section II.4 and II.10). One instance per worker thread: it owns the stage scratch (16 x 5
- * doubles) so the particles themselves only keep their state; nothing is allocated per step.
+ * section II.4 and II.10) of the members of a batch whose equations are given as
+ * {@link BatchEquations}; it knows nothing else about them. One instance per worker thread: it
+ * owns the stage scratch (16 x 5 doubles) so the particles themselves only keep their state;
+ * nothing is allocated per step. Event functions are located on the continuous extension of an
+ * accepted step with the shared {@link BracketedRoot}.
  */
 final class ParticleStepper implements DenseStep {
     private static final int N = GeodesicEquations.DIM_T;
 
-    private final GeodesicEquations eq;
+    private final BatchEquations eq;
     private final double atol;
     private final double rtol;
     private final double minStep;
@@ -22,6 +27,10 @@ final class ParticleStepper implements DenseStep {
     private final double[] y1 = new double[N];
     private final double[] yt = new double[N];
     private final double[] rc = new double[7 * N];
+    /** State on the continuous extension at an event probe. */
+    private final double[] yq = new double[N];
+    private final BracketedRoot root = new BracketedRoot();
+    private final EventProbe probe = new EventProbe();
 
     private double pt;
     private double pphi;
@@ -36,7 +45,15 @@ final class ParticleStepper implements DenseStep {
     /** Why the last {@link #attempt} failed, when it returned a failure. */
     Failure lastFailure = Failure.NONE;
 
-    ParticleStepper(GeodesicEquations eq, double atol, double rtol, double minStep, double maxStep) {
+    /**
+     * @param eq the equations; their dimension must be 5 (the stage sums are unrolled for the
+     *     coordinate-time geodesic state)
+     */
+    ParticleStepper(BatchEquations eq, double atol, double rtol, double minStep, double maxStep) {
+        if (eq.dimension() != N) {
+            throw new IllegalArgumentException("the stepper is unrolled for dimension " + N + ", got "
+                    + eq.dimension());
+        }
         this.eq = eq;
         this.atol = atol;
         this.rtol = rtol;
@@ -90,7 +107,7 @@ final class ParticleStepper implements DenseStep {
 
     private double rhs(double[] y, int stage) {
         evaluations++;
-        return eq.coordinateTime(pt, pphi, y, 0, k, stage * N);
+        return eq.derivatives(pt, pphi, y, 0, k, stage * N);
     }
 
     /**
@@ -247,7 +264,7 @@ final class ParticleStepper implements DenseStep {
      * @return Failure.NONE, or why the new point is unusable (the caller then rejects the step)
      */
     Failure finishAccepted() {
-        double tDot = eq.coordinateTime(pt, pphi, y1, 0, k, 12 * N);
+        double tDot = eq.derivatives(pt, pphi, y1, 0, k, 12 * N);
         evaluations++;
         Failure f = check(tDot);
         return f == Failure.NONE && !derivativeFinite(12) ? Failure.NON_FINITE : f;
@@ -329,5 +346,42 @@ final class ParticleStepper implements DenseStep {
         v = rc[N + c] + s * v;
         v = rc[c] + s1 * v;
         return y0[c] + s * v;
+    }
+
+    @Override public double gStart(EventFunction g) {
+        return g.g(t0, y0, 0);
+    }
+
+    @Override public double gEnd(EventFunction g) {
+        return g.g(t0 + h, y1, 0);
+    }
+
+    @Override public double locate(EventFunction g) {
+        return locate(g, t0 + h);
+    }
+
+    /**
+     * {@link #locate(EventFunction)} with the end of the bracket given: the integrator's step
+     * may end exactly on a snapshot time that t0 + h misses by rounding.
+     */
+    double locate(EventFunction g, double tEnd) {
+        probe.g = g;
+        return root.locate(probe, t0, g.g(t0, y0, 0), tEnd);
+    }
+
+    @Override public double locatedBefore() {
+        return root.before();
+    }
+
+    /** g(t, y(t)) on the continuous extension, for the root finder (one per stepper, no allocation). */
+    private final class EventProbe implements DoubleUnaryOperator {
+        private EventFunction g;
+
+        @Override public double applyAsDouble(double t) {
+            for (int c = 0; c < N; c++) {
+                yq[c] = at(c, t);
+            }
+            return g.g(t, yq, 0);
+        }
     }
 }

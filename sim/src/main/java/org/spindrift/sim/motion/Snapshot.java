@@ -1,68 +1,26 @@
 package org.spindrift.sim.motion;
 
 /**
- * Read-only view of all particles at one snapshot time: the state interpolated with the
+ * Read-only view ({@link ParticleView}) of all particles at one snapshot time: the state interpolated with the
  * integrator's continuous extension for alive particles, the final state (at
  * {@link #endTime}) for particles that have ended. Indexing is the {@link ParticleBatch}'s.
  */
-public final class Snapshot {
-    final double[] r;
-    final double[] th;
-    final double[] ph;
-    final double[] pr;
-    final double[] pth;
+public final class Snapshot extends ParticleColumns {
     private final ParticleBatch batch;
-    final byte[] state;
 
     Snapshot(ParticleBatch batch) {
-        int n = batch.size();
+        super(batch.size());
         this.batch = batch;
-        r = new double[n];
-        th = new double[n];
-        ph = new double[n];
-        pr = new double[n];
-        pth = new double[n];
-        state = new byte[n];
-    }
-
-    /** @return the number of particles */
-    public int size() {
-        return r.length;
-    }
-
-    public double r(int i) {
-        return r[i];
-    }
-
-    public double theta(int i) {
-        return th[i];
-    }
-
-    public double phi(int i) {
-        return ph[i];
-    }
-
-    public double pR(int i) {
-        return pr[i];
-    }
-
-    public double pTheta(int i) {
-        return pth[i];
     }
 
     /** @return the conserved p_t = -E of particle i */
-    public double pT(int i) {
+    @Override public double pT(int i) {
         return batch.pt[i];
     }
 
     /** @return the conserved p_phi = L of particle i */
-    public double pPhi(int i) {
+    @Override public double pPhi(int i) {
         return batch.pphi[i];
-    }
-
-    /** @return the end state at the snapshot time */
-    public EndState endState(int i) {
-        return EndState.ofCode(state[i]);
     }
 
     /** @return the archive code of the end state (0 alive, 1 captured, 2 escaped, 3 failed) */

@@ -4,9 +4,10 @@ import java.util.Arrays;
 
 /**
  * Event detection on the continuous extension of single-particle steps (a {@link StepListener}
- * for one particle index): periapsis passages as the g-function p_r rising through zero and
- * polar turning points at the northern extreme of theta as p_theta rising through zero; each
- * located by bisection on the 7th-order dense output to the resolution of t.
+ * for one particle index): periapsis passages as the event function g = p_r rising through zero
+ * and polar turning points at the northern extreme of theta as g = p_theta rising through zero;
+ * each located on the 7th-order dense output with the shared root finder
+ * ({@link DenseStep#locate}) to the resolution of t, the middle of the final bracket.
  *
  * <p>Conditioning: near a circular orbit p_r stays close to zero (its amplitude is of order e),
  * so a periapsis time is determined only to about (error of p_r) / (dp_r/dt), which grows like
@@ -15,6 +16,11 @@ import java.util.Arrays;
  * inclination. Results are recorded in growable arrays (amortised, not per step).
  */
 public final class TurningPoints implements StepListener {
+    /** g = p_r: rises through zero at periapsis. */
+    private static final EventFunction PERIAPSIS = EventFunction.above(GeodesicEquations.PR, 0.0);
+    /** g = p_theta: rises through zero at the northern extreme of theta. */
+    private static final EventFunction POLAR = EventFunction.above(GeodesicEquations.PTH, 0.0);
+
     private final int particle;
     private double[] periT = new double[16];
     private double[] periR = new double[16];
@@ -85,32 +91,28 @@ public final class TurningPoints implements StepListener {
         if (i != particle) {
             return;
         }
-        if (s.start(GeodesicEquations.PR) < 0.0 && s.end(GeodesicEquations.PR) >= 0.0) {
-            double t = root(s, GeodesicEquations.PR);
+        if (rising(s, PERIAPSIS)) {
+            double t = root(s, PERIAPSIS);
             addPeriapsis(t, s.at(GeodesicEquations.R, t), s.at(GeodesicEquations.TH, t),
                     s.at(GeodesicEquations.PH, t));
         }
-        if (s.start(GeodesicEquations.PTH) < 0.0 && s.end(GeodesicEquations.PTH) >= 0.0) {
+        if (rising(s, POLAR)) {
             if (nPolar == polarT.length) {
                 polarT = Arrays.copyOf(polarT, 2 * nPolar);
             }
-            polarT[nPolar++] = root(s, GeodesicEquations.PTH);
+            polarT[nPolar++] = root(s, POLAR);
         }
     }
 
-    /** Bisection for the rising zero of component c in [t0, t1] (g(t0) &lt; 0 &lt;= g(t1)). */
-    private static double root(DenseStep s, int c) {
-        double lo = s.t0();
-        double hi = s.t1();
-        for (int it = 0; it < 200 && hi - lo > 2 * Math.ulp(hi); it++) {
-            double mid = 0.5 * (lo + hi);
-            if (s.at(c, mid) < 0.0) {
-                lo = mid;
-            } else {
-                hi = mid;
-            }
-        }
-        return 0.5 * (lo + hi);
+    /** @return true when g rises through zero in the step: g(t0) &lt; 0 &lt;= g(t1) */
+    private static boolean rising(DenseStep s, EventFunction g) {
+        return s.gStart(g) < 0.0 && s.gEnd(g) >= 0.0;
+    }
+
+    /** @return the rising zero of g in [t0, t1]: the middle of the shared root finder's final bracket */
+    private static double root(DenseStep s, EventFunction g) {
+        double after = s.locate(g);
+        return 0.5 * (s.locatedBefore() + after);
     }
 
     /** @return the number of periapsis passages recorded */

@@ -45,8 +45,8 @@ public final class AnalysisStage implements RunStage {
 
     static String periodsCsv(Scenario sc, ParticleHistory h, ParticlePeriods p, double spm) {
         StringBuilder b = new StringBuilder(64 * h.particles() + 200);
-        b.append("source,particle,mean_r_M,period_phi_M,period_r_M,period_theta_M,periastron_advance_deg,"
-                + "period_phi_min,period_r_min,period_theta_min\n");
+        b.append(org.spindrift.shared.archive.ArchiveColumns.header(
+                org.spindrift.shared.archive.ArchiveColumns.PERIODS)).append('\n');
         for (int i = 0; i < h.particles(); i++) {
             b.append(sc.sources().get(h.sourceIndex()[i]).name()).append(',').append(i).append(',')
                     .append(f(p.meanR(i))).append(',').append(f(p.periodPhi(i))).append(',').append(f(p.periodR(i)))
@@ -59,8 +59,8 @@ public final class AnalysisStage implements RunStage {
 
     static String shearCsv(Scenario sc, List<ShearShape> shapes, double spm) {
         StringBuilder b = new StringBuilder(200 * shapes.size() + 300);
-        b.append("source,snapshot,time_M,time_min,alive,centre_x_M,centre_y_M,centre_z_M,centre_r_M,major_M,minor_M,aspect_ratio,"
-                + "orientation_deg,azimuthal_extent_deg,stationary_radius_M,inner_arm_M,outer_arm_M\n");
+        b.append(org.spindrift.shared.archive.ArchiveColumns.header(
+                org.spindrift.shared.archive.ArchiveColumns.SHEAR)).append('\n');
         for (ShearShape s : shapes) {
             b.append(sc.sources().get(s.source()).name()).append(',').append(s.snapshot()).append(',')
                     .append(f(s.time())).append(',').append(f(s.time() * spm / 60)).append(',').append(s.alive())
@@ -99,7 +99,7 @@ public final class AnalysisStage implements RunStage {
         sum.put("scenario", sc.name());
         sum.put("time_unit", "coordinate time, M (GM/c^3) and minutes; t = 0 at the start of the run");
         sum.put("M_seconds", spm);
-        put(sum, "omega_max_radius_M", ctx.landmark("omega_max_radius"));
+        put(sum, "omega_max_radius_M", ctx.landmark(ArchiveLayout.LM_OMEGA_MAX_RADIUS));
         ArrayNode arr = sum.putArray("sources");
         int[] first = ctx.placed().firstIndex();
         int s = h.snapshots();

@@ -38,7 +38,7 @@ public final class LightRunStage implements RunStage {
         FrameBudget.check(s, ctx.history().time(0), ctx.history().time(ctx.history().snapshots() - 1),
                 ctx.history().snapshots());
         // rays stop where particles do: the capture radius (manifest landmarks.capture_radius)
-        double capture = ctx.landmark("capture_radius");
+        double capture = ctx.landmark(org.spindrift.shared.archive.ArchiveLayout.LM_CAPTURE_RADIUS);
         EmitterHistory h = new HistoryEmitters(ctx.history(), spectralIndices(ctx.scenario()));
         if (ctx.progress()) {
             System.err.printf("spindrift: light: tracing %d x %d rays%n", s.pixels(), s.pixels());

@@ -5,6 +5,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.spindrift.shared.Units;
+import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.RunArchiveWriter;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.shared.scenario.ScenarioJson;
@@ -91,7 +92,7 @@ final class RunManifest {
         u.put("M_uas", p.uasPerM());
         m.putObject("observer").put("inclination_deg", sc.observer().inclinationDeg())
                 .put("position_angle_deg", sc.observer().positionAngleDeg());
-        ObjectNode lm = m.putObject("landmarks");
+        ObjectNode lm = m.putObject(ArchiveLayout.LANDMARKS);
         p.landmarks().forEach((k, v) -> put(lm, k, v));
         ObjectNode time = m.putObject("time");
         time.put("origin", "coordinate time t = 0 at the start of the run (emitter time)");
@@ -112,11 +113,11 @@ final class RunManifest {
             at += kept[k];
         }
         m.set("diagnostics", diag);
-        ObjectNode es = m.putObject("end_states");
+        ObjectNode es = m.putObject(ArchiveLayout.END_STATES);
         for (EndState e : EndState.values()) {
-            es.put(e.name().toLowerCase(java.util.Locale.ROOT), res.count(e));
+            es.put(e.key(), res.count(e));
         }
-        extra.fields().forEachRemaining(e -> m.set(e.getKey(), e.getValue()));
+        extra.properties().forEach(e -> m.set(e.getKey(), e.getValue()));
         return m;
     }
 }

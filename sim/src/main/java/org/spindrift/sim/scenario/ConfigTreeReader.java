@@ -104,7 +104,7 @@ public final class ConfigTreeReader {
 
     private static ConfigNode value(Path file, JsonParser p, JsonToken t, String path) throws IOException {
         int ln = line(p.currentTokenLocation());
-        if (p instanceof YAMLParser y && (y.isCurrentAlias() || y.getCurrentAnchor() != null)) {
+        if (p instanceof YAMLParser y && (y.isCurrentAlias() || y.getObjectId() != null)) {
             throw ConfigSection.error(file, ln, path, "YAML anchors and aliases (&name, *name) are not supported;"
                     + " write each value out");
         }

@@ -81,6 +81,15 @@ public final class JohannsenPsaltisSpacetime implements Spacetime {
     }
 
     @Override public void inverse(double r, double theta, double[] out) {
+        components(r, theta, out, true);
+    }
+
+    @Override public void covariant(double r, double theta, double[] out) {
+        components(r, theta, out, false);
+    }
+
+    /** The inverse (inverse = true) or covariant metric with first derivatives, from one set of shared terms. */
+    private void components(double r, double theta, double[] out, boolean inverse) {
         // Trig = StrictMath bit for bit, without JDK 17's JNI call; FastMath.sin/cos would allocate a
         // reduction object for theta > pi/2 (Hipparchus 4.0.2), which the hot loops must not
         final double s = Trig.sin(theta);
@@ -113,117 +122,84 @@ public final class JohannsenPsaltisSpacetime implements Spacetime {
         final double w = r * r - 2.0 * r + a2 + a2 * s2 * h;
         final double wR = 2.0 * r - 2.0 + a2 * s2 * hR;
         final double wT = a2 * (sc2 * h + s2 * hT);
-        final double w2 = w * w;
 
         // V = 2U + h (1 + 2U), so that g_phiphi = sin^2 (r^2 + a^2) + a^2 sin^4 V
         final double v = 2.0 * u + h * (1.0 + 2.0 * u);
         final double vR = 2.0 * uR + hR * (1.0 + 2.0 * u) + 2.0 * h * uR;
         final double vT = 2.0 * uT + hT * (1.0 + 2.0 * u) + 2.0 * h * uT;
 
-        // P = g_phiphi / sin^2 = r^2 + a^2 + a^2 sin^2 V
-        final double p = r * r + a2 + a2 * s2 * v;
-        final double pR = 2.0 * r + a2 * s2 * vR;
-        final double pT = a2 * (sc2 * v + s2 * vT);
-
-        // g^tt = -P / (F W)
-        final double fw = f * w;
-        final double fwR = hR * w + f * wR;
-        final double fwT = hT * w + f * wT;
-        final double fw2 = fw * fw;
-        out[TT] = -p / fw;
-        out[DR + TT] = -pR / fw + p * fwR / fw2;
-        out[DTH + TT] = -pT / fw + p * fwT / fw2;
-
-        // g^tphi = -2 a U / W
-        out[TP] = -2.0 * a * u / w;
-        out[DR + TP] = -2.0 * a * (uR / w - u * wR / w2);
-        out[DTH + TP] = -2.0 * a * (uT / w - u * wT / w2);
-
-        // g^phiphi = K / (sin^2 W)
-        final double q = s2 * w;
-        final double qR = s2 * wR;
-        final double qT = sc2 * w + s2 * wT;
-        out[PP] = k / q;
-        out[DR + PP] = kR / q - k * qR / (q * q);
-        out[DTH + PP] = kT / q - k * qT / (q * q);
-
-        // g^rr = W / (Sigma F)
+        // Sigma F
         final double sf = sig * f;
         final double sfR = sigR * f + sig * hR;
         final double sfT = sigT * f + sig * hT;
-        out[RR] = w / sf;
-        out[DR + RR] = wR / sf - w * sfR / (sf * sf);
-        out[DTH + RR] = wT / sf - w * sfT / (sf * sf);
+        if (inverse) {
+            final double w2 = w * w;
 
-        // g^thth = 1 / Sigma
-        out[HH] = 1.0 / sig;
-        out[DR + HH] = -sigR / sig2;
-        out[DTH + HH] = -sigT / sig2;
-    }
+            // P = g_phiphi / sin^2 = r^2 + a^2 + a^2 sin^2 V
+            final double p = r * r + a2 + a2 * s2 * v;
+            final double pR = 2.0 * r + a2 * s2 * vR;
+            final double pT = a2 * (sc2 * v + s2 * vT);
 
-    @Override public void covariant(double r, double theta, double[] out) {
-        // Trig = StrictMath bit for bit, without JDK 17's JNI call; FastMath.sin/cos would allocate a
-        // reduction object for theta > pi/2 (Hipparchus 4.0.2), which the hot loops must not
-        final double s = Trig.sin(theta);
-        final double c = Trig.cos(theta);
-        final double s2 = s * s;
-        final double sc2 = 2.0 * s * c;
-        final double a2 = a * a;
+            // g^tt = -P / (F W)
+            final double fw = f * w;
+            final double fwR = hR * w + f * wR;
+            final double fwT = hT * w + f * wT;
+            final double fw2 = fw * fw;
+            out[TT] = -p / fw;
+            out[DR + TT] = -pR / fw + p * fwR / fw2;
+            out[DTH + TT] = -pT / fw + p * fwT / fw2;
 
-        final double sig = r * r + a2 * c * c;
-        final double sigR = 2.0 * r;
-        final double sigT = -a2 * sc2;
-        final double sig2 = sig * sig;
-        final double sig3 = sig2 * sig;
+            // g^tphi = -2 a U / W
+            out[TP] = -2.0 * a * u / w;
+            out[DR + TP] = -2.0 * a * (uR / w - u * wR / w2);
+            out[DTH + TP] = -2.0 * a * (uT / w - u * wT / w2);
 
-        final double h = eps * r / sig2;
-        final double hR = eps * (sig - 2.0 * r * sigR) / sig3;
-        final double hT = -2.0 * eps * r * sigT / sig3;
-        final double f = 1.0 + h;
+            // g^phiphi = K / (sin^2 W)
+            final double q = s2 * w;
+            final double qR = s2 * wR;
+            final double qT = sc2 * w + s2 * wT;
+            out[PP] = k / q;
+            out[DR + PP] = kR / q - k * qR / (q * q);
+            out[DTH + PP] = kT / q - k * qT / (q * q);
 
-        final double u = r / sig;
-        final double uR = 1.0 / sig - r * sigR / sig2;
-        final double uT = -r * sigT / sig2;
-        final double k = 1.0 - 2.0 * u;
-        final double kR = -2.0 * uR;
-        final double kT = -2.0 * uT;
+            // g^rr = W / (Sigma F)
+            out[RR] = w / sf;
+            out[DR + RR] = wR / sf - w * sfR / (sf * sf);
+            out[DTH + RR] = wT / sf - w * sfT / (sf * sf);
 
-        // g_tt = -F K
-        out[TT] = -f * k;
-        out[DR + TT] = -(hR * k + f * kR);
-        out[DTH + TT] = -(hT * k + f * kT);
+            // g^thth = 1 / Sigma
+            out[HH] = 1.0 / sig;
+            out[DR + HH] = -sigR / sig2;
+            out[DTH + HH] = -sigT / sig2;
+        } else {
+            // g_tt = -F K
+            out[TT] = -f * k;
+            out[DR + TT] = -(hR * k + f * kR);
+            out[DTH + TT] = -(hT * k + f * kT);
 
-        // g_tphi = -2 a sin^2 U F
-        final double uf = u * f;
-        final double ufR = uR * f + u * hR;
-        final double ufT = uT * f + u * hT;
-        out[TP] = -2.0 * a * s2 * uf;
-        out[DR + TP] = -2.0 * a * s2 * ufR;
-        out[DTH + TP] = -2.0 * a * (sc2 * uf + s2 * ufT);
+            // g_tphi = -2 a sin^2 U F
+            final double uf = u * f;
+            final double ufR = uR * f + u * hR;
+            final double ufT = uT * f + u * hT;
+            out[TP] = -2.0 * a * s2 * uf;
+            out[DR + TP] = -2.0 * a * s2 * ufR;
+            out[DTH + TP] = -2.0 * a * (sc2 * uf + s2 * ufT);
 
-        // g_phiphi = sin^2 (r^2 + a^2) + a^2 sin^4 V
-        final double v = 2.0 * u + h * (1.0 + 2.0 * u);
-        final double vR = 2.0 * uR + hR * (1.0 + 2.0 * u) + 2.0 * h * uR;
-        final double vT = 2.0 * uT + hT * (1.0 + 2.0 * u) + 2.0 * h * uT;
-        final double s4 = s2 * s2;
-        out[PP] = s2 * (r * r + a2) + a2 * s4 * v;
-        out[DR + PP] = s2 * 2.0 * r + a2 * s4 * vR;
-        out[DTH + PP] = sc2 * (r * r + a2) + a2 * (2.0 * s2 * sc2 * v + s4 * vT);
+            // g_phiphi = sin^2 (r^2 + a^2) + a^2 sin^4 V
+            final double s4 = s2 * s2;
+            out[PP] = s2 * (r * r + a2) + a2 * s4 * v;
+            out[DR + PP] = s2 * 2.0 * r + a2 * s4 * vR;
+            out[DTH + PP] = sc2 * (r * r + a2) + a2 * (2.0 * s2 * sc2 * v + s4 * vT);
 
-        // g_rr = Sigma F / W
-        final double w = r * r - 2.0 * r + a2 + a2 * s2 * h;
-        final double wR = 2.0 * r - 2.0 + a2 * s2 * hR;
-        final double wT = a2 * (sc2 * h + s2 * hT);
-        final double sf = sig * f;
-        final double sfR = sigR * f + sig * hR;
-        final double sfT = sigT * f + sig * hT;
-        out[RR] = sf / w;
-        out[DR + RR] = sfR / w - sf * wR / (w * w);
-        out[DTH + RR] = sfT / w - sf * wT / (w * w);
+            // g_rr = Sigma F / W
+            out[RR] = sf / w;
+            out[DR + RR] = sfR / w - sf * wR / (w * w);
+            out[DTH + RR] = sfT / w - sf * wT / (w * w);
 
-        out[HH] = sig;
-        out[DR + HH] = sigR;
-        out[DTH + HH] = sigT;
+            out[HH] = sig;
+            out[DR + HH] = sigR;
+            out[DTH + HH] = sigT;
+        }
     }
 
     @Override public <T extends CalculusFieldElement<T>> void covariant(T r, T theta, T[] out) {

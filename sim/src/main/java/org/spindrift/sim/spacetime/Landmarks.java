@@ -4,6 +4,7 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.function.DoubleUnaryOperator;
 import org.hipparchus.util.FastMath;
+import org.spindrift.shared.archive.ArchiveLayout;
 
 /**
  * The metric landmarks of a {@link Spacetime}, computed numerically for any member: radii in M, frequencies in 1/M, NaN where a landmark does not exist (null in
@@ -238,16 +239,16 @@ public final class Landmarks {
      */
     public Map<String, Double> toMap() {
         Map<String, Double> m = new LinkedHashMap<>();
-        m.put("horizon_outer", nullable(horizonOuter));
-        m.put("ergosurface_equator", nullable(ergosurfaceEquator));
-        m.put("isco_prograde", nullable(iscoPrograde));
-        m.put("isco_retrograde", nullable(iscoRetrograde));
-        m.put("photon_orbit_prograde", nullable(photonOrbitPrograde));
-        m.put("photon_orbit_retrograde", nullable(photonOrbitRetrograde));
-        m.put("marginally_bound_prograde", nullable(marginallyBoundPrograde));
-        m.put("omega_max_radius", nullable(omegaMaxRadius));
-        m.put("omega_max_value", nullable(omegaMaxValue));
-        m.put("capture_radius", nullable(captureRadius));
+        m.put(ArchiveLayout.LM_HORIZON_OUTER, nullable(horizonOuter));
+        m.put(ArchiveLayout.LM_ERGOSURFACE_EQUATOR, nullable(ergosurfaceEquator));
+        m.put(ArchiveLayout.LM_ISCO_PROGRADE, nullable(iscoPrograde));
+        m.put(ArchiveLayout.LM_ISCO_RETROGRADE, nullable(iscoRetrograde));
+        m.put(ArchiveLayout.LM_PHOTON_ORBIT_PROGRADE, nullable(photonOrbitPrograde));
+        m.put(ArchiveLayout.LM_PHOTON_ORBIT_RETROGRADE, nullable(photonOrbitRetrograde));
+        m.put(ArchiveLayout.LM_MARGINALLY_BOUND_PROGRADE, nullable(marginallyBoundPrograde));
+        m.put(ArchiveLayout.LM_OMEGA_MAX_RADIUS, nullable(omegaMaxRadius));
+        m.put(ArchiveLayout.LM_OMEGA_MAX_VALUE, nullable(omegaMaxValue));
+        m.put(ArchiveLayout.LM_CAPTURE_RADIUS, nullable(captureRadius));
         return m;
     }
 

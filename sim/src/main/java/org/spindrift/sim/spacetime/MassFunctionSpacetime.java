@@ -77,62 +77,15 @@ public final class MassFunctionSpacetime implements Spacetime {
     }
 
     @Override public void inverse(double r, double theta, double[] out) {
-        // Trig = StrictMath bit for bit, without JDK 17's JNI call; FastMath.sin/cos would allocate a
-        // reduction object for theta > pi/2 (Hipparchus 4.0.2), which the hot loops must not
-        final double s = Trig.sin(theta);
-        final double c = Trig.cos(theta);
-        final double s2 = s * s;
-        final double a2 = a * a;
-        final double m = mass.value(r);
-        final double mr = mass.derivative(r);
-
-        final double sig = r * r + a2 * c * c;
-        final double sigR = 2.0 * r;
-        final double sigT = -2.0 * a2 * s * c;
-        final double del = r * r - 2.0 * m * r + a2;
-        final double delR = 2.0 * r - 2.0 * (m + r * mr);
-        final double d = sig * del;
-        final double dR = sigR * del + sig * delR;
-        final double dT = sigT * del;
-        // three reciprocals instead of two dozen divisions (this is the integrators' hot path)
-        final double id = 1.0 / d;
-        final double id2 = id * id;
-        final double is = 1.0 / sig;
-        final double is2 = is * is;
-        final double rho = r * r + a2;
-        final double rho2 = rho * rho;
-
-        // g^tt = -(r^2+a^2)^2 / D + a^2 sin^2 / Sigma
-        out[TT] = -rho2 * id + a2 * s2 * is;
-        out[DR + TT] = -4.0 * r * rho * id + rho2 * dR * id2 - a2 * s2 * sigR * is2;
-        out[DTH + TT] = rho2 * dT * id2 + a2 * (2.0 * s * c * sig - s2 * sigT) * is2;
-
-        // g^tphi = -B / D with B = 2 a m r
-        final double b = 2.0 * a * m * r;
-        final double bR = 2.0 * a * (m + r * mr);
-        out[TP] = -b * id;
-        out[DR + TP] = -bR * id + b * dR * id2;
-        out[DTH + TP] = b * dT * id2;
-
-        // g^phiphi = 1 / (Sigma sin^2) - a^2 / D
-        final double iq = 1.0 / (sig * s2);
-        final double iq2 = iq * iq;
-        out[PP] = iq - a2 * id;
-        out[DR + PP] = -sigR * s2 * iq2 + a2 * dR * id2;
-        out[DTH + PP] = -(sigT * s2 + sig * 2.0 * s * c) * iq2 + a2 * dT * id2;
-
-        // g^rr = Delta / Sigma
-        out[RR] = del * is;
-        out[DR + RR] = delR * is - del * sigR * is2;
-        out[DTH + RR] = -del * sigT * is2;
-
-        // g^thth = 1 / Sigma
-        out[HH] = is;
-        out[DR + HH] = -sigR * is2;
-        out[DTH + HH] = -sigT * is2;
+        components(r, theta, out, true);
     }
 
     @Override public void covariant(double r, double theta, double[] out) {
+        components(r, theta, out, false);
+    }
+
+    /** The inverse (inverse = true) or covariant metric with first derivatives, from one set of shared terms. */
+    private void components(double r, double theta, double[] out, boolean inverse) {
         // Trig = StrictMath bit for bit, without JDK 17's JNI call; FastMath.sin/cos would allocate a
         // reduction object for theta > pi/2 (Hipparchus 4.0.2), which the hot loops must not
         final double s = Trig.sin(theta);
@@ -145,36 +98,76 @@ public final class MassFunctionSpacetime implements Spacetime {
         final double sig = r * r + a2 * c * c;
         final double sigR = 2.0 * r;
         final double sigT = -2.0 * a2 * s * c;
-        final double sig2 = sig * sig;
         final double del = r * r - 2.0 * m * r + a2;
         final double delR = 2.0 * r - 2.0 * (m + r * mr);
-
-        final double p = 2.0 * m * r;
-        final double pR = 2.0 * (m + r * mr);
-        final double f = p / sig;                 // 2 m r / Sigma
-        final double fR = pR / sig - p * sigR / sig2;
-        final double fT = -p * sigT / sig2;
-
-        out[TT] = -1.0 + f;
-        out[DR + TT] = fR;
-        out[DTH + TT] = fT;
-
-        out[TP] = -a * s2 * f;
-        out[DR + TP] = -a * s2 * fR;
-        out[DTH + TP] = -a * (2.0 * s * c * f + s2 * fT);
-
         final double rho = r * r + a2;
-        out[PP] = (rho + a2 * s2 * f) * s2;
-        out[DR + PP] = (2.0 * r + a2 * s2 * fR) * s2;
-        out[DTH + PP] = 2.0 * s * c * rho + a2 * (4.0 * s2 * s * c * f + s2 * s2 * fT);
+        if (inverse) {
+            final double d = sig * del;
+            final double dR = sigR * del + sig * delR;
+            final double dT = sigT * del;
+            // three reciprocals instead of two dozen divisions (this is the integrators' hot path)
+            final double id = 1.0 / d;
+            final double id2 = id * id;
+            final double is = 1.0 / sig;
+            final double is2 = is * is;
+            final double rho2 = rho * rho;
 
-        out[RR] = sig / del;
-        out[DR + RR] = sigR / del - sig * delR / (del * del);
-        out[DTH + RR] = sigT / del;
+            // g^tt = -(r^2+a^2)^2 / D + a^2 sin^2 / Sigma
+            out[TT] = -rho2 * id + a2 * s2 * is;
+            out[DR + TT] = -4.0 * r * rho * id + rho2 * dR * id2 - a2 * s2 * sigR * is2;
+            out[DTH + TT] = rho2 * dT * id2 + a2 * (2.0 * s * c * sig - s2 * sigT) * is2;
 
-        out[HH] = sig;
-        out[DR + HH] = sigR;
-        out[DTH + HH] = sigT;
+            // g^tphi = -B / D with B = 2 a m r
+            final double b = 2.0 * a * m * r;
+            final double bR = 2.0 * a * (m + r * mr);
+            out[TP] = -b * id;
+            out[DR + TP] = -bR * id + b * dR * id2;
+            out[DTH + TP] = b * dT * id2;
+
+            // g^phiphi = 1 / (Sigma sin^2) - a^2 / D
+            final double iq = 1.0 / (sig * s2);
+            final double iq2 = iq * iq;
+            out[PP] = iq - a2 * id;
+            out[DR + PP] = -sigR * s2 * iq2 + a2 * dR * id2;
+            out[DTH + PP] = -(sigT * s2 + sig * 2.0 * s * c) * iq2 + a2 * dT * id2;
+
+            // g^rr = Delta / Sigma
+            out[RR] = del * is;
+            out[DR + RR] = delR * is - del * sigR * is2;
+            out[DTH + RR] = -del * sigT * is2;
+
+            // g^thth = 1 / Sigma
+            out[HH] = is;
+            out[DR + HH] = -sigR * is2;
+            out[DTH + HH] = -sigT * is2;
+        } else {
+            final double sig2 = sig * sig;
+            final double p = 2.0 * m * r;
+            final double pR = 2.0 * (m + r * mr);
+            final double f = p / sig;                 // 2 m r / Sigma
+            final double fR = pR / sig - p * sigR / sig2;
+            final double fT = -p * sigT / sig2;
+
+            out[TT] = -1.0 + f;
+            out[DR + TT] = fR;
+            out[DTH + TT] = fT;
+
+            out[TP] = -a * s2 * f;
+            out[DR + TP] = -a * s2 * fR;
+            out[DTH + TP] = -a * (2.0 * s * c * f + s2 * fT);
+
+            out[PP] = (rho + a2 * s2 * f) * s2;
+            out[DR + PP] = (2.0 * r + a2 * s2 * fR) * s2;
+            out[DTH + PP] = 2.0 * s * c * rho + a2 * (4.0 * s2 * s * c * f + s2 * s2 * fT);
+
+            out[RR] = sig / del;
+            out[DR + RR] = sigR / del - sig * delR / (del * del);
+            out[DTH + RR] = sigT / del;
+
+            out[HH] = sig;
+            out[DR + HH] = sigR;
+            out[DTH + HH] = sigT;
+        }
     }
 
     @Override public <T extends CalculusFieldElement<T>> void covariant(T r, T theta, T[] out) {

@@ -1,18 +1,18 @@
 package org.spindrift.sim.spacetime;
 
 import java.util.function.DoubleUnaryOperator;
-import org.hipparchus.analysis.solvers.AllowedSolution;
-import org.hipparchus.analysis.solvers.BracketingNthOrderBrentSolver;
 import org.hipparchus.optim.MaxEval;
 import org.hipparchus.optim.nonlinear.scalar.GoalType;
 import org.hipparchus.optim.univariate.BrentOptimizer;
 import org.hipparchus.optim.univariate.SearchInterval;
 import org.hipparchus.optim.univariate.UnivariateObjectiveFunction;
 import org.hipparchus.optim.univariate.UnivariatePointValuePair;
+import org.spindrift.sim.numerics.BracketedRoot;
 
 /**
  * Outermost root of a function of r: walk a geometric grid inwards from r_hi to r_lo, bracket
- * the first sign change and polish it with Hipparchus' bracketing Brent solver. Optionally
+ * the first sign change and polish it with the shared root finder ({@link BracketedRoot#polish},
+ * Hipparchus' bracketing Brent solver). Optionally
  * also catches double roots (a local minimum of f touching zero, as for extremal horizons) with
  * Hipparchus' Brent optimiser. Used by {@link Horizons} and {@link Landmarks}.
  */
@@ -99,8 +99,7 @@ final class RadialSearch {
 
     /** @return the root of f in [lo, hi], where f changes sign */
     static double solve(DoubleUnaryOperator f, double lo, double hi) {
-        BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-15, 1e-15, 0.0, 5);
-        return solver.solve(MAX_EVAL, f::applyAsDouble, lo, hi, AllowedSolution.ANY_SIDE);
+        return BracketedRoot.polish(f, lo, hi);
     }
 
     /** @return the location of the minimum of f in [lo, hi] */

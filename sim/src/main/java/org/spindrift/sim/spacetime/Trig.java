@@ -51,7 +51,7 @@ public final class Trig {
     /**
      * @return sin(x), equal to StrictMath.sin(x). The common cases |x| &lt; 3 pi/4 (polar angles
      *     of the geodesic code) are kept short here so that the JIT inlines them (HotSpot's
-     *     FreqInlineSize: 325 bytecodes); the rest is in {@link #sinRest}.
+     *     FreqInlineSize: 325 bytecodes); the rest is in {@link #rest}.
      */
     public static double sin(double x) {
         final int hx = high(x);
@@ -70,17 +70,23 @@ public final class Trig {
             final double y0 = z - t;
             return kernelCos(y0, (z - y0) - t);
         }
-        return sinRest(x);
+        return rest(x, 0);
     }
 
-    private static double sinRest(double x) {
+    /**
+     * sin(x) (quarter = 0) or cos(x) = sin(x + pi/2) (quarter = 1) outside the short paths: one
+     * argument reduction x = n pi/2 + (y0 + y1) for both (e_rem_pio2.c), then the kernel chosen by
+     * (n + quarter) mod 4.
+     */
+    private static double rest(double x, int quarter) {
         final int hx = high(x);
         final int ix = hx & 0x7fffffff;
         if (ix <= 0x3fe921fb) {
-            return kernelSin(x, 0.0, false);
+            return quarter == 0 ? kernelSin(x, 0.0, false) : kernelCos(x, 0.0);
         }
         if (ix > 0x413921fb) {
-            return StrictMath.sin(x); // large, infinite or NaN: fdlibm's Payne-Hanek branch
+            // large, infinite or NaN: fdlibm's Payne-Hanek branch
+            return quarter == 0 ? StrictMath.sin(x) : StrictMath.cos(x);
         }
         // reduce: x = n pi/2 + (y0 + y1), as e_rem_pio2.c
         double y0;
@@ -146,7 +152,7 @@ public final class Trig {
                 n = -n;
             }
         }
-        switch (n & 3) {
+        switch ((n + quarter) & 3) {
             case 0:
                 return kernelSin(y0, y1, true);
             case 1:
@@ -176,91 +182,7 @@ public final class Trig {
             final double y0 = z - t;
             return -kernelSin(y0, (z - y0) - t, true);
         }
-        return cosRest(x);
-    }
-
-    private static double cosRest(double x) {
-        final int hx = high(x);
-        final int ix = hx & 0x7fffffff;
-        if (ix <= 0x3fe921fb) {
-            return kernelCos(x, 0.0);
-        }
-        if (ix > 0x413921fb) {
-            return StrictMath.cos(x);
-        }
-        double y0;
-        double y1;
-        int n;
-        if (ix < 0x4002d97c) {
-            double z;
-            if (hx > 0) {
-                z = x - PIO2_1;
-                if (ix != 0x3ff921fb) {
-                    y0 = z - PIO2_1T;
-                    y1 = (z - y0) - PIO2_1T;
-                } else {
-                    z -= PIO2_2;
-                    y0 = z - PIO2_2T;
-                    y1 = (z - y0) - PIO2_2T;
-                }
-                n = 1;
-            } else {
-                z = x + PIO2_1;
-                if (ix != 0x3ff921fb) {
-                    y0 = z + PIO2_1T;
-                    y1 = (z - y0) + PIO2_1T;
-                } else {
-                    z += PIO2_2;
-                    y0 = z + PIO2_2T;
-                    y1 = (z - y0) + PIO2_2T;
-                }
-                n = -1;
-            }
-        } else {
-            final double t = Math.abs(x);
-            n = (int) (t * INVPIO2 + 0.5);
-            final double fn = n;
-            double r = t - fn * PIO2_1;
-            double w = fn * PIO2_1T;
-            if (n < 32 && ix != NPIO2_HW[n - 1]) {
-                y0 = r - w;
-            } else {
-                final int j = ix >> 20;
-                y0 = r - w;
-                int i = j - ((high(y0) >> 20) & 0x7ff);
-                if (i > 16) {
-                    double tt = r;
-                    w = fn * PIO2_2;
-                    r = tt - w;
-                    w = fn * PIO2_2T - ((tt - r) - w);
-                    y0 = r - w;
-                    i = j - ((high(y0) >> 20) & 0x7ff);
-                    if (i > 49) {
-                        tt = r;
-                        w = fn * PIO2_3;
-                        r = tt - w;
-                        w = fn * PIO2_3T - ((tt - r) - w);
-                        y0 = r - w;
-                    }
-                }
-            }
-            y1 = (r - y0) - w;
-            if (hx < 0) {
-                y0 = -y0;
-                y1 = -y1;
-                n = -n;
-            }
-        }
-        switch (n & 3) {
-            case 0:
-                return kernelCos(y0, y1);
-            case 1:
-                return -kernelSin(y0, y1, true);
-            case 2:
-                return -kernelCos(y0, y1);
-            default:
-                return kernelSin(y0, y1, true);
-        }
+        return rest(x, 1);
     }
 
     /** k_sin.c: sin(x + y) for |x| &lt;= pi/4, y the tail of x (used when tail). */

@@ -3,6 +3,6 @@
  * derivatives, horizons, circular orbits and landmarks (ISCO, photon orbits, capture radius),
  * and allocation-free trigonometry.
  *
- * Dependencies: may import org.spindrift.shared only.
+ * Dependencies: may import numerics and org.spindrift.shared only.
  */
 package org.spindrift.sim.spacetime;

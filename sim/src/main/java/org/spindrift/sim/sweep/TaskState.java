@@ -60,7 +60,7 @@ public enum TaskState {
         if (files == null || !files.isObject()) {
             return false;
         }
-        for (Iterator<Map.Entry<String, JsonNode>> it = files.fields(); it.hasNext();) {
+        for (Iterator<Map.Entry<String, JsonNode>> it = files.properties().iterator(); it.hasNext();) {
             Map.Entry<String, JsonNode> e = it.next();
             Path f = folder.resolve(e.getKey()).normalize();
             if (!f.startsWith(folder.normalize()) || !Files.isRegularFile(f)) {

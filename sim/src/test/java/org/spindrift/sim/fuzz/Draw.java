@@ -79,6 +79,6 @@ final class Draw {
     /** @return null with probability p, else one element, each equally likely */
     @SafeVarargs
     static <T> T oneOfOrNull(SplittableRandom rnd, double p, T... values) {
-        return rnd.nextDouble() < p ? null : oneOf(rnd, values);
+        return rnd.nextDouble() < p ? null : values[rnd.nextInt(values.length)];
     }
 }

@@ -3,10 +3,6 @@ package org.spindrift.sim.motion;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import org.hipparchus.ode.ODEState;
-import org.hipparchus.ode.ODEStateAndDerivative;
-import org.hipparchus.ode.OrdinaryDifferentialEquation;
-import org.hipparchus.ode.nonstiff.DormandPrince853Integrator;
 import org.junit.jupiter.api.Test;
 import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 
@@ -77,29 +73,14 @@ class BatchIntegratorTest {
                 .integrate(b, times, (k, t, s) -> got[k] = column(s));
         for (int i = 0; i < 4; i++) {
             final double[] s0 = start[i];
-            GeodesicEquations eq = new GeodesicEquations(st);
-            OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
-                @Override public int getDimension() {
-                    return 5;
-                }
-
-                @Override public double[] computeDerivatives(double t, double[] y) {
-                    double[] dy = new double[5];
-                    eq.coordinateTime(s0[5], s0[6], y, 0, dy, 0);
-                    return dy;
-                }
-            };
-            DormandPrince853Integrator ref = new DormandPrince853Integrator(1e-10, 1e3, 1e-13, 1e-13);
-            ODEState state = new ODEState(0, new double[] {s0[0], s0[1], s0[2], s0[3], s0[4]});
+            double[][] ref = new HipparchusOde(new GeodesicEquations(st), s0[5], s0[6])
+                    .restartAt(0, new double[] {s0[0], s0[1], s0[2], s0[3], s0[4]}, times, 1e-13, 1e3);
             for (int k = 0; k < times.length; k++) {
-                ODEStateAndDerivative out = ref.integrate(ode, state, times[k]);
-                double[] y = out.getPrimaryState();
                 for (int c = 0; c < 5; c++) {
                     // Hipparchus DormandPrince853Integrator as reference
-                    assertEquals(y[c], got[k][5 * i + c], 1e-8 * Math.max(1, Math.abs(y[c])),
+                    assertEquals(ref[k][c], got[k][5 * i + c], 1e-8 * Math.max(1, Math.abs(ref[k][c])),
                             "particle " + i + " component " + c + " at t = " + times[k]);
                 }
-                state = new ODEState(out.getTime(), y);
             }
         }
     }

@@ -1,6 +1,5 @@
 package org.spindrift.sim.motion;
 
-import java.util.SplittableRandom;
 import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 import org.spindrift.sim.spacetime.MassFunctions;
 
@@ -31,36 +30,9 @@ final class KerrTestOrbits {
         return new double[] {e, l};
     }
 
-    /**
-     * A ball of n particles (Gaussian, sigma in M) around the prograde circular orbit at r0,
-     * each given the circular orbit's ZAMO velocity at the centre (a rigid start).
-     */
+    /** A ball of n particles (Gaussian, sigma in M) around the prograde circular orbit at r0 ({@link ParticleBall}). */
     static ParticleBatch ball(MassFunctionSpacetime st, double r0, double sigma, int n, long seed) {
-        double a = st.spin();
-        double[] el = circularEL(a, r0);
-        ZamoFrame z = new ZamoFrame(st);
-        double[] v = new double[3];
-        z.localVelocity(r0, Math.PI / 2, -el[0], 0, 0, el[1], v);
-        SplittableRandom rnd = new SplittableRandom(seed);
-        ParticleBatch b = new ParticleBatch(n);
-        double[] p = new double[4];
-        for (int i = 0; i < n; i++) {
-            double x = r0 + sigma * gauss(rnd);
-            double y = sigma * gauss(rnd);
-            double zz = sigma * gauss(rnd);
-            double r = Math.sqrt(x * x + y * y + zz * zz);
-            double th = Math.acos(zz / r);
-            double ph = Math.atan2(y, x);
-            z.momentum(r, th, 0, 0, v[2], p);
-            b.set(i, 0.0, r, th, ph, p[0], p[1], p[2], p[3]);
-        }
-        return b;
-    }
-
-    static double gauss(SplittableRandom rnd) {
-        double u = rnd.nextDouble();
-        double w = rnd.nextDouble();
-        return Math.sqrt(-2 * Math.log(1 - u)) * Math.cos(2 * Math.PI * w);
+        return ParticleBall.around(st, r0, sigma, n, seed);
     }
 
     static double[] grid(double t1, int n) {

@@ -1,5 +1,7 @@
 package org.spindrift.viewer.app;
 
+import org.spindrift.viewer.sky.TimeIndex;
+
 /**
  * The replay clock: the current coordinate time, play/pause, speed, and the snapshot pair that
  * brackets the time. Time is the coordinate time t of the snapshots (the emitter's time, M).
@@ -60,22 +62,7 @@ public final class Playback {
     }
 
     private void locate() {
-        // binary search; no allocation
-        int lo = 0;
-        int hi = times.length - 1;
-        if (now >= times[hi]) {
-            index = hi;
-            return;
-        }
-        while (hi - lo > 1) {
-            int mid = (lo + hi) >>> 1;
-            if (times[mid] <= now) {
-                lo = mid;
-            } else {
-                hi = mid;
-            }
-        }
-        index = lo;
+        index = Math.max(0, TimeIndex.lastAtOrBefore(times, now));
     }
 
     public void togglePlay() {

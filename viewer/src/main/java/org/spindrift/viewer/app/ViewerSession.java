@@ -81,10 +81,10 @@ public final class ViewerSession implements AutoCloseable {
                 Path csv = o.runDir().resolve(ArchiveLayout.CENTROID);
                 // only the run's own files: those its manifest lists (and the verification covered)
                 if (Files.isRegularFile(img) && listed(r, ArchiveLayout.IMAGES)) {
-                    cube = ImageCube.open(img, info.mSeconds(), info.mUas());
+                    cube = ImageCube.open(o.runDir(), info.mSeconds());
                 }
                 if (Files.isRegularFile(csv) && listed(r, ArchiveLayout.CENTROID)) {
-                    track = CentroidTrack.read(csv, info.mSeconds());
+                    track = CentroidTrack.read(o.runDir());
                 }
             }
             String title = "Spindrift replay - " + info.title();

@@ -16,13 +16,6 @@ import org.spindrift.shared.archive.RunArchive;
  * archive is used by one thread at a time: the opening thread, then only the snapshot reader.
  */
 public final class ArchiveRunData implements RunData {
-    /** Manifest landmark keys (those of {@code landmarks --json}); the first present wins. */
-    private static final String[] HORIZON = {"horizon_outer", "horizon"};
-    private static final String[] CAPTURE = {"capture_radius"};
-    private static final String[] ISCO = {"isco_prograde", "isco"};
-    private static final String[] OMEGA_MAX = {"omega_max_radius"};
-    private static final String[] ERGO = {"ergosurface_equator"};
-
     private final RunArchive archive;
     private final RunInfo info;
     private final String snapshotsFile;
@@ -133,22 +126,19 @@ public final class ArchiveRunData implements RunData {
         if (!Double.isFinite(spin)) {
             throw new UserInputException("run folder " + folder + ": manifest.json: key 'black_hole.spin' is missing");
         }
-        Landmarks landmarks = new Landmarks(spin, pick(lm, HORIZON), pick(lm, CAPTURE), pick(lm, ISCO),
-                pick(lm, OMEGA_MAX), pick(lm, ERGO));
+        Landmarks landmarks = new Landmarks(spin, pick(lm, ArchiveLayout.LM_HORIZON_OUTER),
+                pick(lm, ArchiveLayout.LM_CAPTURE_RADIUS), pick(lm, ArchiveLayout.LM_ISCO_PROGRADE),
+                pick(lm, ArchiveLayout.LM_OMEGA_MAX_RADIUS), pick(lm, ArchiveLayout.LM_ERGOSURFACE_EQUATOR));
         String title = a.scenarioName().isEmpty() ? String.valueOf(folder.toAbsolutePath().normalize().getFileName())
                 : a.scenarioName();
         return new RunInfo(title, times, List.copyOf(names), sourceOf, centres, landmarks, a.mSeconds(),
                 a.mUas(), a.inclinationDeg(), a.positionAngleDeg());
     }
 
-    private static double pick(Map<String, Double> lm, String[] keys) {
-        for (String key : keys) {
-            Double v = lm.get(key);
-            if (v != null) {
-                return v;
-            }
-        }
-        return Double.NaN;
+    /** @return the landmark under key, NaN when absent */
+    private static double pick(Map<String, Double> lm, String key) {
+        Double v = lm.get(key);
+        return v == null ? Double.NaN : v;
     }
 
     @Override public RunInfo info() {

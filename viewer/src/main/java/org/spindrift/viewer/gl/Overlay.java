@@ -19,8 +19,7 @@ public final class Overlay implements AutoCloseable {
     private final Shader shader = new Shader("overlay");
     private final int uViewport;
     private final int uFont;
-    private final int vao;
-    private final int vbo;
+    private final VertexArray array;
     private final FloatBuffer data = MemoryUtil.memAllocFloat(CAPACITY * FLOATS);
     private FontAtlas font;
     private int count;
@@ -31,18 +30,7 @@ public final class Overlay implements AutoCloseable {
         this.font = font;
         uViewport = shader.uniform("u_viewport");
         uFont = shader.uniform("u_font");
-        vao = glGenVertexArrays();
-        vbo = glGenBuffers();
-        glBindVertexArray(vao);
-        glBindBuffer(GL_ARRAY_BUFFER, vbo);
-        glBufferData(GL_ARRAY_BUFFER, (long) CAPACITY * FLOATS * 4, GL_STREAM_DRAW);
-        glVertexAttribPointer(0, 2, GL_FLOAT, false, FLOATS * 4, 0);
-        glVertexAttribPointer(1, 2, GL_FLOAT, false, FLOATS * 4, 8);
-        glVertexAttribPointer(2, 4, GL_FLOAT, false, FLOATS * 4, 16);
-        glEnableVertexAttribArray(0);
-        glEnableVertexAttribArray(1);
-        glEnableVertexAttribArray(2);
-        glBindVertexArray(0);
+        array = VertexArray.empty(CAPACITY, GL_STREAM_DRAW, 2, 2, 4); // position, glyph uv, colour
     }
 
     public FontAtlas font() {
@@ -195,10 +183,7 @@ public final class Overlay implements AutoCloseable {
         glActiveTexture(GL_TEXTURE0);
         glBindTexture(GL_TEXTURE_2D, font.texture());
         glUniform1i(uFont, 0);
-        glBindVertexArray(vao);
-        glBindBuffer(GL_ARRAY_BUFFER, vbo);
-        glBufferData(GL_ARRAY_BUFFER, (long) CAPACITY * FLOATS * 4, GL_STREAM_DRAW); // orphan
-        glBufferSubData(GL_ARRAY_BUFFER, 0, data);
+        array.upload(data, CAPACITY, GL_STREAM_DRAW);
         glDrawArrays(GL_TRIANGLES, 0, count);
         glBindVertexArray(0);
         count = 0;
@@ -207,8 +192,7 @@ public final class Overlay implements AutoCloseable {
 
     @Override public void close() {
         shader.close();
-        glDeleteBuffers(vbo);
-        glDeleteVertexArrays(vao);
+        array.close();
         MemoryUtil.memFree(data);
     }
 }

@@ -6,6 +6,7 @@ import java.nio.FloatBuffer;
 import org.lwjgl.system.MemoryUtil;
 import org.spindrift.viewer.data.Landmarks;
 import org.spindrift.viewer.gl.Shader;
+import org.spindrift.viewer.gl.VertexArray;
 
 /**
  * The fixed geometry of the 3D view: the horizon (or surface) as a dark oblate body, the
@@ -22,9 +23,7 @@ public final class LandmarkLayer implements AutoCloseable {
     private final LineMesh grid;
     private final LineMesh rings;
     private final LineMesh axis;
-    private final int sphereVao;
-    private final int sphereVbo;
-    private final int sphereIbo;
+    private final VertexArray sphere;
     private final int sphereIndices;
     private final int uLinesVp;
     private final int uLinesTrail;
@@ -98,17 +97,7 @@ public final class LandmarkLayer implements AutoCloseable {
         }
         idx.flip();
         sphereIndices = STACKS * SLICES * 6;
-        sphereVao = glGenVertexArrays();
-        glBindVertexArray(sphereVao);
-        sphereVbo = glGenBuffers();
-        glBindBuffer(GL_ARRAY_BUFFER, sphereVbo);
-        glBufferData(GL_ARRAY_BUFFER, v, GL_STATIC_DRAW);
-        glVertexAttribPointer(0, 3, GL_FLOAT, false, 12, 0);
-        glEnableVertexAttribArray(0);
-        sphereIbo = glGenBuffers();
-        glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, sphereIbo);
-        glBufferData(GL_ELEMENT_ARRAY_BUFFER, idx, GL_STATIC_DRAW);
-        glBindVertexArray(0);
+        sphere = VertexArray.indexed(v, idx, GL_STATIC_DRAW, 3);
         MemoryUtil.memFree(v);
         MemoryUtil.memFree(idx);
         uLinesVp = lines.uniform("u_viewProjection");
@@ -157,7 +146,7 @@ public final class LandmarkLayer implements AutoCloseable {
         glEnable(GL_DEPTH_TEST);
         glDepthMask(true);
         glDisable(GL_BLEND);
-        glBindVertexArray(sphereVao);
+        sphere.bind();
         glDrawElements(GL_TRIANGLES, sphereIndices, GL_UNSIGNED_INT, 0);
         glBindVertexArray(0);
     }
@@ -172,16 +161,16 @@ public final class LandmarkLayer implements AutoCloseable {
         glEnable(GL_BLEND);
         glBlendFuncSeparate(GL_SRC_ALPHA, GL_ONE_MINUS_SRC_ALPHA, GL_ONE, GL_ONE_MINUS_SRC_ALPHA);
         if (showGrid) {
-            glBindVertexArray(grid.vao);
+            grid.array.bind();
             glDrawArrays(GL_LINES, 0, grid.vertices);
             // the spin axis, unless it is seen end-on (then it would be a stray dot at the centre)
             if (camera.polarDeg() > 3 && camera.polarDeg() < 177) {
-                glBindVertexArray(axis.vao);
+                axis.array.bind();
                 glDrawArrays(GL_LINES, 0, axis.vertices);
             }
         }
         if (showRings) {
-            glBindVertexArray(rings.vao);
+            rings.array.bind();
             glDrawArrays(GL_LINES, 0, rings.vertices);
         }
         glBindVertexArray(0);
@@ -194,8 +183,6 @@ public final class LandmarkLayer implements AutoCloseable {
         grid.close();
         rings.close();
         axis.close();
-        glDeleteBuffers(sphereVbo);
-        glDeleteBuffers(sphereIbo);
-        glDeleteVertexArrays(sphereVao);
+        sphere.close();
     }
 }

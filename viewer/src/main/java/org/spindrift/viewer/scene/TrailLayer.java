@@ -56,7 +56,7 @@ public final class TrailLayer implements AutoCloseable {
         glDepthMask(false);
         glEnable(GL_BLEND);
         glBlendFuncSeparate(GL_SRC_ALPHA, GL_ONE_MINUS_SRC_ALPHA, GL_ONE, GL_ONE_MINUS_SRC_ALPHA);
-        glBindVertexArray(mesh.vao);
+        mesh.array.bind();
         int n = Math.min(snapshots, upTo + 2); // one past: the shader hides the part after 'now'
         for (int k = 0; k < sources; k++) {
             glDrawArrays(GL_LINE_STRIP, k * snapshots, n);

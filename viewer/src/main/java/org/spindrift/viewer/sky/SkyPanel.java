@@ -7,6 +7,7 @@ import org.lwjgl.system.MemoryUtil;
 import org.spindrift.viewer.gl.FontAtlas;
 import org.spindrift.viewer.gl.Overlay;
 import org.spindrift.viewer.gl.Shader;
+import org.spindrift.viewer.gl.VertexArray;
 import org.spindrift.viewer.scene.ColourMaps;
 import org.spindrift.viewer.scene.Palette;
 import org.spindrift.viewer.ui.Text;
@@ -25,8 +26,7 @@ public final class SkyPanel implements AutoCloseable {
     private final double minutesPerM;
     private Shader shader;
     private int texture;
-    private int vao;
-    private int vbo;
+    private VertexArray quad;
     private FloatBuffer frame;
     private int loadedFrame = -1;
     private int uRect;
@@ -74,14 +74,9 @@ public final class SkyPanel implements AutoCloseable {
             glTexParameteri(GL_TEXTURE_2D, GL_TEXTURE_WRAP_T, GL_CLAMP_TO_EDGE);
             glTexImage2D(GL_TEXTURE_2D, 0, GL_R32F, cube.width(), cube.height(), 0, GL_RED, GL_FLOAT, (FloatBuffer) null);
             frame = MemoryUtil.memAllocFloat(cube.width() * cube.height());
-            vao = glGenVertexArrays();
-            vbo = glGenBuffers();
-            glBindVertexArray(vao);
-            glBindBuffer(GL_ARRAY_BUFFER, vbo);
-            glBufferData(GL_ARRAY_BUFFER, new float[] {0, 0, 1, 0, 1, 1, 0, 0, 1, 1, 0, 1}, GL_STATIC_DRAW);
-            glVertexAttribPointer(0, 2, GL_FLOAT, false, 8, 0);
-            glEnableVertexAttribArray(0);
-            glBindVertexArray(0);
+            FloatBuffer unit = MemoryUtil.memAllocFloat(12).put(new float[] {0, 0, 1, 0, 1, 1, 0, 0, 1, 1, 0, 1}).flip();
+            quad = VertexArray.of(unit, GL_STATIC_DRAW, 2);
+            MemoryUtil.memFree(unit);
         }
     }
 
@@ -103,7 +98,7 @@ public final class SkyPanel implements AutoCloseable {
         FontAtlas font = o.font();
         float lh = font.lineHeight(FontAtlas.Size.SMALL);
         o.text(x + 10, y + 8, "Sky (observer's view)", FontAtlas.Size.LARGE, Palette.TEXT);
-        boolean curve = track != null && track.hasFlux() && track.size() > 1;
+        boolean curve = track != null && track.size() > 1;
         int curveH = curve ? Math.max(70, Math.min(150, h / 5)) : 0;
         int side = Math.max(10, Math.min(w - 20, h - 96 - (curve ? curveH + 34 : 0)));
         int ix = x + (w - side) / 2;
@@ -152,7 +147,7 @@ public final class SkyPanel implements AutoCloseable {
             glUniform1f(uRow, (Palette.SKY_MAP + 0.5f) / Palette.MAP_ROWS);
             glDisable(GL_BLEND);
             glDisable(GL_DEPTH_TEST);
-            glBindVertexArray(vao);
+            quad.bind();
             glDrawArrays(GL_TRIANGLES, 0, 6);
             glBindVertexArray(0);
             glDisable(GL_SCISSOR_TEST);
@@ -293,8 +288,7 @@ public final class SkyPanel implements AutoCloseable {
         if (cube != null) {
             shader.close();
             glDeleteTextures(texture);
-            glDeleteBuffers(vbo);
-            glDeleteVertexArrays(vao);
+            quad.close();
             MemoryUtil.memFree(frame);
             cube.close();
         }
