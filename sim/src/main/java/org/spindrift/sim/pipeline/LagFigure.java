@@ -15,6 +15,7 @@ import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
+import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.sim.analysis.AnalysisResult;
 import org.spindrift.sim.analysis.LagProfile;
 import org.spindrift.sim.analysis.ShearShape;
@@ -39,8 +40,8 @@ final class LagFigure implements RunFigure {
         double spm = ctx.secondsPerM();
         List<XYChart> out = new ArrayList<>();
         int k = ctx.scenario().sources().size();
-        double omr = ctx.landmark("omega_max_radius");
-        double isco = ctx.landmark("isco_prograde");
+        double omr = ctx.landmark(ArchiveLayout.LM_OMEGA_MAX_RADIUS);
+        double isco = ctx.landmark(ArchiveLayout.LM_ISCO_PROGRADE);
         for (int src = 0; src < k; src++) {
             String name = ctx.scenario().sources().get(src).name();
             XYChart c = chart(k == 1 ? 900 : 620, 560, "Azimuthal lag profile, " + name,

@@ -16,6 +16,7 @@ import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.shared.Coordinates;
+import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.sim.analysis.AnalysisResult;
 import org.spindrift.sim.analysis.ShearAnalysis;
@@ -90,11 +91,11 @@ final class PositionsFigure implements RunFigure {
         double[] edges = classEdges(sortedR, RAMP.length);
         int nb = Math.max(0, edges.length - 1);
         String[] labels = classLabels(edges);
-        extent = Math.max(extent * 1.08, 1.3 * ctx.landmark("isco_prograde"));
+        extent = Math.max(extent * 1.08, 1.3 * ctx.landmark(ArchiveLayout.LM_ISCO_PROGRADE));
         if (!(extent > 0) || !Double.isFinite(extent)) {
             // no ISCO and no particle left: a field a few capture radii wide
             extent = sortedR.length > 0 ? 1.1 * sortedR[sortedR.length - 1]
-                    : Math.max(10.0, 3 * ctx.landmark("capture_radius"));
+                    : Math.max(10.0, 3 * ctx.landmark(ArchiveLayout.LM_CAPTURE_RADIUS));
         }
         List<XYChart> charts = new ArrayList<>();
         int[] at = {0, (s - 1) / 3, 2 * (s - 1) / 3, s - 1};
@@ -144,12 +145,12 @@ final class PositionsFigure implements RunFigure {
                 none.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
                 none.setMarker(SeriesMarkers.NONE);
             }
-            double rh = ctx.landmark("horizon_outer");
-            double inner = Double.isFinite(rh) ? rh : ctx.landmark("capture_radius");
+            double rh = ctx.landmark(ArchiveLayout.LM_HORIZON_OUTER);
+            double inner = Double.isFinite(rh) ? rh : ctx.landmark(ArchiveLayout.LM_CAPTURE_RADIUS);
             circle(c, (Double.isFinite(rh) ? "horizon " : "surface (capture radius) ") + fmt(inner) + " M", inner,
                     Color.BLACK, false);
-            circle(c, "ISCO " + fmt(ctx.landmark("isco_prograde")) + " M", ctx.landmark("isco_prograde"), Color.GRAY, true);
-            circle(c, "Omega max " + fmt(ctx.landmark("omega_max_radius")) + " M", ctx.landmark("omega_max_radius"),
+            circle(c, "ISCO " + fmt(ctx.landmark(ArchiveLayout.LM_ISCO_PROGRADE)) + " M", ctx.landmark(ArchiveLayout.LM_ISCO_PROGRADE), Color.GRAY, true);
+            circle(c, "Omega max " + fmt(ctx.landmark(ArchiveLayout.LM_OMEGA_MAX_RADIUS)) + " M", ctx.landmark(ArchiveLayout.LM_OMEGA_MAX_RADIUS),
                     new Color(214, 39, 40), true);
             charts.add(c);
         }
