@@ -12,7 +12,8 @@ import picocli.CommandLine.Option;
 /** {@code spindrift validate}: runs the validation suite and writes the report. */
 @Command(name = "validate", mixinStandardHelpOptions = true,
         description = {"Run the validation suite (periastron advance vs the exact Schwarzschild result and the"
-                + " post-Newtonian expansions, Kerr periods vs quadrature, trajectories vs Hipparchus) and write"
+                + " post-Newtonian expansions, Kerr periods vs quadrature, trajectories vs Hipparchus; the Kerr"
+                + " shadow edge, light deflection and face-on image radius of the ray tracer) and write"
                 + " report.md and plots into the output folder.",
             "Exit status 0 when every check passes, 1 when one fails."})
 public final class ValidateCommand implements Callable<Integer> {

@@ -15,13 +15,14 @@ public final class ValidationSuite {
     private ValidationSuite() {
     }
 
-    /** Runs every check (a few seconds). */
+    /** Runs every check (motion, then light; a few seconds). */
     public static Run run() {
         MotionChecks.Series s = MotionChecks.schwarzschildSeries();
         List<Check> all = new ArrayList<>(MotionChecks.schwarzschild(s));
         all.addAll(MotionChecks.lenseThirring());
         all.addAll(MotionChecks.kerr());
         all.addAll(MotionChecks.hipparchus());
+        all.addAll(LightChecks.all());
         return new Run(all, s);
     }
 }

@@ -3,9 +3,9 @@ package org.spindrift.validation;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.spindrift.validation.CheckAssertions.assertAllPass;
 
 import java.util.List;
-import java.util.stream.Collectors;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
@@ -16,15 +16,6 @@ class MotionValidationTest {
     @BeforeAll
     static void measure() {
         series = MotionChecks.schwarzschildSeries();
-    }
-
-    private static void assertAllPass(List<Check> checks) {
-        assertFalse(checks.isEmpty());
-        String failed = checks.stream().filter(c -> !c.passed())
-                .map(c -> c.quantity() + ": measured " + c.measured() + " reference " + c.reference() + " tol "
-                        + c.tolerance())
-                .collect(Collectors.joining("\n"));
-        assertTrue(failed.isEmpty(), failed);
     }
 
     @Test

@@ -24,6 +24,20 @@ import org.spindrift.sim.spacetime.Spacetime;
  * and the 4-velocity is constant; the expansion about t reaches t + 0.5 M to the third-order term.
  */
 class CentreTrackExpansionTest {
+    /** Zeroth order of the expansion against the track at the same time: one interpolant, rounding only. */
+    private static final double SAME_INTERPOLANT = 1e-12;
+    /** Radius and speed of the interpolated track of an orbit integrated at 1e-10 (our choice: 1e-6 relative). */
+    private static final double TRACK_REL = 1e-6;
+    /**
+     * Acceleration is the interpolant's second derivative: three orders less accurate than TRACK_REL (our
+     * choice).
+     */
+    private static final double ACCELERATION_REL = 1e-3;
+    /** Slope of a constant 4-velocity from the interpolant: the integration error over a sample spacing. */
+    private static final double VELOCITY_SLOPE = 1e-8;
+    /** Rounding and interpolation added to the third-order bound on the expanded position, M. */
+    private static final double ROUNDING_M = 1e-9;
+
     @TempDir Path tmp;
 
     @Test
@@ -42,23 +56,24 @@ class CentreTrackExpansionTest {
             assertTrue(track.expansion(0, t, e));
             assertTrue(track.at(0, t, p));
             for (int c = 0; c < 3; c++) {
-                assertEquals(p[c], e[c], 1e-12, "position component " + c + " at t = " + t);
+                assertEquals(p[c], e[c], SAME_INTERPOLANT, "position component " + c + " at t = " + t);
             }
-            assertEquals(big, Math.hypot(e[0], e[1]), 1e-6 * big, "radius at t = " + t);
-            assertEquals(big * omega, Math.sqrt(e[3] * e[3] + e[4] * e[4] + e[5] * e[5]), 1e-6 * big * omega, "speed");
+            assertEquals(big, Math.hypot(e[0], e[1]), TRACK_REL * big, "radius at t = " + t);
+            assertEquals(big * omega, Math.sqrt(e[3] * e[3] + e[4] * e[4] + e[5] * e[5]), TRACK_REL * big * omega,
+                    "speed");
             double acc = Math.sqrt(e[6] * e[6] + e[7] * e[7] + e[8] * e[8]);
-            assertEquals(big * omega * omega, acc, 1e-3 * big * omega * omega, "acceleration at t = " + t);
+            assertEquals(big * omega * omega, acc, ACCELERATION_REL * big * omega * omega, "acceleration at t = " + t);
             // towards the axis
             assertTrue(e[6] * e[0] + e[7] * e[1] < 0, "acceleration points inwards");
             for (int c = 0; c < 4; c++) {
-                assertEquals(0.0, e[13 + c], 1e-8, "4-velocity slope " + c);
+                assertEquals(0.0, e[13 + c], VELOCITY_SLOPE, "4-velocity slope " + c);
             }
             double dt = 0.5;
             assertTrue(track.at(0, t + dt, q));
             for (int c = 0; c < 3; c++) {
                 double x = e[c] + dt * (e[3 + c] + 0.5 * dt * e[6 + c]);
                 // third-order term R Omega^3 dt^3 / 6
-                assertEquals(q[c], x, 2.0 * big * Math.pow(omega * dt, 3) / 6 + 1e-9, "expanded position " + c);
+                assertEquals(q[c], x, 2.0 * big * Math.pow(omega * dt, 3) / 6 + ROUNDING_M, "expanded position " + c);
             }
         }
         assertTrue(track.aliveThrough(0, 10.0, 20.0));

@@ -18,6 +18,17 @@ import org.spindrift.sim.spacetime.Spacetime;
 
 /** The light files in a run folder, read back by an independent reader (astropy). */
 class LightOutputsTest {
+    /** Track columns are written with six decimals (%.6f): half a unit of the last one, doubled. */
+    private static final double CSV_DIGITS = 1e-5;
+    /** Header numbers as FITS stores them (about 15 significant digits) for values of order 1-100. */
+    private static final double HEADER_DIGITS = 1e-9;
+    /** The same product computed twice in double precision on values of order 1e-9 deg: rounding only. */
+    private static final double SAME_FORMULA = 1e-15;
+    /** astropy.wcs pixel scales from CDELT in a 32-bit-safe header round trip: 1e-6 relative (our choice). */
+    private static final double WCS_REL = 1e-6;
+    /** World coordinates of the reference pixel: exactly CRVAL = 0 up to astropy's trigonometry rounding. */
+    private static final double WCS_ZERO = 1e-12;
+
     @TempDir
     Path dir;
 
@@ -71,14 +82,14 @@ class LightOutputsTest {
         LightArchive.Track tr = LightArchive.readTrack(dir);
         assertEquals(r.timesM().length, tr.size());
         int mid = tr.size() / 2;
-        assertEquals(r.moments().get(mid).x() * r.settings().uasPerM(), tr.x()[mid], 1e-5);
-        assertEquals(r.steadyY()[mid] * r.settings().uasPerM(), tr.ySteady()[mid], 1e-5);
+        assertEquals(r.moments().get(mid).x() * r.settings().uasPerM(), tr.x()[mid], CSV_DIGITS);
+        assertEquals(r.steadyY()[mid] * r.settings().uasPerM(), tr.ySteady()[mid], CSV_DIGITS);
         LightArchive.Cube cube = LightArchive.readCube(dir);
         assertEquals(r.images().length, cube.frames().length);
         assertEquals(r.camera().pixels(), cube.pixels());
         assertEquals(r.images()[mid][5 * r.camera().pixels() + 7], cube.frames()[mid][5][7]);
-        assertEquals(r.camera().pixelSize() * r.settings().uasPerM(), cube.pixelUas(), 1e-9);
-        assertEquals(30.0, cube.beamFwhmUas(), 1e-9);
+        assertEquals(r.camera().pixelSize() * r.settings().uasPerM(), cube.pixelUas(), HEADER_DIGITS);
+        assertEquals(30.0, cube.beamFwhmUas(), HEADER_DIGITS);
 
         double pixDeg = r.camera().pixelSize() * r.settings().uasPerM() / 3.6e9;
         String py = String.join("\n",
@@ -102,20 +113,20 @@ class LightOutputsTest {
         assertEquals(r.images().length, Integer.parseInt(f[1]), "frames along NAXIS3");
         // pixel scale = field of view / N (astropy.wcs, Debian python3-astropy as independent reader)
         double expected = r.camera().fieldOfView() / r.camera().pixels() * r.settings().uasPerM() / 3.6e9;
-        assertEquals(expected, pixDeg, 1e-15);
-        assertEquals(expected, Double.parseDouble(f[2]), 1e-6 * expected, "x pixel scale");
-        assertEquals(expected, Double.parseDouble(f[3]), 1e-6 * expected, "y pixel scale");
+        assertEquals(expected, pixDeg, SAME_FORMULA);
+        assertEquals(expected, Double.parseDouble(f[2]), WCS_REL * expected, "x pixel scale");
+        assertEquals(expected, Double.parseDouble(f[3]), WCS_REL * expected, "y pixel scale");
         assertTrue(Double.parseDouble(f[4]) < 0, "CDELT1 negative: east to the left");
         // image centre maps to the reference point (the black hole), longitude 0 or 360, latitude 0
         double ra = Double.parseDouble(f[5]);
-        assertEquals(0.0, Math.min(ra, 360.0 - ra), 1e-12);
-        assertEquals(0.0, Double.parseDouble(f[6]), 1e-12);
+        assertEquals(0.0, Math.min(ra, 360.0 - ra), WCS_ZERO);
+        assertEquals(0.0, Double.parseDouble(f[6]), WCS_ZERO);
         assertEquals("TIME", f[7]);
         // offset frame: no equatorial system claimed, named by WCSNAME; spin PA not confusable with BPA
         assertEquals("False", f[8], "no RADESYS");
         assertEquals("False", f[9], "no EQUINOX");
         assertEquals("False", f[10], "no PA card");
-        assertEquals(r.settings().positionAngleDeg(), Double.parseDouble(f[11]), 1e-12);
+        assertEquals(r.settings().positionAngleDeg(), Double.parseDouble(f[11]), HEADER_DIGITS);
         assertEquals(LightOutputs.OFFSET_FRAME.replace(' ', '_'), f[12]);
         assertEquals("True", f[13], "astropy reads the offset pair as celestial");
     }

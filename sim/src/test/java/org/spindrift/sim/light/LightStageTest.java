@@ -11,6 +11,24 @@ import org.spindrift.sim.spacetime.Spacetime;
 
 /** End-to-end checks of rays, slow-light emission, frames and instrument effects. */
 class LightStageTest {
+    /** Centroid radius of an extended spot (sigma 0.3 M) imaged on 64 pixels of 0.47 M: 2 % (our choice). */
+    private static final double IMAGE_RADIUS_REL = 0.02;
+    /** Centroid period from the total turned angle over more than a period at 40 frames per period (our choice). */
+    private static final double PERIOD_FROM_TURNS_REL = 0.005;
+    /** g at the sample nearest the equator (spacing 0.01 M) of a ray traced at relative tolerance 1e-9. */
+    private static final double FACE_ON_REDSHIFT = 1.0e-4;
+    /** Doppler flux ratio of a 3 M spot at r = 400 M: light-bending and the spot's extent change it by about 1 %. */
+    private static final double BOOST_RATIO_REL = 0.03;
+    /** Omega of the test history (root of the metric code) against the closed form: far above rounding. */
+    private static final double CLOSED_FORM_REL = 1e-9;
+    /** Centroid period from zero crossings interpolated between frames 3 M apart (our choice). */
+    private static final double PERIOD_FROM_CROSSINGS_REL = 0.02;
+    /**
+     * Straight-line delays against -n.x in float samples of order 1e4 M from the start plane (float: 1e-3
+     * relative of 10 M).
+     */
+    private static final double ROEMER_DELAY = 1e-4;
+
     private static LightSettings settings(double inc, double fov, int n, double cadence, double steady) {
         return new LightSettings(inc, 0.0, fov, n, cadence, true, 1.0e6, 1.0e-3, 0.0, steady, 0.0, 1.0, 7L);
     }
@@ -23,7 +41,7 @@ class LightStageTest {
         CircularSpotHistory h = new CircularSpotHistory(st, re, 0.0, 0.3, 300, 0.0, 1.6 * period, 200, 1.0, 3L);
         LightSettings s = settings(0.0, 30.0, 64, period / 40.0, 1.0);
         LightResult res = LightStage.run(s, st, LightTestSupport.captureRadius(0.0), h, 2);
-        double expected = RayTracerTest.primaryImpactParameter(re);
+        double expected = SchwarzschildRays.faceOnImpactParameter(re);
         Camera cam = res.camera();
         int n = cam.pixels();
         double prevAngle = Double.NaN;
@@ -49,8 +67,9 @@ class LightStageTest {
                 }
             }
             double cx = sx / w, cy = sy / w;
-            // Darwin 1959 / Luminet 1979 quadrature (RayTracerTest.primaryImpactParameter)
-            assertEquals(expected, FastMath.hypot(cx, cy), 0.02 * expected, "primary image radius, frame " + f);
+            // Darwin 1959 / Luminet 1979 quadrature (SchwarzschildRays.faceOnImpactParameter)
+            assertEquals(expected, FastMath.hypot(cx, cy), IMAGE_RADIUS_REL * expected,
+                    "primary image radius, frame " + f);
             double pa = FastMath.atan2(cx, cy);              // position angle, north through east
             if (!Double.isNaN(prevAngle)) {
                 turned += FastMath.IEEEremainder(pa - prevAngle, 2 * FastMath.PI);
@@ -62,7 +81,7 @@ class LightStageTest {
         // prograde orbit, i < 90: the position angle increases (counter-clockwise, north up, east left)
         assertTrue(turned > 0, "prograde orbit turns north through east");
         // centroid period equals the coordinate orbital period 2 pi r^1.5
-        assertEquals(period, 2 * FastMath.PI * span / turned, 0.005 * period, "centroid period");
+        assertEquals(period, 2 * FastMath.PI * span / turned, PERIOD_FROM_TURNS_REL * period, "centroid period");
         double r0 = FastMath.hypot(res.moments().get(first).x(), res.moments().get(first).y());
         // steady source with flux ratio f = 1: the track shrinks by 1/(1+f) (common practice, no source)
         for (int f = first; f <= last; f++) {
@@ -78,7 +97,7 @@ class LightStageTest {
         double re = 8.0;
         Camera cam = new Camera(0.0, 0.0, 30.0, 64, 1.0e4);
         TraceSettings ts = TraceSettings.of(30.0, LightTestSupport.captureRadius(0.0), 0.01, true);
-        double b = RayTracerTest.primaryImpactParameter(re);
+        double b = SchwarzschildRays.faceOnImpactParameter(re);
         SampleBuffer buf = new SampleBuffer(64);
         RayTracer tr = new RayTracer(st, ts);
         double[] y0 = new double[6];
@@ -95,7 +114,7 @@ class LightStageTest {
         double g = Redshift.g(buf.pr[best], buf.pth[best], l, ut, 0.0, 0.0, ut * om);
         // face-on circular orbit: transverse Doppler plus gravitational redshift,
         // g = sqrt(1 - 3M/r) (e.g. Luminet 1979, A&A 75, 228, eq. 17 with the photon's L = 0)
-        assertEquals(FastMath.sqrt(1.0 - 3.0 / re), g, 1.0e-4, "face-on redshift at r = " + re);
+        assertEquals(FastMath.sqrt(1.0 - 3.0 / re), g, FACE_ON_REDSHIFT, "face-on redshift at r = " + re);
     }
 
     @Test
@@ -122,7 +141,7 @@ class LightStageTest {
         // flux scales as delta^(3+alpha) (common practice, e.g. Rybicki & Lightman 1979, sect. 4.9)
         double expected = FastMath.pow((1 + v) / (1 - v), 3 + alpha);
         assertTrue(flux[0] > flux[1], "approaching side brighter");
-        assertEquals(expected, flux[0] / flux[1], 0.03 * expected, "approaching / receding flux ratio");
+        assertEquals(expected, flux[0] / flux[1], BOOST_RATIO_REL * expected, "approaching / receding flux ratio");
         // with PA = 0 the approaching side of a prograde orbit seen edge-on is east (left)
         assertTrue(east[0] > 0 && east[1] < 0, "approaching side east");
     }
@@ -171,8 +190,8 @@ class LightStageTest {
         assertTrue(crossings >= 1, "at least two upward crossings");
         // Kerr prograde Omega = 1 / (r^1.5 + a) (Bardeen, Press & Teukolsky 1972, eq. 2.16)
         double kerrPeriod = 2 * FastMath.PI * (FastMath.pow(re, 1.5) + a);
-        assertEquals(kerrPeriod, period, 1e-9 * period);
-        assertEquals(kerrPeriod, (last - first) / crossings, 0.02 * kerrPeriod, "centroid period");
+        assertEquals(kerrPeriod, period, CLOSED_FORM_REL * period);
+        assertEquals(kerrPeriod, (last - first) / crossings, PERIOD_FROM_CROSSINGS_REL * kerrPeriod, "centroid period");
     }
 
     @Test
@@ -189,7 +208,7 @@ class LightStageTest {
                 FrameMoments m = res.moments().get(f);
                 // no bending: the face-on image of a ring of radius r is a circle of radius r
                 // (flat space, common practice); the lensed image is larger (Darwin 1959)
-                assertEquals(re, FastMath.hypot(m.x(), m.y()), 0.02 * re, "straight-line image radius");
+                assertEquals(re, FastMath.hypot(m.x(), m.y()), IMAGE_RADIUS_REL * re, "straight-line image radius");
                 checked++;
             }
         }
@@ -206,7 +225,7 @@ class LightStageTest {
         double spread = t.delayRange()[1] - t.delayRange()[0];
         for (int i = 0; i < t.samples(); i++) {
             double roemer = -(t.x[i] * p[3] + t.y[i] * p[4] + t.z[i] * p[5]);
-            assertEquals(roemer, t.delay[i], 1e-4, "Roemer delay of sample " + i);
+            assertEquals(roemer, t.delay[i], ROEMER_DELAY, "Roemer delay of sample " + i);
         }
         // across the ring the delays span about 2 r sin(i)
         assertTrue(spread > 2 * (re - 1) * FastMath.sin(FastMath.toRadians(60.0)), "delay spread " + spread);

@@ -18,14 +18,4 @@ final class LightTestSupport {
     static double captureRadius(double a) {
         return 1.0 + Math.sqrt(1.0 - a * a) + Landmarks.CAPTURE_MARGIN;
     }
-
-    /** Traces the ray through screen point (alpha, beta) of the camera; returns its end. */
-    static RayEnd traceScreen(Spacetime st, Camera cam, TraceSettings s, double alpha, double beta,
-                              SampleBuffer buf) {
-        RayTracer tr = new RayTracer(st, s);
-        double[] y0 = new double[6];
-        double[] g = new double[Spacetime.SIZE];
-        double l = cam.initialState(st, alpha, beta, y0, g);
-        return tr.trace(y0, l, RayTracer.delayOffset(cam.distance()), buf);
-    }
 }
