@@ -35,7 +35,7 @@ class HistoryEmittersTest {
                 new double[] {1.0}), 2);
         Camera cam = res.camera();
         int px = cam.pixels();
-        double expected = RayTracerTest.primaryImpactParameter(re);
+        double expected = SchwarzschildRays.faceOnImpactParameter(re);
         double fluxSum = 0;
         int covered = 0;
         for (int f = 0; f < res.timesM().length; f++) {
@@ -56,7 +56,7 @@ class HistoryEmittersTest {
             assertEquals(mean, m.flux(), STEADY_TOLERANCE * mean, "flux of frame " + f);
             assertEquals(0.0, FastMath.hypot(m.x(), m.y()), STEADY_TOLERANCE * re, "centroid of frame " + f);
             // flux-weighted radius of the primary image (pixels beyond 8 M, outside the photon-ring region)
-            // against the Darwin 1959 / Luminet 1979 quadrature (RayTracerTest.primaryImpactParameter)
+            // against the Darwin 1959 / Luminet 1979 quadrature (SchwarzschildRays.faceOnImpactParameter)
             float[] img = res.images()[f];
             double w = 0, sb = 0;
             for (int row = 0; row < px; row++) {
