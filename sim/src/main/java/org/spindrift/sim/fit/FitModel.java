@@ -7,6 +7,9 @@ import org.hipparchus.util.FastMath;
 import org.spindrift.shared.Units;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.scenario.BlackHole;
+import org.spindrift.shared.scenario.CentreOrbit;
+import org.spindrift.shared.scenario.Sense;
+import org.spindrift.shared.scenario.VelocityModel;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.shared.scenario.Source;
 import org.spindrift.shared.scenario.SourceShape;
@@ -24,6 +27,7 @@ import org.spindrift.sim.scenario.LoadedScenario;
 import org.spindrift.sim.scenario.ScenarioChecks;
 import org.spindrift.sim.scenario.ScenarioTree;
 import org.spindrift.sim.scenario.SourceSetup;
+import org.spindrift.sim.spacetime.CircularOrbits;
 import org.spindrift.sim.spacetime.Landmarks;
 import org.spindrift.sim.spacetime.Spacetime;
 
@@ -44,11 +48,21 @@ public final class FitModel {
         private final Map<String, Object[]> spacetimes = new ConcurrentHashMap<>();
         private final Map<String, CompactSourceModel.Index> tables = new ConcurrentHashMap<>();
         private final int threads;
+        private final RayTable.Refinement refinement;
         private volatile int traced;
 
         /** @param threads threads for tracing tables (results do not depend on it) */
         public Cache(int threads) {
+            this(threads, null);
+        }
+
+        /**
+         * @param threads threads for tracing tables (results do not depend on it)
+         * @param refinement sub-pixel refinement of the tables (null: the model's own rule)
+         */
+        public Cache(int threads, RayTable.Refinement refinement) {
             this.threads = threads;
+            this.refinement = refinement;
         }
 
         /** @return tables traced so far */
@@ -196,7 +210,13 @@ public final class FitModel {
         for (int k = 0; k < spots.length; k++) {
             Source s = sc.sources().get(k);
             double sigma = sigma(s.shape());
-            spots[k] = new CompactSourceModel.Spot(sigma, s.emission().weight(), new FlareEnvelope(s.emission().flare(), spm));
+            double shear = 0;
+            if (s.orbit() instanceof CentreOrbit.Circular circ && s.velocity().kind() == VelocityModel.Kind.SHEAR) {
+                shear = CompactSourceModel.shearRate(circ.radiusM(), st.spin(),
+                        CircularOrbits.omegaDerivative(st, circ.radiusM(), circ.sense() == Sense.PROGRADE));
+            }
+            spots[k] = new CompactSourceModel.Spot(sigma, s.emission().weight(),
+                    new FlareEnvelope(s.emission().flare(), spm), shear);
             cut = FastMath.max(cut, CompactSourceModel.CUT_SIGMAS
                     * FastMath.sqrt(sigma * sigma + CompactSourceModel.KERNEL_VARIANCE * h * h));
         }
@@ -209,13 +229,15 @@ public final class FitModel {
         double rEm = FastMath.min(FastMath.max(2.0 * FastMath.ceil(rNeed / 2.0), capture + 3.0),
                 FastMath.max(ls0.fieldOfViewM(), 20.0));
         double cell = FastMath.max(0.25, 0.5 * cut);
+        RayTable.Refinement rule = cache.refinement != null ? cache.refinement
+                : CompactSourceModel.refinement(cam, spots);
         String tKey = bhKey + "|" + ls0.inclinationDeg() + "|" + ls0.fieldOfViewM() + "|" + ls0.pixels() + "|"
-                + ls0.lensing() + "|" + rEm + "|" + capture + "|" + cell;
+                + ls0.lensing() + "|" + rEm + "|" + capture + "|" + cell + "|" + rule;
         CompactSourceModel.Index index = cache.tables.computeIfAbsent(tKey, k -> {
             TraceSettings ts = TraceSettings.of(rEm, capture, LightStage.SAMPLES_PER_H * h, ls0.lensing())
                     .withTolerance(1.0e-8, 1.0e-10);
             cache.traced++;
-            return new CompactSourceModel.Index(RayTable.trace(st, cam, ts, cache.threads), cell);
+            return new CompactSourceModel.Index(RayTable.trace(st, cam, ts, cache.threads, rule), cell);
         });
         double cadence = sc.imaging().frameCadence() == null ? times[1] - times[0] : sc.imaging().frameCadence().toM(spm);
         return atTimes != null

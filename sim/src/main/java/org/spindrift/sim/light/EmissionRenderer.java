@@ -291,7 +291,7 @@ public final class EmissionRenderer implements AutoCloseable {
                         gBox[6 * g + 4], gBox[6 * g + 5]);
             }
             if (any) {
-                renderRange(a, b, tObs, jLo, window, acc);
+                renderNear(a, b, tObs, jLo, window, acc);
             }
         }
     }
@@ -308,6 +308,27 @@ public final class EmissionRenderer implements AutoCloseable {
                 continue;
             }
             double e = sl.emissivity(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm, support2);
+            if (e != 0.0) {
+                acc[pix[i]] += sdl[i] * e;
+            }
+        }
+    }
+
+    /** {@link #renderRange} with the slices' exact shortcuts ({@link EmissionSlice#emissivityNear}). */
+    private void renderNear(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
+        for (int i = i0; i < i1; i++) {
+            double tE = tObs - sd[i];
+            // Math.rint: the same correctly rounded value as FastMath.rint, as a processor instruction
+            int w = (int) ((long) Math.rint((tE - sliceOrigin) / sliceSpacing) - jLo);
+            if (w < 0 || w >= window.length) {
+                continue;
+            }
+            EmissionSlice sl = window[w];
+            if (sl == null) {
+                continue;
+            }
+            double e = sl.emissivityNear(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm,
+                    support2);
             if (e != 0.0) {
                 acc[pix[i]] += sdl[i] * e;
             }

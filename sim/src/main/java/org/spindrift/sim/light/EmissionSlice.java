@@ -1,5 +1,6 @@
 package org.spindrift.sim.light;
 
+import java.util.Arrays;
 import org.hipparchus.util.FastMath;
 import org.spindrift.sim.spacetime.Spacetime;
 import org.spindrift.sim.spacetime.Trig;
@@ -47,8 +48,23 @@ final class EmissionSlice {
     private final boolean[] nearColumn;
     /** Dilation of {@link #nearColumn} in cells. */
     static final int NEAR = 3;
+    /**
+     * Per cell: the smallest squared gap, in cell units, between this cell and an occupied cell
+     * (gap per axis max(|offset| - 1, 0), offsets up to {@link #NEAR}; {@link #FAR} when there is
+     * none). It bounds from below the distance from any point of the cell to any particle, so a
+     * sample whose cell has a gap beyond its search radius sees no particle.
+     */
+    private final byte[] gap2;
+    /**
+     * Per (x, y) column of cells: the lowest and highest occupied z cell ({@code zLo > zHi} when
+     * the column is empty). Small enough to stay in cache, so a query skips empty columns and
+     * columns whose particles are all too far in z without reading the cell list.
+     */
+    private final byte[] zLo, zHi;
+    /** Value of {@link #gap2} for cells with no occupied cell within {@link #NEAR} cells. */
+    private static final byte FAR = 100;
 
-    private EmissionSlice(double tau, int count, float[][] cols, int[] cellStart, double ox, double oy,
+    private EmissionSlice(double tau, int count, double[] pos, float[] att, int[] cellStart, double ox, double oy,
                           double oz, double cell, int nx, int ny, int nz, double reach, double vmax) {
         this.tau = tau;
         this.count = count;
@@ -64,15 +80,22 @@ final class EmissionSlice {
         this.reach = reach;
         this.vmax = vmax;
         nearColumn = columns(cellStart, nx, ny, nz);
-
-        pos = new double[REC * count];
-        att = new float[REC * count];
-        for (int p = 0; p < count; p++) {
-            for (int c = 0; c < REC; c++) {
-                pos[REC * p + c] = cols[c][p];
-                att[REC * p + c] = cols[REC + c][p];
+        gap2 = gaps(cellStart, nx, ny, nz);
+        zLo = new byte[nx * ny];
+        zHi = new byte[nx * ny];
+        for (int c = 0; c < nx * ny; c++) {
+            int lo = nz, hi = -1;
+            for (int k = 0; k < nz; k++) {
+                if (cellStart[c * nz + k + 1] > cellStart[c * nz + k]) {
+                    lo = Math.min(lo, k);
+                    hi = k;
+                }
             }
+            zLo[c] = (byte) lo;
+            zHi[c] = (byte) hi;
         }
+        this.pos = pos;
+        this.att = att;
     }
 
     /** Occupied (x, y) columns dilated by NEAR cells in x and y (two one-dimensional passes). */
@@ -102,6 +125,52 @@ final class EmissionSlice {
             }
         }
         return out;
+    }
+
+    /**
+     * Squared gaps to the nearest occupied cell: the minimum over offsets of the sum of squared
+     * per-axis gaps separates into three one-dimensional minimum passes (z, then y, then x), as
+     * in separable distance transforms (e.g. Felzenszwalb &amp; Huttenlocher 2012, Theory of
+     * Computing 8, 415), here over offsets of at most {@link #NEAR} cells.
+     */
+    private static byte[] gaps(int[] cellStart, int nx, int ny, int nz) {
+        int cells = nx * ny * nz;
+        byte[] a = new byte[cells];
+        byte[] b = new byte[cells];
+        Arrays.fill(a, FAR);
+        for (int c = 0; c < cells; c++) {            // along z: from the occupied cells
+            if (cellStart[c + 1] > cellStart[c]) {
+                stamp(a, c, 0, c % nz, nz, 1);
+            }
+        }
+        Arrays.fill(b, FAR);
+        for (int c = 0; c < cells; c++) {            // along y
+            if (a[c] < FAR) {
+                stamp(b, c, a[c], (c / nz) % ny, ny, nz);
+            }
+        }
+        Arrays.fill(a, FAR);
+        for (int c = 0; c < cells; c++) {            // along x
+            if (b[c] < FAR) {
+                stamp(a, c, b[c], c / (ny * nz), nx, ny * nz);
+            }
+        }
+        return a;
+    }
+
+    /**
+     * out[c + d * stride] = min(out[..], v + g(d)^2) for |d| &lt;= NEAR inside the line, g(d) =
+     * max(|d| - 1, 0); i is the cell's index along its line of len cells.
+     */
+    private static void stamp(byte[] out, int c, int v, int i, int len, int stride) {
+        for (int d = Math.max(-NEAR, -i); d <= Math.min(NEAR, len - 1 - i); d++) {
+            int g = Math.max(Math.abs(d) - 1, 0);
+            int k = c + d * stride;
+            int w = v + g * g;
+            if (w < out[k]) {
+                out[k] = (byte) w;
+            }
+        }
     }
 
     /**
@@ -237,54 +306,92 @@ final class EmissionSlice {
             start[c + 1] += start[c];
         }
         int[] fill = new int[cells];
-        float[][] cols = new float[12][m];
+        double[] pos = new double[REC * m];
+        float[] att = new float[REC * m];
         for (int p = 0; p < m; p++) {              // stable counting sort by cell
             int c = cellOf[p];
-            int dst = start[c] + fill[c]++;
-            for (int q = 0; q < 12; q++) {
-                cols[q][dst] = tmp[q][p];
+            int dst = REC * (start[c] + fill[c]++);
+            for (int q = 0; q < REC; q++) {
+                pos[dst + q] = tmp[q][p];
+                att[dst + q] = tmp[REC + q][p];
             }
         }
-        return new EmissionSlice(tau, m, cols, start, minX, minY, minZ, cell, gx, gy, gz, reach, vmax);
+        return new EmissionSlice(tau, m, pos, att, start, minX, minY, minZ, cell, gx, gy, gz, reach, vmax);
     }
 
     /**
      * Emissivity sum over the particles near a sample: sum_p w_p W(|x - x_p(t_e)|, h) g_p^(2+alpha_p)
-     * with x_p(t_e) = x_p(tau) + v_p (t_e - tau).
+     * with x_p(t_e) = x_p(tau) + v_p (t_e - tau). The query of the per-sample reference renderer.
      */
     double emissivity(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
                       double invH, double norm, double support2) {
+        return query(false, sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
+    }
+
+    /**
+     * The same sum as {@link #emissivity} (the same particles in the same order, so the same
+     * number bit for bit), with exact shortcuts: a sample whose cell is farther than its search
+     * radius from every occupied cell ({@link #gap2}) returns at once, and columns of cells whose
+     * (x, y) gap from the sample, or whose occupied z range, is beyond the search radius are not
+     * visited.
+     */
+    double emissivityNear(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
+                          double invH, double norm, double support2) {
+        return query(true, sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
+    }
+
+    private double query(boolean near, double sx, double sy, double sz, double dtE, double pr, double pth,
+                         double pphi, double invH, double norm, double support2) {
         // a particle within the support at t_e is within 2h + vmax |t_e - tau| of the sample at tau
         double rs = Math.sqrt(support2) + vmax * Math.abs(dtE);
         double fx = (sx - ox) * invCell, fy = (sy - oy) * invCell, fz = (sz - oz) * invCell;
         // search radius in cell units, widened by a relative 1e-6 against float/double rounding
         // of the stored positions and velocities (never narrower than needed)
         double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
-        int x0 = (int) FastMath.floor(fx - rc);
-        int x1 = (int) FastMath.floor(fx + rc);
-        int y0 = (int) FastMath.floor(fy - rc);
-        int y1 = (int) FastMath.floor(fy + rc);
-        int z0 = (int) FastMath.floor(fz - rc);
-        int z1 = (int) FastMath.floor(fz + rc);
+        double rc2 = rc * rc;
+        int x0 = (int) Math.floor(fx - rc);
+        int x1 = (int) Math.floor(fx + rc);
+        int y0 = (int) Math.floor(fy - rc);
+        int y1 = (int) Math.floor(fy + rc);
+        int z0 = (int) Math.floor(fz - rc);
+        int z1 = (int) Math.floor(fz + rc);
         if (x1 < 0 || y1 < 0 || z1 < 0 || x0 >= nx || y0 >= ny || z0 >= nz) {
             return 0.0;
         }
-        int cx = (int) FastMath.floor(fx), cy = (int) FastMath.floor(fy);
-        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && !nearColumn[cx * ny + cy]) {
+        int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy), cz = (int) Math.floor(fz);
+        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && (near
+                ? cz >= 0 && cz < nz && gap2[(cx * ny + cy) * nz + cz] > rc2
+                : !nearColumn[cx * ny + cy])) {
             return 0.0;
         }
-        x0 = FastMath.max(0, x0);
-        y0 = FastMath.max(0, y0);
-        z0 = FastMath.max(0, z0);
-        x1 = FastMath.min(nx - 1, x1);
-        y1 = FastMath.min(ny - 1, y1);
-        z1 = FastMath.min(nz - 1, z1);
+        x0 = Math.max(0, x0);
+        y0 = Math.max(0, y0);
+        z0 = Math.max(0, z0);
+        x1 = Math.min(nx - 1, x1);
+        y1 = Math.min(ny - 1, y1);
+        z1 = Math.min(nz - 1, z1);
         double sum = 0.0;
         for (int ix = x0; ix <= x1; ix++) {
+            // gap from the sample to the column's x interval [ix, ix + 1), cell units
+            double gx = ix > fx ? ix - fx : fx - (ix + 1) > 0 ? fx - (ix + 1) : 0.0;
+            double gx2 = gx * gx;
             for (int iy = y0; iy <= y1; iy++) {
-                int base = (ix * ny + iy) * nz;
+                int col = ix * ny + iy;
+                int za = z0, zb = z1;
+                if (near) {
+                    double gy = iy > fy ? iy - fy : fy - (iy + 1) > 0 ? fy - (iy + 1) : 0.0;
+                    int lo = zLo[col], hi = zHi[col];
+                    // gap from the sample to the column's occupied z cells [lo, hi + 1)
+                    double gz = lo > fz ? lo - fz : fz - (hi + 1) > 0 ? fz - (hi + 1) : 0.0;
+                    if (lo > z1 || hi < z0 || gx2 + gy * gy + gz * gz > rc2) {
+                        continue;
+                    }
+                    za = Math.max(z0, lo);
+                    zb = Math.min(z1, hi);
+                }
                 // cells along z are contiguous
-                sum = sumCells(sum, cellStart[base + z0], cellStart[base + z1 + 1], sx, sy, sz, dtE, pr, pth, pphi,
+                int base = col * nz;
+                sum = sumCells(sum, cellStart[base + za], cellStart[base + zb + 1], sx, sy, sz, dtE, pr, pth, pphi,
                         invH, norm, support2);
             }
         }
@@ -313,6 +420,16 @@ final class EmissionSlice {
             }
         }
         return false;
+    }
+
+    /**
+     * The kernel sum straight from its definition, over every particle of the slice with no cell
+     * list (in record order, so the same number as the queries bit for bit): what the queries
+     * and their shortcuts are checked against.
+     */
+    double emissivityAllParticles(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
+                                  double invH, double norm, double support2) {
+        return sumCells(0.0, 0, count, sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
     }
 
     /** @return sum plus the kernel sum over the particle records from..to-1 (contiguous cells along z) */

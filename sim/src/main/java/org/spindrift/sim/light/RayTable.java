@@ -63,6 +63,19 @@ public final class RayTable {
     static final double STRETCH_THRESHOLD = 3.0;
 
     /**
+     * How stretched pixels are refined: k = min(maxRays, ceil(stretch / threshold)) sub-rays per
+     * side where the stretch (pixels) is finite, edgeRays where neighbouring rays end differently.
+     *
+     * @param threshold stretch in pixels that one sub-ray spacing may cover
+     * @param maxRays largest k for finite stretch
+     * @param edgeRays k at the shadow edge
+     */
+    public record Refinement(double threshold, int maxRays, int edgeRays) {
+        /** The run's refinement: threshold 3 pixels, at most {@link #MAX_REFINE} sub-rays per side. */
+        public static final Refinement RUN = new Refinement(STRETCH_THRESHOLD, MAX_REFINE, MAX_REFINE);
+    }
+
+    /**
      * Traces the table in two passes. First one ray per pixel centre; then pixels where the map
      * from the screen to the hole's surroundings is strongly stretched (secondary images and the
      * photon ring, where a pixel-centre ray would sample a thin, demagnified image badly), or
@@ -74,6 +87,16 @@ public final class RayTable {
      * @param threads worker threads (the result does not depend on it)
      */
     public static RayTable trace(Spacetime spacetime, Camera camera, TraceSettings settings, int threads) {
+        return trace(spacetime, camera, settings, threads, Refinement.RUN);
+    }
+
+    /**
+     * As {@link #trace(Spacetime, Camera, TraceSettings, int)} with another refinement rule.
+     *
+     * @param rule how stretched pixels are refined
+     */
+    public static RayTable trace(Spacetime spacetime, Camera camera, TraceSettings settings, int threads,
+                                 Refinement rule) {
         final int n = camera.pixels();
         final double[] lz = new double[n * n];
         final byte[] ends = new byte[n * n];
@@ -95,7 +118,8 @@ public final class RayTable {
                 base[row] = buf;
             }));
             if (settings.lensing()) {
-                final int[] refine = refinement(camera, ends, closest, settings.generalPath() ? null : counts);
+                final int[] refine = refinement(camera, ends, closest, settings.generalPath() ? null : counts,
+                        rule);
                 refineOut[0] = refine;
                 run(pool, () -> IntStream.range(0, n).parallel().forEach(row -> {
                     rows[row] = refineRow(spacetime, camera, settings, row, base[row], refine, counts, rowSteps);
@@ -151,6 +175,10 @@ public final class RayTable {
      * @return sub-rays per side for every pixel (1: not refined)
      */
     static int[] refinement(Camera camera, byte[] ends, double[] closest, int[] counts) {
+        return refinement(camera, ends, closest, counts, Refinement.RUN);
+    }
+
+    static int[] refinement(Camera camera, byte[] ends, double[] closest, int[] counts, Refinement rule) {
         int n = camera.pixels();
         double inv = 1.0 / camera.pixelSize();
         int[] k = new int[n * n];
@@ -181,8 +209,8 @@ public final class RayTable {
                     double dz = closest[3 * p + 2] - closest[3 * q + 2];
                     stretch = FastMath.max(stretch, FastMath.sqrt(dx * dx + dy * dy + dz * dz) * inv);
                 }
-                k[p] = stretch <= STRETCH_THRESHOLD ? 1
-                        : (int) FastMath.min(MAX_REFINE, FastMath.ceil(stretch / STRETCH_THRESHOLD));
+                k[p] = stretch <= rule.threshold() ? 1 : stretch == Double.POSITIVE_INFINITY ? rule.edgeRays()
+                        : (int) FastMath.min(rule.maxRays(), FastMath.ceil(stretch / rule.threshold()));
             }
         }
         return k;

@@ -61,9 +61,10 @@ public class CompactModelVsRunTest {
     }
 
     @ParameterizedTest(name = "{0} a={1} {2} i={3}")
-    @CsvSource({"kerr, 0.5, '', 1, 0.02, 0.10", "kerr, 0.5, '', 60, 0.05, 0.5", "jp, 0.5, 'epsilon3: 1.0', 60, 0.05, 0.5"})
-    void fastModelMatchesRun(String family, double spin, String params, double inc, double medianTol, double worstTol)
-            throws Exception {
+    @CsvSource({"kerr, 0.5, '', 1, 0.02, 0.015, 0.07, 0.05", "kerr, 0.5, '', 60, 0.01, 0.015, 0.35, 0.33",
+        "jp, 0.5, 'epsilon3: 1.0', 60, 0.012, 0.015, 0.25, 0.22"})
+    void fastModelMatchesRun(String family, double spin, String params, double inc, double tolMedC, double tolMedF,
+                             double tolWorstC, double tolWorstF) throws Exception {
         Path file = tmp.resolve("compact.yaml");
         Files.writeString(file, scenario(family, spin, params, inc));
         LoadedScenario ls = ScenarioLoader.load(file);
@@ -115,21 +116,22 @@ public class CompactModelVsRunTest {
                 medC, 100 * medC / radius, worstC, 100 * worstC / radius, 100 * medF, 100 * worstF);
         System.out.println(msg);
         assertTrue(n >= 10, msg);
-        // Target not met: centroid within 1 % of the track radius and flux within 2 % in every frame.
-        // Measured here (96 px): face-on medians 1.4 % / 1.2 %, worst 7 % / 5 %; at i = 60 deg medians
-        // about 3 % / 2-4 %, worst 31 % / 30 % in the frames with the spot behind the hole. Why: at 96 px
-        // the run is not a converged reference there. The fast model alone, i = 60 deg, 96 px against
-        // the same model at 384 px (frames 40-132 M): with the spot in front of the hole at most
-        // 0.07 M (0.8 %) and 0.5 % in flux, i.e. within the target; behind the hole up to 1.6 M and 13 %,
-        // 0.65 M and 7 % at 192 px (the thin, strongly lensed images are sampled by few rays, and the
-        // error falls as the pixels shrink). The run carries an error of the same kind, from a table
-        // refined elsewhere (its mask), so run and model disagree by the sum of two sampling errors;
-        // the run also shears the spot, the model does not. The tolerances below record what is
+        // Targets: centroid within 1 % of the track radius and flux within 2 % in every frame. The model
+        // is converged at 96 px (its tables are refined to a sub-ray spacing of about the blob's width:
+        // against itself at 192 px, i = 60 deg, frames 40-132 M, at most 0.22 M and 2.3 %) and shears the
+        // spot as the run's particles shear. Measured here, run at 96 px: medians face-on 1.4 % / 1.1 %,
+        // i = 60 deg 0.8 % / 0.9-1.0 %; worst frames face-on 5 % / 3.5 %, i = 60 deg 17-26 % / 16-23 %
+        // with the spot behind the hole. The rest is the run's own sampling of the thin lensed images
+        // (its table refines stretched pixels to at most 4 x 4 rays 3 pixels apart): the same comparison
+        // with the run at 192 px gives medians 0.4-0.5 % / 0.6-0.9 % in all three cases (within the
+        // targets) and worst frames 5 % face-on, 11 % (Kerr) and 21 % (jp) at i = 60 deg. Medians are held
+        // to the targets except the face-on centroid (2 %: the 96 px run's thin secondary ring jitters by
+        // 0.1-0.4 M from frame to frame, anticorrelated with its flux); the worst frames record what is
         // reached so that a regression shows.
-        assertTrue(medC <= medianTol * radius, msg);
-        assertTrue(medF <= medianTol, msg);
-        assertTrue(worstC <= worstTol * radius, msg);
-        assertTrue(worstF <= worstTol, msg);
+        assertTrue(medC <= tolMedC * radius, msg);
+        assertTrue(medF <= tolMedF, msg);
+        assertTrue(worstC <= tolWorstC * radius, msg);
+        assertTrue(worstF <= tolWorstF, msg);
     }
 
     private static double median(double[] v, int n) {
