@@ -1,7 +1,7 @@
 package org.spindrift.sim.analysis;
 
 import org.spindrift.sim.motion.TurningPoints;
-import org.spindrift.sim.run.ParticleHistory;
+import org.spindrift.sim.history.ParticleHistory;
 
 /**
  * Orbital periods of each particle from its sampled trajectory, in
@@ -230,19 +230,23 @@ public final class ParticlePeriods {
         return meanR[i];
     }
 
-    double[] periodPhi() {
+    /** @return the azimuthal period of every particle, M (NaN where not measured) (the stored array: read only) */
+    public double[] periodPhi() {
         return periodPhi;
     }
 
-    double[] periodR() {
+    /** @return the radial period of every particle, M (NaN where not measured) (the stored array: read only) */
+    public double[] periodR() {
         return periodR;
     }
 
-    double[] periodTheta() {
+    /** @return the vertical period of every particle, M (NaN where not measured) (the stored array: read only) */
+    public double[] periodTheta() {
         return periodTheta;
     }
 
-    double[] advance() {
+    /** @return the periastron advance of every particle per radial period, rad (NaN where not measured) (the stored array: read only) */
+    public double[] advance() {
         return advance;
     }
 }

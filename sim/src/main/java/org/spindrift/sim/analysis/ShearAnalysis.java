@@ -3,7 +3,7 @@ package org.spindrift.sim.analysis;
 import java.util.ArrayList;
 import java.util.List;
 import org.spindrift.shared.Coordinates;
-import org.spindrift.sim.run.ParticleHistory;
+import org.spindrift.sim.history.ParticleHistory;
 
 /**
  * Shear shapes of every source at every snapshot: centre of mass, the
@@ -124,7 +124,7 @@ public final class ShearAnalysis {
                 minor > 0 ? major / minor : Double.POSITIVE_INFINITY, orient, extent, lag);
     }
 
-    static double[] planeNormal(double[][] com) {
+    public static double[] planeNormal(double[][] com) {
         double[] n = new double[3];
         for (int q = 0; q + 1 < com.length; q++) {
             double[] a = com[q];
@@ -144,7 +144,7 @@ public final class ShearAnalysis {
     }
 
     /** Orthonormal in-plane basis: e1 the projection of x (or y) on the plane, e2 = n x e1. */
-    static void basis(double[] n, double[] e1, double[] e2) {
+    public static void basis(double[] n, double[] e1, double[] e2) {
         double[] ref = Math.abs(n[0]) < 0.9 ? new double[] {1, 0, 0} : new double[] {0, 1, 0};
         double d = dot(ref, n);
         for (int c = 0; c < 3; c++) {
@@ -159,7 +159,7 @@ public final class ShearAnalysis {
         e2[2] = n[0] * e1[1] - n[1] * e1[0];
     }
 
-    static double dot(double[] a, double[] b) {
+    public static double dot(double[] a, double[] b) {
         return a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
     }
 }

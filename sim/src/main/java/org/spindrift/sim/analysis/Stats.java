@@ -3,12 +3,12 @@ package org.spindrift.sim.analysis;
 import java.util.Arrays;
 
 /** Order statistics of samples that may contain NaN (ignored). */
-final class Stats {
+public final class Stats {
     private Stats() {
     }
 
     /** @return the finite values, sorted */
-    static double[] finiteSorted(double[] v, int n) {
+    public static double[] finiteSorted(double[] v, int n) {
         double[] out = new double[n];
         int m = 0;
         for (int i = 0; i < n; i++) {
@@ -22,7 +22,7 @@ final class Stats {
     }
 
     /** Quantile of sorted data with linear interpolation between order statistics (Hyndman & Fan 1996, type 7). */
-    static double quantile(double[] sorted, double q) {
+    public static double quantile(double[] sorted, double q) {
         if (sorted.length == 0) {
             return Double.NaN;
         }
@@ -33,7 +33,7 @@ final class Stats {
     }
 
     /** @return median, and half of the 16-84 % range (one-sigma equivalent for a Gaussian) */
-    static double[] medianHalfRange(double[] v, int n) {
+    public static double[] medianHalfRange(double[] v, int n) {
         double[] s = finiteSorted(v, n);
         return new double[] {quantile(s, 0.5), 0.5 * (quantile(s, 0.84) - quantile(s, 0.16)), s.length};
     }

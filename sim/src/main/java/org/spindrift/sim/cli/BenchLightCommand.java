@@ -25,6 +25,7 @@ import org.spindrift.sim.light.LightStage;
 import org.spindrift.sim.light.RayAccuracy;
 import org.spindrift.sim.light.RayTable;
 import org.spindrift.sim.light.TraceSettings;
+import org.spindrift.sim.pipeline.LightRunStage;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.scenario.LoadedScenario;
 import org.spindrift.sim.scenario.ScenarioChecks;
@@ -111,7 +112,7 @@ public final class BenchLightCommand implements Callable<Integer> {
             ScenarioRun.Prepared p = ScenarioRun.prepare(ls);
             ScenarioRun.Outcome o = ScenarioRun.run(p, new ScenarioRun.Options(tmp.resolve("run"), nt, false), List.of());
             double motion = seconds(t0);
-            EmitterHistory h = new HistoryEmitters(o.history(), sc.sources());
+            EmitterHistory h = new HistoryEmitters(o.history(), LightRunStage.spectralIndices(sc));
             LightSettings s = LightSettings.of(sc);
             double stop = p.captureRadius();
             System.out.printf(Locale.ROOT, "light bench: %s, a = %.1f, i = %.0f deg, %d particles, %d snapshots,"

@@ -81,7 +81,7 @@ public final class BenchRunCommand implements Callable<Integer> {
         Path out = keep != null ? keep : scratch.resolve("run");
         ScenarioRun.Outcome o;
         try {
-            List<org.spindrift.sim.run.RunStage> stages = new java.util.ArrayList<>(ScenarioRun.stages());
+            List<org.spindrift.sim.pipeline.RunStage> stages = new java.util.ArrayList<>(ScenarioRun.stages());
             stages.removeIf(st -> skip.contains(st.name()));
             o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, false), stages);
         } finally {

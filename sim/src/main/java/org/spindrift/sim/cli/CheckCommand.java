@@ -6,6 +6,7 @@ import java.util.concurrent.Callable;
 import org.spindrift.shared.SubcommandProvider;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.shared.scenario.Source;
+import org.spindrift.sim.run.RunLimits;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.scenario.ScenarioLoader;
 import picocli.CommandLine.Command;
@@ -60,7 +61,7 @@ public final class CheckCommand implements Callable<Integer> {
         ScenarioRun.Prepared p = ScenarioRun.prepare(ScenarioLoader.load(file));
         if (output != null) {
             org.spindrift.shared.archive.RunArchiveWriter.checkUsable(output, overwrite);
-            ScenarioRun.checkDisk(p, output);
+            RunLimits.checkDisk(p, output);
         }
         for (String w : p.warnings()) {
             System.err.println("spindrift: warning: " + w);
@@ -77,7 +78,7 @@ public final class CheckCommand implements Callable<Integer> {
                     s.kind().key(), s.particles(), p.placed().centres()[k].periodM(),
                     p.placed().centres()[k].periodM() * spm / 60);
         }
-        ScenarioRun.DiskEstimate disk = ScenarioRun.diskEstimate(p);
+        RunLimits.DiskEstimate disk = RunLimits.diskEstimate(p);
         out().printf(Locale.ROOT, "  disk: about %.3g MB (snapshots.h5 %.3g MB, images.fits %.3g MB, other files %.3g MB)%n",
                 disk.total() / 1e6, disk.snapshots() / 1e6, disk.images() / 1e6, disk.other() / 1e6);
         if (sc.interferometer() != null) {

@@ -6,6 +6,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.spindrift.shared.SubcommandProvider;
 import org.spindrift.shared.UserInputException;
+import org.spindrift.sim.run.ProgressListener;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.scenario.LoadedScenario;
 import org.spindrift.sim.scenario.ScenarioLoader;
@@ -97,8 +98,9 @@ public final class RunCommand implements Callable<Integer> {
         long t0 = System.nanoTime();
         ScenarioRun.Prepared p = ScenarioRun.prepare(ls);
         boolean terminal = System.console() != null;
-        ScenarioRun.Outcome o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, !quiet && terminal, overwrite,
-                seconds(checkpointEvery), resume));
+        boolean progress = !quiet && terminal;
+        ScenarioRun.Outcome o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, progress, overwrite,
+                seconds(checkpointEvery), resume, progress ? new ProgressBarListener() : ProgressListener.NONE));
         if (!quiet) {
             double s = (System.nanoTime() - t0) * 1e-9;
             out().printf(Locale.ROOT, "%s: %d particles over %.1f min (%.0f M), %d snapshots, %.1f s%n",

@@ -4,8 +4,8 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
 import org.hipparchus.util.FastMath;
-import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.Units;
+import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.scenario.BlackHole;
 import org.spindrift.shared.scenario.CentreOrbit;
 import org.spindrift.shared.scenario.Sense;
@@ -21,7 +21,7 @@ import org.spindrift.sim.light.LightSettings;
 import org.spindrift.sim.light.LightStage;
 import org.spindrift.sim.light.RayTable;
 import org.spindrift.sim.light.TraceSettings;
-import org.spindrift.sim.run.ScenarioRun;
+import org.spindrift.sim.run.SnapshotGrid;
 import org.spindrift.sim.scenario.FitFile;
 import org.spindrift.sim.scenario.FlareEnvelope;
 import org.spindrift.sim.scenario.LoadedScenario;
@@ -198,10 +198,10 @@ public final class FitModel {
         ScenarioChecks.checkSources(ls, st, capture);
         double spm = Units.timeUnitSeconds(bh.massSolar());
         SourceSetup.Centre[] centres = SourceSetup.centres(sc, st, capture);
-        double[] times = ScenarioRun.snapshotTimes(ls, spm, centres[0].periodM());
+        double[] times = SnapshotGrid.times(ls, spm, centres[0].periodM());
         double tEnd = times[times.length - 1];
         double trackCadence = FastMath.min(0.5, centres[0].periodM() / 400.0);
-        CentreTrack track = CentreTrack.of(sc, st, capture, tEnd, trackCadence, 1.0e-10);
+        CentreTrack track = centreTrack(sc, centres, st, capture, tEnd, trackCadence, 1.0e-10);
         LightSettings ls0 = LightSettings.of(sc);
         Camera cam = new Camera(ls0.inclinationDeg(), 0.0, ls0.fieldOfViewM(), ls0.pixels(),
                 Math.max(LightSettings.CAMERA_DISTANCE_M, 100.0 * ls0.fieldOfViewM()));
@@ -311,5 +311,20 @@ public final class FitModel {
     /** @return the fit file */
     public FitFile fit() {
         return fit;
+    }
+
+    /**
+     * @return the evolved centres of a scenario's sources, started as {@link SourceSetup#centres}
+     *     starts them (see {@link CentreTrack#of})
+     */
+    public static CentreTrack centreTrack(Scenario sc, SourceSetup.Centre[] centres, Spacetime st, double capture,
+            double tEnd, double cadence, double tolerance) {
+        double[][] starts = new double[centres.length][];
+        double[] alpha = new double[centres.length];
+        for (int k = 0; k < centres.length; k++) {
+            starts[k] = centres[k].start();
+            alpha[k] = sc.sources().get(k).emission().spectralIndex();
+        }
+        return CentreTrack.of(starts, alpha, st, capture, tEnd, cadence, tolerance);
     }
 }

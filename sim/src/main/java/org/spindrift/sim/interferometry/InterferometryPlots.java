@@ -22,7 +22,7 @@ import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.lines.SeriesLines;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.sim.light.LightOutputs;
-import org.spindrift.sim.run.RunNotes;
+import org.spindrift.sim.plot.PlotGuard;
 
 /**
  * Plots of the interferometry stage (PNG, XChart): (u, v) coverage, visibility amplitude against
@@ -38,7 +38,7 @@ public final class InterferometryPlots {
     }
 
     /** @return names of the plots written */
-    public static List<String> write(LightOutputs.Sink out, InterferometryResult r, RunNotes.Guard guard)
+    public static List<String> write(LightOutputs.Sink out, InterferometryResult r, PlotGuard guard)
             throws IOException {
         List<String> names = new ArrayList<>();
         save(out, "uv_coverage.png", () -> toImage(coverage(r)), names, guard);
@@ -49,7 +49,7 @@ public final class InterferometryPlots {
 
     /** Draws and writes one plot through the guard (a run records a plot that fails and goes on). */
     private static void save(LightOutputs.Sink out, String name, Supplier<BufferedImage> img, List<String> names,
-                             RunNotes.Guard guard) throws IOException {
+                             PlotGuard guard) throws IOException {
         String path = DIR + name;
         if (guard.draw(path, () -> {
             BufferedImage b = img.get();

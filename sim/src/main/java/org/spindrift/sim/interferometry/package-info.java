@@ -3,6 +3,6 @@
  * direct Fourier visibilities, radiometer noise and gains, closure phases and log closure
  * amplitudes, CSV and UVFITS outputs.
  *
- * Dependencies: may import light, spacetime and org.spindrift.shared.
+ * Dependencies: may import light, plot, spacetime and org.spindrift.shared.
  */
 package org.spindrift.sim.interferometry;

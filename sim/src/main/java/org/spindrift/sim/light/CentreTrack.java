@@ -1,16 +1,14 @@
 package org.spindrift.sim.light;
 
 import org.hipparchus.util.FastMath;
-import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.sim.motion.BatchIntegrator;
 import org.spindrift.sim.motion.ParticleBatch;
 import org.spindrift.sim.motion.ZamoFrame;
-import org.spindrift.sim.scenario.SourceSetup;
 import org.spindrift.sim.spacetime.Spacetime;
 
 /**
- * The geodesics of the sources' centres (one test particle per source, started as
- * {@link SourceSetup#centres} starts them and evolved by the motion engine's
+ * The geodesics of the sources' centres (one test particle per source, started from given
+ * positions and zero-angular-momentum-observer velocities and evolved by the motion engine's
  * {@link BatchIntegrator}), sampled at a fine cadence with positions, Cartesian velocities and
  * 4-velocities, for the compact-source light model. Between samples the position is a cubic
  * Hermite interpolant of the Cartesian position and velocity (e.g. de Boor 1978, A Practical Guide
@@ -69,33 +67,32 @@ public final class CentreTrack implements EmitterHistory {
     }
 
     /**
-     * Evolves the centres of every source of a scenario from t = 0 to tEnd.
+     * Evolves the centres of the sources from t = 0 to tEnd.
      *
+     * @param starts per source its start: r, theta, phi (M, rad) and the velocity measured by the
+     *     zero-angular-momentum observer there (v_r, v_theta, v_phi, units of c)
+     * @param alpha per source the spectral index of its emission
      * @param captureRadius radius where the centres are stopped, M
      * @param cadence sample spacing, M
      * @param tolerance integration tolerance (absolute and relative)
      */
-    public static CentreTrack of(Scenario sc, Spacetime st, double captureRadius, double tEnd, double cadence,
-                                 double tolerance) {
-        SourceSetup.Centre[] c = SourceSetup.centres(sc, st, captureRadius);
-        int k = c.length;
+    public static CentreTrack of(double[][] starts, double[] alpha, Spacetime st, double captureRadius, double tEnd,
+                                 double cadence, double tolerance) {
+        int k = starts.length;
         int n = (int) FastMath.ceil(tEnd / cadence - 1e-9) + 1;
         double h = tEnd / (n - 1);
         double[] times = new double[n];
         for (int i = 0; i < n; i++) {
             times[i] = i * h;
         }
-        double[] alpha = new double[k];
-        for (int s = 0; s < k; s++) {
-            alpha[s] = sc.sources().get(s).emission().spectralIndex();
-        }
-        CentreTrack tr = new CentreTrack(times, k, alpha);
+        CentreTrack tr = new CentreTrack(times, k, alpha.clone());
         ZamoFrame zamo = new ZamoFrame(st);
         ParticleBatch batch = new ParticleBatch(k);
         double[] p = new double[4];
         for (int s = 0; s < k; s++) {
-            zamo.momentum(c[s].r(), c[s].theta(), c[s].velocity()[0], c[s].velocity()[1], c[s].velocity()[2], p);
-            batch.set(s, 0.0, c[s].r(), c[s].theta(), c[s].phi(), p[0], p[1], p[2], p[3]);
+            double[] c = starts[s];
+            zamo.momentum(c[0], c[1], c[3], c[4], c[5], p);
+            batch.set(s, 0.0, c[0], c[1], c[2], p[0], p[1], p[2], p[3]);
         }
         BatchIntegrator bi = new BatchIntegrator(st, BatchIntegrator.Config.of(captureRadius)
                 .withTolerance(tolerance, tolerance));

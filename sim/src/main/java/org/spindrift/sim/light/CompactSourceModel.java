@@ -1,8 +1,8 @@
 package org.spindrift.sim.light;
 
 import java.util.Arrays;
+import java.util.function.DoubleUnaryOperator;
 import org.hipparchus.util.FastMath;
-import org.spindrift.sim.scenario.FlareEnvelope;
 
 /**
  * A fast light model of compact sources, for fitting: each source is a small Gaussian blob about
@@ -296,14 +296,14 @@ public final class CompactSourceModel {
      *
      * @param sigmaM Gaussian size of the source per axis, M (before the kernel is added)
      * @param weight emission weight
-     * @param flare flare envelope in emitter time
+     * @param flare flare envelope against emitter time (M), peak 1
      * @param shearRate for a spot on a circular equatorial orbit whose members circle at their own
      *     radius: azimuthal offset per radial offset per unit time, 1/M (0: no shear; see
      *     {@link #shearRate})
      */
-    public record Spot(double sigmaM, double weight, FlareEnvelope flare, double shearRate) {
+    public record Spot(double sigmaM, double weight, DoubleUnaryOperator flare, double shearRate) {
         /** A spot that keeps its shape (no shear). */
-        public Spot(double sigmaM, double weight, FlareEnvelope flare) {
+        public Spot(double sigmaM, double weight, DoubleUnaryOperator flare) {
             this(sigmaM, weight, flare, 0.0);
         }
     }
@@ -536,8 +536,8 @@ public final class CompactSourceModel {
                     // alive through the step: the centre from its expansion about mid-step, else per sample
                     boolean smooth = track.aliveThrough(k, a, b);
                     // the envelope linear over the step (as a run's weights are between snapshots), times weight and norm
-                    double fa = spots[k].weight() * spots[k].flare().at(a);
-                    double fSlope = (spots[k].weight() * spots[k].flare().at(b) - fa) / (b - a);
+                    double fa = spots[k].weight() * spots[k].flare().applyAsDouble(a);
+                    double fSlope = (spots[k].weight() * spots[k].flare().applyAsDouble(b) - fa) / (b - a);
                     // samples whose delay maps into [a, b): d in (to - b, to - a]
                     double sRate = spots[k].shearRate();
                     boolean sheared = sRate != 0.0 && smooth;
@@ -868,7 +868,7 @@ public final class CompactSourceModel {
                 }
                 double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
                 // emitter-frame density: weight x envelope / u^t (MTW 1973, sect. 22.3), sheared Gaussian
-                double dens = spot.weight() * spot.flare().at(te) / ut * INV_TWO_PI_15 / FastMath.sqrt(det * aa)
+                double dens = spot.weight() * spot.flare().applyAsDouble(te) / ut * INV_TWO_PI_15 / FastMath.sqrt(det * aa)
                         * gaussian(0.5 * q);
                 double val = index.dl[i] * dens * gp;
                 sf += val;

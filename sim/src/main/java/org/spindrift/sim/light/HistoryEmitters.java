@@ -1,8 +1,6 @@
 package org.spindrift.sim.light;
 
-import java.util.List;
-import org.spindrift.shared.scenario.Source;
-import org.spindrift.sim.run.ParticleHistory;
+import org.spindrift.sim.history.ParticleHistory;
 
 /** {@link EmitterHistory} over the run's {@link ParticleHistory} (no copies). */
 public final class HistoryEmitters implements EmitterHistory {
@@ -10,14 +8,11 @@ public final class HistoryEmitters implements EmitterHistory {
     private final double[] alphaBySource;
     private final int[] source;
 
-    /** @param sources the scenario's sources, for the spectral index of each particle */
-    public HistoryEmitters(ParticleHistory history, List<Source> sources) {
+    /** @param alphaBySource spectral index alpha (F_nu ~ nu^-alpha) of each source, in the history's source order */
+    public HistoryEmitters(ParticleHistory history, double[] alphaBySource) {
         this.h = history;
         this.source = history.sourceIndex();
-        this.alphaBySource = new double[sources.size()];
-        for (int i = 0; i < sources.size(); i++) {
-            alphaBySource[i] = sources.get(i).emission().spectralIndex();
-        }
+        this.alphaBySource = alphaBySource.clone();
     }
 
     @Override public int snapshots() {

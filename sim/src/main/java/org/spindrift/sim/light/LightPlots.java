@@ -20,7 +20,7 @@ import org.knowm.xchart.style.lines.SeriesLines;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.colour.ColourRamp;
-import org.spindrift.sim.run.RunNotes;
+import org.spindrift.sim.plot.PlotGuard;
 
 /**
  * Plots of the light stage (PNG): the centroid track on the sky (north up, east left, time
@@ -36,7 +36,7 @@ public final class LightPlots {
 
     /** Writes the plots into plots/ of the run folder; @return their names relative to it */
     public static List<String> write(LightOutputs.Sink out, LightResult r) throws IOException {
-        return write(out, r, RunNotes.STRICT);
+        return write(out, r, PlotGuard.STRICT);
     }
 
     /**
@@ -45,7 +45,7 @@ public final class LightPlots {
      *
      * @return the names of the plots drawn, relative to the run folder
      */
-    public static List<String> write(LightOutputs.Sink out, LightResult r, RunNotes.Guard guard) throws IOException {
+    public static List<String> write(LightOutputs.Sink out, LightResult r, PlotGuard guard) throws IOException {
         List<String> names = new ArrayList<>();
         save(out, "light_track.png", () -> track(r), names, guard);
         save(out, "light_offsets.png", () -> xy(r), names, guard);
@@ -61,7 +61,7 @@ public final class LightPlots {
     }
 
     private static void save(LightOutputs.Sink out, String name, java.util.function.Supplier<XYChart> chart,
-                             List<String> names, RunNotes.Guard guard) throws IOException {
+                             List<String> names, PlotGuard guard) throws IOException {
         String path = ArchiveLayout.PLOTS + "/" + name;
         if (guard.draw(path, () -> {
             XYChart c = chart.get();

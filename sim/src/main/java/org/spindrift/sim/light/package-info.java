@@ -5,7 +5,7 @@
  * compact-source model used by fits; single screen rays for checks ({@code ScreenProbe}) and the
  * Schwarzschild ray quadratures they compare with.
  *
- * Dependencies: may import spacetime, motion and org.spindrift.shared; not the scenario
- * loaders or the run machinery (inputs arrive as values).
+ * Dependencies: may import history, plot, spacetime, motion and org.spindrift.shared; not the
+ * scenario loaders or the run machinery (inputs arrive as values).
  */
 package org.spindrift.sim.light;

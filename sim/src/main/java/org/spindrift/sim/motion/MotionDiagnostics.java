@@ -59,6 +59,31 @@ public final class MotionDiagnostics implements SnapshotSink {
         }
     }
 
+    /** Writes the per-particle maxima bit for bit (for a checkpoint; Q_0 comes from the initial state). */
+    public void writeState(java.io.DataOutputStream out) throws java.io.IOException {
+        out.writeInt(massShell.length);
+        out.writeInt(carterDrift.length);
+        for (double v : massShell) {
+            out.writeLong(Double.doubleToRawLongBits(v));
+        }
+        for (double v : carterDrift) {
+            out.writeLong(Double.doubleToRawLongBits(v));
+        }
+    }
+
+    /** Reads what {@link #writeState} wrote, into diagnostics made for the same particles. */
+    public void readState(java.io.DataInputStream in) throws java.io.IOException {
+        if (in.readInt() != massShell.length || in.readInt() != carterDrift.length) {
+            throw new java.io.IOException("diagnostics sizes differ");
+        }
+        for (int i = 0; i < massShell.length; i++) {
+            massShell[i] = Double.longBitsToDouble(in.readLong());
+        }
+        for (int i = 0; i < carterDrift.length; i++) {
+            carterDrift[i] = Double.longBitsToDouble(in.readLong());
+        }
+    }
+
     /** @return a sink that feeds this one, then other */
     public SnapshotSink then(SnapshotSink other) {
         return (k, t, s) -> {

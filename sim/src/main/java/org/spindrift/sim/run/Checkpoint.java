@@ -21,6 +21,8 @@ import java.util.List;
 import java.util.stream.Stream;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.Version;
+import org.spindrift.sim.history.HistoryRecorder;
+import org.spindrift.sim.motion.MotionDiagnostics;
 import org.spindrift.sim.motion.ParticleBatch;
 import org.spindrift.sim.motion.TurningPoints;
 
@@ -28,8 +30,9 @@ import org.spindrift.sim.motion.TurningPoints;
  * The checkpoint of a run being evolved, in {@code .NAME.spindrift-checkpoint} beside the run
  * folder (under the run's lock): {@code state.bin} holds the whole integrator state (every
  * particle's position, momentum, own time, next step size and first-same-as-last derivative, end
- * state), the turning points found so far and the last finished snapshot; {@code rows-A-B.bin}
- * hold the particle history of snapshots A..B, each file written once. Every file goes through a
+ * state), the turning points found so far, the motion diagnostics so far and the last finished
+ * snapshot; {@code rows-A-B.bin} hold the particle history of snapshots A..B, each file written
+ * once. Every file goes through a
  * temporary name and ends with the SHA-256 of its bytes; {@code state.bin} is replaced last, so a
  * kill at any moment leaves the previous checkpoint or the new one, never a mixture.
  *
@@ -42,7 +45,7 @@ final class Checkpoint {
     static final String SUFFIX = ".spindrift-checkpoint";
     static final String STATE = "state.bin";
     private static final String MAGIC = "spindrift-checkpoint";
-    private static final int VERSION = 1;
+    private static final int VERSION = 2;
 
     private final Path dir;
     private final String scenarioSha;
@@ -93,25 +96,14 @@ final class Checkpoint {
     /**
      * Writes a checkpoint after snapshot k: the history rows not saved yet, then the state.
      */
-    synchronized void write(int k, ParticleBatch batch, TurningPoints[] turning, ScenarioRun.HistorySink h)
+    synchronized void write(int k, ParticleBatch batch, TurningPoints[] turning, HistoryRecorder h,
+            MotionDiagnostics diagnostics)
             throws IOException {
         Files.createDirectories(dir);
         if (k >= rowsSaved) {
             int from = rowsSaved;
             String name = String.format(java.util.Locale.ROOT, "rows-%06d-%06d.bin", from, k);
-            atomically(name, out -> {
-                for (int s = from; s <= k; s++) {
-                    for (double[][] a : new double[][][] {h.r, h.th, h.ph, h.ut, h.ur, h.uth, h.uph}) {
-                        for (double v : a[s]) {
-                            out.writeLong(Double.doubleToRawLongBits(v));
-                        }
-                    }
-                    for (float v : h.w[s]) {
-                        out.writeInt(Float.floatToRawIntBits(v));
-                    }
-                    out.write(h.state[s]);
-                }
-            });
+            atomically(name, out -> h.writeRows(out, from, k));
             rowFiles.add(new int[] {from, k});
             rowsSaved = k + 1;
         }
@@ -121,7 +113,7 @@ final class Checkpoint {
             out.writeUTF(scenarioSha);
             out.writeUTF(Version.get());
             out.writeInt(batch.size());
-            out.writeInt(h.r.length);
+            out.writeInt(h.snapshots());
             out.writeInt(k);
             out.writeInt(rowFiles.size());
             for (int[] f : rowFiles) {
@@ -132,6 +124,7 @@ final class Checkpoint {
             for (TurningPoints t : turning) {
                 t.writeState(out);
             }
+            diagnostics.writeState(out);
         });
         // rows files of an older checkpoint that the new state does not list (none in normal use)
     }
@@ -142,7 +135,7 @@ final class Checkpoint {
      * @return the last snapshot the checkpoint had finished
      * @throws UserInputException (one line) when the checkpoint is damaged or belongs to another scenario
      */
-    int read(ParticleBatch batch, TurningPoints[] turning, ScenarioRun.HistorySink h) {
+    int read(ParticleBatch batch, TurningPoints[] turning, HistoryRecorder h, MotionDiagnostics diagnostics) {
         Path state = dir.resolve(STATE);
         try {
             int[] k = new int[1];
@@ -163,7 +156,7 @@ final class Checkpoint {
                 int n = in.readInt();
                 int s = in.readInt();
                 k[0] = in.readInt();
-                if (n != batch.size() || s != h.r.length || k[0] < 0 || k[0] >= s) {
+                if (n != batch.size() || s != h.snapshots() || k[0] < 0 || k[0] >= s) {
                     throw new IOException("sizes differ from the scenario's");
                 }
                 int nf = in.readInt();
@@ -174,6 +167,7 @@ final class Checkpoint {
                 for (TurningPoints t : turning) {
                     t.readState(in);
                 }
+                diagnostics.readState(in);
             });
             int next = 0;
             for (int[] f : files) {
@@ -181,20 +175,7 @@ final class Checkpoint {
                     throw new IOException("history rows are not contiguous");
                 }
                 String name = String.format(java.util.Locale.ROOT, "rows-%06d-%06d.bin", f[0], f[1]);
-                verified(dir.resolve(name), in -> {
-                    for (int s = f[0]; s <= f[1]; s++) {
-                        h.allocate(s);
-                        for (double[][] a : new double[][][] {h.r, h.th, h.ph, h.ut, h.ur, h.uth, h.uph}) {
-                            for (int i = 0; i < a[s].length; i++) {
-                                a[s][i] = Double.longBitsToDouble(in.readLong());
-                            }
-                        }
-                        for (int i = 0; i < h.w[s].length; i++) {
-                            h.w[s][i] = Float.intBitsToFloat(in.readInt());
-                        }
-                        in.readFully(h.state[s]);
-                    }
-                });
+                verified(dir.resolve(name), in -> h.readRows(in, f[0], f[1]));
                 next = f[1] + 1;
             }
             if (next != k[0] + 1) {

@@ -1,12 +1,13 @@
 package org.spindrift.sim.scenario;
 
+import java.util.function.DoubleUnaryOperator;
 import org.spindrift.shared.scenario.Flare;
 
 /**
  * Evaluates a {@link Flare} envelope in emitter time: the coordinate time t of the emitting
  * particle (M), the time at which the run's snapshots are taken. Peak value 1.
  */
-public final class FlareEnvelope {
+public final class FlareEnvelope implements DoubleUnaryOperator {
     private final int kind;
     private final double t0;
     private final double a;
@@ -48,5 +49,10 @@ public final class FlareEnvelope {
             default:
                 return 1.0;
         }
+    }
+
+    /** Same as {@link #at}: the envelope as a plain function of emitter time (M). */
+    @Override public double applyAsDouble(double t) {
+        return at(t);
     }
 }

@@ -57,6 +57,11 @@ public final class SourceSetup {
         public Centre {
             velocity = velocity.clone();
         }
+
+        /** @return r, theta, phi, v_r, v_theta, v_phi: the start as plain numbers */
+        public double[] start() {
+            return new double[] {r, theta, phi, velocity[0], velocity[1], velocity[2]};
+        }
     }
 
     /**

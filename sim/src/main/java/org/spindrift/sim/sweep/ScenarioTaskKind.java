@@ -9,13 +9,13 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.LightArchive;
 import org.spindrift.shared.archive.RunArchive;
-import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.sim.history.Subsample;
 import org.spindrift.sim.run.ScenarioRun;
-import org.spindrift.sim.run.SnapshotStage;
 import org.spindrift.sim.scenario.ConfigNode;
 import org.spindrift.sim.scenario.ScenarioLoader;
 
@@ -50,7 +50,7 @@ public final class ScenarioTaskKind implements TaskKind {
         long n = p.placed().batch().size();
         long s = p.times().length;
         long kept = 0;
-        for (int k : SnapshotStage.keptPerSource(sc)) {
+        for (int k : Subsample.keptPerSource(sc)) {
             kept += k;
         }
         long pix = (long) sc.imaging().pixels() * sc.imaging().pixels();

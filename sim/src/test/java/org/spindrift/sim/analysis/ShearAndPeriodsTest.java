@@ -3,36 +3,65 @@ package org.spindrift.sim.analysis;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
-import org.junit.jupiter.api.io.TempDir;
 import org.spindrift.shared.scenario.VelocityModel;
-import org.spindrift.sim.run.ParticleHistory;
+import org.spindrift.sim.history.ParticleHistory;
+import org.spindrift.sim.history.SyntheticHistories;
+import org.spindrift.sim.run.Evolution;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.run.TestScenarios;
 import org.spindrift.sim.scenario.LoadedScenario;
 import org.spindrift.sim.spacetime.CircularOrbits;
 
-/** Periods and shear shapes against published formulas and kinematic shear. */
+/**
+ * Periods and shear shapes against published formulas and kinematic shear, on histories built in
+ * memory: closed-form circular orbits, or particles evolved without a run folder.
+ */
 class ShearAndPeriodsTest {
-    @TempDir Path tmp;
-
     /** Prograde Kerr Omega = 1 / (r^1.5 + a) (Bardeen, Press & Teukolsky 1972, ApJ 178, 347, eq. 2.16). */
     static double omegaKerr(double r, double a) {
         return 1.0 / (Math.pow(r, 1.5) + a);
     }
 
-    static ScenarioRun.Outcome run(LoadedScenario ls, String name) throws Exception {
-        return ScenarioRun.run(ScenarioRun.prepare(ls), new ScenarioRun.Options(Path.of(name), 2, false),
-                List.of());
+    /** Evolves a scenario's particles in memory (no run folder). */
+    static ParticleHistory evolve(LoadedScenario ls) {
+        return Evolution.inMemory(ScenarioRun.prepare(ls), 2).history();
     }
 
-    @Test void thinRingAzimuthalPeriodsAreTwoPiOverOmega() throws Exception {
+    /** @return n radii spread evenly over [r0, r1] and random start azimuths (seeded) */
+    static double[][] ring(int n, double r0, double r1, long seed) {
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(seed);
+        double[] r = new double[n];
+        double[] phi = new double[n];
+        for (int i = 0; i < n; i++) {
+            r[i] = r0 + (r1 - r0) * (i + 0.5) / n;
+            phi[i] = 2 * Math.PI * rnd.nextDouble();
+        }
+        return new double[][] {r, phi};
+    }
+
+    @Test void thinRingAzimuthalPeriodsAreTwoPiOverOmega() {
+        // a synthetic history of circular orbits built in memory
+        double a = 0.9;
+        double[][] ring = ring(24, 6.0, 9.0, 3);
+        ParticleHistory h = SyntheticHistories.circularKerr(ring[0], ring[1], a, SyntheticHistories.grid(300, 5));
+        ParticlePeriods p = ParticlePeriods.of(h);
+        for (int i = 0; i < h.particles(); i++) {
+            double r = h.r(0)[i];
+            double expected = 2 * Math.PI / omegaKerr(r, a);
+            assertEquals(expected, p.periodPhi(i), 1e-9 * expected, "T_phi at r = " + r);
+            assertTrue(Double.isNaN(p.periodR(i)), "no radial oscillation on a circular orbit");
+            assertTrue(Double.isNaN(p.periodTheta(i)), "no vertical oscillation in the equatorial plane");
+        }
+    }
+
+    @Test void evolvedThinRingStaysCircularWithTheSamePeriods() {
+        // the same check through the motion engine: a thin ring evolved in memory
         double a = 0.9;
         LoadedScenario ls = TestScenarios.scenario(TestScenarios.kerr(a), List.of(TestScenarios.ring(24, 6.0, 9.0, 4.0)),
                 300, 5, 3, 0);
-        ParticleHistory h = run(ls, tmp.resolve("ring").toString()).history();
+        ParticleHistory h = evolve(ls);
         ParticlePeriods p = ParticlePeriods.of(h);
         for (int i = 0; i < h.particles(); i++) {
             double r = h.r(0)[i];
@@ -43,11 +72,11 @@ class ShearAndPeriodsTest {
         }
     }
 
-    @Test void ringLagGrowsAsTheDifferenceOfAngularVelocities() throws Exception {
+    @Test void ringLagGrowsAsTheDifferenceOfAngularVelocities() {
+        // a synthetic history of circular orbits built in memory
         double a = 0.5;
-        LoadedScenario ls = TestScenarios.scenario(TestScenarios.kerr(a), List.of(TestScenarios.ring(300, 7.0, 9.0, 2.0)),
-                40, 5, 11, 0);
-        ParticleHistory h = run(ls, tmp.resolve("lag").toString()).history();
+        double[][] ring = ring(300, 7.0, 9.0, 11);
+        ParticleHistory h = SyntheticHistories.circularKerr(ring[0], ring[1], a, SyntheticHistories.grid(40, 5));
         int[] idx = new int[h.particles()];
         for (int i = 0; i < idx.length; i++) {
             idx[i] = i;
@@ -84,7 +113,7 @@ class ShearAndPeriodsTest {
         return s / (to - from);
     }
 
-    @Test void hotSpotLagFollowsTheShearRateAtEarlyTimes() throws Exception {
+    @Test void hotSpotLagFollowsTheShearRateAtEarlyTimes() {
         // a small ball with the shear velocity model: to first order in t the lag slope is
         // d(dphi)/dr = -(dOmega/dr)(r_c) t (kinematic shear, common practice), with
         // dOmega/dr = -1.5 r^0.5 / (r^1.5 + a)^2 from BPT 1972 eq. 2.16
@@ -92,7 +121,7 @@ class ShearAndPeriodsTest {
         double rc = 10.0;
         LoadedScenario ls = TestScenarios.scenario(TestScenarios.kerr(a),
                 List.of(TestScenarios.hotSpot(600, rc, 0.3, new VelocityModel(VelocityModel.Kind.SHEAR, 0))), 30, 15, 5, 0);
-        ParticleHistory h = run(ls, tmp.resolve("spot").toString()).history();
+        ParticleHistory h = evolve(ls);
         int[] idx = new int[h.particles()];
         for (int i = 0; i < idx.length; i++) {
             idx[i] = i;
@@ -112,7 +141,7 @@ class ShearAndPeriodsTest {
                 true), 1e-8);
     }
 
-    @Test void lagIsStationaryAtTheOmegaMaximumOfAHorizonlessHayward() throws Exception {
+    @Test void lagIsStationaryAtTheOmegaMaximumOfAHorizonlessHayward() {
         // rotating Hayward a = 0.9, l = 1: Omega(r) peaks at r^3 = 10 l^2, r = 2.154 M (landmarks; derived
         // by hand in LandmarksTest, no published source); gas there leads, both arms trail: a V
         double rMax = Math.cbrt(10.0);
@@ -120,7 +149,7 @@ class ShearAndPeriodsTest {
                 List.of(TestScenarios.ring(600, 1.75, 2.65, 2.0)), 120, 20, 8, 0);
         ScenarioRun.Prepared p = ScenarioRun.prepare(ls);
         assertEquals(rMax, p.landmarks().get("omega_max_radius"), 1e-6);
-        ParticleHistory h = ScenarioRun.run(p, new ScenarioRun.Options(tmp.resolve("v"), 2, false), List.of()).history();
+        ParticleHistory h = Evolution.inMemory(p, 2).history();
         List<ShearShape> shapes = ShearAnalysis.of(h, new int[] {0});
         ShearShape last = shapes.get(shapes.size() - 1);
         LagProfile lp = last.lag();

@@ -16,9 +16,9 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.RunArchive;
-import org.spindrift.sim.run.RunContext;
-import org.spindrift.sim.run.RunNotes;
-import org.spindrift.sim.run.RunStage;
+import org.spindrift.sim.pipeline.RunContext;
+import org.spindrift.sim.pipeline.RunNotes;
+import org.spindrift.sim.pipeline.RunStage;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.scenario.ScenarioLoader;
 

@@ -17,8 +17,9 @@ import org.junit.jupiter.api.io.TempDir;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.ArchiveVerifier;
-import org.spindrift.sim.run.RunContext;
-import org.spindrift.sim.run.RunStage;
+import org.spindrift.sim.pipeline.RunContext;
+import org.spindrift.sim.pipeline.RunStage;
+import org.spindrift.sim.run.RunLimits;
 import org.spindrift.sim.run.ScenarioRun;
 import org.spindrift.sim.scenario.ScenarioLoader;
 
@@ -52,7 +53,7 @@ class DiskSpaceTest {
         Path out = tmp.resolve("out");
         CliCapture.run(0, "run", file.toString(), "-o", out.toString(), "--quiet");
         ScenarioRun.Prepared p = ScenarioRun.prepare(ScenarioLoader.load(file));
-        ScenarioRun.DiskEstimate e = ScenarioRun.diskEstimate(p);
+        RunLimits.DiskEstimate e = RunLimits.diskEstimate(p);
         long snap = Files.size(out.resolve(ArchiveLayout.SNAPSHOTS));
         long images = Files.size(out.resolve(ArchiveLayout.IMAGES));
         // an estimate for refusing runs: never below what is written, and not absurdly above (factor 3)
@@ -60,13 +61,13 @@ class DiskSpaceTest {
         assertTrue(e.images() >= images && e.images() < 3 * images + 1e4, e + " vs " + images);
         assertTrue(e.total() >= size(out), e + " vs " + size(out));
 
-        UserInputException x = assertThrows(UserInputException.class, () -> ScenarioRun.checkDisk(p, tmp, 1e5));
+        UserInputException x = assertThrows(UserInputException.class, () -> RunLimits.checkDisk(p, tmp, 1e5));
         assertTrue(x.getMessage().startsWith(file + ":"), x.getMessage());
         assertTrue(x.getMessage().contains("on disk") && x.getMessage().contains("0.100 MB free"), x.getMessage());
 
         Path big = Files.writeString(tmp.resolve("big.yaml"), text.replace("  pixels: 16", "  pixels: 1024"));
         ScenarioRun.Prepared pb = ScenarioRun.prepare(ScenarioLoader.load(big));
-        x = assertThrows(UserInputException.class, () -> ScenarioRun.checkDisk(pb, tmp, 1e6));
+        x = assertThrows(UserInputException.class, () -> RunLimits.checkDisk(pb, tmp, 1e6));
         assertTrue(x.getMessage().contains(": imaging.pixels: ") && x.getMessage().contains("images.fits"), x.getMessage());
     }
 

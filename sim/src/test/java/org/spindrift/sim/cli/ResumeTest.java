@@ -140,6 +140,17 @@ class ResumeTest {
         }
         assertTrue(compared.containsAll(List.of(ArchiveLayout.SNAPSHOTS, ArchiveLayout.IMAGES, ArchiveLayout.CENTROID,
                 ArchiveLayout.PERIODS, ArchiveLayout.SHEAR)), compared.toString());
+        // the diagnostics' per-particle maxima travel in the checkpoint: the resumed run reports the whole run
+        com.fasterxml.jackson.databind.ObjectMapper json = new com.fasterxml.jackson.databind.ObjectMapper();
+        com.fasterxml.jackson.databind.JsonNode d0 = json.readTree(reference.resolve(ArchiveLayout.MANIFEST).toFile())
+                .path("diagnostics");
+        com.fasterxml.jackson.databind.JsonNode d1 = json.readTree(out.resolve(ArchiveLayout.MANIFEST).toFile())
+                .path("diagnostics");
+        for (String key : List.of("hamiltonian_error_max", "hamiltonian_error_median", "carter_drift_max",
+                "carter_drift_median")) {
+            assertTrue(d0.has(key), key + " in " + d0);
+            assertEquals(d0.get(key), d1.get(key), key);
+        }
     }
 
     /** A checkpoint of another scenario or a damaged one: one line, exit 2, nothing written; the right one resumes. */
@@ -148,13 +159,13 @@ class ResumeTest {
         Path file = Files.writeString(tmp.resolve("a.yaml"), text);
         Path out = tmp.resolve("out");
         // a run that fails after its evolution keeps its checkpoint (checkpoints at every snapshot)
-        List<org.spindrift.sim.run.RunStage> failing = new ArrayList<>(org.spindrift.sim.run.ScenarioRun.stages());
-        failing.add(0, new org.spindrift.sim.run.RunStage() {
+        List<org.spindrift.sim.pipeline.RunStage> failing = new ArrayList<>(org.spindrift.sim.run.ScenarioRun.stages());
+        failing.add(0, new org.spindrift.sim.pipeline.RunStage() {
             @Override public String name() {
                 return "failing";
             }
 
-            @Override public void run(org.spindrift.sim.run.RunContext ctx) throws IOException {
+            @Override public void run(org.spindrift.sim.pipeline.RunContext ctx) throws IOException {
                 throw new IOException("simulated failure");
             }
         });

@@ -47,7 +47,8 @@ class CentreTrackExpansionTest {
         LoadedScenario ls = ScenarioLoader.load(file);
         Spacetime st = ScenarioChecks.spacetime(ls);
         double capture = Landmarks.of(st).captureRadius();
-        CentreTrack track = CentreTrack.of(ls.scenario(), st, capture, 100.0, 0.36, 1.0e-10);
+        CentreTrack track = org.spindrift.sim.fit.FitModel.centreTrack(ls.scenario(),
+                org.spindrift.sim.scenario.SourceSetup.centres(ls.scenario(), st, capture), st, capture, 100.0, 0.36, 1.0e-10);
         double r = 8.0, a = 0.5;
         double big = Math.sqrt(r * r + a * a), omega = 1.0 / (Math.pow(r, 1.5) + a);
         double[] e = new double[17], p = new double[7], q = new double[7];

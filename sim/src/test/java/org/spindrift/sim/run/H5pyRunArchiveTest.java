@@ -1,12 +1,5 @@
 package org.spindrift.sim.run;
 
-import org.spindrift.shared.testing.ExternalPython;
-
-import static org.junit.jupiter.api.Assertions.assertEquals;
-import static org.junit.jupiter.api.Assertions.assertTrue;
-import static org.junit.jupiter.api.Assertions.fail;
-import static org.junit.jupiter.api.Assumptions.assumeTrue;
-
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.List;
@@ -15,7 +8,14 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.scenario.VelocityModel;
+import org.spindrift.shared.testing.ExternalPython;
+import org.spindrift.sim.history.ParticleHistory;
+import org.spindrift.sim.pipeline.SnapshotStage;
 import org.spindrift.sim.scenario.LoadedScenario;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assertions.fail;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 /**
  * Debian's python3-h5py, an independent HDF5 reader, opens the snapshots of a real run and reads

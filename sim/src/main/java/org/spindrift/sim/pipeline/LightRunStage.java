@@ -1,57 +1,32 @@
-package org.spindrift.sim.light;
+package org.spindrift.sim.pipeline;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import org.hipparchus.util.FastMath;
-import org.spindrift.sim.run.RunContext;
-import org.spindrift.sim.run.RunNotes;
-import org.spindrift.sim.run.RunStage;
-import org.spindrift.sim.scenario.ScenarioChecks;
+import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.sim.light.EmitterHistory;
+import org.spindrift.sim.light.FrameBudget;
+import org.spindrift.sim.light.FrameMoments;
+import org.spindrift.sim.light.HistoryEmitters;
+import org.spindrift.sim.light.LightOutputs;
+import org.spindrift.sim.light.LightPlots;
+import org.spindrift.sim.light.LightResult;
+import org.spindrift.sim.light.LightSettings;
+import org.spindrift.sim.light.LightStage;
 
 /**
  * The light stage of {@code spindrift run}: ray table, frames, centroid track, light curve,
  * image cube, mock astrometry and their plots, written into the run folder; adds a {@code light}
- * object to the manifest and the summary.
+ * object to the manifest and the summary; the {@link LightResult} goes to {@link StageResults#light()}.
  */
 public final class LightRunStage implements RunStage {
-    /** Key of the {@link LightResult} in the run's products. */
-    public static final String RESULT = "light";
-
-    /** Largest image cube kept in memory, in pixels (frames x N^2), about 2 GB of floats. */
-    public static final long MAX_CUBE_PIXELS = 500_000_000L;
-
-    /**
-     * The image budget: frame cadences and image sizes whose cube would not fit in memory
-     * (estimated from the run span plus a generous delay spread of 200 M) are refused. Checked by
-     * {@code check} and before {@code run} starts.
-     *
-     * @return the problem in words, or null when the cube fits
-     */
-    public static String budgetProblem(LightSettings s, double t0, double t1, int snapshots) {
-        double frames = frameEstimate(s, t0, t1, snapshots);
-        double cube = frames * s.pixels() * (double) s.pixels() * (s.beamFwhmUas() > 0 ? 2 : 1);
-        if (cube > MAX_CUBE_PIXELS) {
-            return String.format(java.util.Locale.ROOT, "about %.3g frames of %d x %d pixels%s exceed the image"
-                    + " budget of %d pixels; use a longer frame_cadence or fewer pixels", frames, s.pixels(), s.pixels(),
-                    s.beamFwhmUas() > 0 ? " (twice: with and without the beam)" : "", MAX_CUBE_PIXELS);
+    /** @return the spectral index of each source of a scenario, in its order */
+    public static double[] spectralIndices(Scenario sc) {
+        double[] alpha = new double[sc.sources().size()];
+        for (int k = 0; k < alpha.length; k++) {
+            alpha[k] = sc.sources().get(k).emission().spectralIndex();
         }
-        return null;
-    }
-
-    /**
-     * @return an upper estimate of the number of frames (the emission window widened by the largest
-     *     expected delay spread of 200 M), before any ray is traced
-     */
-    public static double frameEstimate(LightSettings s, double t0, double t1, int snapshots) {
-        double cadence = Double.isNaN(s.frameCadenceM()) ? (t1 - t0) / Math.max(1, snapshots - 1) : s.frameCadenceM();
-        return (t1 - t0 + 200.0) / cadence + 1;
-    }
-
-    static void checkBudget(LightSettings s, double t0, double t1, int snapshots) {
-        String problem = budgetProblem(s, t0, t1, snapshots);
-        if (problem != null) {
-            throw new org.spindrift.shared.UserInputException("imaging.frame_cadence / imaging.pixels: " + problem);
-        }
+        return alpha;
     }
 
     @Override public String name() {
@@ -60,18 +35,18 @@ public final class LightRunStage implements RunStage {
 
     @Override public void run(RunContext ctx) throws IOException {
         LightSettings s = LightSettings.of(ctx.scenario());
-        checkBudget(s, ctx.history().time(0), ctx.history().time(ctx.history().snapshots() - 1),
+        FrameBudget.check(s, ctx.history().time(0), ctx.history().time(ctx.history().snapshots() - 1),
                 ctx.history().snapshots());
         // rays stop where particles do: the capture radius (manifest landmarks.capture_radius)
         double capture = ctx.landmark(org.spindrift.shared.archive.ArchiveLayout.LM_CAPTURE_RADIUS);
-        EmitterHistory h = new HistoryEmitters(ctx.history(), ctx.scenario().sources());
+        EmitterHistory h = new HistoryEmitters(ctx.history(), spectralIndices(ctx.scenario()));
         if (ctx.progress()) {
             System.err.printf("spindrift: light: tracing %d x %d rays%n", s.pixels(), s.pixels());
         }
         LightResult r = LightStage.run(s, ctx.spacetime(), capture, h, ctx.threads());
         LightOutputs.write((name, w) -> ctx.archive().writeStream(name, w), r);
         LightPlots.write((name, w) -> ctx.archive().writeStream(name, w), r, RunNotes.guard(ctx));
-        ctx.products().put(RESULT, r);
+        ctx.results().light(r);
         ObjectNode m = ctx.manifest().putObject("light");
         m.put("lensing", s.lensing());
         m.put("pixels", s.pixels());

@@ -1,4 +1,4 @@
-package org.spindrift.sim.analysis;
+package org.spindrift.sim.pipeline;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -8,23 +8,21 @@ import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.scenario.CentreOrbit;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.shared.scenario.Source;
-import org.spindrift.sim.run.ParticleHistory;
-import org.spindrift.sim.run.RunContext;
-import org.spindrift.sim.run.RunStage;
-import org.spindrift.sim.motion.TurningPoints;
+import org.spindrift.sim.analysis.AnalysisResult;
+import org.spindrift.sim.analysis.LagProfile;
+import org.spindrift.sim.analysis.ParticlePeriods;
+import org.spindrift.sim.analysis.ShearShape;
+import org.spindrift.sim.analysis.Stats;
+import org.spindrift.sim.history.ParticleHistory;
 import org.spindrift.sim.scenario.SourceSetup;
 
 /**
  * Periods and shear shapes of a run: writes {@code periods.csv} (one row per particle) and
  * {@code shear.csv} (one row per source and snapshot), and adds per-source medians, half 16-84 % ranges and
- * the metric's predictions to the summary. The results are handed to the plots as products
- * {@link #PERIODS} and {@link #SHAPES}.
+ * the metric's predictions to the summary. The {@link AnalysisResult} is handed to the plots
+ * through {@link StageResults#analysis()}.
  */
 public final class AnalysisStage implements RunStage {
-    /** Product key of the {@link ParticlePeriods}. */
-    public static final String PERIODS = "analysis.periods";
-    /** Product key of the shapes (a {@code List<ShearShape>}). */
-    public static final String SHAPES = "analysis.shapes";
     /** Lag profiles kept in the summary per source. */
     static final int PROFILES_IN_SUMMARY = 6;
 
@@ -35,11 +33,10 @@ public final class AnalysisStage implements RunStage {
     @Override public void run(RunContext ctx) throws IOException {
         ParticleHistory h = ctx.history();
         int[] first = ctx.placed().firstIndex();
-        ParticlePeriods periods = ParticlePeriods.of(h,
-                ctx.product(org.spindrift.sim.run.ScenarioRun.TURNING_POINTS, TurningPoints[].class));
-        List<ShearShape> shapes = ShearAnalysis.of(h, first);
-        ctx.products().put(PERIODS, periods);
-        ctx.products().put(SHAPES, shapes);
+        AnalysisResult result = AnalysisResult.of(h, ctx.turningPoints(), first);
+        ParticlePeriods periods = result.periods();
+        List<ShearShape> shapes = result.shapes();
+        ctx.results().analysis(result);
         double spm = ctx.secondsPerM();
         ctx.archive().writeText(ArchiveLayout.PERIODS, periodsCsv(ctx.scenario(), h, periods, spm));
         ctx.archive().writeText(ArchiveLayout.SHEAR, shearCsv(ctx.scenario(), shapes, spm));

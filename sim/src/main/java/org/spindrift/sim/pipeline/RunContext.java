@@ -1,9 +1,11 @@
-package org.spindrift.sim.run;
+package org.spindrift.sim.pipeline;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.Map;
 import org.spindrift.shared.archive.RunArchiveWriter;
 import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.sim.history.ParticleHistory;
+import org.spindrift.sim.motion.TurningPoints;
 import org.spindrift.sim.scenario.LoadedScenario;
 import org.spindrift.sim.scenario.SourceSetup;
 import org.spindrift.sim.spacetime.Spacetime;
@@ -20,26 +22,21 @@ import org.spindrift.sim.spacetime.Spacetime;
  * @param uasPerM angle of 1 M at the distance, micro-arcseconds
  * @param placed initial conditions: source index, first index, centres
  * @param history every particle at every snapshot
+ * @param turningPoints periapsis and polar turning points of every particle, found during the evolution
  * @param archive the run folder being written
  * @param manifest manifest keys added by stages (merged into manifest.json)
  * @param summary summary.json being built
  * @param threads worker threads allowed (results must not depend on it)
  * @param progress whether stages may print progress (false with --quiet or without a terminal)
- * @param products results one stage hands to a later one (for example the analysis to the plots), by key
+ * @param results the products of the stages that have run, one typed slot per stage
  */
 public record RunContext(LoadedScenario loaded, Spacetime spacetime, Map<String, Double> landmarks,
         double secondsPerM, double uasPerM, SourceSetup.Placed placed, ParticleHistory history,
-        RunArchiveWriter archive, ObjectNode manifest, ObjectNode summary, int threads, boolean progress,
-        Map<String, Object> products) {
+        TurningPoints[] turningPoints, RunArchiveWriter archive, ObjectNode manifest, ObjectNode summary, int threads,
+        boolean progress, StageResults results) {
     /** @return the scenario */
     public Scenario scenario() {
         return loaded.scenario();
-    }
-
-    /** @return a product of an earlier stage, or null */
-    public <T> T product(String key, Class<T> type) {
-        Object o = products.get(key);
-        return type.isInstance(o) ? type.cast(o) : null;
     }
 
     /** @return a landmark, NaN when absent */

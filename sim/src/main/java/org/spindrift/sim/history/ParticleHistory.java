@@ -1,4 +1,4 @@
-package org.spindrift.sim.run;
+package org.spindrift.sim.history;
 
 /**
  * Every particle of a run at every snapshot, structure of arrays: for snapshot s the arrays

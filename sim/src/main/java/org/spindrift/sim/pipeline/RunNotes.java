@@ -1,8 +1,8 @@
-package org.spindrift.sim.run;
+package org.spindrift.sim.pipeline;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import java.io.IOException;
+import org.spindrift.sim.plot.PlotGuard;
 
 /**
  * Things a run reports without failing: warnings about the scenario (one line on stderr and a
@@ -19,33 +19,8 @@ public final class RunNotes {
     private RunNotes() {
     }
 
-    /** One plot: draws it and writes its file(s). */
-    @FunctionalInterface
-    public interface Plot {
-        void draw() throws Exception;
-    }
-
-    /** Draws plots, deciding what a failure does. */
-    @FunctionalInterface
-    public interface Guard {
-        /** @return whether the plot was drawn */
-        boolean draw(String name, Plot plot) throws IOException;
-    }
-
-    /** A guard that lets failures through (for callers outside a run). */
-    public static final Guard STRICT = (name, plot) -> {
-        try {
-            plot.draw();
-            return true;
-        } catch (IOException | RuntimeException e) {
-            throw e;
-        } catch (Exception e) {
-            throw new IOException(name + ": " + e.getMessage(), e);
-        }
-    };
-
     /** @return the guard of a run: failures are recorded in its manifest and reported on stderr */
-    public static Guard guard(RunContext ctx) {
+    public static PlotGuard guard(RunContext ctx) {
         return (name, plot) -> plot(ctx.manifest(), name, plot);
     }
 
@@ -54,7 +29,7 @@ public final class RunNotes {
      *
      * @return whether the plot was drawn
      */
-    public static boolean plot(ObjectNode manifest, String name, Plot plot) {
+    public static boolean plot(ObjectNode manifest, String name, PlotGuard.Plot plot) {
         try {
             plot.draw();
             return true;

@@ -1,61 +1,26 @@
-package org.spindrift.sim.run;
+package org.spindrift.sim.pipeline;
 
 import java.io.IOException;
-import java.util.List;
 import org.spindrift.shared.Coordinates;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.SnapshotWriter;
 import org.spindrift.shared.scenario.Scenario;
-import org.spindrift.shared.scenario.Source;
+import org.spindrift.sim.history.ParticleHistory;
+import org.spindrift.sim.history.Subsample;
 
 /**
- * Writes {@code snapshots.h5}: a subsample of at most {@code run.archive_subsample} particles
- * (0: all), spread over the sources in proportion to their particle counts (at least one each),
- * taken evenly through each source's particles (which are independent draws, so any evenly
- * spaced subset is a fair sample). The {@code /centre} dataset is the centre of mass of all of a
- * source's alive particles, not only the kept ones.
+ * Writes {@code snapshots.h5}: the particles of the {@link Subsample}. The {@code /centre}
+ * dataset is the centre of mass of all of a source's alive particles, not only the kept ones.
  */
 public final class SnapshotStage implements RunStage {
     @Override public String name() {
         return "snapshots";
     }
 
-    /** @return the number of particles kept in the archive for each source */
-    public static int[] keptPerSource(Scenario sc) {
-        List<Source> src = sc.sources();
-        int total = sc.totalParticles();
-        int limit = sc.run().archiveSubsample();
-        int[] kept = new int[src.size()];
-        for (int k = 0; k < kept.length; k++) {
-            int n = src.get(k).particles();
-            kept[k] = limit == 0 || total <= limit ? n
-                    : (int) Math.max(1, Math.min(n, Math.floor((double) limit * n / total)));
-        }
-        return kept;
-    }
-
-    /** @return the indices (into the history) of the kept particles, source by source */
-    public static int[] keptIndices(Scenario sc, int[] first) {
-        int[] kept = keptPerSource(sc);
-        int m = 0;
-        for (int c : kept) {
-            m += c;
-        }
-        int[] idx = new int[m];
-        int at = 0;
-        for (int k = 0; k < kept.length; k++) {
-            int n = sc.sources().get(k).particles();
-            for (int j = 0; j < kept[k]; j++) {
-                idx[at++] = first[k] + (int) ((long) j * n / kept[k]);
-            }
-        }
-        return idx;
-    }
-
     @Override public void run(RunContext ctx) throws IOException {
         Scenario sc = ctx.scenario();
         ParticleHistory h = ctx.history();
-        int[] idx = keptIndices(sc, ctx.placed().firstIndex());
+        int[] idx = Subsample.keptIndices(sc, ctx.placed().firstIndex());
         int m = idx.length;
         int k = sc.sources().size();
         int[] srcOfKept = new int[m];
