@@ -15,12 +15,12 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.stream.Stream;
 import me.tongfei.progressbar.ProgressBar;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.archive.AtomicFiles;
+import org.spindrift.sim.sweep.Workers;
 import org.spindrift.sim.fit.FitModel;
 import org.spindrift.sim.run.ProgressBars;
 
@@ -79,11 +79,7 @@ public final class StudyRun {
         // for each other's shared noise-free fits (the results do not depend on the order)
         int ns = study.sigmasUas().length;
         todo.sort(java.util.Comparator.comparingInt((Integer i) -> i % ns).thenComparingInt(i -> i));
-        ExecutorService pool = Executors.newFixedThreadPool(Math.max(1, jobs), r -> {
-            Thread t = new Thread(r, "spindrift-study-cell");
-            t.setDaemon(true);
-            return t;
-        });
+        ExecutorService pool = Workers.daemonPool(jobs, "spindrift-study-cell");
         try (ProgressBar bar = ProgressBars.open(progress, "study " + study.name(), todo.size())) {
             List<Future<?>> fs = new ArrayList<>();
             for (int i : todo) {
@@ -99,19 +95,7 @@ public final class StudyRun {
                     return null;
                 }));
             }
-            for (Future<?> f : fs) {
-                try {
-                    f.get();
-                } catch (java.util.concurrent.ExecutionException e) {
-                    if (e.getCause() instanceof RuntimeException re) {
-                        throw re;
-                    }
-                    throw new IOException(e.getCause());
-                } catch (InterruptedException e) {
-                    Thread.currentThread().interrupt();
-                    throw new IOException("interrupted", e);
-                }
-            }
+            Workers.awaitAll(fs);
         } finally {
             pool.shutdownNow();
         }

@@ -17,7 +17,6 @@ import java.util.HexFormat;
 import java.util.List;
 import java.util.Set;
 import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.regex.Matcher;
@@ -138,11 +137,7 @@ public final class SweepPlanner {
         AtomicInteger next = new AtomicInteger();
         AtomicInteger firstBad = new AtomicInteger(Integer.MAX_VALUE);
         UserInputException[] errors = new UserInputException[total];
-        ExecutorService pool = Executors.newFixedThreadPool(threads, r -> {
-            Thread t = new Thread(r, "spindrift-plan");
-            t.setDaemon(true);
-            return t;
-        });
+        ExecutorService pool = Workers.daemonPool(threads, "spindrift-plan");
         try {
             Future<?>[] fs = new Future<?>[threads];
             for (int w = 0; w < threads; w++) {
@@ -167,21 +162,7 @@ public final class SweepPlanner {
                     return null;
                 });
             }
-            for (Future<?> f : fs) {
-                f.get();
-            }
-        } catch (java.util.concurrent.ExecutionException e) {
-            Throwable c = e.getCause();
-            if (c instanceof IOException io) {
-                throw io;
-            }
-            if (c instanceof RuntimeException re) {
-                throw re;
-            }
-            throw new IllegalStateException(c);
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            throw new IOException("interrupted", e);
+            Workers.awaitAll(java.util.Arrays.asList(fs));
         } finally {
             pool.shutdownNow();
         }

@@ -14,7 +14,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
 import me.tongfei.progressbar.ProgressBar;
@@ -86,11 +85,7 @@ public final class SweepRunner {
         AtomicInteger skipped = new AtomicInteger();
         AtomicInteger failed = new AtomicInteger();
         AtomicInteger skippedFailed = new AtomicInteger();
-        ExecutorService pool = Executors.newFixedThreadPool(Math.max(1, jobs), r -> {
-            Thread t = new Thread(r, "spindrift-sweep-task");
-            t.setDaemon(true);
-            return t;
-        });
+        ExecutorService pool = Workers.daemonPool(jobs, "spindrift-sweep-task");
         try (ProgressBar bar = ProgressBars.open(progress, "sweep " + plan.name(), tasks.size())) {
             List<Future<?>> fs = new ArrayList<>();
             for (int t : tasks) {
@@ -119,16 +114,7 @@ public final class SweepRunner {
                     return null;
                 }));
             }
-            for (Future<?> f : fs) {
-                try {
-                    f.get();
-                } catch (java.util.concurrent.ExecutionException e) {
-                    throw new IllegalStateException(e.getCause());
-                } catch (InterruptedException e) {
-                    Thread.currentThread().interrupt();
-                    throw new IOException("interrupted", e);
-                }
-            }
+            Workers.awaitAll(fs);
         } finally {
             pool.shutdownNow();
         }
