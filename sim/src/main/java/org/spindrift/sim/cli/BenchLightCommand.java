@@ -160,6 +160,7 @@ public final class BenchLightCommand implements Callable<Integer> {
                 for (boolean old : reference ? new boolean[] {false, true} : new boolean[] {false}) {
                     t0 = System.nanoTime();
                     c0 = cpu();
+                    double g0 = gcSeconds();
                     float[] img = new float[n * n];
                     int differ = 0;
                     double peak = 0, dFlux = 0, dCentroid = 0;
@@ -182,9 +183,11 @@ public final class BenchLightCommand implements Callable<Integer> {
                             }
                         }
                         secs = seconds(t0);
-                        System.out.printf(Locale.ROOT, "  %d frames of %d x %d%s: %.2f s (%.1f CPU s), %.1f frames/s"
-                                        + " (%d emission slices)%s%n", frames, n, n, old ? " (reference renderer)" : "",
-                                secs, cpu() - c0, frames / secs, r.slicesBuilt(), old ? String.format(Locale.ROOT,
+                        double[] sec = r.sectionSeconds();
+                        System.out.printf(Locale.ROOT, "  %d frames of %d x %d%s: %.2f s (%.1f CPU s, %.1f s in garbage"
+                                        + " collection), %.1f frames/s (%d emission slices: %.2f s building, %.2f s"
+                                        + " summing)%s%n", frames, n, n, old ? " (reference renderer)" : "",
+                                secs, cpu() - c0, gcSeconds() - g0, frames / secs, r.slicesBuilt(), sec[0], sec[1], old ? String.format(Locale.ROOT,
                                         "; speed-up %.2fx wall; %d frames differ bit for bit, flux by at most"
                                         + " %.1e of the peak, centroid by at most %.1e M (frames above 1%% of the"
                                         + " peak)", secs / fast, differ, dFlux, dCentroid) : "");
@@ -283,6 +286,15 @@ public final class BenchLightCommand implements Callable<Integer> {
     /** @return CPU seconds used by this process so far (all threads), NaN where unavailable */
     private static double cpu() {
         return ProcessHandle.current().info().totalCpuDuration().map(d -> d.toNanos() * 1e-9).orElse(Double.NaN);
+    }
+
+    /** @return seconds the garbage collectors report so far (pauses and concurrent work as each counts it) */
+    private static double gcSeconds() {
+        long ms = 0;
+        for (java.lang.management.GarbageCollectorMXBean b : java.lang.management.ManagementFactory.getGarbageCollectorMXBeans()) {
+            ms += Math.max(0, b.getCollectionTime());
+        }
+        return ms * 1e-3;
     }
 
     private static void check(boolean ok, String message) {

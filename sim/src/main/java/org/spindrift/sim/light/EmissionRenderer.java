@@ -50,6 +50,8 @@ public final class EmissionRenderer implements AutoCloseable {
     private final int[] binStart;
     private final double binOrigin;
     private final List<double[]> chunkImages = new ArrayList<>();
+    /** work space of the slice queries, one per block */
+    private final EmissionSlice.Scratch[] scratch = new EmissionSlice.Scratch[BLOCKS];
     /** Consecutive sorted samples per group of the group test. */
     private static final int GROUP = 32;
     /** per group of GROUP sorted samples: bounding box (x, y, z lower then upper) and delay range */
@@ -58,6 +60,8 @@ public final class EmissionRenderer implements AutoCloseable {
     /** true: every sample queries its slice with the bounding-box search of earlier versions */
     private final boolean reference;
     private int slicesBuilt;
+    /** wall time spent building slices and summing samples, ns (for benchmarks) */
+    private long buildNanos, sumNanos;
 
     /**
      * @param smoothingLength kernel smoothing length h, M (support 2h)
@@ -232,6 +236,7 @@ public final class EmissionRenderer implements AutoCloseable {
                 missing.add(j);
             }
         }
+        long t0 = System.nanoTime();
         EmissionSlice[] built = new EmissionSlice[missing.size()];
         run(() -> IntStream.range(0, built.length).parallel().forEach(i -> built[i] = EmissionSlice.build(
                 history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h, 0.5 * sliceSpacing, rMax)));
@@ -239,6 +244,8 @@ public final class EmissionRenderer implements AutoCloseable {
             cache.put(missing.get(i), built[i]);
         }
         slicesBuilt += built.length;
+        long t1 = System.nanoTime();
+        buildNanos += t1 - t0;
         int count = (int) (jHi - jLo + 1);
         EmissionSlice[] window = new EmissionSlice[count];
         for (int i = 0; i < count; i++) {
@@ -257,7 +264,10 @@ public final class EmissionRenderer implements AutoCloseable {
             Arrays.fill(acc, 0.0);
             int i0 = from + b * size;
             int i1 = Math.min(to, i0 + size);
-            renderSamples(i0, i1, tObs, jLo, window, acc);
+            if (scratch[b] == null) {
+                scratch[b] = new EmissionSlice.Scratch();
+            }
+            renderSamples(i0, i1, tObs, jLo, window, acc, scratch[b]);
         }));
         for (int k = 0; k < image.length; k++) {
             double v = 0.0;
@@ -266,6 +276,12 @@ public final class EmissionRenderer implements AutoCloseable {
             }
             image[k] = (float) v;
         }
+        sumNanos += System.nanoTime() - t1;
+    }
+
+    /** @return wall seconds spent so far building emission slices and summing samples (two numbers) */
+    public double[] sectionSeconds() {
+        return new double[] {buildNanos * 1e-9, sumNanos * 1e-9};
     }
 
     /**
@@ -275,7 +291,8 @@ public final class EmissionRenderer implements AutoCloseable {
      * samples would find no particle), which spares the per-sample set-up on the many samples away
      * from the gas at the frame's emission times.
      */
-    private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
+    private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc,
+                               EmissionSlice.Scratch work) {
         if (reference) {
             renderRange(i0, i1, tObs, jLo, window, acc);
             return;
@@ -291,7 +308,7 @@ public final class EmissionRenderer implements AutoCloseable {
                         gBox[6 * g + 4], gBox[6 * g + 5]);
             }
             if (any) {
-                renderNear(a, b, tObs, jLo, window, acc);
+                renderNear(a, b, tObs, jLo, window, acc, work);
             }
         }
     }
@@ -315,7 +332,8 @@ public final class EmissionRenderer implements AutoCloseable {
     }
 
     /** {@link #renderRange} with the slices' exact shortcuts ({@link EmissionSlice#emissivityNear}). */
-    private void renderNear(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
+    private void renderNear(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc,
+                            EmissionSlice.Scratch work) {
         for (int i = i0; i < i1; i++) {
             double tE = tObs - sd[i];
             // Math.rint: the same correctly rounded value as FastMath.rint, as a processor instruction
@@ -328,7 +346,7 @@ public final class EmissionRenderer implements AutoCloseable {
                 continue;
             }
             double e = sl.emissivityNear(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm,
-                    support2);
+                    support2, work);
             if (e != 0.0) {
                 acc[pix[i]] += sdl[i] * e;
             }

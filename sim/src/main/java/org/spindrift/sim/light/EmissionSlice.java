@@ -325,30 +325,18 @@ final class EmissionSlice {
      */
     double emissivity(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
                       double invH, double norm, double support2) {
-        return query(false, sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
+        return query(sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
     }
 
-    /**
-     * The same sum as {@link #emissivity} (the same particles in the same order, so the same
-     * number bit for bit), with exact shortcuts: a sample whose cell is farther than its search
-     * radius from every occupied cell ({@link #gap2}) returns at once, and columns of cells whose
-     * (x, y) gap from the sample, or whose occupied z range, is beyond the search radius are not
-     * visited.
-     */
-    double emissivityNear(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
-                          double invH, double norm, double support2) {
-        return query(true, sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
-    }
-
-    private double query(boolean near, double sx, double sy, double sz, double dtE, double pr, double pth,
-                         double pphi, double invH, double norm, double support2) {
+    /** The bounding-box cell query: every cell of the box around the search sphere, candidates tested one by one. */
+    private double query(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
+                         double invH, double norm, double support2) {
         // a particle within the support at t_e is within 2h + vmax |t_e - tau| of the sample at tau
         double rs = Math.sqrt(support2) + vmax * Math.abs(dtE);
         double fx = (sx - ox) * invCell, fy = (sy - oy) * invCell, fz = (sz - oz) * invCell;
         // search radius in cell units, widened by a relative 1e-6 against float/double rounding
         // of the stored positions and velocities (never narrower than needed)
         double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
-        double rc2 = rc * rc;
         int x0 = (int) Math.floor(fx - rc);
         int x1 = (int) Math.floor(fx + rc);
         int y0 = (int) Math.floor(fy - rc);
@@ -358,10 +346,8 @@ final class EmissionSlice {
         if (x1 < 0 || y1 < 0 || z1 < 0 || x0 >= nx || y0 >= ny || z0 >= nz) {
             return 0.0;
         }
-        int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy), cz = (int) Math.floor(fz);
-        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && (near
-                ? cz >= 0 && cz < nz && gap2[(cx * ny + cy) * nz + cz] > rc2
-                : !nearColumn[cx * ny + cy])) {
+        int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy);
+        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && !nearColumn[cx * ny + cy]) {
             return 0.0;
         }
         x0 = Math.max(0, x0);
@@ -372,30 +358,134 @@ final class EmissionSlice {
         z1 = Math.min(nz - 1, z1);
         double sum = 0.0;
         for (int ix = x0; ix <= x1; ix++) {
-            // gap from the sample to the column's x interval [ix, ix + 1), cell units
-            double gx = ix > fx ? ix - fx : fx - (ix + 1) > 0 ? fx - (ix + 1) : 0.0;
-            double gx2 = gx * gx;
             for (int iy = y0; iy <= y1; iy++) {
-                int col = ix * ny + iy;
-                int za = z0, zb = z1;
-                if (near) {
-                    double gy = iy > fy ? iy - fy : fy - (iy + 1) > 0 ? fy - (iy + 1) : 0.0;
-                    int lo = zLo[col], hi = zHi[col];
-                    // gap from the sample to the column's occupied z cells [lo, hi + 1)
-                    double gz = lo > fz ? lo - fz : fz - (hi + 1) > 0 ? fz - (hi + 1) : 0.0;
-                    if (lo > z1 || hi < z0 || gx2 + gy * gy + gz * gz > rc2) {
-                        continue;
-                    }
-                    za = Math.max(z0, lo);
-                    zb = Math.min(z1, hi);
-                }
                 // cells along z are contiguous
-                int base = col * nz;
-                sum = sumCells(sum, cellStart[base + za], cellStart[base + zb + 1], sx, sy, sz, dtE, pr, pth, pphi,
+                int base = (ix * ny + iy) * nz;
+                sum = sumCells(sum, cellStart[base + z0], cellStart[base + z1 + 1], sx, sy, sz, dtE, pr, pth, pphi,
                         invH, norm, support2);
             }
         }
         return sum;
+    }
+
+    /**
+     * The same sum as {@link #emissivity} (the same particles in the same order, so the same
+     * number bit for bit), with exact shortcuts: a sample whose cell is farther than its search
+     * radius from every occupied cell ({@link #gap2}) returns at once; of each column of cells
+     * only the z cells within the chord of the search sphere above the column's (x, y) gap from
+     * the sample, and within the column's occupied range, are visited; and the distance test runs
+     * branch-free over the candidates, collecting those within the support in {@code scratch}
+     * before their kernel terms are added in record order.
+     *
+     * @param scratch work space of the calling thread
+     */
+    double emissivityNear(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
+                          double invH, double norm, double support2, Scratch scratch) {
+        double rs = Math.sqrt(support2) + vmax * Math.abs(dtE);
+        double fx = (sx - ox) * invCell, fy = (sy - oy) * invCell, fz = (sz - oz) * invCell;
+        double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
+        double rc2 = rc * rc;
+        int x0 = (int) Math.floor(fx - rc);
+        int x1 = (int) Math.floor(fx + rc);
+        int y0 = (int) Math.floor(fy - rc);
+        int y1 = (int) Math.floor(fy + rc);
+        if (x1 < 0 || y1 < 0 || x0 >= nx || y0 >= ny || fz + rc < 0 || fz - rc >= nz) {
+            return 0.0;
+        }
+        int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy), cz = (int) Math.floor(fz);
+        if (cx >= 0 && cy >= 0 && cz >= 0 && cx < nx && cy < ny && cz < nz && rc < NEAR
+                && gap2[(cx * ny + cy) * nz + cz] > rc2) {
+            return 0.0;
+        }
+        x0 = Math.max(0, x0);
+        x1 = Math.min(nx - 1, x1);
+        // z cells any particle within rc can occupy
+        int zMin = (int) Math.floor(fz - rc), zMax = (int) Math.floor(fz + rc);
+        double sum = 0.0;
+        for (int ix = x0; ix <= x1; ix++) {
+            // gap from the sample to the column's x interval [ix, ix + 1), cell units
+            double gx = ix > fx ? ix - fx : fx - (ix + 1) > 0 ? fx - (ix + 1) : 0.0;
+            double gx2 = gx * gx;
+            if (gx2 > rc2) {
+                continue;
+            }
+            // the columns of this x whose y gap is within the chord of the search circle
+            double dy = Math.sqrt(rc2 - gx2);
+            int ya = Math.max(0, (int) Math.floor(fy - dy)), yb = Math.min(ny - 1, (int) Math.floor(fy + dy));
+            for (int iy = ya; iy <= yb; iy++) {
+                int col = ix * ny + iy;
+                int lo = zLo[col], hi = zHi[col];
+                if (lo > zMax || hi < zMin) {
+                    continue;                        // empty column, or its particles all too far in z
+                }
+                double gy = iy > fy ? iy - fy : fy - (iy + 1) > 0 ? fy - (iy + 1) : 0.0;
+                double g2 = gx2 + gy * gy;
+                // a particle of this column within rc of the sample has |z - fz| <= sqrt(rc^2 - g2)
+                double dz = Math.sqrt(Math.max(0.0, rc2 - g2));
+                int za = Math.max(lo, (int) Math.floor(fz - dz));
+                int zb = Math.min(hi, (int) Math.floor(fz + dz));
+                if (za > zb) {
+                    continue;
+                }
+                int base = col * nz;
+                sum = sumCompacted(sum, cellStart[base + za], cellStart[base + zb + 1], sx, sy, sz, dtE, pr, pth,
+                        pphi, invH, norm, support2, scratch);
+            }
+        }
+        return sum;
+    }
+
+    /** Work space of {@link #emissivityNear} for one thread: candidate records and their squared distances. */
+    static final class Scratch {
+        final int[] record = new int[CHUNK];
+        final double[] d2 = new double[CHUNK];
+    }
+
+    /** Candidates per pass of {@link #sumCompacted}. */
+    static final int CHUNK = 256;
+
+    /**
+     * {@link #sumCells} in two passes per chunk of candidates: the squared distances of all, the
+     * records within the support kept by a branch-free index increment (the sign bit of
+     * d2 - support2, negative exactly when d2 &lt; support2), then the kernel terms of the kept
+     * records in record order: the same terms added in the same order, so the same sum bit for bit,
+     * without a mispredicted branch per candidate.
+     */
+    private double sumCompacted(double sum, int from, int to, double sx, double sy, double sz, double dtE,
+                                double pr, double pth, double pphi, double invH, double norm, double support2,
+                                Scratch scratch) {
+        int[] rec = scratch.record;
+        double[] dd = scratch.d2;
+        for (int b = from; b < to; b += CHUNK) {
+            int e = Math.min(to, b + CHUNK);
+            int k = 0;
+            for (int p = b; p < e; p++) {
+                int q = REC * p;
+                double ddx = sx - (pos[q] + pos[q + 3] * dtE);
+                double ddy = sy - (pos[q + 1] + pos[q + 4] * dtE);
+                double ddz = sz - (pos[q + 2] + pos[q + 5] * dtE);
+                double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
+                rec[k] = q;
+                dd[k] = d2;
+                k += (int) (Double.doubleToRawLongBits(d2 - support2) >>> 63);
+            }
+            for (int j = 0; j < k; j++) {
+                sum = term(sum, rec[j], dd[j], pr, pth, pphi, invH, norm);
+            }
+        }
+        return sum;
+    }
+
+    /** @return sum plus the kernel term of the record at q, at squared distance d2 within the support */
+    private double term(double sum, int q, double d2, double pr, double pth, double pphi, double invH, double norm) {
+        double gInv = Redshift.inverse(pr, pth, pphi, att[q], att[q + 1], att[q + 2], att[q + 3]);
+        if (!(gInv > 0)) {
+            return sum;
+        }
+        double e = att[q + 5];
+        // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
+        double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
+        return sum + att[q + 4] * Kernel.w(d2, invH, norm) * gp;
     }
 
     /**
@@ -441,17 +531,9 @@ final class EmissionSlice {
             double ddy = sy - (pos[q + 1] + pos[q + 4] * dtE);
             double ddz = sz - (pos[q + 2] + pos[q + 5] * dtE);
             double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
-            if (d2 >= support2) {
-                continue;
+            if (d2 < support2) {
+                sum = term(sum, q, d2, pr, pth, pphi, invH, norm);
             }
-            double gInv = Redshift.inverse(pr, pth, pphi, att[q], att[q + 1], att[q + 2], att[q + 3]);
-            if (!(gInv > 0)) {
-                continue;
-            }
-            double e = att[q + 5];
-            // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
-            double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
-            sum += att[q + 4] * Kernel.w(d2, invH, norm) * gp;
         }
         return sum;
     }

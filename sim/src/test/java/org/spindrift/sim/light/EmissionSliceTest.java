@@ -12,21 +12,29 @@ import org.spindrift.sim.spacetime.Spacetime;
  * The emission slice's neighbour queries against the kernel sum taken over every particle (the
  * definition of the sum, no cell list; common practice, no source): the cell query of the
  * reference renderer and the query with the early exits of the frame renderer (gap field to the
- * gas, columns beyond the search radius, occupied z range per column) must give the same number
+ * gas, columns beyond the search radius, occupied z range and chord of the search sphere per
+ * column, branch-free distance test in passes of a fixed number of candidates) must give the same number
  * bit for bit, including at the edge of the gas where the shortcuts decide.
  */
 class EmissionSliceTest {
     @Test
     void queriesEqualTheSumOverEveryParticle() {
         Spacetime st = LightTestSupport.kerr(0.5);
-        CircularSpotHistory hist = new CircularSpotHistory(st, 6.0, 0.3, 0.4, 3000, 0.0, 200.0, 101, 1.0, 11L);
         double h = 0.2;
         double invH = 1 / h, norm = Kernel.norm(h), support2 = 4 * h * h;
         SplittableRandom rng = new SplittableRandom(3L);
-        int nonZero = 0, zero = 0;
-        for (double tau : new double[] {37.3, 120.05}) {
+        EmissionSlice.Scratch scratch = new EmissionSlice.Scratch();
+        int nonZero = 0, zero = 0, crowded = 0;
+        // a spot of 0.4 M and a dense one of 0.1 M, whose columns hold more candidates than one
+        // pass of the branch-free distance test takes
+        for (double size : new double[] {0.4, 0.1}) {
+          CircularSpotHistory hist = new CircularSpotHistory(st, 6.0, 0.3, size, 3000, 0.0, 200.0, 101, 1.0, 11L);
+          for (double tau : new double[] {37.3, 120.05}) {
             EmissionSlice sl = EmissionSlice.build(hist, st, tau, 2 * h, 0.5 * h, 20.0);
             assertNotNull(sl, "the spot emits at t = " + tau);
+            for (int c = 0; c < sl.nx * sl.ny; c++) {
+                crowded = Math.max(crowded, sl.cellStart[(c + 1) * sl.nz] - sl.cellStart[c * sl.nz]);
+            }
             // sample points over the slice's grid and a margin of 3 h around it
             double x0 = sl.ox - 3 * h, y0 = sl.oy - 3 * h, z0 = sl.oz - 3 * h;
             double wx = sl.nx * sl.cell + 6 * h, wy = sl.ny * sl.cell + 6 * h, wz = sl.nz * sl.cell + 6 * h;
@@ -37,7 +45,7 @@ class EmissionSliceTest {
                 double pr = rng.nextDouble() * 2 - 1, pth = rng.nextDouble() * 4 - 2, pph = rng.nextDouble() * 8 - 4;
                 double all = sl.emissivityAllParticles(sx, sy, sz, dt, pr, pth, pph, invH, norm, support2);
                 double cells = sl.emissivity(sx, sy, sz, dt, pr, pth, pph, invH, norm, support2);
-                double near = sl.emissivityNear(sx, sy, sz, dt, pr, pth, pph, invH, norm, support2);
+                double near = sl.emissivityNear(sx, sy, sz, dt, pr, pth, pph, invH, norm, support2, scratch);
                 assertEquals(all, cells, 0.0, "cell query at sample " + k);
                 assertEquals(all, near, 0.0, "query with early exits at sample " + k);
                 if (all != 0.0) {
@@ -46,8 +54,10 @@ class EmissionSliceTest {
                     zero++;
                 }
             }
+          }
         }
-        assertTrue(nonZero > 2000 && zero > 2000, "both cases exercised: " + nonZero + " with emission, " + zero
+        assertTrue(nonZero > 4000 && zero > 4000, "both cases exercised: " + nonZero + " with emission, " + zero
                 + " without");
+        assertTrue(crowded > 2 * EmissionSlice.CHUNK, "a column holds " + crowded + " particles, more than two passes");
     }
 }
