@@ -265,7 +265,7 @@ public final class EmissionRenderer implements AutoCloseable {
             int i0 = from + b * size;
             int i1 = Math.min(to, i0 + size);
             if (scratch[b] == null) {
-                scratch[b] = new EmissionSlice.Scratch();
+                scratch[b] = new EmissionSlice.Scratch(history.particles());
             }
             renderSamples(i0, i1, tObs, jLo, window, acc, scratch[b]);
         }));

@@ -26,15 +26,16 @@ final class EmissionSlice {
     final int nx, ny, nz;
     /** search radius the cells are sized for: kernel support plus the largest drift within half a slice spacing */
     final double reach;
-    /** Values per particle record in {@link #pos} and in {@link #att}. */
+    /** Values per particle record in {@link #att}. */
     private static final int REC = 6;
     /**
-     * Records sorted by cell, for locality, split so that the distance test reads only the first:
-     * pos = x, y, z, vx, vy, vz; att = u^t, u^r, u^theta, u^phi, weight / u^t, exponent 2 + alpha.
-     * pos holds the float-rounded values in doubles: the same numbers as before, but the
-     * distance test (the hottest loop of rendering) needs no float-to-double conversions.
+     * Records sorted by cell, for locality, split so that the distance test reads only the
+     * positions and velocities, one array per coordinate (unit stride, so the distance pass
+     * compiles to vector instructions): x, y, z, vx, vy, vz; att = u^t, u^r, u^theta, u^phi,
+     * weight / u^t, exponent 2 + alpha per record. The positions and velocities are the
+     * float-rounded values held in doubles (the distance test needs no conversions).
      */
-    private final double[] pos;
+    private final double[] px, py, pz, vx, vy, vz;
     private final float[] att;
     /** largest particle speed |dx/dt| in the slice (bounds the drift over |t_e - tau|) */
     final double vmax;
@@ -64,7 +65,7 @@ final class EmissionSlice {
     /** Value of {@link #gap2} for cells with no occupied cell within {@link #NEAR} cells. */
     private static final byte FAR = 100;
 
-    private EmissionSlice(double tau, int count, double[] pos, float[] att, int[] cellStart, double ox, double oy,
+    private EmissionSlice(double tau, int count, double[][] pos, float[] att, int[] cellStart, double ox, double oy,
                           double oz, double cell, int nx, int ny, int nz, double reach, double vmax) {
         this.tau = tau;
         this.count = count;
@@ -94,7 +95,12 @@ final class EmissionSlice {
             zLo[c] = (byte) lo;
             zHi[c] = (byte) hi;
         }
-        this.pos = pos;
+        this.px = pos[0];
+        this.py = pos[1];
+        this.pz = pos[2];
+        this.vx = pos[3];
+        this.vy = pos[4];
+        this.vz = pos[5];
         this.att = att;
     }
 
@@ -306,14 +312,14 @@ final class EmissionSlice {
             start[c + 1] += start[c];
         }
         int[] fill = new int[cells];
-        double[] pos = new double[REC * m];
+        double[][] pos = new double[REC][m];
         float[] att = new float[REC * m];
         for (int p = 0; p < m; p++) {              // stable counting sort by cell
             int c = cellOf[p];
-            int dst = REC * (start[c] + fill[c]++);
+            int dst = start[c] + fill[c]++;
             for (int q = 0; q < REC; q++) {
-                pos[dst + q] = tmp[q][p];
-                att[dst + q] = tmp[REC + q][p];
+                pos[q][dst] = tmp[q][p];
+                att[REC * dst + q] = tmp[REC + q][p];
             }
         }
         return new EmissionSlice(tau, m, pos, att, start, minX, minY, minZ, cell, gx, gy, gz, reach, vmax);
@@ -435,43 +441,45 @@ final class EmissionSlice {
         return sum;
     }
 
-    /** Work space of {@link #emissivityNear} for one thread: candidate records and their squared distances. */
+    /** Work space of {@link #emissivityNear} for one thread: squared distances and kept records. */
     static final class Scratch {
-        final int[] record = new int[CHUNK];
-        final double[] d2 = new double[CHUNK];
+        final double[] d2;
+        final int[] record;
+
+        /** @param particles the most particles a slice may hold */
+        Scratch(int particles) {
+            d2 = new double[particles];
+            record = new int[particles];
+        }
     }
 
-    /** Candidates per pass of {@link #sumCompacted}. */
-    static final int CHUNK = 256;
-
     /**
-     * {@link #sumCells} in two passes per chunk of candidates: the squared distances of all, the
-     * records within the support kept by a branch-free index increment (the sign bit of
-     * d2 - support2, negative exactly when d2 &lt; support2), then the kernel terms of the kept
-     * records in record order: the same terms added in the same order, so the same sum bit for bit,
-     * without a mispredicted branch per candidate.
+     * {@link #sumCells} in three passes: the squared distances of all candidates (a loop over
+     * unit-stride arrays that compiles to vector instructions), the records within the support
+     * kept by a branch-free index increment (the sign bit of d2 - support2, negative exactly when
+     * d2 &lt; support2), then the kernel terms of the kept records in record order: the same terms
+     * added in the same order, so the same sum bit for bit, without a mispredicted branch per
+     * candidate.
      */
     private double sumCompacted(double sum, int from, int to, double sx, double sy, double sz, double dtE,
                                 double pr, double pth, double pphi, double invH, double norm, double support2,
                                 Scratch scratch) {
-        int[] rec = scratch.record;
         double[] dd = scratch.d2;
-        for (int b = from; b < to; b += CHUNK) {
-            int e = Math.min(to, b + CHUNK);
-            int k = 0;
-            for (int p = b; p < e; p++) {
-                int q = REC * p;
-                double ddx = sx - (pos[q] + pos[q + 3] * dtE);
-                double ddy = sy - (pos[q + 1] + pos[q + 4] * dtE);
-                double ddz = sz - (pos[q + 2] + pos[q + 5] * dtE);
-                double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
-                rec[k] = q;
-                dd[k] = d2;
-                k += (int) (Double.doubleToRawLongBits(d2 - support2) >>> 63);
-            }
-            for (int j = 0; j < k; j++) {
-                sum = term(sum, rec[j], dd[j], pr, pth, pphi, invH, norm);
-            }
+        int[] rec = scratch.record;
+        for (int p = from; p < to; p++) {
+            double ddx = sx - (px[p] + vx[p] * dtE);
+            double ddy = sy - (py[p] + vy[p] * dtE);
+            double ddz = sz - (pz[p] + vz[p] * dtE);
+            dd[p] = ddx * ddx + ddy * ddy + ddz * ddz;
+        }
+        int k = 0;
+        for (int p = from; p < to; p++) {
+            rec[k] = p;
+            k += (int) (Double.doubleToRawLongBits(dd[p] - support2) >>> 63);
+        }
+        for (int j = 0; j < k; j++) {
+            int p = rec[j];
+            sum = term(sum, REC * p, dd[p], pr, pth, pphi, invH, norm);
         }
         return sum;
     }
@@ -526,13 +534,12 @@ final class EmissionSlice {
     private double sumCells(double sum, int from, int to, double sx, double sy, double sz, double dtE, double pr,
                             double pth, double pphi, double invH, double norm, double support2) {
         for (int p = from; p < to; p++) {
-            int q = REC * p;
-            double ddx = sx - (pos[q] + pos[q + 3] * dtE);
-            double ddy = sy - (pos[q + 1] + pos[q + 4] * dtE);
-            double ddz = sz - (pos[q + 2] + pos[q + 5] * dtE);
+            double ddx = sx - (px[p] + vx[p] * dtE);
+            double ddy = sy - (py[p] + vy[p] * dtE);
+            double ddz = sz - (pz[p] + vz[p] * dtE);
             double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
             if (d2 < support2) {
-                sum = term(sum, q, d2, pr, pth, pphi, invH, norm);
+                sum = term(sum, REC * p, d2, pr, pth, pphi, invH, norm);
             }
         }
         return sum;
