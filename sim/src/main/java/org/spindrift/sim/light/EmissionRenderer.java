@@ -1,5 +1,6 @@
 package org.spindrift.sim.light;
 
+import java.util.ArrayDeque;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashMap;
@@ -42,6 +43,8 @@ public final class EmissionRenderer implements AutoCloseable {
     private final double rMax;
     private final ForkJoinPool pool;
     private final Map<Long, EmissionSlice> cache = new HashMap<>();
+    /** arrays of dropped slices, for the next slices built */
+    private final ArrayDeque<EmissionSlice.Storage> spare = new ArrayDeque<>();
     private final double[] delays;
     // samples sorted by delay (structure of arrays) and the pixel each belongs to
     private final float[] sx, sy, sz, sd, spr, spth, spph, sdl;
@@ -229,7 +232,13 @@ public final class EmissionRenderer implements AutoCloseable {
     public void render(double tObs, float[] image) {
         long jLo = sliceIndex(tObs - delays[1]);
         long jHi = sliceIndex(tObs - delays[0]);
-        cache.keySet().removeIf(j -> j < jLo);
+        // slices no longer needed hand their arrays to the slices built next
+        cache.entrySet().removeIf(e -> {
+            if (e.getKey() < jLo && e.getValue() != null) {
+                spare.push(e.getValue().storage);
+            }
+            return e.getKey() < jLo;
+        });
         List<Long> missing = new ArrayList<>();
         for (long j = jLo; j <= jHi; j++) {
             if (!cache.containsKey(j)) {
@@ -238,10 +247,18 @@ public final class EmissionRenderer implements AutoCloseable {
         }
         long t0 = System.nanoTime();
         EmissionSlice[] built = new EmissionSlice[missing.size()];
+        EmissionSlice.Storage[] stores = new EmissionSlice.Storage[built.length];
+        for (int i = 0; i < stores.length; i++) {
+            stores[i] = spare.isEmpty() ? new EmissionSlice.Storage() : spare.pop();
+        }
         run(() -> IntStream.range(0, built.length).parallel().forEach(i -> built[i] = EmissionSlice.build(
-                history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h, 0.5 * sliceSpacing, rMax)));
+                history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h, 0.5 * sliceSpacing, rMax,
+                stores[i])));
         for (int i = 0; i < built.length; i++) {
             cache.put(missing.get(i), built[i]);
+            if (built[i] == null) {
+                spare.push(stores[i]);
+            }
         }
         slicesBuilt += built.length;
         long t1 = System.nanoTime();

@@ -44,9 +44,9 @@ final class EmissionSlice {
      * cells away in x and y (any z). A query with search radius rc &lt; NEAR cells reaches at most
      * NEAR cells from the sample's cell (rc is at most 2 plus rounding: cells are half the reach),
      * so a sample whose column is false sees no particle: an exact early exit for the many samples
-     * away from the gas.
+     * away from the gas. Only the reference query uses it, so it is made on its first use.
      */
-    private final boolean[] nearColumn;
+    private volatile boolean[] nearColumn;
     /** Dilation of {@link #nearColumn} in cells. */
     static final int NEAR = 3;
     /**
@@ -65,8 +65,13 @@ final class EmissionSlice {
     /** Value of {@link #gap2} for cells with no occupied cell within {@link #NEAR} cells. */
     private static final byte FAR = 100;
 
-    private EmissionSlice(double tau, int count, double[][] pos, float[] att, int[] cellStart, double ox, double oy,
+    /** the arrays this slice lives in, handed back for the next slice when this one is dropped */
+    final Storage storage;
+
+    private EmissionSlice(double tau, int count, Storage st, double ox, double oy,
                           double oz, double cell, int nx, int ny, int nz, double reach, double vmax) {
+        this.storage = st;
+        int[] cellStart = st.cellStart;
         this.tau = tau;
         this.count = count;
         this.cellStart = cellStart;
@@ -80,10 +85,9 @@ final class EmissionSlice {
         this.nz = nz;
         this.reach = reach;
         this.vmax = vmax;
-        nearColumn = columns(cellStart, nx, ny, nz);
-        gap2 = gaps(cellStart, nx, ny, nz);
-        zLo = new byte[nx * ny];
-        zHi = new byte[nx * ny];
+        gap2 = gaps(st, nx, ny, nz);
+        zLo = st.zLo = grow(st.zLo, nx * ny);
+        zHi = st.zHi = grow(st.zHi, nx * ny);
         for (int c = 0; c < nx * ny; c++) {
             int lo = nz, hi = -1;
             for (int k = 0; k < nz; k++) {
@@ -95,13 +99,58 @@ final class EmissionSlice {
             zLo[c] = (byte) lo;
             zHi[c] = (byte) hi;
         }
-        this.px = pos[0];
-        this.py = pos[1];
-        this.pz = pos[2];
-        this.vx = pos[3];
-        this.vy = pos[4];
-        this.vz = pos[5];
-        this.att = att;
+        this.px = st.pos[0];
+        this.py = st.pos[1];
+        this.pz = st.pos[2];
+        this.vx = st.pos[3];
+        this.vy = st.pos[4];
+        this.vz = st.pos[5];
+        this.att = st.att;
+    }
+
+    /**
+     * The arrays of one slice and the work arrays of its building, reused from slice to slice
+     * (a slice dropped by the renderer hands its storage to the next one built), so that slices
+     * are built without allocating once the arrays have grown to the largest slice. Arrays may be
+     * longer than the slice needs.
+     */
+    static final class Storage {
+        double[][] pos = new double[REC][0];
+        float[] att = new float[0];
+        int[] cellStart = new int[0];
+        byte[] gap2 = new byte[0], gapWork = new byte[0], zLo = new byte[0], zHi = new byte[0];
+        float[][] work = new float[2 * REC][0];
+        int[] cellOf = new int[0], fill = new int[0];
+    }
+
+    private static byte[] grow(byte[] a, int n) {
+        return a.length >= n ? a : new byte[Math.max(n, a.length + a.length / 4)];
+    }
+
+    private static int[] grow(int[] a, int n) {
+        return a.length >= n ? a : new int[Math.max(n, a.length + a.length / 4)];
+    }
+
+    private static float[] grow(float[] a, int n) {
+        return a.length >= n ? a : new float[Math.max(n, a.length + a.length / 4)];
+    }
+
+    private static double[] grow(double[] a, int n) {
+        return a.length >= n ? a : new double[Math.max(n, a.length + a.length / 4)];
+    }
+
+    private boolean[] nearColumns() {
+        boolean[] c = nearColumn;
+        if (c == null) {
+            synchronized (this) {
+                c = nearColumn;
+                if (c == null) {
+                    c = columns(cellStart, nx, ny, nz);
+                    nearColumn = c;
+                }
+            }
+        }
+        return c;
     }
 
     /** Occupied (x, y) columns dilated by NEAR cells in x and y (two one-dimensional passes). */
@@ -139,23 +188,24 @@ final class EmissionSlice {
      * in separable distance transforms (e.g. Felzenszwalb &amp; Huttenlocher 2012, Theory of
      * Computing 8, 415), here over offsets of at most {@link #NEAR} cells.
      */
-    private static byte[] gaps(int[] cellStart, int nx, int ny, int nz) {
+    private static byte[] gaps(Storage st, int nx, int ny, int nz) {
+        int[] cellStart = st.cellStart;
         int cells = nx * ny * nz;
-        byte[] a = new byte[cells];
-        byte[] b = new byte[cells];
-        Arrays.fill(a, FAR);
+        byte[] a = st.gap2 = grow(st.gap2, cells);
+        byte[] b = st.gapWork = grow(st.gapWork, cells);
+        Arrays.fill(a, 0, cells, FAR);
         for (int c = 0; c < cells; c++) {            // along z: from the occupied cells
             if (cellStart[c + 1] > cellStart[c]) {
                 stamp(a, c, 0, c % nz, nz, 1);
             }
         }
-        Arrays.fill(b, FAR);
+        Arrays.fill(b, 0, cells, FAR);
         for (int c = 0; c < cells; c++) {            // along y
             if (a[c] < FAR) {
                 stamp(b, c, a[c], (c / nz) % ny, ny, nz);
             }
         }
-        Arrays.fill(a, FAR);
+        Arrays.fill(a, 0, cells, FAR);
         for (int c = 0; c < cells; c++) {            // along x
             if (b[c] < FAR) {
                 stamp(a, c, b[c], c / (ny * nz), nx, ny * nz);
@@ -189,6 +239,15 @@ final class EmissionSlice {
      */
     static EmissionSlice build(EmitterHistory h, Spacetime st, double tau, double support, double halfSpacing,
                                double rMax) {
+        return build(h, st, tau, support, halfSpacing, rMax, new Storage());
+    }
+
+    /**
+     * {@link #build(EmitterHistory, Spacetime, double, double, double, double)} into the arrays of
+     * {@code store} (grown where too short); the slice keeps them until it is dropped.
+     */
+    static EmissionSlice build(EmitterHistory h, Spacetime st, double tau, double support, double halfSpacing,
+                               double rMax, Storage store) {
         int ns = h.snapshots();
         if (ns < 2 || tau < h.time(0) || tau > h.time(ns - 1)) {
             return null;
@@ -212,7 +271,10 @@ final class EmissionSlice {
         final double d00 = 6 * s2 - 6 * s, d10 = 3 * s2 - 4 * s + 1, d01 = -6 * s2 + 6 * s, d11 = 3 * s2 - 2 * s;
         final double a2 = st.spin() * st.spin();
         final int n = h.particles();
-        float[][] tmp = new float[12][n];
+        float[][] tmp = store.work;
+        for (int q = 0; q < tmp.length; q++) {
+            tmp[q] = grow(tmp[q], n);
+        }
         double[] g = new double[Spacetime.SIZE];
         int m = 0;
         double vmax = 0.0;
@@ -235,7 +297,7 @@ final class EmissionSlice {
             double df0 = h.u(k, p, 3) / ut0, df1 = h.u(k + 1, p, 3) / ut1;
             // unwrap phi: choose the 2 pi branch nearest to the mean angular velocity times dt
             double jump = f1 - f0 - 0.5 * (df0 + df1) * dt;
-            f1 -= 2 * FastMath.PI * FastMath.rint(jump / (2 * FastMath.PI));
+            f1 -= 2 * FastMath.PI * Math.rint(jump / (2 * FastMath.PI));   // Math.rint: the same value, an instruction
             double r = h00 * r0 + h10 * dt * dr0 + h01 * r1 + h11 * dt * dr1;
             if (r > rMax) {
                 continue;
@@ -298,8 +360,9 @@ final class EmissionSlice {
         int gy = (int) ((maxY - minY) / cell) + 1;
         int gz = (int) ((maxZ - minZ) / cell) + 1;
         int cells = gx * gy * gz;
-        int[] cellOf = new int[m];
-        int[] start = new int[cells + 1];
+        int[] cellOf = store.cellOf = grow(store.cellOf, m);
+        int[] start = store.cellStart = grow(store.cellStart, cells + 1);
+        Arrays.fill(start, 0, cells + 1, 0);
         for (int p = 0; p < m; p++) {
             int cx = FastMath.min(gx - 1, (int) ((tmp[0][p] - minX) / cell));
             int cy = FastMath.min(gy - 1, (int) ((tmp[1][p] - minY) / cell));
@@ -311,9 +374,13 @@ final class EmissionSlice {
         for (int c = 0; c < cells; c++) {
             start[c + 1] += start[c];
         }
-        int[] fill = new int[cells];
-        double[][] pos = new double[REC][m];
-        float[] att = new float[REC * m];
+        int[] fill = store.fill = grow(store.fill, cells);
+        Arrays.fill(fill, 0, cells, 0);
+        double[][] pos = store.pos;
+        for (int q = 0; q < REC; q++) {
+            pos[q] = grow(pos[q], m);
+        }
+        float[] att = store.att = grow(store.att, REC * m);
         for (int p = 0; p < m; p++) {              // stable counting sort by cell
             int c = cellOf[p];
             int dst = start[c] + fill[c]++;
@@ -322,7 +389,7 @@ final class EmissionSlice {
                 att[REC * dst + q] = tmp[REC + q][p];
             }
         }
-        return new EmissionSlice(tau, m, pos, att, start, minX, minY, minZ, cell, gx, gy, gz, reach, vmax);
+        return new EmissionSlice(tau, m, store, minX, minY, minZ, cell, gx, gy, gz, reach, vmax);
     }
 
     /**
@@ -353,7 +420,7 @@ final class EmissionSlice {
             return 0.0;
         }
         int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy);
-        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && !nearColumn[cx * ny + cy]) {
+        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && !nearColumns()[cx * ny + cy]) {
             return 0.0;
         }
         x0 = Math.max(0, x0);
