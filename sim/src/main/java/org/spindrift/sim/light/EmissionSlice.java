@@ -32,10 +32,10 @@ final class EmissionSlice {
      * Records sorted by cell, for locality, split so that the distance test reads only the
      * positions and velocities, one array per coordinate (unit stride, so the distance pass
      * compiles to vector instructions): x, y, z, vx, vy, vz; att = u^t, u^r, u^theta, u^phi,
-     * weight / u^t, exponent 2 + alpha per record. The positions and velocities are the
-     * float-rounded values held in doubles (the distance test needs no conversions).
+     * weight / u^t, exponent 2 + alpha per record. Floats: the slices of a frame's window do
+     * not fit in the processor's caches, so their size is what a query waits for.
      */
-    private final double[] px, py, pz, vx, vy, vz;
+    private final float[] px, py, pz, vx, vy, vz;
     private final float[] att;
     /** largest particle speed |dx/dt| in the slice (bounds the drift over |t_e - tau|) */
     final double vmax;
@@ -115,7 +115,7 @@ final class EmissionSlice {
      * longer than the slice needs.
      */
     static final class Storage {
-        double[][] pos = new double[REC][0];
+        float[][] pos = new float[REC][0];
         float[] att = new float[0];
         int[] cellStart = new int[0];
         byte[] gap2 = new byte[0], gapWork = new byte[0], zLo = new byte[0], zHi = new byte[0];
@@ -135,9 +135,6 @@ final class EmissionSlice {
         return a.length >= n ? a : new float[Math.max(n, a.length + a.length / 4)];
     }
 
-    private static double[] grow(double[] a, int n) {
-        return a.length >= n ? a : new double[Math.max(n, a.length + a.length / 4)];
-    }
 
     private boolean[] nearColumns() {
         boolean[] c = nearColumn;
@@ -376,7 +373,7 @@ final class EmissionSlice {
         }
         int[] fill = store.fill = grow(store.fill, cells);
         Arrays.fill(fill, 0, cells, 0);
-        double[][] pos = store.pos;
+        float[][] pos = store.pos;
         for (int q = 0; q < REC; q++) {
             pos[q] = grow(pos[q], m);
         }
