@@ -54,7 +54,7 @@ public final class EmissionRenderer implements AutoCloseable {
     private final double binOrigin;
     private final List<double[]> chunkImages = new ArrayList<>();
     /** work space of the slice queries, one per block */
-    private final EmissionSlice.Scratch[] scratch = new EmissionSlice.Scratch[BLOCKS];
+    private final EmissionSlice.Group[] scratch = new EmissionSlice.Group[BLOCKS];
     /** Consecutive sorted samples per group of the group test. */
     private static final int GROUP = 32;
     /** per group of GROUP sorted samples: bounding box (x, y, z lower then upper) and delay range */
@@ -282,7 +282,7 @@ public final class EmissionRenderer implements AutoCloseable {
             int i0 = from + b * size;
             int i1 = Math.min(to, i0 + size);
             if (scratch[b] == null) {
-                scratch[b] = new EmissionSlice.Scratch(history.particles());
+                scratch[b] = new EmissionSlice.Group();
             }
             renderSamples(i0, i1, tObs, jLo, window, acc, scratch[b]);
         }));
@@ -309,7 +309,7 @@ public final class EmissionRenderer implements AutoCloseable {
      * from the gas at the frame's emission times.
      */
     private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc,
-                               EmissionSlice.Scratch work) {
+                               EmissionSlice.Group work) {
         if (reference) {
             renderRange(i0, i1, tObs, jLo, window, acc);
             return;
@@ -348,25 +348,50 @@ public final class EmissionRenderer implements AutoCloseable {
         }
     }
 
-    /** {@link #renderRange} with the slices' exact shortcuts ({@link EmissionSlice#emissivityNear}). */
+    /**
+     * {@link #renderRange} with the slices' exact shortcuts: consecutive samples that see the same
+     * slice and lie within one cell of the group's first sample in x and y are queried together
+     * ({@link EmissionSlice#emissivityGroup}); each sample's emission is added to its pixel in
+     * sample order, as in {@link #renderRange}.
+     */
     private void renderNear(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc,
-                            EmissionSlice.Scratch work) {
-        for (int i = i0; i < i1; i++) {
+                            EmissionSlice.Group g) {
+        int i = i0;
+        while (i < i1) {
             double tE = tObs - sd[i];
             // Math.rint: the same correctly rounded value as FastMath.rint, as a processor instruction
             int w = (int) ((long) Math.rint((tE - sliceOrigin) / sliceSpacing) - jLo);
-            if (w < 0 || w >= window.length) {
+            if (w < 0 || w >= window.length || window[w] == null) {
+                i++;
                 continue;
             }
             EmissionSlice sl = window[w];
-            if (sl == null) {
-                continue;
+            int n = 0;
+            int j = i;
+            double x0 = sx[i], y0 = sy[i], lim = sl.cell;
+            while (j < i1 && n < EmissionSlice.GROUP) {
+                double t = tObs - sd[j];
+                if ((int) ((long) Math.rint((t - sliceOrigin) / sliceSpacing) - jLo) != w
+                        || Math.abs(sx[j] - x0) > lim || Math.abs(sy[j] - y0) > lim) {
+                    break;
+                }
+                g.x[n] = sx[j];
+                g.y[n] = sy[j];
+                g.z[n] = sz[j];
+                g.dt[n] = t - sl.tau;
+                g.pr[n] = spr[j];
+                g.pth[n] = spth[j];
+                g.pph[n] = spph[j];
+                n++;
+                j++;
             }
-            double e = sl.emissivityNear(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm,
-                    support2, work);
-            if (e != 0.0) {
-                acc[pix[i]] += sdl[i] * e;
+            sl.emissivityGroup(n, g, invH, norm, support2);
+            for (int k = 0; k < n; k++) {
+                if (g.out[k] != 0.0) {
+                    acc[pix[i + k]] += sdl[i + k] * g.out[k];
+                }
             }
+            i = j;
         }
     }
 

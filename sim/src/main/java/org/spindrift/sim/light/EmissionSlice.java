@@ -505,6 +505,117 @@ final class EmissionSlice {
         return sum;
     }
 
+    /** Most samples of one {@link #emissivityGroup} query. */
+    static final int GROUP = 8;
+
+    /**
+     * {@link #emissivityNear} for up to {@link #GROUP} samples at once (samples close together,
+     * as consecutive samples of a delay bin are): the cell columns are walked once for the
+     * group, each candidate particle is read once and tested against every sample whose search
+     * sphere reaches its column. Each sample's sum takes the particles within its support in
+     * record order, as the single query does, so each result is the same number bit for bit.
+     *
+     * @param n samples in the group, 1..{@link #GROUP}; their data in {@code g}, results to g.out
+     */
+    void emissivityGroup(int n, Group g, double invH, double norm, double support2) {
+        int activeMask = 0;
+        int ux0 = Integer.MAX_VALUE, ux1 = Integer.MIN_VALUE, uy0 = Integer.MAX_VALUE, uy1 = Integer.MIN_VALUE;
+        int uz0 = Integer.MAX_VALUE, uz1 = Integer.MIN_VALUE;
+        double support = Math.sqrt(support2);
+        for (int k = 0; k < n; k++) {
+            g.out[k] = 0.0;
+            double rs = support + vmax * Math.abs(g.dt[k]);
+            double fx = (g.x[k] - ox) * invCell, fy = (g.y[k] - oy) * invCell, fz = (g.z[k] - oz) * invCell;
+            double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
+            double rc2 = rc * rc;
+            int x0 = (int) Math.floor(fx - rc), x1 = (int) Math.floor(fx + rc);
+            int y0 = (int) Math.floor(fy - rc), y1 = (int) Math.floor(fy + rc);
+            int z0 = (int) Math.floor(fz - rc), z1 = (int) Math.floor(fz + rc);
+            if (x1 < 0 || y1 < 0 || z1 < 0 || x0 >= nx || y0 >= ny || z0 >= nz) {
+                continue;
+            }
+            int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy), cz = (int) Math.floor(fz);
+            if (cx >= 0 && cy >= 0 && cz >= 0 && cx < nx && cy < ny && cz < nz && rc < NEAR
+                    && gap2[(cx * ny + cy) * nz + cz] > rc2) {
+                continue;
+            }
+            activeMask |= 1 << k;
+            g.fx[k] = fx;
+            g.fy[k] = fy;
+            g.fz[k] = fz;
+            g.rc2[k] = rc2;
+            ux0 = Math.min(ux0, x0);
+            ux1 = Math.max(ux1, x1);
+            uy0 = Math.min(uy0, y0);
+            uy1 = Math.max(uy1, y1);
+            uz0 = Math.min(uz0, z0);
+            uz1 = Math.max(uz1, z1);
+        }
+        if (activeMask == 0) {
+            return;
+        }
+        ux0 = Math.max(0, ux0);
+        uy0 = Math.max(0, uy0);
+        ux1 = Math.min(nx - 1, ux1);
+        uy1 = Math.min(ny - 1, uy1);
+        for (int ix = ux0; ix <= ux1; ix++) {
+            for (int iy = uy0; iy <= uy1; iy++) {
+                int col = ix * ny + iy;
+                int lo = zLo[col], hi = zHi[col];
+                if (lo > uz1 || hi < uz0) {
+                    continue;                        // empty column, or its particles all too far in z
+                }
+                // the samples whose search sphere reaches this column, and the union of their z cells
+                int za = Integer.MAX_VALUE, zb = Integer.MIN_VALUE, mask = 0;
+                for (int m = activeMask; m != 0; m &= m - 1) {
+                    int k = Integer.numberOfTrailingZeros(m);
+                    double fx = g.fx[k], fy = g.fy[k], fz = g.fz[k];
+                    double gx = ix > fx ? ix - fx : fx - (ix + 1) > 0 ? fx - (ix + 1) : 0.0;
+                    double gy = iy > fy ? iy - fy : fy - (iy + 1) > 0 ? fy - (iy + 1) : 0.0;
+                    double g2 = gx * gx + gy * gy;
+                    if (g2 > g.rc2[k]) {
+                        continue;
+                    }
+                    double dz = Math.sqrt(g.rc2[k] - g2);
+                    int a = Math.max(lo, (int) Math.floor(fz - dz));
+                    int b = Math.min(hi, (int) Math.floor(fz + dz));
+                    if (a <= b) {
+                        za = Math.min(za, a);
+                        zb = Math.max(zb, b);
+                        mask |= 1 << k;
+                    }
+                }
+                if (mask == 0) {
+                    continue;
+                }
+                int base = col * nz;
+                int to = cellStart[base + zb + 1];
+                for (int p = cellStart[base + za]; p < to; p++) {
+                    double x = px[p], y = py[p], z = pz[p], vxp = vx[p], vyp = vy[p], vzp = vz[p];
+                    for (int m = mask; m != 0; m &= m - 1) {
+                        int k = Integer.numberOfTrailingZeros(m);
+                        double dtE = g.dt[k];
+                        double ddx = g.x[k] - (x + vxp * dtE);
+                        double ddy = g.y[k] - (y + vyp * dtE);
+                        double ddz = g.z[k] - (z + vzp * dtE);
+                        double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
+                        if (d2 < support2) {
+                            g.out[k] = term(g.out[k], REC * p, d2, g.pr[k], g.pth[k], g.pph[k], invH, norm);
+                        }
+                    }
+                }
+            }
+        }
+    }
+
+    /** Samples of one {@link #emissivityGroup} query and its work space (one per thread). */
+    static final class Group {
+        final double[] x = new double[GROUP], y = new double[GROUP], z = new double[GROUP], dt = new double[GROUP];
+        final double[] pr = new double[GROUP], pth = new double[GROUP], pph = new double[GROUP];
+        final double[] out = new double[GROUP];
+        final double[] fx = new double[GROUP], fy = new double[GROUP], fz = new double[GROUP], rc2 = new double[GROUP];
+    }
+
     /** Work space of {@link #emissivityNear} for one thread: squared distances and kept records. */
     static final class Scratch {
         final double[] d2;

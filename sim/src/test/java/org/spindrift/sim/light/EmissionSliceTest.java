@@ -13,7 +13,8 @@ import org.spindrift.sim.spacetime.Spacetime;
  * definition of the sum, no cell list; common practice, no source): the cell query of the
  * reference renderer and the query with the early exits of the frame renderer (gap field to the
  * gas, columns beyond the search radius, occupied z range and chord of the search sphere per
- * column, branch-free distance test) must give the same number
+ * column, branch-free distance test; and the query of a group of nearby samples, one walk of
+ * the columns for all) must give the same number
  * bit for bit, including at the edge of the gas where the shortcuts decide.
  */
 class EmissionSliceTest {
@@ -24,7 +25,8 @@ class EmissionSliceTest {
         double invH = 1 / h, norm = Kernel.norm(h), support2 = 4 * h * h;
         SplittableRandom rng = new SplittableRandom(3L);
         EmissionSlice.Scratch scratch = new EmissionSlice.Scratch(3000);
-        int nonZero = 0, zero = 0, crowded = 0;
+        EmissionSlice.Group group = new EmissionSlice.Group();
+        int nonZero = 0, zero = 0, crowded = 0, grouped = 0;
         // a spot of 0.4 M and a dense one of 0.1 M, whose columns hold hundreds of candidates
         for (double size : new double[] {0.4, 0.1}) {
           CircularSpotHistory hist = new CircularSpotHistory(st, 6.0, 0.3, size, 3000, 0.0, 200.0, 101, 1.0, 11L);
@@ -47,6 +49,30 @@ class EmissionSliceTest {
                 double near = sl.emissivityNear(sx, sy, sz, dt, pr, pth, pph, invH, norm, support2, scratch);
                 assertEquals(all, cells, 0.0, "cell query at sample " + k);
                 assertEquals(all, near, 0.0, "query with early exits at sample " + k);
+                // a group: this sample and up to seven neighbours within 0.3 M and the same slice
+                if (k % 8 == 0) {
+                    int n = 1 + k / 8 % EmissionSlice.GROUP;
+                    double[] want = new double[n];
+                    for (int m = 0; m < n; m++) {
+                        double ox = m == 0 ? 0 : 0.6 * (rng.nextDouble() - 0.5);
+                        double oy = m == 0 ? 0 : 0.6 * (rng.nextDouble() - 0.5);
+                        double oz = m == 0 ? 0 : 0.6 * (rng.nextDouble() - 0.5);
+                        group.x[m] = sx + ox;
+                        group.y[m] = sy + oy;
+                        group.z[m] = sz + oz;
+                        group.dt[m] = m == 0 ? dt : h * (rng.nextDouble() - 0.5);
+                        group.pr[m] = pr;
+                        group.pth[m] = pth - 0.1 * m;
+                        group.pph[m] = pph + 0.2 * m;
+                        want[m] = sl.emissivityAllParticles(group.x[m], group.y[m], group.z[m], group.dt[m], group.pr[m],
+                                group.pth[m], group.pph[m], invH, norm, support2);
+                    }
+                    sl.emissivityGroup(n, group, invH, norm, support2);
+                    for (int m = 0; m < n; m++) {
+                        assertEquals(want[m], group.out[m], 0.0, "group query, sample " + m + " of " + n + " at " + k);
+                        grouped += want[m] != 0.0 ? 1 : 0;
+                    }
+                }
                 if (all != 0.0) {
                     nonZero++;
                 } else {
@@ -58,5 +84,6 @@ class EmissionSliceTest {
         assertTrue(nonZero > 4000 && zero > 4000, "both cases exercised: " + nonZero + " with emission, " + zero
                 + " without");
         assertTrue(crowded > 500, "a column holds " + crowded + " particles");
+        assertTrue(grouped > 500, "group queries with emission: " + grouped);
     }
 }
