@@ -291,7 +291,8 @@ public final class BenchLightCommand implements Callable<Integer> {
     /** @return seconds the garbage collectors report so far (pauses and concurrent work as each counts it) */
     private static double gcSeconds() {
         long ms = 0;
-        for (java.lang.management.GarbageCollectorMXBean b : java.lang.management.ManagementFactory.getGarbageCollectorMXBeans()) {
+        for (java.lang.management.GarbageCollectorMXBean b
+                : java.lang.management.ManagementFactory.getGarbageCollectorMXBeans()) {
             ms += Math.max(0, b.getCollectionTime());
         }
         return ms * 1e-3;

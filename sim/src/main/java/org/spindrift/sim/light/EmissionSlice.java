@@ -438,82 +438,19 @@ final class EmissionSlice {
         return sum;
     }
 
-    /**
-     * The same sum as {@link #emissivity} (the same particles in the same order, so the same
-     * number bit for bit), with exact shortcuts: a sample whose cell is farther than its search
-     * radius from every occupied cell ({@link #gap2}) returns at once; of each column of cells
-     * only the z cells within the chord of the search sphere above the column's (x, y) gap from
-     * the sample, and within the column's occupied range, are visited; and the distance test runs
-     * branch-free over the candidates, collecting those within the support in {@code scratch}
-     * before their kernel terms are added in record order.
-     *
-     * @param scratch work space of the calling thread
-     */
-    double emissivityNear(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
-                          double invH, double norm, double support2, Scratch scratch) {
-        double rs = Math.sqrt(support2) + vmax * Math.abs(dtE);
-        double fx = (sx - ox) * invCell, fy = (sy - oy) * invCell, fz = (sz - oz) * invCell;
-        double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
-        double rc2 = rc * rc;
-        int x0 = (int) Math.floor(fx - rc);
-        int x1 = (int) Math.floor(fx + rc);
-        int y0 = (int) Math.floor(fy - rc);
-        int y1 = (int) Math.floor(fy + rc);
-        if (x1 < 0 || y1 < 0 || x0 >= nx || y0 >= ny || fz + rc < 0 || fz - rc >= nz) {
-            return 0.0;
-        }
-        int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy), cz = (int) Math.floor(fz);
-        if (cx >= 0 && cy >= 0 && cz >= 0 && cx < nx && cy < ny && cz < nz && rc < NEAR
-                && gap2[(cx * ny + cy) * nz + cz] > rc2) {
-            return 0.0;
-        }
-        x0 = Math.max(0, x0);
-        x1 = Math.min(nx - 1, x1);
-        // z cells any particle within rc can occupy
-        int zMin = (int) Math.floor(fz - rc), zMax = (int) Math.floor(fz + rc);
-        double sum = 0.0;
-        for (int ix = x0; ix <= x1; ix++) {
-            // gap from the sample to the column's x interval [ix, ix + 1), cell units
-            double gx = ix > fx ? ix - fx : fx - (ix + 1) > 0 ? fx - (ix + 1) : 0.0;
-            double gx2 = gx * gx;
-            if (gx2 > rc2) {
-                continue;
-            }
-            // the columns of this x whose y gap is within the chord of the search circle
-            double dy = Math.sqrt(rc2 - gx2);
-            int ya = Math.max(0, (int) Math.floor(fy - dy)), yb = Math.min(ny - 1, (int) Math.floor(fy + dy));
-            for (int iy = ya; iy <= yb; iy++) {
-                int col = ix * ny + iy;
-                int lo = zLo[col], hi = zHi[col];
-                if (lo > zMax || hi < zMin) {
-                    continue;                        // empty column, or its particles all too far in z
-                }
-                double gy = iy > fy ? iy - fy : fy - (iy + 1) > 0 ? fy - (iy + 1) : 0.0;
-                double g2 = gx2 + gy * gy;
-                // a particle of this column within rc of the sample has |z - fz| <= sqrt(rc^2 - g2)
-                double dz = Math.sqrt(Math.max(0.0, rc2 - g2));
-                int za = Math.max(lo, (int) Math.floor(fz - dz));
-                int zb = Math.min(hi, (int) Math.floor(fz + dz));
-                if (za > zb) {
-                    continue;
-                }
-                int base = col * nz;
-                sum = sumCompacted(sum, cellStart[base + za], cellStart[base + zb + 1], sx, sy, sz, dtE, pr, pth,
-                        pphi, invH, norm, support2, scratch);
-            }
-        }
-        return sum;
-    }
-
     /** Most samples of one {@link #emissivityGroup} query. */
     static final int GROUP = 8;
 
     /**
-     * {@link #emissivityNear} for up to {@link #GROUP} samples at once (samples close together,
-     * as consecutive samples of a delay bin are): the cell columns are walked once for the
-     * group, each candidate particle is read once and tested against every sample whose search
-     * sphere reaches its column. Each sample's sum takes the particles within its support in
-     * record order, as the single query does, so each result is the same number bit for bit.
+     * The sum of {@link #emissivity} for up to {@link #GROUP} samples at once (samples close
+     * together, as consecutive samples of a delay bin are), with exact shortcuts: a sample whose
+     * cell is farther than its search radius from every occupied cell ({@link #gap2}) gets 0 at
+     * once; the cell columns are walked once for the group, skipping columns whose occupied z
+     * range ({@link #zLo}, {@link #zHi}) is beyond every sample's reach; of a column only the z
+     * cells within the chord of some sample's search sphere above the column are read, each
+     * candidate once, and it is tested against every sample whose sphere reaches the column.
+     * Each sample's sum takes the particles within its support in record order, as the
+     * reference query does, so each result is the same number bit for bit.
      *
      * @param n samples in the group, 1..{@link #GROUP}; their data in {@code g}, results to g.out
      */
@@ -614,49 +551,6 @@ final class EmissionSlice {
         final double[] pr = new double[GROUP], pth = new double[GROUP], pph = new double[GROUP];
         final double[] out = new double[GROUP];
         final double[] fx = new double[GROUP], fy = new double[GROUP], fz = new double[GROUP], rc2 = new double[GROUP];
-    }
-
-    /** Work space of {@link #emissivityNear} for one thread: squared distances and kept records. */
-    static final class Scratch {
-        final double[] d2;
-        final int[] record;
-
-        /** @param particles the most particles a slice may hold */
-        Scratch(int particles) {
-            d2 = new double[particles];
-            record = new int[particles];
-        }
-    }
-
-    /**
-     * {@link #sumCells} in three passes: the squared distances of all candidates (a loop over
-     * unit-stride arrays that compiles to vector instructions), the records within the support
-     * kept by a branch-free index increment (the sign bit of d2 - support2, negative exactly when
-     * d2 &lt; support2), then the kernel terms of the kept records in record order: the same terms
-     * added in the same order, so the same sum bit for bit, without a mispredicted branch per
-     * candidate.
-     */
-    private double sumCompacted(double sum, int from, int to, double sx, double sy, double sz, double dtE,
-                                double pr, double pth, double pphi, double invH, double norm, double support2,
-                                Scratch scratch) {
-        double[] dd = scratch.d2;
-        int[] rec = scratch.record;
-        for (int p = from; p < to; p++) {
-            double ddx = sx - (px[p] + vx[p] * dtE);
-            double ddy = sy - (py[p] + vy[p] * dtE);
-            double ddz = sz - (pz[p] + vz[p] * dtE);
-            dd[p] = ddx * ddx + ddy * ddy + ddz * ddz;
-        }
-        int k = 0;
-        for (int p = from; p < to; p++) {
-            rec[k] = p;
-            k += (int) (Double.doubleToRawLongBits(dd[p] - support2) >>> 63);
-        }
-        for (int j = 0; j < k; j++) {
-            int p = rec[j];
-            sum = term(sum, REC * p, dd[p], pr, pth, pphi, invH, norm);
-        }
-        return sum;
     }
 
     /** @return sum plus the kernel term of the record at q, at squared distance d2 within the support */
