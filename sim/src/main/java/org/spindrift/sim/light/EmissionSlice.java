@@ -545,13 +545,23 @@ final class EmissionSlice {
         }
     }
 
-    /** Samples of one {@link #emissivityGroup} query and its work space (one per thread). */
+    /**
+     * Samples of one {@link #emissivityGroup} query and its work space (one per block of samples).
+     * Each array is padded by {@link #PAD} unused values so that the work spaces of two blocks
+     * never share a cache line: the blocks of one frame run on different threads, and the sums
+     * are written once per kernel term.
+     */
     static final class Group {
-        final double[] x = new double[GROUP], y = new double[GROUP], z = new double[GROUP], dt = new double[GROUP];
-        final double[] pr = new double[GROUP], pth = new double[GROUP], pph = new double[GROUP];
-        final double[] out = new double[GROUP];
-        final double[] fx = new double[GROUP], fy = new double[GROUP], fz = new double[GROUP], rc2 = new double[GROUP];
+        final double[] x = pad(), y = pad(), z = pad(), dt = pad(), pr = pad(), pth = pad(), pph = pad();
+        final double[] out = pad(), fx = pad(), fy = pad(), fz = pad(), rc2 = pad();
+
+        private static double[] pad() {
+            return new double[GROUP + PAD];
+        }
     }
+
+    /** Unused values after each work array of a {@link Group}: 128 bytes, two cache lines. */
+    private static final int PAD = 16;
 
     /** @return sum plus the kernel term of the record at q, at squared distance d2 within the support */
     private double term(double sum, int q, double d2, double pr, double pth, double pphi, double invH, double norm) {
