@@ -53,8 +53,6 @@ public final class EmissionRenderer implements AutoCloseable {
     private final int[] binStart;
     private final double binOrigin;
     private final List<double[]> chunkImages = new ArrayList<>();
-    /** work space of the slice queries, one per block */
-    private final EmissionSlice.Group[] scratch = new EmissionSlice.Group[BLOCKS];
     /** Consecutive sorted samples per group of the group test. */
     private static final int GROUP = 32;
     /** per group of GROUP sorted samples: bounding box (x, y, z lower then upper) and delay range */
@@ -281,10 +279,7 @@ public final class EmissionRenderer implements AutoCloseable {
             Arrays.fill(acc, 0.0);
             int i0 = from + b * size;
             int i1 = Math.min(to, i0 + size);
-            if (scratch[b] == null) {
-                scratch[b] = new EmissionSlice.Group();
-            }
-            renderSamples(i0, i1, tObs, jLo, window, acc, scratch[b]);
+            renderSamples(i0, i1, tObs, jLo, window, acc);
         }));
         for (int k = 0; k < image.length; k++) {
             double v = 0.0;
@@ -308,8 +303,7 @@ public final class EmissionRenderer implements AutoCloseable {
      * samples would find no particle), which spares the per-sample set-up on the many samples away
      * from the gas at the frame's emission times.
      */
-    private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc,
-                               EmissionSlice.Group work) {
+    private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
         if (reference) {
             renderRange(i0, i1, tObs, jLo, window, acc);
             return;
@@ -325,7 +319,7 @@ public final class EmissionRenderer implements AutoCloseable {
                         gBox[6 * g + 4], gBox[6 * g + 5]);
             }
             if (any) {
-                renderNear(a, b, tObs, jLo, window, acc, work);
+                renderNear(a, b, tObs, jLo, window, acc);
             }
         }
     }
@@ -348,50 +342,24 @@ public final class EmissionRenderer implements AutoCloseable {
         }
     }
 
-    /**
-     * {@link #renderRange} with the slices' exact shortcuts: consecutive samples that see the same
-     * slice and lie within one cell of the group's first sample in x and y are queried together
-     * ({@link EmissionSlice#emissivityGroup}); each sample's emission is added to its pixel in
-     * sample order, as in {@link #renderRange}.
-     */
-    private void renderNear(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc,
-                            EmissionSlice.Group g) {
-        int i = i0;
-        while (i < i1) {
+    /** {@link #renderRange} with the slices' exact shortcuts ({@link EmissionSlice#emissivityNear}). */
+    private void renderNear(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
+        for (int i = i0; i < i1; i++) {
             double tE = tObs - sd[i];
             // Math.rint: the same correctly rounded value as FastMath.rint, as a processor instruction
             int w = (int) ((long) Math.rint((tE - sliceOrigin) / sliceSpacing) - jLo);
-            if (w < 0 || w >= window.length || window[w] == null) {
-                i++;
+            if (w < 0 || w >= window.length) {
                 continue;
             }
             EmissionSlice sl = window[w];
-            int n = 0;
-            int j = i;
-            double x0 = sx[i], y0 = sy[i], lim = sl.cell;
-            while (j < i1 && n < EmissionSlice.GROUP) {
-                double t = tObs - sd[j];
-                if ((int) ((long) Math.rint((t - sliceOrigin) / sliceSpacing) - jLo) != w
-                        || Math.abs(sx[j] - x0) > lim || Math.abs(sy[j] - y0) > lim) {
-                    break;
-                }
-                g.x[n] = sx[j];
-                g.y[n] = sy[j];
-                g.z[n] = sz[j];
-                g.dt[n] = t - sl.tau;
-                g.pr[n] = spr[j];
-                g.pth[n] = spth[j];
-                g.pph[n] = spph[j];
-                n++;
-                j++;
+            if (sl == null) {
+                continue;
             }
-            sl.emissivityGroup(n, g, invH, norm, support2);
-            for (int k = 0; k < n; k++) {
-                if (g.out[k] != 0.0) {
-                    acc[pix[i + k]] += sdl[i + k] * g.out[k];
-                }
+            double e = sl.emissivityNear(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm,
+                    support2);
+            if (e != 0.0) {
+                acc[pix[i]] += sdl[i] * e;
             }
-            i = j;
         }
     }
 

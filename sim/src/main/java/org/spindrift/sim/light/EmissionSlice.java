@@ -26,16 +26,15 @@ final class EmissionSlice {
     final int nx, ny, nz;
     /** search radius the cells are sized for: kernel support plus the largest drift within half a slice spacing */
     final double reach;
-    /** Values per particle record in {@link #att}. */
+    /** Values per particle record in {@link #pos} and in {@link #att}. */
     private static final int REC = 6;
     /**
-     * Records sorted by cell, for locality, split so that the distance test reads only the
-     * positions and velocities, one array per coordinate (unit stride, so the distance pass
-     * compiles to vector instructions): x, y, z, vx, vy, vz; att = u^t, u^r, u^theta, u^phi,
-     * weight / u^t, exponent 2 + alpha per record. Floats: the slices of a frame's window do
-     * not fit in the processor's caches, so their size is what a query waits for.
+     * Records sorted by cell, for locality, split so that the distance test reads only the first:
+     * pos = x, y, z, vx, vy, vz; att = u^t, u^r, u^theta, u^phi, weight / u^t, exponent 2 + alpha.
+     * pos holds the float-rounded values in doubles: the same numbers as before, but the
+     * distance test (the hottest loop of rendering) needs no float-to-double conversions.
      */
-    private final float[] px, py, pz, vx, vy, vz;
+    private final double[] pos;
     private final float[] att;
     /** largest particle speed |dx/dt| in the slice (bounds the drift over |t_e - tau|) */
     final double vmax;
@@ -44,9 +43,9 @@ final class EmissionSlice {
      * cells away in x and y (any z). A query with search radius rc &lt; NEAR cells reaches at most
      * NEAR cells from the sample's cell (rc is at most 2 plus rounding: cells are half the reach),
      * so a sample whose column is false sees no particle: an exact early exit for the many samples
-     * away from the gas. Only the reference query uses it, so it is made on its first use.
+     * away from the gas.
      */
-    private volatile boolean[] nearColumn;
+    private final boolean[] nearColumn;
     /** Dilation of {@link #nearColumn} in cells. */
     static final int NEAR = 3;
     /**
@@ -85,6 +84,7 @@ final class EmissionSlice {
         this.nz = nz;
         this.reach = reach;
         this.vmax = vmax;
+        nearColumn = st.nearColumn = columns(st, nx, ny, nz);
         gap2 = gaps(st, nx, ny, nz);
         zLo = st.zLo = grow(st.zLo, nx * ny);
         zHi = st.zHi = grow(st.zHi, nx * ny);
@@ -99,12 +99,7 @@ final class EmissionSlice {
             zLo[c] = (byte) lo;
             zHi[c] = (byte) hi;
         }
-        this.px = st.pos[0];
-        this.py = st.pos[1];
-        this.pz = st.pos[2];
-        this.vx = st.pos[3];
-        this.vy = st.pos[4];
-        this.vz = st.pos[5];
+        this.pos = st.pos;
         this.att = st.att;
     }
 
@@ -115,16 +110,21 @@ final class EmissionSlice {
      * longer than the slice needs.
      */
     static final class Storage {
-        float[][] pos = new float[REC][0];
+        double[] pos = new double[0];
         float[] att = new float[0];
         int[] cellStart = new int[0];
         byte[] gap2 = new byte[0], gapWork = new byte[0], zLo = new byte[0], zHi = new byte[0];
+        boolean[] nearColumn = new boolean[0], columnWork = new boolean[0], occupied = new boolean[0];
         float[][] work = new float[2 * REC][0];
         int[] cellOf = new int[0], fill = new int[0];
     }
 
     private static byte[] grow(byte[] a, int n) {
         return a.length >= n ? a : new byte[Math.max(n, a.length + a.length / 4)];
+    }
+
+    private static boolean[] grow(boolean[] a, int n) {
+        return a.length >= n ? a : new boolean[Math.max(n, a.length + a.length / 4)];
     }
 
     private static int[] grow(int[] a, int n) {
@@ -135,28 +135,18 @@ final class EmissionSlice {
         return a.length >= n ? a : new float[Math.max(n, a.length + a.length / 4)];
     }
 
-
-    private boolean[] nearColumns() {
-        boolean[] c = nearColumn;
-        if (c == null) {
-            synchronized (this) {
-                c = nearColumn;
-                if (c == null) {
-                    c = columns(cellStart, nx, ny, nz);
-                    nearColumn = c;
-                }
-            }
-        }
-        return c;
+    private static double[] grow(double[] a, int n) {
+        return a.length >= n ? a : new double[Math.max(n, a.length + a.length / 4)];
     }
 
     /** Occupied (x, y) columns dilated by NEAR cells in x and y (two one-dimensional passes). */
-    private static boolean[] columns(int[] cellStart, int nx, int ny, int nz) {
-        boolean[] occ = new boolean[nx * ny];
+    private static boolean[] columns(Storage st, int nx, int ny, int nz) {
+        int[] cellStart = st.cellStart;
+        boolean[] occ = st.occupied = grow(st.occupied, nx * ny);
         for (int c = 0; c < nx * ny; c++) {
             occ[c] = cellStart[(c + 1) * nz] > cellStart[c * nz];
         }
-        boolean[] tmp = new boolean[nx * ny];
+        boolean[] tmp = st.columnWork = grow(st.columnWork, nx * ny);
         for (int ix = 0; ix < nx; ix++) {
             for (int iy = 0; iy < ny; iy++) {
                 boolean any = false;
@@ -166,7 +156,7 @@ final class EmissionSlice {
                 tmp[ix * ny + iy] = any;
             }
         }
-        boolean[] out = new boolean[nx * ny];
+        boolean[] out = grow(st.nearColumn, nx * ny);
         for (int ix = 0; ix < nx; ix++) {
             for (int iy = 0; iy < ny; iy++) {
                 boolean any = false;
@@ -373,17 +363,14 @@ final class EmissionSlice {
         }
         int[] fill = store.fill = grow(store.fill, cells);
         Arrays.fill(fill, 0, cells, 0);
-        float[][] pos = store.pos;
-        for (int q = 0; q < REC; q++) {
-            pos[q] = grow(pos[q], m);
-        }
+        double[] pos = store.pos = grow(store.pos, REC * m);
         float[] att = store.att = grow(store.att, REC * m);
         for (int p = 0; p < m; p++) {              // stable counting sort by cell
             int c = cellOf[p];
-            int dst = start[c] + fill[c]++;
+            int dst = REC * (start[c] + fill[c]++);
             for (int q = 0; q < REC; q++) {
-                pos[q][dst] = tmp[q][p];
-                att[REC * dst + q] = tmp[REC + q][p];
+                pos[dst + q] = tmp[q][p];
+                att[dst + q] = tmp[REC + q][p];
             }
         }
         return new EmissionSlice(tau, m, store, minX, minY, minZ, cell, gx, gy, gz, reach, vmax);
@@ -395,18 +382,30 @@ final class EmissionSlice {
      */
     double emissivity(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
                       double invH, double norm, double support2) {
-        return query(sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
+        return query(false, sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
     }
 
-    /** The bounding-box cell query: every cell of the box around the search sphere, candidates tested one by one. */
-    private double query(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
-                         double invH, double norm, double support2) {
+    /**
+     * The same sum as {@link #emissivity} (the same particles in the same order, so the same
+     * number bit for bit), with exact shortcuts: a sample whose cell is farther than its search
+     * radius from every occupied cell ({@link #gap2}) returns at once, and columns of cells whose
+     * (x, y) gap from the sample, or whose occupied z range, is beyond the search radius are not
+     * visited.
+     */
+    double emissivityNear(double sx, double sy, double sz, double dtE, double pr, double pth, double pphi,
+                          double invH, double norm, double support2) {
+        return query(true, sx, sy, sz, dtE, pr, pth, pphi, invH, norm, support2);
+    }
+
+    private double query(boolean near, double sx, double sy, double sz, double dtE, double pr, double pth,
+                         double pphi, double invH, double norm, double support2) {
         // a particle within the support at t_e is within 2h + vmax |t_e - tau| of the sample at tau
         double rs = Math.sqrt(support2) + vmax * Math.abs(dtE);
         double fx = (sx - ox) * invCell, fy = (sy - oy) * invCell, fz = (sz - oz) * invCell;
         // search radius in cell units, widened by a relative 1e-6 against float/double rounding
         // of the stored positions and velocities (never narrower than needed)
         double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
+        double rc2 = rc * rc;
         int x0 = (int) Math.floor(fx - rc);
         int x1 = (int) Math.floor(fx + rc);
         int y0 = (int) Math.floor(fy - rc);
@@ -416,8 +415,10 @@ final class EmissionSlice {
         if (x1 < 0 || y1 < 0 || z1 < 0 || x0 >= nx || y0 >= ny || z0 >= nz) {
             return 0.0;
         }
-        int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy);
-        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && !nearColumns()[cx * ny + cy]) {
+        int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy), cz = (int) Math.floor(fz);
+        if (cx >= 0 && cy >= 0 && cx < nx && cy < ny && rc < NEAR && (near
+                ? cz >= 0 && cz < nz && gap2[(cx * ny + cy) * nz + cz] > rc2
+                : !nearColumn[cx * ny + cy])) {
             return 0.0;
         }
         x0 = Math.max(0, x0);
@@ -428,151 +429,30 @@ final class EmissionSlice {
         z1 = Math.min(nz - 1, z1);
         double sum = 0.0;
         for (int ix = x0; ix <= x1; ix++) {
+            // gap from the sample to the column's x interval [ix, ix + 1), cell units
+            double gx = ix > fx ? ix - fx : fx - (ix + 1) > 0 ? fx - (ix + 1) : 0.0;
+            double gx2 = gx * gx;
             for (int iy = y0; iy <= y1; iy++) {
+                int col = ix * ny + iy;
+                int za = z0, zb = z1;
+                if (near) {
+                    double gy = iy > fy ? iy - fy : fy - (iy + 1) > 0 ? fy - (iy + 1) : 0.0;
+                    int lo = zLo[col], hi = zHi[col];
+                    // gap from the sample to the column's occupied z cells [lo, hi + 1)
+                    double gz = lo > fz ? lo - fz : fz - (hi + 1) > 0 ? fz - (hi + 1) : 0.0;
+                    if (lo > z1 || hi < z0 || gx2 + gy * gy + gz * gz > rc2) {
+                        continue;
+                    }
+                    za = Math.max(z0, lo);
+                    zb = Math.min(z1, hi);
+                }
                 // cells along z are contiguous
-                int base = (ix * ny + iy) * nz;
-                sum = sumCells(sum, cellStart[base + z0], cellStart[base + z1 + 1], sx, sy, sz, dtE, pr, pth, pphi,
+                int base = col * nz;
+                sum = sumCells(sum, cellStart[base + za], cellStart[base + zb + 1], sx, sy, sz, dtE, pr, pth, pphi,
                         invH, norm, support2);
             }
         }
         return sum;
-    }
-
-    /** Most samples of one {@link #emissivityGroup} query. */
-    static final int GROUP = 8;
-
-    /**
-     * The sum of {@link #emissivity} for up to {@link #GROUP} samples at once (samples close
-     * together, as consecutive samples of a delay bin are), with exact shortcuts: a sample whose
-     * cell is farther than its search radius from every occupied cell ({@link #gap2}) gets 0 at
-     * once; the cell columns are walked once for the group, skipping columns whose occupied z
-     * range ({@link #zLo}, {@link #zHi}) is beyond every sample's reach; of a column only the z
-     * cells within the chord of some sample's search sphere above the column are read, each
-     * candidate once, and it is tested against every sample whose sphere reaches the column.
-     * Each sample's sum takes the particles within its support in record order, as the
-     * reference query does, so each result is the same number bit for bit.
-     *
-     * @param n samples in the group, 1..{@link #GROUP}; their data in {@code g}, results to g.out
-     */
-    void emissivityGroup(int n, Group g, double invH, double norm, double support2) {
-        int activeMask = 0;
-        int ux0 = Integer.MAX_VALUE, ux1 = Integer.MIN_VALUE, uy0 = Integer.MAX_VALUE, uy1 = Integer.MIN_VALUE;
-        int uz0 = Integer.MAX_VALUE, uz1 = Integer.MIN_VALUE;
-        double support = Math.sqrt(support2);
-        for (int k = 0; k < n; k++) {
-            g.out[k] = 0.0;
-            double rs = support + vmax * Math.abs(g.dt[k]);
-            double fx = (g.x[k] - ox) * invCell, fy = (g.y[k] - oy) * invCell, fz = (g.z[k] - oz) * invCell;
-            double rc = rs * invCell * (1.0 + 1e-6) + 1e-6;
-            double rc2 = rc * rc;
-            int x0 = (int) Math.floor(fx - rc), x1 = (int) Math.floor(fx + rc);
-            int y0 = (int) Math.floor(fy - rc), y1 = (int) Math.floor(fy + rc);
-            int z0 = (int) Math.floor(fz - rc), z1 = (int) Math.floor(fz + rc);
-            if (x1 < 0 || y1 < 0 || z1 < 0 || x0 >= nx || y0 >= ny || z0 >= nz) {
-                continue;
-            }
-            int cx = (int) Math.floor(fx), cy = (int) Math.floor(fy), cz = (int) Math.floor(fz);
-            if (cx >= 0 && cy >= 0 && cz >= 0 && cx < nx && cy < ny && cz < nz && rc < NEAR
-                    && gap2[(cx * ny + cy) * nz + cz] > rc2) {
-                continue;
-            }
-            activeMask |= 1 << k;
-            g.fx[k] = fx;
-            g.fy[k] = fy;
-            g.fz[k] = fz;
-            g.rc2[k] = rc2;
-            ux0 = Math.min(ux0, x0);
-            ux1 = Math.max(ux1, x1);
-            uy0 = Math.min(uy0, y0);
-            uy1 = Math.max(uy1, y1);
-            uz0 = Math.min(uz0, z0);
-            uz1 = Math.max(uz1, z1);
-        }
-        if (activeMask == 0) {
-            return;
-        }
-        ux0 = Math.max(0, ux0);
-        uy0 = Math.max(0, uy0);
-        ux1 = Math.min(nx - 1, ux1);
-        uy1 = Math.min(ny - 1, uy1);
-        for (int ix = ux0; ix <= ux1; ix++) {
-            for (int iy = uy0; iy <= uy1; iy++) {
-                int col = ix * ny + iy;
-                int lo = zLo[col], hi = zHi[col];
-                if (lo > uz1 || hi < uz0) {
-                    continue;                        // empty column, or its particles all too far in z
-                }
-                // the samples whose search sphere reaches this column, and the union of their z cells
-                int za = Integer.MAX_VALUE, zb = Integer.MIN_VALUE, mask = 0;
-                for (int m = activeMask; m != 0; m &= m - 1) {
-                    int k = Integer.numberOfTrailingZeros(m);
-                    double fx = g.fx[k], fy = g.fy[k], fz = g.fz[k];
-                    double gx = ix > fx ? ix - fx : fx - (ix + 1) > 0 ? fx - (ix + 1) : 0.0;
-                    double gy = iy > fy ? iy - fy : fy - (iy + 1) > 0 ? fy - (iy + 1) : 0.0;
-                    double g2 = gx * gx + gy * gy;
-                    if (g2 > g.rc2[k]) {
-                        continue;
-                    }
-                    double dz = Math.sqrt(g.rc2[k] - g2);
-                    int a = Math.max(lo, (int) Math.floor(fz - dz));
-                    int b = Math.min(hi, (int) Math.floor(fz + dz));
-                    if (a <= b) {
-                        za = Math.min(za, a);
-                        zb = Math.max(zb, b);
-                        mask |= 1 << k;
-                    }
-                }
-                if (mask == 0) {
-                    continue;
-                }
-                int base = col * nz;
-                int to = cellStart[base + zb + 1];
-                for (int p = cellStart[base + za]; p < to; p++) {
-                    double x = px[p], y = py[p], z = pz[p], vxp = vx[p], vyp = vy[p], vzp = vz[p];
-                    for (int m = mask; m != 0; m &= m - 1) {
-                        int k = Integer.numberOfTrailingZeros(m);
-                        double dtE = g.dt[k];
-                        double ddx = g.x[k] - (x + vxp * dtE);
-                        double ddy = g.y[k] - (y + vyp * dtE);
-                        double ddz = g.z[k] - (z + vzp * dtE);
-                        double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
-                        if (d2 < support2) {
-                            g.out[k] = term(g.out[k], REC * p, d2, g.pr[k], g.pth[k], g.pph[k], invH, norm);
-                        }
-                    }
-                }
-            }
-        }
-    }
-
-    /**
-     * Samples of one {@link #emissivityGroup} query and its work space (one per block of samples).
-     * Each array is padded by {@link #PAD} unused values so that the work spaces of two blocks
-     * never share a cache line: the blocks of one frame run on different threads, and the sums
-     * are written once per kernel term.
-     */
-    static final class Group {
-        final double[] x = pad(), y = pad(), z = pad(), dt = pad(), pr = pad(), pth = pad(), pph = pad();
-        final double[] out = pad(), fx = pad(), fy = pad(), fz = pad(), rc2 = pad();
-
-        private static double[] pad() {
-            return new double[GROUP + PAD];
-        }
-    }
-
-    /** Unused values after each work array of a {@link Group}: 128 bytes, two cache lines. */
-    private static final int PAD = 16;
-
-    /** @return sum plus the kernel term of the record at q, at squared distance d2 within the support */
-    private double term(double sum, int q, double d2, double pr, double pth, double pphi, double invH, double norm) {
-        double gInv = Redshift.inverse(pr, pth, pphi, att[q], att[q + 1], att[q + 2], att[q + 3]);
-        if (!(gInv > 0)) {
-            return sum;
-        }
-        double e = att[q + 5];
-        // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
-        double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
-        return sum + att[q + 4] * Kernel.w(d2, invH, norm) * gp;
     }
 
     /**
@@ -613,13 +493,22 @@ final class EmissionSlice {
     private double sumCells(double sum, int from, int to, double sx, double sy, double sz, double dtE, double pr,
                             double pth, double pphi, double invH, double norm, double support2) {
         for (int p = from; p < to; p++) {
-            double ddx = sx - (px[p] + vx[p] * dtE);
-            double ddy = sy - (py[p] + vy[p] * dtE);
-            double ddz = sz - (pz[p] + vz[p] * dtE);
+            int q = REC * p;
+            double ddx = sx - (pos[q] + pos[q + 3] * dtE);
+            double ddy = sy - (pos[q + 1] + pos[q + 4] * dtE);
+            double ddz = sz - (pos[q + 2] + pos[q + 5] * dtE);
             double d2 = ddx * ddx + ddy * ddy + ddz * ddz;
-            if (d2 < support2) {
-                sum = term(sum, REC * p, d2, pr, pth, pphi, invH, norm);
+            if (d2 >= support2) {
+                continue;
             }
+            double gInv = Redshift.inverse(pr, pth, pphi, att[q], att[q + 1], att[q + 2], att[q + 3]);
+            if (!(gInv > 0)) {
+                continue;
+            }
+            double e = att[q + 5];
+            // g^(2+alpha); the common alpha = 1 (e = 3) avoids pow
+            double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
+            sum += att[q + 4] * Kernel.w(d2, invH, norm) * gp;
         }
         return sum;
     }
