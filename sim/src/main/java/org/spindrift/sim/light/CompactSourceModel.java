@@ -380,6 +380,7 @@ public final class CompactSourceModel {
     /** Largest number of sub-rays per side of a stretched pixel. */
     static final int MAX_RAYS = 12;
 
+    static boolean PER_SAMPLE = Boolean.getBoolean("spindrift.perSample");
     private final double[] c = new double[17];
     private final double[] cs = new double[7];
     /**
@@ -465,6 +466,10 @@ public final class CompactSourceModel {
                          double steadyRatio, double beamSigmaM) {
         boolean beamed = beamSigmaM > 0;
         summingPixels = beamed;
+        if (++framesCall == Integer.MAX_VALUE) {
+            framesCall = 1;
+            java.util.Arrays.fill(profileCall, 0);
+        }
         if (beamed) {
             prepareBeam(index, times.length, beamSigmaM);
         }
@@ -515,7 +520,11 @@ public final class CompactSourceModel {
             double sf = 0, sx = 0, sy = 0;
             for (int k = 0; k < spots.length; k++) {
                 if (spots[k].shearRate() != 0.0 && track.aliveThrough(k, 0.0, tEnd)) {
-                    ring(index, track, spots[k], k, to, e0, e1, sig2[k], blob2[k], kern2[k]);
+                    if (PER_SAMPLE) {
+                        ringPerSample(index, track, spots[k], k, to, e0, e1, sig2[k], blob2[k], kern2[k]);
+                    } else {
+                        ring(index, track, spots[k], k, to, e0, e1, sig2[k], blob2[k], kern2[k]);
+                    }
                     sf += acc[0];
                     sx += acc[1];
                     sy += acc[2];
@@ -790,7 +799,7 @@ public final class CompactSourceModel {
      * time without stepping (a sheared spot becomes an arc and then a ring, and stepping a box along
      * it would visit the same cells many times). Sums into {@link #acc}.
      */
-    private void ring(Index index, CentreTrack track, Spot spot, int k, double to, double e0, double e1, double sig2,
+    private void ringPerSample(Index index, CentreTrack track, Spot spot, int k, double to, double e0, double e1, double sig2,
                       double blob2, double kern2) {
         acc[0] = 0;
         acc[1] = 0;
@@ -808,7 +817,7 @@ public final class CompactSourceModel {
         // by integration drift less than a quarter cell is still covered
         if (ringIndex != index || FastMath.abs(rhoC - ringRho) > 0.25 * index.cell
                 || FastMath.abs(zC - ringZ) > 0.25 * index.cell || box != ringBox) {
-            listAnnulus(index, rhoC, zC, box);
+            listAnnulus(index, rhoC, box, zC, box);
         }
         double ut = c[9], ur = c[10], uth = c[11], uph = c[12];
         double e = 2.0 + track.spectralIndex(k);
@@ -885,14 +894,104 @@ public final class CompactSourceModel {
         acc[2] = sy;
     }
 
-    /** Lists the non-empty cells that can hold samples within box of the circle (rhoC, zC). */
-    private void listAnnulus(Index index, double rhoC, double zC, double box) {
+    /** Binned samples about each sheared spot's orbit (per source), and the frames() call they were built in. */
+    private RingProfile[] profiles = new RingProfile[0];
+    private int[] profileCall = new int[0];
+    private int framesCall;
+
+    /**
+     * A sheared spot on its circular orbit, one frame: the orbit's centre has constant cylindrical
+     * radius, height, angular velocity and 4-velocity, so the samples of the annulus about it are
+     * binned once per call of frames() ({@link RingProfile}) and every frame weighs the bins whose
+     * delay maps into the emission window [e0, e1] by the sheared Gaussian and the envelope at their
+     * own emission time. Sums into {@link #acc}.
+     */
+    private void ring(Index index, CentreTrack track, Spot spot, int k, double to, double e0, double e1, double sig2,
+                      double blob2, double kern2) {
+        acc[0] = 0;
+        acc[1] = 0;
+        acc[2] = 0;
+        ringSinkIndex = index;
+        long T0 = System.nanoTime();
+        RingProfile pf = profile(index, track, spot, k, sig2, blob2, kern2);
+        long T1 = System.nanoTime();
+        T_BUILD += T1 - T0;
+        if (pf == null) {
+            return;
+        }
+        double sRate = spot.shearRate(), rhoC = pf.rhoC;
+        // only phases within the arc's half-length (at the largest shear of the window) can be inside the
+        // cut: the quadratic form is at least w^2 / cc for any radial offset
+        double shMax = sRate * FastMath.max(FastMath.abs(e0), FastMath.abs(e1));
+        double halfPhase = CUT_SIGMAS * FastMath.sqrt(blob2 * (1 + shMax * shMax) + kern2) / rhoC;
+        int np = pf.phaseBins();
+        int b0 = 0, b1 = np - 1;
+        if (2 * halfPhase + 2 * pf.phaseStep() < TWO_PI) {
+            double lo = pf.theta(to) - halfPhase;
+            lo -= TWO_PI * FastMath.floor(lo / TWO_PI);
+            b0 = FastMath.min(np - 1, (int) (lo / pf.phaseStep()));
+            b1 = b0 + (int) FastMath.ceil(2 * halfPhase / pf.phaseStep()) + 1;
+        }
+        pf.sum(to, e0, e1, b0, b1, acc, summingPixels ? pixelSink : null);
+        T_SUM += System.nanoTime() - T1;
+
+    }
+    public static long T_BUILD, T_SUM, N_SUM;
+
+    /** @return the profile of sheared source k for the current frames() call (built on first use; null: no orbit) */
+    private RingProfile profile(Index index, CentreTrack track, Spot spot, int k, double sig2, double blob2,
+                                double kern2) {
+        if (profiles.length <= k) {
+            profiles = java.util.Arrays.copyOf(profiles, k + 1);
+            profileCall = java.util.Arrays.copyOf(profileCall, k + 1);
+        }
+        if (profiles[k] == null) {
+            profiles[k] = new RingProfile();
+        }
+        RingProfile pf = profiles[k];
+        if (profileCall[k] == framesCall) {
+            return pf.size >= 0 ? pf : null;
+        }
+        profileCall[k] = framesCall;
+        double tEnd = track.time(track.snapshots() - 1);
+        double tm = 0.5 * tEnd;
+        if (!track.expansion(k, tm, c)) {
+            pf.size = -1;
+            return null;
+        }
+        double rhoC = FastMath.hypot(c[0], c[1]);
+        double box = CUT_SIGMAS * FastMath.sqrt(sig2) + 1e-6;
+        pf.prepare(index, lister, sig2, box, rhoC, c[2], (c[0] * c[4] - c[1] * c[3]) / (rhoC * rhoC),
+                FastMath.atan2(c[1], c[0]), tm, c[9], c[10], c[11], c[12], 2.0 + track.spectralIndex(k));
+        pf.tabulate(spot, tEnd, spot.shearRate(), blob2, kern2);
+        return pf;
+    }
+
+    /** Adds a group's value to its pixel. */
+    private final RingProfile.PixelSink pixelSink = (e, n, v) -> addToPixel(this.ringSinkIndex, e, n, v);
+    private Index ringSinkIndex;
+
+    /** The annulus listing as a {@link RingProfile.Lister}. */
+    private final RingProfile.Lister lister = new RingProfile.Lister() {
+        @Override public int[] list(Index index, double rho, double half, double z, double zBox) {
+            listAnnulus(index, rho, half, z, zBox);
+            return ringCells;
+        }
+
+        @Override public int count() {
+            return ringCount;
+        }
+    };
+
+    /** Lists the non-empty cells that can hold samples within box (radially) and zBox (vertically) of the circle (rhoC, zC). */
+    private void listAnnulus(Index index, double rhoC, double box, double zC, double zBox) {
         double diag = index.cell * FastMath.sqrt(3.0);
         double reach = rhoC + box + diag;
+        ringIndex = null;
         int x0 = index.clamp((int) FastMath.floor((-reach - index.lo) * index.inv));
         int x1 = index.clamp((int) FastMath.floor((reach - index.lo) * index.inv));
-        int z0 = index.clamp((int) FastMath.floor((zC - box - index.lo) * index.inv));
-        int z1 = index.clamp((int) FastMath.floor((zC + box - index.lo) * index.inv));
+        int z0 = index.clamp((int) FastMath.floor((zC - zBox - index.lo) * index.inv));
+        int z1 = index.clamp((int) FastMath.floor((zC + zBox - index.lo) * index.inv));
         int need = (x1 - x0 + 1) * (x1 - x0 + 1) * (z1 - z0 + 1);
         if (ringCells.length < need) {
             ringCells = new int[need];

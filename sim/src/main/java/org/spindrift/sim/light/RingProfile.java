@@ -1,0 +1,427 @@
+package org.spindrift.sim.light;
+
+import org.hipparchus.util.FastMath;
+
+/**
+ * The samples of a ray table near circular equatorial orbits, binned so that a sheared spot on such
+ * an orbit is summed per bin instead of per sample in every frame.
+ *
+ * <p>On a circular orbit the centre's azimuth is Phi(t_e) = Phi_m + Omega (t_e - t_m) with constant
+ * radius, height and 4-velocity, so a sample at azimuth phi with delay d is offset from the centre
+ * by phi - Phi(t_o - d) = psi - Theta(t_o), with the sample's own phase psi = phi + Omega d and the
+ * frame's Theta(t_o) = Phi_m + Omega (t_o - t_m). Its redshift factor g^(2 + alpha), path length
+ * and vertical Gaussian factor do not depend on the frame either.
+ *
+ * <p>Two levels. The base bins (per table, blob width and orbit height; they do not depend on the
+ * orbit's radius or velocity) group the samples of an annulus by cylindrical radius and azimuth,
+ * in bins half the blob's standard deviation wide on a fixed grid, and within a bin by delay
+ * (groups at most {@link #DELAY_GROUP} M wide: images of different orders fall into different
+ * groups); a group keeps its weight (path length x vertical Gaussian), its weighted mean radius,
+ * azimuth, delay, photon momenta and sky position. The annulus grows by whole radial bins when an
+ * orbit needs more, so a group's content never depends on which orbits came before. Per orbit the
+ * groups within reach of it get their redshift weight g^(2 + alpha) from their mean photon momenta
+ * (g^-1 = -p_mu u^mu is linear in them) and are sorted by phase psi. A frame then weighs each
+ * group by the spot's sheared Gaussian at (u, rho (psi - Theta)) and by the envelope at t_o - d,
+ * visiting only the phases within the arc's reach: the centroid is the flux-weighted mean of the
+ * groups' sky positions. This is a binned form of the per-sample sum (a Riemann sum of the
+ * Gaussian at the bins' mean positions), not another model.
+ *
+ * <p>One instance per thread and source (its buffers are reused; frame sums allocate nothing).
+ */
+final class RingProfile {
+    /** Largest delay spread of one group, M (images of different orders are further apart). */
+    static final double DELAY_GROUP = 2.0;
+    /** Bin width in units of the blob's standard deviation along the radius (and along the orbit). */
+    static final double BIN_SIGMAS = 0.5;
+    /** Extra radial margin of the base annulus beyond an orbit's reach when it is (re)built, M. */
+    static final double MARGIN = 1.0;
+    /** Delay groups per (radius, azimuth) bin (a further sample joins the nearest group). */
+    private static final int GROUPS = 6;
+    private static final double TWO_PI = 2 * FastMath.PI;
+    private static final double INV_TWO_PI_15 = FastMath.pow(2 * FastMath.PI, -1.5);
+
+    // ---- base bins (per table, blob variance, height)
+    private CompactSourceModel.Index baseIndex;
+    private double baseAa = Double.NaN, baseZ = Double.NaN;
+    /** Radial bin width (M), azimuthal bins, their width (rad), and the radial bins held [rb0, rb1]. */
+    private double step, dPhi;
+    private int nPhi, rb0, rb1 = -1;
+    /** Base groups in radial-bin order, each radial bin's first group (index rbin - rb0) and the end. */
+    private double[] bw = new double[0], brho = new double[0], bphi = new double[0], bd = new double[0],
+            bpr = new double[0], bpth = new double[0], bpph = new double[0], be = new double[0], bn = new double[0];
+    private int[] rowStart = new int[0];
+    private int bsize;
+
+    // ---- the orbit's groups, sorted by phase psi
+    /** Weight (base weight x g^(2+alpha)), radial offset from the orbit, phase, delay, east, north. */
+    double[] w = new double[0], u = new double[0], psi = new double[0], d = new double[0], east = new double[0],
+            north = new double[0];
+    int size;
+    /** First group of each phase bin (and the end); phase bins are the base's azimuth bins. */
+    int[] binStart = new int[0];
+    /** Orbit constants: cylindrical radius, angular velocity, azimuth at tm, u^t. */
+    double rhoC, omega, phiM, tm, ut;
+
+    // ---- scratch
+    private double[] sw = new double[0], sr = new double[0], sp = new double[0], sd = new double[0],
+            spr = new double[0], spth = new double[0], spph = new double[0], se = new double[0], sn = new double[0];
+    private int[] groupCount = new int[0];
+    private int[] phaseBinOf = new int[0];
+    private double[] psiOf = new double[0], gpOf = new double[0];
+
+    /** @return whether the base bins cover radial bins [r0, r1] for this table, variance and height */
+    private boolean covers(CompactSourceModel.Index index, double aa, double zC, int r0, int r1) {
+        return baseIndex == index && baseAa == aa && FastMath.abs(baseZ - zC) < 1e-6 && r0 >= rb0 && r1 <= rb1;
+    }
+
+    /**
+     * Prepares the groups of one orbit.
+     *
+     * @param lister lists the table's non-empty cells within a radial and vertical reach of a circle
+     * @param aa radial (and vertical) variance of the blob with the kernel, M^2
+     * @param box radial and vertical reach of the blob, M
+     * @param e 2 + spectral index
+     */
+    void prepare(CompactSourceModel.Index index, Lister lister, double aa, double box, double rhoC, double zC,
+                 double omega, double phiM, double tm, double ut, double ur, double uth, double uph, double e) {
+        double st = BIN_SIGMAS * FastMath.sqrt(aa);
+        int r0 = (int) FastMath.floor((rhoC - box) / st), r1 = (int) FastMath.floor((rhoC + box) / st);
+        if (!covers(index, aa, zC, r0, r1)) {
+            int m = (int) FastMath.ceil(MARGIN / st);
+            int lo = r0 - m, hi = r1 + m;
+            if (baseIndex == index && baseAa == aa && FastMath.abs(baseZ - zC) < 1e-6 && rb1 >= rb0) {
+                lo = FastMath.min(lo, rb0);
+                hi = FastMath.max(hi, rb1);
+            }
+            buildBase(index, lister, aa, zC, box, FastMath.max(0, lo), hi);
+        }
+        this.rhoC = rhoC;
+        this.omega = omega;
+        this.phiM = phiM;
+        this.tm = tm;
+        this.ut = ut;
+        int from = rowStart[r0 - rb0], until = rowStart[r1 - rb0 + 1];
+        int n = until - from;
+        if (psiOf.length < n) {
+            int c = FastMath.max(n, psiOf.length + psiOf.length / 2);
+            psiOf = new double[c];
+            gpOf = new double[c];
+            phaseBinOf = new int[c];
+        }
+        if (binStart.length < nPhi + 1) {
+            binStart = new int[nPhi + 1];
+        }
+        java.util.Arrays.fill(binStart, 0, nPhi + 1, 0);
+        // redshift weight and phase per group; counting sort by phase bin
+        int kept = 0;
+        for (int j = from; j < until; j++) {
+            int t = j - from;
+            double gInv = Redshift.inverse(bpr[j], bpth[j], bpph[j], ut, ur, uth, uph);
+            if (!(gInv > 0)) {
+                phaseBinOf[t] = -1;
+                continue;
+            }
+            gpOf[t] = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
+            double ps = bphi[j] + omega * bd[j];
+            ps -= TWO_PI * FastMath.floor(ps / TWO_PI);
+            int ip = FastMath.min(nPhi - 1, (int) (ps / dPhi));
+            psiOf[t] = ps;
+            phaseBinOf[t] = ip;
+            binStart[ip + 1]++;
+            kept++;
+        }
+        for (int ip = 0; ip < nPhi; ip++) {
+            binStart[ip + 1] += binStart[ip];
+        }
+        if (w.length < kept) {
+            int c = FastMath.max(kept, w.length + w.length / 2);
+            w = new double[c];
+            u = new double[c];
+            psi = new double[c];
+            d = new double[c];
+            east = new double[c];
+            north = new double[c];
+        }
+        for (int j = from; j < until; j++) {
+            int t = j - from;
+            int ip = phaseBinOf[t];
+            if (ip < 0) {
+                continue;
+            }
+            int at = binStart[ip]++;
+            w[at] = bw[j] * gpOf[t];
+            u[at] = brho[j] - rhoC;
+            psi[at] = psiOf[t];
+            d[at] = bd[j];
+            east[at] = be[j];
+            north[at] = bn[j];
+        }
+        // binStart[ip] now holds the end of bin ip: shift back to starts
+        for (int ip = nPhi; ip > 0; ip--) {
+            binStart[ip] = binStart[ip - 1];
+        }
+        binStart[0] = 0;
+        size = kept;
+    }
+
+    /** @return the number of azimuth (phase) bins */
+    int phaseBins() {
+        return nPhi;
+    }
+
+    /** @return the width of a phase bin, rad */
+    double phaseStep() {
+        return dPhi;
+    }
+
+    /** Bins the samples of radial bins [lo, hi] (of width step) within box of the height zC. */
+    private void buildBase(CompactSourceModel.Index index, Lister lister, double aa, double zC, double box, int lo,
+                           int hi) {
+        step = BIN_SIGMAS * FastMath.sqrt(aa);
+        // azimuth bins on a fixed grid: as wide as a radial bin at the table's largest radius
+        double rMax = 0;
+        for (int i = 0; i < index.rho.length; i++) {
+            rMax = FastMath.max(rMax, index.rho[i]);
+        }
+        nPhi = FastMath.max(8, (int) FastMath.ceil(TWO_PI * rMax / step));
+        dPhi = TWO_PI / nPhi;
+        int nr = hi - lo + 1;
+        int bins = nr * nPhi;
+        if (groupCount.length < bins) {
+            groupCount = new int[bins];
+            int s = bins * GROUPS;
+            sw = new double[s];
+            sr = new double[s];
+            sp = new double[s];
+            sd = new double[s];
+            spr = new double[s];
+            spth = new double[s];
+            spph = new double[s];
+            se = new double[s];
+            sn = new double[s];
+        } else {
+            java.util.Arrays.fill(groupCount, 0, bins, 0);
+        }
+        double cutQ = CompactSourceModel.CUT_SIGMAS * CompactSourceModel.CUT_SIGMAS;
+        double rLo = lo * step, rHi = (hi + 1) * step;
+        int[] cells = lister.list(index, 0.5 * (rLo + rHi), 0.5 * (rHi - rLo), zC, box);
+        int cellCount = lister.count();
+        for (int ci = 0; ci < cellCount; ci++) {
+            int cellIdx = cells[ci];
+            for (int i = index.cellStart[cellIdx], until = index.cellStart[cellIdx + 1]; i < until; i++) {
+                int ir = (int) FastMath.floor(index.rho[i] / step);
+                double dz = index.z[i] - zC;
+                if (ir < lo || ir > hi || FastMath.abs(dz) > box) {
+                    continue;
+                }
+                double qz = dz * dz / aa;
+                if (qz >= cutQ) {
+                    continue;
+                }
+                double wi = index.dl[i] * CompactSourceModel.gaussian(0.5 * qz);
+                if (!(wi > 0)) {
+                    continue;
+                }
+                double di = index.d[i];
+                double ph = index.phi[i];
+                ph -= TWO_PI * FastMath.floor(ph / TWO_PI);
+                int ip = FastMath.min(nPhi - 1, (int) (ph / dPhi));
+                int bin = (ir - lo) * nPhi + ip;
+                int gc = groupCount[bin];
+                // the group whose mean delay is nearest; a new one when none is within DELAY_GROUP / 2
+                int best = -1;
+                double bestDist = Double.POSITIVE_INFINITY;
+                for (int g = 0; g < gc; g++) {
+                    int s = bin * GROUPS + g;
+                    double dist = FastMath.abs(sd[s] / sw[s] - di);
+                    if (dist < bestDist) {
+                        bestDist = dist;
+                        best = g;
+                    }
+                }
+                if (best < 0 || (bestDist > 0.5 * DELAY_GROUP && gc < GROUPS)) {
+                    best = gc;
+                    groupCount[bin] = gc + 1;
+                    int s = bin * GROUPS + best;
+                    sw[s] = 0;
+                    sr[s] = 0;
+                    sp[s] = 0;
+                    sd[s] = 0;
+                    spr[s] = 0;
+                    spth[s] = 0;
+                    spph[s] = 0;
+                    se[s] = 0;
+                    sn[s] = 0;
+                }
+                int s = bin * GROUPS + best;
+                sw[s] += wi;
+                sr[s] += wi * index.rho[i];
+                // azimuth relative to the bin's lower edge, so that the mean does not wrap
+                sp[s] += wi * (ph - ip * dPhi);
+                sd[s] += wi * di;
+                spr[s] += wi * index.pr[i];
+                spth[s] += wi * index.pth[i];
+                spph[s] += wi * index.pph[i];
+                se[s] += wi * index.east[i];
+                sn[s] += wi * index.north[i];
+            }
+        }
+        int groups = 0;
+        for (int b = 0; b < bins; b++) {
+            groups += groupCount[b];
+        }
+        if (bw.length < groups) {
+            bw = new double[groups];
+            brho = new double[groups];
+            bphi = new double[groups];
+            bd = new double[groups];
+            bpr = new double[groups];
+            bpth = new double[groups];
+            bpph = new double[groups];
+            be = new double[groups];
+            bn = new double[groups];
+        }
+        if (rowStart.length < nr + 1) {
+            rowStart = new int[nr + 1];
+        }
+        bsize = 0;
+        for (int r = 0; r < nr; r++) {
+            rowStart[r] = bsize;
+            for (int ip = 0; ip < nPhi; ip++) {
+                int bin = r * nPhi + ip;
+                for (int g = 0; g < groupCount[bin]; g++) {
+                    int s = bin * GROUPS + g;
+                    double ws = sw[s];
+                    bw[bsize] = ws;
+                    brho[bsize] = sr[s] / ws;
+                    bphi[bsize] = ip * dPhi + sp[s] / ws;
+                    bd[bsize] = sd[s] / ws;
+                    bpr[bsize] = spr[s] / ws;
+                    bpth[bsize] = spth[s] / ws;
+                    bpph[bsize] = spph[s] / ws;
+                    be[bsize] = se[s] / ws;
+                    bn[bsize] = sn[s] / ws;
+                    bsize++;
+                }
+            }
+        }
+        rowStart[nr] = bsize;
+        baseIndex = index;
+        baseAa = aa;
+        baseZ = zC;
+        rb0 = lo;
+        rb1 = hi;
+    }
+
+    /** Lists the non-empty cells of a table near a circle. */
+    interface Lister {
+        /**
+         * @return the cells (valid up to {@link #count()}) that can hold samples within radial
+         *     half-width half of the cylindrical radius rho and within zBox of the height z
+         */
+        int[] list(CompactSourceModel.Index index, double rho, double half, double z, double zBox);
+
+        /** @return the number of cells of the last list */
+        int count();
+    }
+
+    /**
+     * Per emission time on a grid from 0 (step {@link #ampStep}), interleaved: the amplitude
+     * weight x envelope / u^t x (2 pi)^(-3/2) / sqrt(det aa) and the inverse covariance of the
+     * sheared Gaussian in (u, w): cc / det, bb / det, aa / det.
+     */
+    private double[] table = new double[0];
+    private double ampStep;
+    private int ampSize;
+
+    /**
+     * Tabulates the spot's emission-time dependence from 0 to tEnd: the amplitude of the
+     * emitter-frame density of {@link CompactSourceModel} (without the Gaussian's exponential) and
+     * the sheared Gaussian's inverse covariance, linear between grid points a quarter M apart (the
+     * envelope is linear between a run's snapshots anyway; the covariance is quadratic in t_e).
+     */
+    void tabulate(CompactSourceModel.Spot spot, double tEnd, double shearRate, double blob2, double kern2) {
+        double aa = blob2 + kern2;
+        ampStep = 0.25;
+        ampSize = (int) FastMath.ceil(tEnd / ampStep) + 2;
+        if (table.length < 4 * ampSize) {
+            table = new double[4 * ampSize];
+        }
+        for (int j = 0; j < ampSize; j++) {
+            double te = j * ampStep;
+            double sh = shearRate * te;
+            double bb = blob2 * sh, cc = blob2 * (1 + sh * sh) + kern2;
+            double det = aa * cc - bb * bb;
+            // emitter-frame density: weight x envelope / u^t (MTW 1973, sect. 22.3), normalised sheared Gaussian
+            table[4 * j] = spot.weight() * spot.flare().applyAsDouble(te) / ut * INV_TWO_PI_15 / FastMath.sqrt(det * aa);
+            table[4 * j + 1] = cc / det;
+            table[4 * j + 2] = bb / det;
+            table[4 * j + 3] = aa / det;
+        }
+    }
+
+    /**
+     * Sums the groups of phase bins [b0, b1] (modulo the bin count) whose emission time t_o - d
+     * lies in [e0, e1], for observer time to: sums[0] += flux, sums[1] += flux x east, sums[2] +=
+     * flux x north. With pixels non-null each group's value is also handed to it.
+     */
+    void sum(double to, double e0, double e1, int b0, int b1, double[] sums, PixelSink pixels) {
+        double theta = theta(to);
+        theta -= TWO_PI * FastMath.floor(theta / TWO_PI);
+        double cutQ = CompactSourceModel.CUT_SIGMAS * CompactSourceModel.CUT_SIGMAS;
+        double inv = 1.0 / ampStep;
+        double[] tb = table;
+        int last = ampSize - 2;
+        double rho = rhoC, sf = 0, sx = 0, sy = 0;
+        for (int b = b0; b <= b1; b++) {
+            int bin = b >= nPhi ? b - nPhi : b;
+            for (int j = binStart[bin], n = binStart[bin + 1]; j < n; j++) {
+                double te = to - d[j];
+                if (te < e0 || te > e1) {
+                    continue;
+                }
+                double dphi = psi[j] - theta;
+                if (dphi > FastMath.PI) {
+                    dphi -= TWO_PI;
+                } else if (dphi < -FastMath.PI) {
+                    dphi += TWO_PI;
+                }
+                double f = te * inv;
+                int k = (int) f;
+                if (k > last) {
+                    k = last;
+                }
+                double a = f - k;
+                int o = 4 * k;
+                double ww = rho * dphi, uu = u[j];
+                double ci = tb[o + 1] + a * (tb[o + 5] - tb[o + 1]);
+                double bi = tb[o + 2] + a * (tb[o + 6] - tb[o + 2]);
+                double ai = tb[o + 3] + a * (tb[o + 7] - tb[o + 3]);
+                double q = ci * uu * uu - 2 * bi * uu * ww + ai * ww * ww;
+                if (q >= cutQ) {
+                    continue;
+                }
+                double val = w[j] * (tb[o] + a * (tb[o + 4] - tb[o])) * CompactSourceModel.gaussian(0.5 * q);
+                sf += val;
+                sx += val * east[j];
+                sy += val * north[j];
+                if (pixels != null) {
+                    pixels.add(east[j], north[j], val);
+                }
+            }
+        }
+        sums[0] += sf;
+        sums[1] += sx;
+        sums[2] += sy;
+    }
+
+    /** Receives a group's value at its sky position (PA = 0 offsets, M). */
+    interface PixelSink {
+        void add(double east, double north, double value);
+    }
+
+    /** @return the frame's phase Theta(t_o): the centre's azimuth at emission time t_o - d is psi - Theta away */
+    double theta(double to) {
+        return phiM + omega * (to - tm);
+    }
+}
