@@ -97,20 +97,33 @@ public final class CompactSourceModel {
             for (int k = 0; k < table.rays(); k++) {
                 Arrays.fill(owner, table.firstSample(k), table.endSample(k), k);
             }
-            // sort indices by (cell, delay): pack the cell and an order-preserving delay key
-            Integer[] order = new Integer[m];
+            // order the samples by (cell, delay, index): a counting pass by cell, then each cell's samples
+            // sorted by an order-preserving delay key packed with the index
+            int cellsTotal = cells * cells * cells;
+            int[] cellOfSample = new int[m];
+            int[] cellFrom = new int[cellsTotal + 1];
             for (int i = 0; i < m; i++) {
-                order[i] = i;
+                int ci = (int) cellOf(table.x[i], table.y[i], table.z[i]);
+                cellOfSample[i] = ci;
+                cellFrom[ci + 1]++;
             }
-            final float[] del = table.delay;
-            Arrays.sort(order, (a, b) -> {
-                int c = Long.compare(cellOf(table.x[a], table.y[a], table.z[a]), cellOf(table.x[b], table.y[b], table.z[b]));
-                if (c != 0) {
-                    return c;
+            for (int ci = 0; ci < cellsTotal; ci++) {
+                cellFrom[ci + 1] += cellFrom[ci];
+            }
+            long[] keys = new long[m];
+            int[] next = Arrays.copyOf(cellFrom, cellsTotal);
+            for (int i = 0; i < m; i++) {
+                keys[next[cellOfSample[i]]++] = ((long) sortable(table.delay[i]) << 32) | i;
+            }
+            for (int ci = 0; ci < cellsTotal; ci++) {
+                if (cellFrom[ci + 1] - cellFrom[ci] > 1) {
+                    Arrays.sort(keys, cellFrom[ci], cellFrom[ci + 1]);
                 }
-                c = Float.compare(del[a], del[b]);
-                return c != 0 ? c : Integer.compare(a, b);
-            });
+            }
+            int[] order = new int[m];
+            for (int j = 0; j < m; j++) {
+                order[j] = (int) (keys[j] & 0xffffffffL);
+            }
             x = new float[m];
             y = new float[m];
             z = new float[m];
@@ -136,7 +149,7 @@ public final class CompactSourceModel {
                 pth[j] = table.pth[i];
                 pph[j] = table.pph[i];
                 dl[j] = table.dl[i];
-                rho[j] = FastMath.hypot(x[j], y[j]);
+                rho[j] = FastMath.sqrt((double) x[j] * x[j] + (double) y[j] * y[j]);
                 phi[j] = FastMath.atan2(y[j], x[j]);
                 int k = owner[i];
                 east[j] = (float) camera.skyX(k % pixels);
@@ -213,30 +226,53 @@ public final class CompactSourceModel {
          * The same quantiles as {@link RayTable#delayQuantiles} (delays of the samples with
          * radius in [rLo, rHi]), without sorting: the k-th smallest delay is found by bisection
          * over the ordered float values, counting with the radius bins (delay-sorted within each
-         * bin; partial end bins are scanned).
+         * bin, so a count is one binary search per bin). The samples of the two partly covered end
+         * bins that lie in the range are first copied, still delay-sorted, into the caller's
+         * scratch (one per thread; the index itself stays read-only).
+         *
+         * @param scratch two arrays, grown as needed (the caller keeps them)
          */
-        double[] delayQuantiles(double rLo, double rHi, double qLo, double qHi) {
+        double[] delayQuantiles(double rLo, double rHi, double qLo, double qHi, float[][] scratch) {
             int b0 = FastMath.max(0, (int) FastMath.floor(rLo / R_BIN));
             int b1 = FastMath.min(rBins - 1, (int) FastMath.floor(rHi / R_BIN));
             if (b0 > b1) {
                 return new double[] {dmin, dmax};
             }
-            int count = countBelow(rLo, rHi, b0, b1, Float.POSITIVE_INFINITY);
+            int[] ends = new int[2];
+            ends[0] = partial(b0, rLo, rHi, scratch, 0);
+            ends[1] = b1 > b0 ? partial(b1, rLo, rHi, scratch, 1) : 0;
+            int count = countBelow(b0, b1, scratch, ends, Float.POSITIVE_INFINITY);
             if (count == 0) {
                 return new double[] {dmin, dmax};
             }
             int a = (int) FastMath.floor(qLo * (count - 1));
             int b = (int) FastMath.ceil(qHi * (count - 1));
-            return new double[] {kth(rLo, rHi, b0, b1, a), kth(rLo, rHi, b0, b1, b)};
+            return new double[] {kth(b0, b1, scratch, ends, a), kth(b0, b1, scratch, ends, b)};
         }
 
-        /** @return the (k+1)-th smallest delay of the samples with radius in [rLo, rHi] */
-        private float kth(double rLo, double rHi, int b0, int b1, int k) {
+        /** Copies the delays of the samples of bin with radius in [rLo, rHi] (delay order) into scratch[slot]; returns their number. */
+        private int partial(int bin, double rLo, double rHi, float[][] scratch, int slot) {
+            int from = rStart[bin], until = rStart[bin + 1];
+            if (scratch[slot] == null || scratch[slot].length < until - from) {
+                scratch[slot] = new float[until - from];
+            }
+            float[] out = scratch[slot];
+            int k = 0;
+            for (int j = from; j < until; j++) {
+                if (rByR[j] >= rLo && rByR[j] <= rHi) {
+                    out[k++] = dByR[j];
+                }
+            }
+            return k;
+        }
+
+        /** @return the (k+1)-th smallest delay of the samples counted by {@link #countBelow} */
+        private float kth(int b0, int b1, float[][] scratch, int[] ends, int k) {
             long lo = sortable((float) dmin) - 1L, hi = sortable((float) dmax);
             // smallest key with more than k samples at or below it: an element's value
             while (hi - lo > 1) {
                 int mid = (int) ((lo + hi) >> 1);
-                if (countBelow(rLo, rHi, b0, b1, Float.intBitsToFloat(unsortable(mid))) > k) {
+                if (countBelow(b0, b1, scratch, ends, Float.intBitsToFloat(unsortable(mid))) > k) {
                     hi = mid;
                 } else {
                     lo = mid;
@@ -245,20 +281,14 @@ public final class CompactSourceModel {
             return Float.intBitsToFloat(unsortable((int) hi));
         }
 
-        /** @return the number of samples with radius in [rLo, rHi] and delay &lt;= v */
-        private int countBelow(double rLo, double rHi, int b0, int b1, float v) {
-            int count = 0;
-            for (int bin = b0; bin <= b1; bin++) {
-                int from = rStart[bin], until = rStart[bin + 1];
-                if (bin * R_BIN >= rLo && (bin + 1) * R_BIN <= rHi) {
-                    count += firstAbove(dByR, from, until, v) - from;
-                } else {
-                    for (int j = from; j < until && dByR[j] <= v; j++) {
-                        if (rByR[j] >= rLo && rByR[j] <= rHi) {
-                            count++;
-                        }
-                    }
-                }
+        /** @return the number of samples with radius in range and delay &lt;= v: inner bins whole, end bins from the scratch */
+        private int countBelow(int b0, int b1, float[][] scratch, int[] ends, float v) {
+            int count = firstAbove(scratch[0], 0, ends[0], v);
+            if (b1 > b0) {
+                count += firstAbove(scratch[1], 0, ends[1], v);
+            }
+            for (int bin = b0 + 1; bin < b1; bin++) {
+                count += firstAbove(dByR, rStart[bin], rStart[bin + 1], v) - rStart[bin];
             }
             return count;
         }
@@ -395,6 +425,7 @@ public final class CompactSourceModel {
     /** Delay quantiles of the last radial range (the frame grid while the orbit's radii do not change). */
     private double qLo = Double.NaN, qHi = Double.NaN;
     private double[] lastQ;
+    private final float[][] quantileScratch = new float[2][];
     private Index quantiled;
     /** Beam-peak scratch: one frame's pixel sums, the pixels touched, then every frame's pixels in a row. */
     private double[] pixelSum = new double[0];
@@ -436,7 +467,7 @@ public final class CompactSourceModel {
         }
         double lo = rr[0] - spread - 2 * h, hi = rr[1] + spread + 2 * h;
         if (quantiled != index || lo != qLo || hi != qHi) {
-            lastQ = index.delayQuantiles(lo, hi, 0.02, 0.98);
+            lastQ = index.delayQuantiles(lo, hi, 0.02, 0.98, quantileScratch);
             quantiled = index;
             qLo = lo;
             qHi = hi;
