@@ -107,16 +107,16 @@ public final class BenchFitCommand implements Callable<Integer> {
             FitModel m = new FitModel(p.fit(), p.data(), p.cache());
             double[] r = new double[m.residualCount()];
             double[] q = truth.clone();
-            for (int i = 0; i < 5; i++) {           // warm-up (JIT)
-                q[0] = 8.0 + 0.01 * i;
+            for (int i = 0; i < 60; i++) {          // warm-up: until the JIT has compiled the evaluation's loops
+                q[0] = 8.0 + 0.001 * i;
                 m.residuals(q, r);
             }
-            int reps = 30;
+            int reps = 60;
             long t0 = System.nanoTime();
             for (int i = 0; i < reps; i++) {
-                q[0] = 8.0 + 0.003 * i;
-                q[2] = 20 + 0.1 * i;
-                q[3] = 1.0e6 * (1 + 1e-3 * i);
+                q[0] = 8.0 + 0.0015 * i;
+                q[2] = 20 + 0.05 * i;
+                q[3] = 1.0e6 * (1 + 5e-4 * i);
                 m.residuals(q, r);
             }
             double evalMs = (System.nanoTime() - t0) * 1e-6 / reps;

@@ -58,13 +58,12 @@ public final class CompactSourceModel {
         final Camera camera;
         final int m;
         final float[] x, y, z, d, pr, pth, pph, dl, east, north;
-        /** Cylindrical radius and azimuth of each sample (for sheared spots). */
-        final double[] rho, phi;
+        /** Cylindrical radius of each sample (for sheared spots). */
+        final double[] rho;
         final int[] cellStart;
         final double lo, cell, inv;
         final int n;
         final double dmin, dmax;
-        final float[] byDelay, rByDelay;
         /** Radius bins of width R_BIN: samples by bin, delay-sorted within a bin (delays and radii). */
         final float[] dByR, rByR;
         final int[] rStart;
@@ -135,7 +134,6 @@ public final class CompactSourceModel {
             east = new float[m];
             north = new float[m];
             rho = new double[m];
-            phi = new double[m];
             cellStart = new int[n * n * n + 1];
             int pixels = camera.pixels();
             double dLo = Double.POSITIVE_INFINITY, dHi = Double.NEGATIVE_INFINITY;
@@ -150,7 +148,6 @@ public final class CompactSourceModel {
                 pph[j] = table.pph[i];
                 dl[j] = table.dl[i];
                 rho[j] = FastMath.sqrt((double) x[j] * x[j] + (double) y[j] * y[j]);
-                phi[j] = FastMath.atan2(y[j], x[j]);
                 int k = owner[i];
                 east[j] = (float) camera.skyX(k % pixels);
                 north[j] = (float) camera.skyY(k / pixels);
@@ -164,40 +161,36 @@ public final class CompactSourceModel {
             double[] range = table.delayRange();
             dmin = range[0];
             dmax = range[1];
-            // delays sorted, with the radius of each sample, for the frame-grid quantiles
-            long[] dk = new long[m];
-            for (int i = 0; i < m; i++) {
-                dk[i] = ((long) sortable(table.delay[i]) << 32) | i;
-            }
-            Arrays.sort(dk);
-            byDelay = new float[m];
-            rByDelay = new float[m];
-            for (int j = 0; j < m; j++) {
-                int i = (int) (dk[j] & 0xffffffffL);
-                byDelay[j] = table.delay[i];
-                rByDelay[j] = (float) FastMath.sqrt(table.x[i] * table.x[i] + table.y[i] * table.y[i]
-                        + table.z[i] * table.z[i]);
-            }
-            // the same samples by radius bin, in delay order within each bin (a stable pass over byDelay)
+            // the samples by radius bin (radius as the table's quantiles compute it), in (delay, index) order
+            // within each bin: a counting pass by bin, then a sort of each bin's packed delay keys
+            float[] radius = new float[m];
             float rMaxAll = 0;
-            for (int j = 0; j < m; j++) {
-                rMaxAll = FastMath.max(rMaxAll, rByDelay[j]);
+            for (int i = 0; i < m; i++) {
+                radius[i] = (float) FastMath.sqrt(table.x[i] * table.x[i] + table.y[i] * table.y[i]
+                        + table.z[i] * table.z[i]);
+                rMaxAll = FastMath.max(rMaxAll, radius[i]);
             }
             rBins = (int) (rMaxAll / R_BIN) + 1;
             rStart = new int[rBins + 1];
-            for (int j = 0; j < m; j++) {
-                rStart[(int) (rByDelay[j] / R_BIN) + 1]++;
+            for (int i = 0; i < m; i++) {
+                rStart[(int) (radius[i] / R_BIN) + 1]++;
             }
             for (int bin = 0; bin < rBins; bin++) {
                 rStart[bin + 1] += rStart[bin];
             }
-            int[] fill = Arrays.copyOf(rStart, rBins);
+            int[] nextInBin = Arrays.copyOf(rStart, rBins);
+            for (int i = 0; i < m; i++) {
+                keys[nextInBin[(int) (radius[i] / R_BIN)]++] = ((long) sortable(table.delay[i]) << 32) | i;
+            }
             dByR = new float[m];
             rByR = new float[m];
-            for (int j = 0; j < m; j++) {
-                int at = fill[(int) (rByDelay[j] / R_BIN)]++;
-                dByR[at] = byDelay[j];
-                rByR[at] = rByDelay[j];
+            for (int bin = 0; bin < rBins; bin++) {
+                Arrays.sort(keys, rStart[bin], rStart[bin + 1]);
+                for (int j = rStart[bin]; j < rStart[bin + 1]; j++) {
+                    int i = (int) (keys[j] & 0xffffffffL);
+                    dByR[j] = table.delay[i];
+                    rByR[j] = radius[i];
+                }
             }
         }
 
@@ -293,22 +286,30 @@ public final class CompactSourceModel {
             return count;
         }
 
-        /** @return the smallest and largest delay of the samples with radius in [rLo, rHi] ({dmin, dmax} when none) */
+        /**
+         * @return the smallest and largest delay of the samples with radius in [rLo, rHi] ({dmin, dmax}
+         *     when none): the ends of the inner radius bins, the end bins scanned from either end
+         */
         double[] delayRange(double rLo, double rHi) {
-            double lo = Double.NaN, hi = Double.NaN;
-            for (int j = 0; j < m; j++) {
-                if (rByDelay[j] >= rLo && rByDelay[j] <= rHi) {
-                    lo = byDelay[j];
-                    break;
+            int b0 = FastMath.max(0, (int) FastMath.floor(rLo / R_BIN));
+            int b1 = FastMath.min(rBins - 1, (int) FastMath.floor(rHi / R_BIN));
+            double lo = Double.POSITIVE_INFINITY, hi = Double.NEGATIVE_INFINITY;
+            for (int bin = b0; bin <= b1; bin++) {
+                int from = rStart[bin], until = rStart[bin + 1];
+                for (int j = from; j < until; j++) {
+                    if (rByR[j] >= rLo && rByR[j] <= rHi) {
+                        lo = FastMath.min(lo, dByR[j]);
+                        break;
+                    }
+                }
+                for (int j = until - 1; j >= from; j--) {
+                    if (rByR[j] >= rLo && rByR[j] <= rHi) {
+                        hi = FastMath.max(hi, dByR[j]);
+                        break;
+                    }
                 }
             }
-            for (int j = m - 1; j >= 0; j--) {
-                if (rByDelay[j] >= rLo && rByDelay[j] <= rHi) {
-                    hi = byDelay[j];
-                    break;
-                }
-            }
-            return Double.isNaN(lo) ? new double[] {dmin, dmax} : new double[] {lo, hi};
+            return lo > hi ? new double[] {dmin, dmax} : new double[] {lo, hi};
         }
 
         private static int sortable(float f) {
@@ -660,7 +661,7 @@ public final class CompactSourceModel {
                                         if (sheared) {
                                             // curvilinear offsets from the centre on its circle: radial u, along
                                             // the orbit w, vertical ddz; sheared Gaussian plus the kernel
-                                            double dphi = index.phi[i] - phiC - omC * dt;
+                                            double dphi = FastMath.atan2(index.y[i], index.x[i]) - phiC - omC * dt;
                                             dphi -= TWO_PI * FastMath.rint(dphi / TWO_PI);
                                             double u = index.rho[i] - rhoC, w = rhoC * dphi;
                                             double sh = sRate * te;
@@ -892,7 +893,7 @@ public final class CompactSourceModel {
                     continue;
                 }
                 double te = to - index.d[i];
-                double dphi = index.phi[i] - phiM - omC * (te - tm);
+                double dphi = FastMath.atan2(index.y[i], index.x[i]) - phiM - omC * (te - tm);
                 dphi -= TWO_PI * FastMath.rint(dphi / TWO_PI);
                 double w = rhoC * dphi;
                 double sh = sRate * te;

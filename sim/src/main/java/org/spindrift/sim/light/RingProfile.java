@@ -43,9 +43,9 @@ final class RingProfile {
     // ---- base bins (per table, blob variance, height)
     private CompactSourceModel.Index baseIndex;
     private double baseAa = Double.NaN, baseZ = Double.NaN;
-    /** Radial bin width (M), azimuthal bins, their width (rad), and the radial bins held [rb0, rb1]. */
-    private double step, dPhi;
-    private int nPhi, rb0, rb1 = -1;
+    /** Radial bin width (M) and the radial bins held [rb0, rb1]; radial bin ir has ceil(2 pi (ir + 1)) azimuth bins. */
+    private double step;
+    private int rb0, rb1 = -1;
     /** Base groups in radial-bin order, each radial bin's first group (index rbin - rb0) and the end. */
     private double[] bw = new double[0], brho = new double[0], bphi = new double[0], bd = new double[0],
             bpr = new double[0], bpth = new double[0], bpph = new double[0], be = new double[0], bn = new double[0];
@@ -57,8 +57,10 @@ final class RingProfile {
     double[] w = new double[0], u = new double[0], psi = new double[0], d = new double[0], east = new double[0],
             north = new double[0];
     int size;
-    /** First group of each phase bin (and the end); phase bins are the base's azimuth bins. */
+    /** First group of each phase bin (and the end); phase bins about a radial bin wide at the orbit's outer reach. */
     int[] binStart = new int[0];
+    private int nPhi;
+    private double dPhi;
     /** Orbit constants: cylindrical radius, angular velocity, azimuth at tm, u^t. */
     double rhoC, omega, phiM, tm, ut;
 
@@ -66,6 +68,7 @@ final class RingProfile {
     private double[] sw = new double[0], sr = new double[0], sp = new double[0], sd = new double[0],
             spr = new double[0], spth = new double[0], spph = new double[0], se = new double[0], sn = new double[0];
     private int[] groupCount = new int[0];
+    private int[] rowOffset = new int[1];
     private int[] phaseBinOf = new int[0];
     private double[] psiOf = new double[0], gpOf = new double[0];
 
@@ -100,6 +103,8 @@ final class RingProfile {
         this.phiM = phiM;
         this.tm = tm;
         this.ut = ut;
+        nPhi = azimuthBins(r1);
+        dPhi = TWO_PI / nPhi;
         int from = rowStart[r0 - rb0], until = rowStart[r1 - rb0 + 1];
         int n = until - from;
         if (psiOf.length < n) {
@@ -164,6 +169,11 @@ final class RingProfile {
         size = kept;
     }
 
+    /** @return the azimuth bins of radial bin ir (of width step): about step wide at its outer edge */
+    private static int azimuthBins(int ir) {
+        return FastMath.max(8, (int) FastMath.ceil(TWO_PI * (ir + 1)));
+    }
+
     /** @return the number of azimuth (phase) bins */
     int phaseBins() {
         return nPhi;
@@ -178,15 +188,15 @@ final class RingProfile {
     private void buildBase(CompactSourceModel.Index index, Lister lister, double aa, double zC, double box, int lo,
                            int hi) {
         step = BIN_SIGMAS * FastMath.sqrt(aa);
-        // azimuth bins on a fixed grid: as wide as a radial bin at the table's largest radius
-        double rMax = 0;
-        for (int i = 0; i < index.rho.length; i++) {
-            rMax = FastMath.max(rMax, index.rho[i]);
-        }
-        nPhi = FastMath.max(8, (int) FastMath.ceil(TWO_PI * rMax / step));
-        dPhi = TWO_PI / nPhi;
+        // azimuth bins on a fixed grid per radial bin, as wide as a radial bin at its outer edge
         int nr = hi - lo + 1;
-        int bins = nr * nPhi;
+        if (rowOffset.length < nr + 1) {
+            rowOffset = new int[nr + 1];
+        }
+        for (int r = 0; r < nr; r++) {
+            rowOffset[r + 1] = rowOffset[r] + azimuthBins(lo + r);
+        }
+        int bins = rowOffset[nr];
         if (groupCount.length < bins) {
             groupCount = new int[bins];
             int s = bins * GROUPS;
@@ -223,10 +233,12 @@ final class RingProfile {
                     continue;
                 }
                 double di = index.d[i];
-                double ph = index.phi[i];
+                double ph = FastMath.atan2(index.y[i], index.x[i]);
                 ph -= TWO_PI * FastMath.floor(ph / TWO_PI);
-                int ip = FastMath.min(nPhi - 1, (int) (ph / dPhi));
-                int bin = (ir - lo) * nPhi + ip;
+                int rowBins = rowOffset[ir - lo + 1] - rowOffset[ir - lo];
+                double rowStep = TWO_PI / rowBins;
+                int ip = FastMath.min(rowBins - 1, (int) (ph / rowStep));
+                int bin = rowOffset[ir - lo] + ip;
                 int gc = groupCount[bin];
                 // the group whose mean delay is nearest; a new one when none is within DELAY_GROUP / 2
                 int best = -1;
@@ -257,7 +269,7 @@ final class RingProfile {
                 sw[s] += wi;
                 sr[s] += wi * index.rho[i];
                 // azimuth relative to the bin's lower edge, so that the mean does not wrap
-                sp[s] += wi * (ph - ip * dPhi);
+                sp[s] += wi * (ph - ip * rowStep);
                 sd[s] += wi * di;
                 spr[s] += wi * index.pr[i];
                 spth[s] += wi * index.pth[i];
@@ -287,14 +299,16 @@ final class RingProfile {
         bsize = 0;
         for (int r = 0; r < nr; r++) {
             rowStart[r] = bsize;
-            for (int ip = 0; ip < nPhi; ip++) {
-                int bin = r * nPhi + ip;
+            int rowBins = rowOffset[r + 1] - rowOffset[r];
+            double rowStep = TWO_PI / rowBins;
+            for (int ip = 0; ip < rowBins; ip++) {
+                int bin = rowOffset[r] + ip;
                 for (int g = 0; g < groupCount[bin]; g++) {
                     int s = bin * GROUPS + g;
                     double ws = sw[s];
                     bw[bsize] = ws;
                     brho[bsize] = sr[s] / ws;
-                    bphi[bsize] = ip * dPhi + sp[s] / ws;
+                    bphi[bsize] = ip * rowStep + sp[s] / ws;
                     bd[bsize] = sd[s] / ws;
                     bpr[bsize] = spr[s] / ws;
                     bpth[bsize] = spth[s] / ws;
