@@ -201,7 +201,7 @@ public final class CompactSourceModel {
             return (ix * (long) n + iy) * n + iz;
         }
 
-        private int clamp(int i) {
+        int clamp(int i) {
             return FastMath.max(0, FastMath.min(n - 1, i));
         }
 
@@ -411,7 +411,6 @@ public final class CompactSourceModel {
     /** Largest number of sub-rays per side of a stretched pixel. */
     static final int MAX_RAYS = 12;
 
-    static boolean PER_SAMPLE = Boolean.getBoolean("spindrift.perSample");
     private final double[] c = new double[17];
     private final double[] cs = new double[7];
     /**
@@ -552,11 +551,7 @@ public final class CompactSourceModel {
             double sf = 0, sx = 0, sy = 0;
             for (int k = 0; k < spots.length; k++) {
                 if (spots[k].shearRate() != 0.0 && track.aliveThrough(k, 0.0, tEnd)) {
-                    if (PER_SAMPLE) {
-                        ringPerSample(index, track, spots[k], k, to, e0, e1, sig2[k], blob2[k], kern2[k]);
-                    } else {
-                        ring(index, track, spots[k], k, to, e0, e1, sig2[k], blob2[k], kern2[k]);
-                    }
+                    ring(index, track, spots[k], k, to, e0, e1, sig2[k], blob2[k], kern2[k]);
                     sf += acc[0];
                     sx += acc[1];
                     sy += acc[2];
@@ -817,114 +812,6 @@ public final class CompactSourceModel {
 
     /** Sums of the last {@link #ring} call: flux, flux x east, flux x north. */
     private final double[] acc = new double[3];
-    /** Cells of the annulus about the last sheared orbit, and the orbit they were listed for. */
-    private int[] ringCells = new int[0];
-    private double[] ringPhi = new double[0];
-    private int ringCount;
-    private double ringRho = Double.NaN, ringZ = Double.NaN, ringBox = Double.NaN;
-    private Index ringIndex;
-
-    /**
-     * A sheared spot on its circular orbit, one frame: the orbit's centre has constant cylindrical
-     * radius, height, angular velocity and 4-velocity, so every sample of the cells of the annulus
-     * about it whose delay maps into the emission window [e0, e1] is weighed at its own emission
-     * time without stepping (a sheared spot becomes an arc and then a ring, and stepping a box along
-     * it would visit the same cells many times). Sums into {@link #acc}.
-     */
-    private void ringPerSample(Index index, CentreTrack track, Spot spot, int k, double to, double e0, double e1, double sig2,
-                      double blob2, double kern2) {
-        acc[0] = 0;
-        acc[1] = 0;
-        acc[2] = 0;
-        double tm = 0.5 * (e0 + e1);
-        if (!track.expansion(k, tm, c)) {
-            return;
-        }
-        double rhoC = FastMath.hypot(c[0], c[1]);
-        double phiM = FastMath.atan2(c[1], c[0]);
-        double omC = (c[0] * c[4] - c[1] * c[3]) / (rhoC * rhoC);
-        double zC = c[2];
-        double box = CUT_SIGMAS * FastMath.sqrt(sig2) + 1e-6;
-        // the listing keeps a margin of a cell diagonal beyond the half cell it needs: a circle moved
-        // by integration drift less than a quarter cell is still covered
-        if (ringIndex != index || FastMath.abs(rhoC - ringRho) > 0.25 * index.cell
-                || FastMath.abs(zC - ringZ) > 0.25 * index.cell || box != ringBox) {
-            listAnnulus(index, rhoC, box, zC, box);
-        }
-        double ut = c[9], ur = c[10], uth = c[11], uph = c[12];
-        double e = 2.0 + track.spectralIndex(k);
-        double sRate = spot.shearRate();
-        double dLo = to - e1, dHi = to - e0;
-        double cutQ = CUT_SIGMAS * CUT_SIGMAS;
-        double sf = 0, sx = 0, sy = 0;
-        // a cell sees the spot only while the centre's azimuth is within the arc's half-width (at the
-        // largest shear of the window) plus the cell's own extent: one emission-time interval per turn
-        double shMax = FastMath.abs(sRate) * e1;
-        double halfW = CUT_SIGMAS * FastMath.sqrt(blob2 * (1 + shMax * shMax) + kern2);
-        double dPhi = (halfW + index.cell * FastMath.sqrt(3.0)) / FastMath.max(rhoC - box - index.cell, 1e-3);
-        boolean whole = dPhi >= FastMath.PI || !(FastMath.abs(omC) > 0);
-        for (int ci = 0; ci < ringCount; ci++) {
-            int cellIdx = ringCells[ci];
-            int from = index.cellStart[cellIdx], until = index.cellStart[cellIdx + 1];
-            int m0 = 0, m1 = 0;
-            double rel = 0;
-            if (!whole) {
-                rel = ringPhi[ci] - phiM;
-                // turns m with |rel + 2 pi m - omC (te - tm)| <= dPhi for some te in [e0, e1]
-                double p0 = omC * (e0 - tm), p1 = omC * (e1 - tm);
-                double lo = FastMath.min(p0, p1) - dPhi - rel, hi = FastMath.max(p0, p1) + dPhi - rel;
-                m0 = (int) FastMath.ceil(lo / TWO_PI);
-                m1 = (int) FastMath.floor(hi / TWO_PI);
-            }
-            for (int m = m0; m <= m1; m++) {
-            double wLo = dLo, wHi = dHi;
-            if (!whole) {
-                double ta = tm + (rel + TWO_PI * m - dPhi) / omC, tb = tm + (rel + TWO_PI * m + dPhi) / omC;
-                double tLo = FastMath.max(e0, FastMath.min(ta, tb)), tHi = FastMath.min(e1, FastMath.max(ta, tb));
-                if (!(tHi >= tLo)) {
-                    continue;
-                }
-                wLo = FastMath.max(dLo, to - tHi - 1e-9);
-                wHi = FastMath.min(dHi, to - tLo + 1e-9);
-            }
-            for (int i = firstAbove(index.d, from, until, wLo); i < until && index.d[i] <= wHi; i++) {
-                double u = index.rho[i] - rhoC, dz = index.z[i] - zC;
-                if (FastMath.abs(u) > box || FastMath.abs(dz) > box) {
-                    continue;
-                }
-                double te = to - index.d[i];
-                double dphi = FastMath.atan2(index.y[i], index.x[i]) - phiM - omC * (te - tm);
-                dphi -= TWO_PI * FastMath.rint(dphi / TWO_PI);
-                double w = rhoC * dphi;
-                double sh = sRate * te;
-                double aa = blob2 + kern2, bb = blob2 * sh, cc = blob2 * (1 + sh * sh) + kern2;
-                double det = aa * cc - bb * bb;
-                double q = (cc * u * u - 2 * bb * u * w + aa * w * w) / det + dz * dz / aa;
-                if (q >= cutQ) {
-                    continue;
-                }
-                double gInv = Redshift.inverse(index.pr[i], index.pth[i], index.pph[i], ut, ur, uth, uph);
-                if (!(gInv > 0)) {
-                    continue;
-                }
-                double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
-                // emitter-frame density: weight x envelope / u^t (MTW 1973, sect. 22.3), sheared Gaussian
-                double dens = spot.weight() * spot.flare().applyAsDouble(te) / ut * INV_TWO_PI_15 / FastMath.sqrt(det * aa)
-                        * gaussian(0.5 * q);
-                double val = index.dl[i] * dens * gp;
-                sf += val;
-                sx += val * index.east[i];
-                sy += val * index.north[i];
-                if (summingPixels) {
-                    addToPixel(index, index.east[i], index.north[i], val);
-                }
-            }
-            }
-        }
-        acc[0] = sf;
-        acc[1] = sx;
-        acc[2] = sy;
-    }
 
     /** Binned samples about each sheared spot's orbit (per source), and the frames() call they were built in. */
     private RingProfile[] profiles = new RingProfile[0];
@@ -944,10 +831,7 @@ public final class CompactSourceModel {
         acc[1] = 0;
         acc[2] = 0;
         ringSinkIndex = index;
-        long T0 = System.nanoTime();
         RingProfile pf = profile(index, track, spot, k, sig2, blob2, kern2);
-        long T1 = System.nanoTime();
-        T_BUILD += T1 - T0;
         if (pf == null) {
             return;
         }
@@ -965,10 +849,8 @@ public final class CompactSourceModel {
             b1 = b0 + (int) FastMath.ceil(2 * halfPhase / pf.phaseStep()) + 1;
         }
         pf.sum(to, e0, e1, b0, b1, acc, summingPixels ? pixelSink : null);
-        T_SUM += System.nanoTime() - T1;
 
     }
-    public static long T_BUILD, T_SUM, N_SUM;
 
     /** @return the profile of sheared source k for the current frames() call (built on first use; null: no orbit) */
     private RingProfile profile(Index index, CentreTrack track, Spot spot, int k, double sig2, double blob2,
@@ -993,7 +875,7 @@ public final class CompactSourceModel {
         }
         double rhoC = FastMath.hypot(c[0], c[1]);
         double box = CUT_SIGMAS * FastMath.sqrt(sig2) + 1e-6;
-        pf.prepare(index, lister, sig2, box, rhoC, c[2], (c[0] * c[4] - c[1] * c[3]) / (rhoC * rhoC),
+        pf.prepare(index, sig2, box, rhoC, c[2], (c[0] * c[4] - c[1] * c[3]) / (rhoC * rhoC),
                 FastMath.atan2(c[1], c[0]), tm, c[9], c[10], c[11], c[12], 2.0 + track.spectralIndex(k));
         pf.tabulate(spot, tEnd, spot.shearRate(), blob2, kern2);
         return pf;
@@ -1002,56 +884,6 @@ public final class CompactSourceModel {
     /** Adds a group's value to its pixel. */
     private final RingProfile.PixelSink pixelSink = (e, n, v) -> addToPixel(this.ringSinkIndex, e, n, v);
     private Index ringSinkIndex;
-
-    /** The annulus listing as a {@link RingProfile.Lister}. */
-    private final RingProfile.Lister lister = new RingProfile.Lister() {
-        @Override public int[] list(Index index, double rho, double half, double z, double zBox) {
-            listAnnulus(index, rho, half, z, zBox);
-            return ringCells;
-        }
-
-        @Override public int count() {
-            return ringCount;
-        }
-    };
-
-    /** Lists the non-empty cells that can hold samples within box (radially) and zBox (vertically) of the circle (rhoC, zC). */
-    private void listAnnulus(Index index, double rhoC, double box, double zC, double zBox) {
-        double diag = index.cell * FastMath.sqrt(3.0);
-        double reach = rhoC + box + diag;
-        ringIndex = null;
-        int x0 = index.clamp((int) FastMath.floor((-reach - index.lo) * index.inv));
-        int x1 = index.clamp((int) FastMath.floor((reach - index.lo) * index.inv));
-        int z0 = index.clamp((int) FastMath.floor((zC - zBox - index.lo) * index.inv));
-        int z1 = index.clamp((int) FastMath.floor((zC + zBox - index.lo) * index.inv));
-        int need = (x1 - x0 + 1) * (x1 - x0 + 1) * (z1 - z0 + 1);
-        if (ringCells.length < need) {
-            ringCells = new int[need];
-            ringPhi = new double[need];
-        }
-        ringCount = 0;
-        for (int ix = x0; ix <= x1; ix++) {
-            double cx = index.lo + (ix + 0.5) * index.cell;
-            for (int iy = x0; iy <= x1; iy++) {
-                double cy = index.lo + (iy + 0.5) * index.cell;
-                double rc = FastMath.sqrt(cx * cx + cy * cy);
-                if (FastMath.abs(rc - rhoC) > box + diag) {
-                    continue;
-                }
-                for (int iz = z0; iz <= z1; iz++) {
-                    int cellIdx = (ix * index.n + iy) * index.n + iz;
-                    if (index.cellStart[cellIdx + 1] > index.cellStart[cellIdx]) {
-                        ringPhi[ringCount] = FastMath.atan2(cy, cx);
-                        ringCells[ringCount++] = cellIdx;
-                    }
-                }
-            }
-        }
-        ringIndex = index;
-        ringRho = rhoC;
-        ringZ = zC;
-        ringBox = box;
-    }
 
     /** Entries per unit of the exponent in {@link #GAUSS}. */
     private static final int GAUSS_PER_UNIT = 512;

@@ -71,32 +71,39 @@ final class RingProfile {
     private int[] rowOffset = new int[1];
     private int[] phaseBinOf = new int[0];
     private double[] psiOf = new double[0], gpOf = new double[0];
+    private int[] cells = new int[0];
 
     /** @return whether the base bins cover radial bins [r0, r1] for this table, variance and height */
-    private boolean covers(CompactSourceModel.Index index, double aa, double zC, int r0, int r1) {
-        return baseIndex == index && baseAa == aa && FastMath.abs(baseZ - zC) < 1e-6 && r0 >= rb0 && r1 <= rb1;
+    private boolean covers(CompactSourceModel.Index index, double aa, double z, int r0, int r1) {
+        return sameBase(index, aa, z) && r0 >= rb0 && r1 <= rb1;
+    }
+
+    private boolean sameBase(CompactSourceModel.Index index, double aa, double z) {
+        return baseIndex == index && baseAa == aa && baseZ == z;
     }
 
     /**
      * Prepares the groups of one orbit.
      *
-     * @param lister lists the table's non-empty cells within a radial and vertical reach of a circle
      * @param aa radial (and vertical) variance of the blob with the kernel, M^2
      * @param box radial and vertical reach of the blob, M
      * @param e 2 + spectral index
      */
-    void prepare(CompactSourceModel.Index index, Lister lister, double aa, double box, double rhoC, double zC,
+    void prepare(CompactSourceModel.Index index, double aa, double box, double rhoC, double zC,
                  double omega, double phiM, double tm, double ut, double ur, double uth, double uph, double e) {
         double st = BIN_SIGMAS * FastMath.sqrt(aa);
         int r0 = (int) FastMath.floor((rhoC - box) / st), r1 = (int) FastMath.floor((rhoC + box) / st);
-        if (!covers(index, aa, zC, r0, r1)) {
+        // the base's height on a micro-M grid: orbits whose heights differ by integration noise share
+        // bins that are bit for bit the same
+        double z = FastMath.rint(zC * 1.0e6) * 1.0e-6;
+        if (!covers(index, aa, z, r0, r1)) {
             int m = (int) FastMath.ceil(MARGIN / st);
             int lo = r0 - m, hi = r1 + m;
-            if (baseIndex == index && baseAa == aa && FastMath.abs(baseZ - zC) < 1e-6 && rb1 >= rb0) {
+            if (sameBase(index, aa, z) && rb1 >= rb0) {
                 lo = FastMath.min(lo, rb0);
                 hi = FastMath.max(hi, rb1);
             }
-            buildBase(index, lister, aa, zC, box, FastMath.max(0, lo), hi);
+            buildBase(index, aa, z, box, FastMath.max(0, lo), hi);
         }
         this.rhoC = rhoC;
         this.omega = omega;
@@ -185,8 +192,7 @@ final class RingProfile {
     }
 
     /** Bins the samples of radial bins [lo, hi] (of width step) within box of the height zC. */
-    private void buildBase(CompactSourceModel.Index index, Lister lister, double aa, double zC, double box, int lo,
-                           int hi) {
+    private void buildBase(CompactSourceModel.Index index, double aa, double zC, double box, int lo, int hi) {
         step = BIN_SIGMAS * FastMath.sqrt(aa);
         // azimuth bins on a fixed grid per radial bin, as wide as a radial bin at its outer edge
         int nr = hi - lo + 1;
@@ -214,8 +220,7 @@ final class RingProfile {
         }
         double cutQ = CompactSourceModel.CUT_SIGMAS * CompactSourceModel.CUT_SIGMAS;
         double rLo = lo * step, rHi = (hi + 1) * step;
-        int[] cells = lister.list(index, 0.5 * (rLo + rHi), 0.5 * (rHi - rLo), zC, box);
-        int cellCount = lister.count();
+        int cellCount = listAnnulus(index, 0.5 * (rLo + rHi), 0.5 * (rHi - rLo), zC, box);
         for (int ci = 0; ci < cellCount; ci++) {
             int cellIdx = cells[ci];
             for (int i = index.cellStart[cellIdx], until = index.cellStart[cellIdx + 1]; i < until; i++) {
@@ -327,16 +332,41 @@ final class RingProfile {
         rb1 = hi;
     }
 
-    /** Lists the non-empty cells of a table near a circle. */
-    interface Lister {
-        /**
-         * @return the cells (valid up to {@link #count()}) that can hold samples within radial
-         *     half-width half of the cylindrical radius rho and within zBox of the height z
-         */
-        int[] list(CompactSourceModel.Index index, double rho, double half, double z, double zBox);
-
-        /** @return the number of cells of the last list */
-        int count();
+    /**
+     * Lists into {@link #cells} the non-empty cells of the index that can hold samples within half
+     * (radially) and zBox (vertically) of the circle of cylindrical radius rho at height z.
+     *
+     * @return the number of cells listed
+     */
+    private int listAnnulus(CompactSourceModel.Index index, double rho, double half, double z, double zBox) {
+        double diag = index.cell * FastMath.sqrt(3.0);
+        double reach = rho + half + diag;
+        int x0 = index.clamp((int) FastMath.floor((-reach - index.lo) * index.inv));
+        int x1 = index.clamp((int) FastMath.floor((reach - index.lo) * index.inv));
+        int z0 = index.clamp((int) FastMath.floor((z - zBox - index.lo) * index.inv));
+        int z1 = index.clamp((int) FastMath.floor((z + zBox - index.lo) * index.inv));
+        int need = (x1 - x0 + 1) * (x1 - x0 + 1) * (z1 - z0 + 1);
+        if (cells.length < need) {
+            cells = new int[need];
+        }
+        int count = 0;
+        for (int ix = x0; ix <= x1; ix++) {
+            double cx = index.lo + (ix + 0.5) * index.cell;
+            for (int iy = x0; iy <= x1; iy++) {
+                double cy = index.lo + (iy + 0.5) * index.cell;
+                double rc = FastMath.sqrt(cx * cx + cy * cy);
+                if (FastMath.abs(rc - rho) > half + diag) {
+                    continue;
+                }
+                for (int iz = z0; iz <= z1; iz++) {
+                    int cellIdx = (ix * index.n + iy) * index.n + iz;
+                    if (index.cellStart[cellIdx + 1] > index.cellStart[cellIdx]) {
+                        cells[count++] = cellIdx;
+                    }
+                }
+            }
+        }
+        return count;
     }
 
     /**
