@@ -25,8 +25,12 @@ import org.hipparchus.util.FastMath;
  * <p>A spot on a circular equatorial orbit with the run's shear velocity model is sheared as its
  * members are: its Gaussian lives in curvilinear offsets from the centre (radial, along the orbit,
  * vertical), with the azimuthal offset growing linearly with the radial one ({@link #shearRate}).
- * The flare envelope is linear within each emission-time step (as a run's weights are between
- * snapshots). The table's stretched pixels are refined so that neighbouring sub-rays pass the
+ * Such a spot (which shears into an arc and then a ring) is summed from the table's samples binned
+ * once about its orbit ({@link RingProfile}: per bin of radius, orbital phase and delay, the
+ * frame-independent weight and mean position), so a frame costs a pass over a few thousand bins
+ * instead of every sample of the annulus; other spots (unsheared, or on non-circular orbits) are
+ * summed sample by sample as below. The flare envelope is linear within each emission-time step
+ * (as a run's weights are between snapshots). The table's stretched pixels are refined so that neighbouring sub-rays pass the
  * emission region at most about one blob width apart ({@link #refinement}): a thin, demagnified
  * image sampled more coarsely than that is summed badly.
  *
@@ -36,9 +40,12 @@ import org.hipparchus.util.FastMath;
  * delay within each cell; a frame visits the emission times of its delay window in steps short
  * enough that the blob moves at most a quarter cell, and in each step only the cells near the
  * blob and the samples whose delay maps into that step; within a step the centre is the
- * second-order expansion of its track about mid-step ({@link CentreTrack#expansion}). One instance
- * per thread (scratch buffers, sized once per table); {@link Index} is shared read-only.
- * Evaluation allocates only its result arrays.
+ * second-order expansion of its track about mid-step ({@link CentreTrack#expansion}).
+ *
+ * <p>Threads: one instance per worker thread (it holds scratch buffers and the binned samples,
+ * sized once per table and reused); {@link Index} is shared read-only. Results do not depend on
+ * which instance computed them: the bins are laid on fixed grids and never depend on the orbits
+ * summed before. An evaluation allocates only its result arrays and a few small ones.
  */
 public final class CompactSourceModel {
     /** Gaussian cut-off in standard deviations. */
