@@ -18,7 +18,8 @@ import org.hipparchus.util.FastMath;
  * (groups at most {@link #DELAY_GROUP} M wide: images of different orders fall into different
  * groups); a group keeps its weight (path length x vertical Gaussian), its weighted mean radius,
  * azimuth, delay, photon momenta and sky position. The annulus grows by whole radial bins when an
- * orbit needs more, so a group's content never depends on which orbits came before. Per orbit the
+ * orbit needs more, so a group's content never depends on which orbits came before; the bases of
+ * the last few tables are kept (a fit's orbits may alternate between two tables). Per orbit the
  * groups within reach of it get their redshift weight g^(2 + alpha) from their mean photon momenta
  * (g^-1 = -p_mu u^mu is linear in them) and are sorted by phase psi. A frame then weighs each
  * group by the spot's sheared Gaussian at (u, rho (psi - Theta)) and by the envelope at t_o - d,
@@ -41,16 +42,29 @@ final class RingProfile {
     private static final double INV_TWO_PI_15 = FastMath.pow(2 * FastMath.PI, -1.5);
 
     // ---- base bins (per table, blob variance, height)
-    private CompactSourceModel.Index baseIndex;
-    private double baseAa = Double.NaN, baseZ = Double.NaN;
-    /** Radial bin width (M) and the radial bins held [rb0, rb1]; radial bin ir has ceil(2 pi (ir + 1)) azimuth bins. */
-    private double step;
-    private int rb0, rb1 = -1;
-    /** Base groups in radial-bin order, each radial bin's first group (index rbin - rb0) and the end. */
-    private double[] bw = new double[0], brho = new double[0], bphi = new double[0], bd = new double[0],
-            bpr = new double[0], bpth = new double[0], bpph = new double[0], be = new double[0], bn = new double[0];
-    private int[] rowStart = new int[0];
-    private int bsize;
+    /** Base bins of one (table, blob variance, height); a few are kept so that orbits alternating between tables do not rebuild them. */
+    private static final class Base {
+        CompactSourceModel.Index index;
+        double aa = Double.NaN, z = Double.NaN;
+        /** Radial bin width (M) and the radial bins held [rb0, rb1]; radial bin ir has ceil(2 pi (ir + 1)) azimuth bins. */
+        double step;
+        int rb0, rb1 = -1;
+        /** Groups in radial-bin order, each radial bin's first group (index rbin - rb0) and the end. */
+        double[] bw = new double[0], brho = new double[0], bphi = new double[0], bd = new double[0],
+                bpr = new double[0], bpth = new double[0], bpph = new double[0], be = new double[0], bn = new double[0];
+        int[] rowStart = new int[0];
+        int bsize;
+        long lastUse;
+
+        boolean same(CompactSourceModel.Index index, double aa, double z) {
+            return this.index == index && this.aa == aa && this.z == z;
+        }
+    }
+
+    /** Base bins kept per instance (least recently used replaced). */
+    static final int BASES = 4;
+    private final Base[] bases = new Base[BASES];
+    private long useClock;
 
     // ---- the orbit's groups, sorted by phase psi
     /** Weight (base weight x g^(2+alpha)), radial offset from the orbit, phase, delay, east, north. */
@@ -73,13 +87,24 @@ final class RingProfile {
     private double[] psiOf = new double[0], gpOf = new double[0];
     private int[] cells = new int[0];
 
-    /** @return whether the base bins cover radial bins [r0, r1] for this table, variance and height */
-    private boolean covers(CompactSourceModel.Index index, double aa, double z, int r0, int r1) {
-        return sameBase(index, aa, z) && r0 >= rb0 && r1 <= rb1;
-    }
-
-    private boolean sameBase(CompactSourceModel.Index index, double aa, double z) {
-        return baseIndex == index && baseAa == aa && baseZ == z;
+    /** @return the kept base for this table, variance and height, else the least recently used slot (emptied) */
+    private Base base(CompactSourceModel.Index index, double aa, double z) {
+        Base oldest = null;
+        for (int i = 0; i < BASES; i++) {
+            if (bases[i] == null) {
+                bases[i] = new Base();
+            }
+            if (bases[i].same(index, aa, z)) {
+                return bases[i];
+            }
+            if (oldest == null || bases[i].lastUse < oldest.lastUse) {
+                oldest = bases[i];
+            }
+        }
+        oldest.index = null;
+        oldest.rb0 = 0;
+        oldest.rb1 = -1;
+        return oldest;
     }
 
     /**
@@ -92,19 +117,22 @@ final class RingProfile {
     void prepare(CompactSourceModel.Index index, double aa, double box, double rhoC, double zC,
                  double omega, double phiM, double tm, double ut, double ur, double uth, double uph, double e) {
         double st = BIN_SIGMAS * FastMath.sqrt(aa);
-        int r0 = (int) FastMath.floor((rhoC - box) / st), r1 = (int) FastMath.floor((rhoC + box) / st);
+        int r0 = FastMath.max(0, (int) FastMath.floor((rhoC - box) / st));
+        int r1 = (int) FastMath.floor((rhoC + box) / st);
         // the base's height on a micro-M grid: orbits whose heights differ by integration noise share
         // bins that are bit for bit the same
         double z = FastMath.rint(zC * 1.0e6) * 1.0e-6;
-        if (!covers(index, aa, z, r0, r1)) {
+        Base bs = base(index, aa, z);
+        if (bs.index == null || r0 < bs.rb0 || r1 > bs.rb1) {
             int m = (int) FastMath.ceil(MARGIN / st);
             int lo = r0 - m, hi = r1 + m;
-            if (sameBase(index, aa, z) && rb1 >= rb0) {
-                lo = FastMath.min(lo, rb0);
-                hi = FastMath.max(hi, rb1);
+            if (bs.index != null) {
+                lo = FastMath.min(lo, bs.rb0);
+                hi = FastMath.max(hi, bs.rb1);
             }
-            buildBase(index, aa, z, box, FastMath.max(0, lo), hi);
+            buildBase(bs, index, aa, z, box, FastMath.max(0, lo), hi);
         }
+        bs.lastUse = ++useClock;
         this.rhoC = rhoC;
         this.omega = omega;
         this.phiM = phiM;
@@ -112,7 +140,9 @@ final class RingProfile {
         this.ut = ut;
         nPhi = azimuthBins(r1);
         dPhi = TWO_PI / nPhi;
-        int from = rowStart[r0 - rb0], until = rowStart[r1 - rb0 + 1];
+        double[] bw = bs.bw, brho = bs.brho, bphi = bs.bphi, bd = bs.bd, bpr = bs.bpr, bpth = bs.bpth, bpph = bs.bpph,
+                be = bs.be, bn = bs.bn;
+        int from = bs.rowStart[r0 - bs.rb0], until = bs.rowStart[r1 - bs.rb0 + 1];
         int n = until - from;
         if (psiOf.length < n) {
             int c = FastMath.max(n, psiOf.length + psiOf.length / 2);
@@ -192,8 +222,9 @@ final class RingProfile {
     }
 
     /** Bins the samples of radial bins [lo, hi] (of width step) within box of the height zC. */
-    private void buildBase(CompactSourceModel.Index index, double aa, double zC, double box, int lo, int hi) {
-        step = BIN_SIGMAS * FastMath.sqrt(aa);
+    private void buildBase(Base bs, CompactSourceModel.Index index, double aa, double zC, double box, int lo, int hi) {
+        double step = BIN_SIGMAS * FastMath.sqrt(aa);
+        bs.step = step;
         // azimuth bins on a fixed grid per radial bin, as wide as a radial bin at its outer edge
         int nr = hi - lo + 1;
         if (rowOffset.length < nr + 1) {
@@ -287,23 +318,23 @@ final class RingProfile {
         for (int b = 0; b < bins; b++) {
             groups += groupCount[b];
         }
-        if (bw.length < groups) {
-            bw = new double[groups];
-            brho = new double[groups];
-            bphi = new double[groups];
-            bd = new double[groups];
-            bpr = new double[groups];
-            bpth = new double[groups];
-            bpph = new double[groups];
-            be = new double[groups];
-            bn = new double[groups];
+        if (bs.bw.length < groups) {
+            bs.bw = new double[groups];
+            bs.brho = new double[groups];
+            bs.bphi = new double[groups];
+            bs.bd = new double[groups];
+            bs.bpr = new double[groups];
+            bs.bpth = new double[groups];
+            bs.bpph = new double[groups];
+            bs.be = new double[groups];
+            bs.bn = new double[groups];
         }
-        if (rowStart.length < nr + 1) {
-            rowStart = new int[nr + 1];
+        if (bs.rowStart.length < nr + 1) {
+            bs.rowStart = new int[nr + 1];
         }
-        bsize = 0;
+        bs.bsize = 0;
         for (int r = 0; r < nr; r++) {
-            rowStart[r] = bsize;
+            bs.rowStart[r] = bs.bsize;
             int rowBins = rowOffset[r + 1] - rowOffset[r];
             double rowStep = TWO_PI / rowBins;
             for (int ip = 0; ip < rowBins; ip++) {
@@ -311,25 +342,25 @@ final class RingProfile {
                 for (int g = 0; g < groupCount[bin]; g++) {
                     int s = bin * GROUPS + g;
                     double ws = sw[s];
-                    bw[bsize] = ws;
-                    brho[bsize] = sr[s] / ws;
-                    bphi[bsize] = ip * rowStep + sp[s] / ws;
-                    bd[bsize] = sd[s] / ws;
-                    bpr[bsize] = spr[s] / ws;
-                    bpth[bsize] = spth[s] / ws;
-                    bpph[bsize] = spph[s] / ws;
-                    be[bsize] = se[s] / ws;
-                    bn[bsize] = sn[s] / ws;
-                    bsize++;
+                    bs.bw[bs.bsize] = ws;
+                    bs.brho[bs.bsize] = sr[s] / ws;
+                    bs.bphi[bs.bsize] = ip * rowStep + sp[s] / ws;
+                    bs.bd[bs.bsize] = sd[s] / ws;
+                    bs.bpr[bs.bsize] = spr[s] / ws;
+                    bs.bpth[bs.bsize] = spth[s] / ws;
+                    bs.bpph[bs.bsize] = spph[s] / ws;
+                    bs.be[bs.bsize] = se[s] / ws;
+                    bs.bn[bs.bsize] = sn[s] / ws;
+                    bs.bsize++;
                 }
             }
         }
-        rowStart[nr] = bsize;
-        baseIndex = index;
-        baseAa = aa;
-        baseZ = zC;
-        rb0 = lo;
-        rb1 = hi;
+        bs.rowStart[nr] = bs.bsize;
+        bs.index = index;
+        bs.aa = aa;
+        bs.z = zC;
+        bs.rb0 = lo;
+        bs.rb1 = hi;
     }
 
     /**
