@@ -32,8 +32,8 @@ import org.spindrift.sim.spacetime.Spacetime;
 class RingProfileTest {
     /**
      * Binning error allowed: bins half a blob width wide summed at their weighted mean positions are
-     * a Riemann sum of the Gaussian (our choice of bound; measured 0.1 % of the track radius and
-     * 0.2 % in flux on the benchmark's spot, 0.23 % and 0.46 % here at 48 px).
+     * a Riemann sum of the Gaussian (our choice of bound; measured here at 48 px: 0.23 % of the
+     * track radius and 0.46 % in flux).
      */
     private static final double CENTROID_REL = 0.005;
     private static final double FLUX_REL = 0.01;
