@@ -30,9 +30,9 @@ import org.hipparchus.util.FastMath;
  * frame-independent weight and mean position), so a frame costs a pass over a few thousand bins
  * instead of every sample of the annulus; other spots (unsheared, or on non-circular orbits) are
  * summed sample by sample as below. The flare envelope is linear within each emission-time step
- * (as a run's weights are between snapshots). The table's stretched pixels are refined so that neighbouring sub-rays pass the
- * emission region at most about one blob width apart ({@link #refinement}): a thin, demagnified
- * image sampled more coarsely than that is summed badly.
+ * (as a run's weights are between snapshots). The table's stretched pixels are refined so that
+ * neighbouring sub-rays pass the emission region at most about one blob width apart
+ * ({@link #refinement}): a thin, demagnified image sampled more coarsely than that is summed badly.
  *
  * <p>The table is traced once at position angle 0: another position angle rotates the sky
  * offsets ({@link Camera#east}, {@link Camera#north}); mass and distance only rescale the angles
