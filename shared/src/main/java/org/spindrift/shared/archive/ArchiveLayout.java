@@ -13,6 +13,68 @@ public final class ArchiveLayout {
     /** Archive format version written by this code. */
     public static final int FORMAT_VERSION = 1;
 
+    // Manifest keys that the writer (sim) and the readers (shared, viewer) share.
+    /** Manifest key: archive kind, {@link #FORMAT}. */
+    public static final String K_FORMAT = "format";
+    /** Manifest key: archive format version, {@link #FORMAT_VERSION}. */
+    public static final String K_FORMAT_VERSION = "format_version";
+    /** Manifest key: version of the code that wrote the run. */
+    public static final String K_CODE_VERSION = "code_version";
+    /** Manifest key: object: file name to sha256 of every file of the run. */
+    public static final String K_FILES = "files";
+    /** Manifest key: the run's random seed. */
+    public static final String K_SEED = "seed";
+    /** Manifest key: the scenario as run (echo). */
+    public static final String K_SCENARIO = "scenario";
+    /** Manifest key: name of the scenario (inside {@link #K_SCENARIO}) or of a source. */
+    public static final String K_NAME = "name";
+    /** Manifest key: object: the black hole. */
+    public static final String K_BLACK_HOLE = "black_hole";
+    /** Manifest key: black hole mass, solar masses. */
+    public static final String K_MASS_SOLAR = "mass_solar";
+    /** Manifest key: distance, Mpc. */
+    public static final String K_DISTANCE_MPC = "distance_Mpc";
+    /** Manifest key: spacetime family. */
+    public static final String K_FAMILY = "family";
+    /** Manifest key: dimensionless spin a/M. */
+    public static final String K_SPIN = "spin";
+    /** Manifest key: object: the family's deformation parameters. */
+    public static final String K_PARAMETERS = "parameters";
+    /** Manifest key: object: what one M is. */
+    public static final String K_UNITS = "units";
+    /** Manifest key: GM/c^3 in seconds. */
+    public static final String K_M_SECONDS = "M_seconds";
+    /** Manifest key: GM/c^2 in metres. */
+    public static final String K_M_METRES = "M_metres";
+    /** Manifest key: GM/(c^2 D) in micro-arcseconds. */
+    public static final String K_M_UAS = "M_uas";
+    /** Manifest key: object: the observer. */
+    public static final String K_OBSERVER = "observer";
+    /** Manifest key: inclination, degrees. */
+    public static final String K_INCLINATION_DEG = "inclination_deg";
+    /** Manifest key: position angle, degrees. */
+    public static final String K_POSITION_ANGLE_DEG = "position_angle_deg";
+    /** Manifest key: object: the snapshot time grid. */
+    public static final String K_TIME = "time";
+    /** Manifest key: number of snapshots (inside {@link #K_TIME}). */
+    public static final String K_SNAPSHOTS = "snapshots";
+    /** Manifest key: array: one object per source. */
+    public static final String K_SOURCES = "sources";
+    /** Manifest key: source kind. */
+    public static final String K_KIND = "kind";
+    /** Manifest key: particles of a source as generated. */
+    public static final String K_PARTICLES = "particles";
+    /** Manifest key: particles of a source kept in the archive. */
+    public static final String K_KEPT = "kept";
+    /** Manifest key: index of a source's first kept particle in the archive. */
+    public static final String K_FIRST_INDEX = "first_index";
+    /** Manifest key: object: integration diagnostics. */
+    public static final String K_DIAGNOSTICS = "diagnostics";
+    /** Manifest key: object: the light stage (absent without one). */
+    public static final String K_LIGHT = "light";
+    /** Manifest key: number of light frames (inside {@link #K_LIGHT}). */
+    public static final String K_FRAMES = "frames";
+
     /** Manifest file, written last. */
     public static final String MANIFEST = "manifest.json";
     /** Particle snapshots (HDF5). */

@@ -136,23 +136,23 @@ public final class ArchiveVerifier {
         number(a, m, "units.M_uas", 0, false, 1e30);
         number(a, m, "observer.inclination_deg", 0, true, 180);
         number(a, m, "observer.position_angle_deg", -360, true, 360);
-        JsonNode sources = m.path("sources");
+        JsonNode sources = m.path(ArchiveLayout.K_SOURCES);
         if (!sources.isArray()) {
             throw a.problem(RunArchive.typeProblem("sources", sources, "a list"));
         }
         for (int k = 0; k < sources.size(); k++) {
             JsonNode s = sources.get(k);
             String p = "sources[" + k + "]";
-            if (!s.path("name").isTextual()) {
-                throw a.problem(RunArchive.typeProblem(p + ".name", s.path("name"), "text"));
+            if (!s.path(ArchiveLayout.K_NAME).isTextual()) {
+                throw a.problem(RunArchive.typeProblem(p + ".name", s.path(ArchiveLayout.K_NAME), "text"));
             }
             number(a, m, p + ".particles", 0, true, 1e9);
             number(a, m, p + ".first_index", 0, true, 1e9);
-            if (s.has("kept")) {
+            if (s.has(ArchiveLayout.K_KEPT)) {
                 number(a, m, p + ".kept", 0, true, 1e9);
             }
         }
-        JsonNode files = m.path("files");
+        JsonNode files = m.path(ArchiveLayout.K_FILES);
         if (!files.isObject()) {
             throw a.problem(RunArchive.typeProblem("files", files, "a mapping of file names to sha256"));
         }
@@ -190,7 +190,7 @@ public final class ArchiveVerifier {
         compare(a, f, "mass_solar", a.massSolar());
         compare(a, f, "distance_Mpc", a.distanceMpc());
         int s = a.snapshotCount();
-        JsonNode ms = m.path("time").path("snapshots");
+        JsonNode ms = m.path(ArchiveLayout.K_TIME).path(ArchiveLayout.K_SNAPSHOTS);
         if (ms.isNumber() && ms.asInt() != s) {
             throw a.problem(f + "it holds " + s + " snapshots, the manifest says " + ms.asInt());
         }
@@ -226,7 +226,7 @@ public final class ArchiveVerifier {
      * with every column of the header.
      */
     static void lightFiles(RunArchive a) {
-        JsonNode frames = a.manifest().path("light").path("frames");
+        JsonNode frames = a.manifest().path(ArchiveLayout.K_LIGHT).path(ArchiveLayout.K_FRAMES);
         for (String name : new String[] {ArchiveLayout.CENTROID, ArchiveLayout.LIGHTCURVE}) {
             if (!a.has(name)) {
                 continue;

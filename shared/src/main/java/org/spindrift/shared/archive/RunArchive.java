@@ -77,15 +77,15 @@ public final class RunArchive implements AutoCloseable {
         if (m == null || !m.isObject()) {
             throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + " is not a JSON object");
         }
-        if (!ArchiveLayout.FORMAT.equals(m.path("format").asText())) {
+        if (!ArchiveLayout.FORMAT.equals(m.path(ArchiveLayout.K_FORMAT).asText())) {
             throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + ": key 'format' is not '"
                     + ArchiveLayout.FORMAT + "'");
         }
-        if (!m.path("format_version").isInt()) {
+        if (!m.path(ArchiveLayout.K_FORMAT_VERSION).isInt()) {
             throw new UserInputException("run folder " + folder + ": " + typeProblem("format_version",
-                    m.path("format_version"), "a whole number"));
+                    m.path(ArchiveLayout.K_FORMAT_VERSION), "a whole number"));
         }
-        int v = m.path("format_version").asInt(-1);
+        int v = m.path(ArchiveLayout.K_FORMAT_VERSION).asInt(-1);
         if (v != ArchiveLayout.FORMAT_VERSION) {
             throw new UserInputException("run folder " + folder + ": " + ArchiveLayout.MANIFEST + ": format_version " + v
                     + " is not supported (this reader knows " + ArchiveLayout.FORMAT_VERSION + ")");
@@ -173,67 +173,67 @@ public final class RunArchive implements AutoCloseable {
 
     /** @return the code version that wrote the run */
     public String codeVersion() {
-        return manifest.path("code_version").asText();
+        return manifest.path(ArchiveLayout.K_CODE_VERSION).asText();
     }
 
     /** @return the run's seed */
     public long seed() {
-        return manifest.path("seed").asLong();
+        return manifest.path(ArchiveLayout.K_SEED).asLong();
     }
 
     /** @return the scenario name */
     public String scenarioName() {
-        return manifest.path("scenario").path("name").asText("");
+        return manifest.path(ArchiveLayout.K_SCENARIO).path(ArchiveLayout.K_NAME).asText("");
     }
 
     /** @return the black hole mass in solar masses */
     public double massSolar() {
-        return manifest.path("black_hole").path("mass_solar").asDouble(Double.NaN);
+        return manifest.path(ArchiveLayout.K_BLACK_HOLE).path(ArchiveLayout.K_MASS_SOLAR).asDouble(Double.NaN);
     }
 
     /** @return the distance in Mpc (manifest black_hole.distance_Mpc) */
     public double distanceMpc() {
-        return manifest.path("black_hole").path("distance_Mpc").asDouble(Double.NaN);
+        return manifest.path(ArchiveLayout.K_BLACK_HOLE).path(ArchiveLayout.K_DISTANCE_MPC).asDouble(Double.NaN);
     }
 
     /** @return the spacetime family */
     public String family() {
-        return manifest.path("black_hole").path("family").asText();
+        return manifest.path(ArchiveLayout.K_BLACK_HOLE).path(ArchiveLayout.K_FAMILY).asText();
     }
 
     /** @return the spin a */
     public double spin() {
-        return manifest.path("black_hole").path("spin").asDouble(Double.NaN);
+        return manifest.path(ArchiveLayout.K_BLACK_HOLE).path(ArchiveLayout.K_SPIN).asDouble(Double.NaN);
     }
 
     /** @return the family's parameters (name to value) */
     public Map<String, Double> parameters() {
-        return numbers(manifest.path("black_hole").path("parameters"));
+        return numbers(manifest.path(ArchiveLayout.K_BLACK_HOLE).path(ArchiveLayout.K_PARAMETERS));
     }
 
     /** @return GM/c^3 in seconds */
     public double mSeconds() {
-        return manifest.path("units").path("M_seconds").asDouble(Double.NaN);
+        return manifest.path(ArchiveLayout.K_UNITS).path(ArchiveLayout.K_M_SECONDS).asDouble(Double.NaN);
     }
 
     /** @return GM/c^2 in metres */
     public double mMetres() {
-        return manifest.path("units").path("M_metres").asDouble(Double.NaN);
+        return manifest.path(ArchiveLayout.K_UNITS).path(ArchiveLayout.K_M_METRES).asDouble(Double.NaN);
     }
 
     /** @return micro-arcseconds subtended by 1 M at the distance */
     public double mUas() {
-        return manifest.path("units").path("M_uas").asDouble(Double.NaN);
+        return manifest.path(ArchiveLayout.K_UNITS).path(ArchiveLayout.K_M_UAS).asDouble(Double.NaN);
     }
 
     /** @return inclination in degrees */
     public double inclinationDeg() {
-        return manifest.path("observer").path("inclination_deg").asDouble(Double.NaN);
+        return manifest.path(ArchiveLayout.K_OBSERVER).path(ArchiveLayout.K_INCLINATION_DEG).asDouble(Double.NaN);
     }
 
     /** @return position angle in degrees */
     public double positionAngleDeg() {
-        return manifest.path("observer").path("position_angle_deg").asDouble(Double.NaN);
+        return manifest.path(ArchiveLayout.K_OBSERVER).path(ArchiveLayout.K_POSITION_ANGLE_DEG).asDouble(Double.NaN);
     }
 
     /**
@@ -246,7 +246,7 @@ public final class RunArchive implements AutoCloseable {
 
     /** @return the diagnostics object of the manifest */
     public JsonNode diagnostics() {
-        return manifest.path("diagnostics");
+        return manifest.path(ArchiveLayout.K_DIAGNOSTICS);
     }
 
     /** @return end-state counts (alive, captured, escaped, failed) */
@@ -265,9 +265,11 @@ public final class RunArchive implements AutoCloseable {
     /** @return the sources in manifest order (index = {@code source_index}) */
     public List<SourceEntry> sources() {
         List<SourceEntry> out = new ArrayList<>();
-        for (JsonNode s : manifest.path("sources")) {
-            out.add(new SourceEntry(s.path("name").asText(), s.path("kind").asText(), s.path("particles").asInt(),
-                    s.path("kept").asInt(s.path("particles").asInt()), s.path("first_index").asInt()));
+        for (JsonNode s : manifest.path(ArchiveLayout.K_SOURCES)) {
+            int particles = s.path(ArchiveLayout.K_PARTICLES).asInt();
+            out.add(new SourceEntry(s.path(ArchiveLayout.K_NAME).asText(), s.path(ArchiveLayout.K_KIND).asText(),
+                    particles, s.path(ArchiveLayout.K_KEPT).asInt(particles),
+                    s.path(ArchiveLayout.K_FIRST_INDEX).asInt()));
         }
         return Collections.unmodifiableList(out);
     }
@@ -275,13 +277,13 @@ public final class RunArchive implements AutoCloseable {
     /** @return the files listed in the manifest with their SHA-256 */
     public Map<String, String> files() {
         Map<String, String> out = new LinkedHashMap<>();
-        manifest.path("files").properties().forEach(e -> out.put(e.getKey(), e.getValue().asText()));
+        manifest.path(ArchiveLayout.K_FILES).properties().forEach(e -> out.put(e.getKey(), e.getValue().asText()));
         return Collections.unmodifiableMap(out);
     }
 
     /** @return whether the run lists a file (for example {@code centroid.csv}) */
     public boolean has(String name) {
-        return manifest.path("files").has(name);
+        return manifest.path(ArchiveLayout.K_FILES).has(name);
     }
 
     /** @return the path of a file of the run */

@@ -242,16 +242,16 @@ public final class RunArchiveWriter {
     public synchronized Path finish(ObjectNode body) throws IOException {
         checkOpen();
         ObjectNode m = JSON.createObjectNode();
-        m.put("format", ArchiveLayout.FORMAT);
-        m.put("format_version", ArchiveLayout.FORMAT_VERSION);
-        m.put("code_version", Version.get());
+        m.put(ArchiveLayout.K_FORMAT, ArchiveLayout.FORMAT);
+        m.put(ArchiveLayout.K_FORMAT_VERSION, ArchiveLayout.FORMAT_VERSION);
+        m.put(ArchiveLayout.K_CODE_VERSION, Version.get());
         m.put("created_utc", Instant.now().truncatedTo(ChronoUnit.SECONDS).toString());
         body.properties().forEach(e -> {
             if (!m.has(e.getKey())) {
                 m.set(e.getKey(), e.getValue());
             }
         });
-        ObjectNode files = m.putObject("files");
+        ObjectNode files = m.putObject(ArchiveLayout.K_FILES);
         sums.forEach(files::put);
         AtomicFiles.writeStream(staging.resolve(ArchiveLayout.MANIFEST), out -> JSON.writeValue(out, m));
         // the folder may have changed during the run (a user's file put into it): check again

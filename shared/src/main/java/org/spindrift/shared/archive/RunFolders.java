@@ -156,12 +156,12 @@ public final class RunFolders {
         } catch (IOException e) {
             m = null;
         }
-        if (m == null || !ArchiveLayout.FORMAT.equals(m.path("format").asText()) || !m.path("files").isObject()) {
+        if (m == null || !ArchiveLayout.FORMAT.equals(m.path(ArchiveLayout.K_FORMAT).asText()) || !m.path(ArchiveLayout.K_FILES).isObject()) {
             throw new UserInputException(where + ArchiveLayout.MANIFEST + " was not written by Spindrift (no '"
                     + ArchiveLayout.FORMAT + "' format with a files list); choose another folder");
         }
         Set<String> out = new TreeSet<>();
-        m.path("files").fieldNames().forEachRemaining(n -> {
+        m.path(ArchiveLayout.K_FILES).fieldNames().forEachRemaining(n -> {
             if (safeName(n)) {
                 out.add(n);
             }

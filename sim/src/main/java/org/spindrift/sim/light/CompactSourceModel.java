@@ -25,10 +25,14 @@ import org.hipparchus.util.FastMath;
  * <p>A spot on a circular equatorial orbit with the run's shear velocity model is sheared as its
  * members are: its Gaussian lives in curvilinear offsets from the centre (radial, along the orbit,
  * vertical), with the azimuthal offset growing linearly with the radial one ({@link #shearRate}).
- * The flare envelope is linear within each emission-time step (as a run's weights are between
- * snapshots). The table's stretched pixels are refined so that neighbouring sub-rays pass the
- * emission region at most about one blob width apart ({@link #refinement}): a thin, demagnified
- * image sampled more coarsely than that is summed badly.
+ * Such a spot (which shears into an arc and then a ring) is summed from the table's samples binned
+ * once about its orbit ({@link RingProfile}: per bin of radius, orbital phase and delay, the
+ * frame-independent weight and mean position), so a frame costs a pass over a few thousand bins
+ * instead of every sample of the annulus; other spots (unsheared, or on non-circular orbits) are
+ * summed sample by sample as below. The flare envelope is linear within each emission-time step
+ * (as a run's weights are between snapshots). The table's stretched pixels are refined so that
+ * neighbouring sub-rays pass the emission region at most about one blob width apart
+ * ({@link #refinement}): a thin, demagnified image sampled more coarsely than that is summed badly.
  *
  * <p>The table is traced once at position angle 0: another position angle rotates the sky
  * offsets ({@link Camera#east}, {@link Camera#north}); mass and distance only rescale the angles
@@ -36,9 +40,12 @@ import org.hipparchus.util.FastMath;
  * delay within each cell; a frame visits the emission times of its delay window in steps short
  * enough that the blob moves at most a quarter cell, and in each step only the cells near the
  * blob and the samples whose delay maps into that step; within a step the centre is the
- * second-order expansion of its track about mid-step ({@link CentreTrack#expansion}). One instance
- * per thread (scratch buffers, sized once per table); {@link Index} is shared read-only.
- * Evaluation allocates only its result arrays.
+ * second-order expansion of its track about mid-step ({@link CentreTrack#expansion}).
+ *
+ * <p>Threads: one instance per worker thread (it holds scratch buffers and the binned samples,
+ * sized once per table and reused); {@link Index} is shared read-only. Results do not depend on
+ * which instance computed them: the bins are laid on fixed grids and never depend on the orbits
+ * summed before. An evaluation allocates only its result arrays and a few small ones.
  */
 public final class CompactSourceModel {
     /** Gaussian cut-off in standard deviations. */
@@ -58,13 +65,12 @@ public final class CompactSourceModel {
         final Camera camera;
         final int m;
         final float[] x, y, z, d, pr, pth, pph, dl, east, north;
-        /** Cylindrical radius and azimuth of each sample (for sheared spots). */
-        final double[] rho, phi;
+        /** Cylindrical radius of each sample (for sheared spots). */
+        final double[] rho;
         final int[] cellStart;
         final double lo, cell, inv;
         final int n;
         final double dmin, dmax;
-        final float[] byDelay, rByDelay;
         /** Radius bins of width R_BIN: samples by bin, delay-sorted within a bin (delays and radii). */
         final float[] dByR, rByR;
         final int[] rStart;
@@ -97,20 +103,33 @@ public final class CompactSourceModel {
             for (int k = 0; k < table.rays(); k++) {
                 Arrays.fill(owner, table.firstSample(k), table.endSample(k), k);
             }
-            // sort indices by (cell, delay): pack the cell and an order-preserving delay key
-            Integer[] order = new Integer[m];
+            // order the samples by (cell, delay, index): a counting pass by cell, then each cell's samples
+            // sorted by an order-preserving delay key packed with the index
+            int cellsTotal = cells * cells * cells;
+            int[] cellOfSample = new int[m];
+            int[] cellFrom = new int[cellsTotal + 1];
             for (int i = 0; i < m; i++) {
-                order[i] = i;
+                int ci = (int) cellOf(table.x[i], table.y[i], table.z[i]);
+                cellOfSample[i] = ci;
+                cellFrom[ci + 1]++;
             }
-            final float[] del = table.delay;
-            Arrays.sort(order, (a, b) -> {
-                int c = Long.compare(cellOf(table.x[a], table.y[a], table.z[a]), cellOf(table.x[b], table.y[b], table.z[b]));
-                if (c != 0) {
-                    return c;
+            for (int ci = 0; ci < cellsTotal; ci++) {
+                cellFrom[ci + 1] += cellFrom[ci];
+            }
+            long[] keys = new long[m];
+            int[] next = Arrays.copyOf(cellFrom, cellsTotal);
+            for (int i = 0; i < m; i++) {
+                keys[next[cellOfSample[i]]++] = ((long) sortable(table.delay[i]) << 32) | i;
+            }
+            for (int ci = 0; ci < cellsTotal; ci++) {
+                if (cellFrom[ci + 1] - cellFrom[ci] > 1) {
+                    Arrays.sort(keys, cellFrom[ci], cellFrom[ci + 1]);
                 }
-                c = Float.compare(del[a], del[b]);
-                return c != 0 ? c : Integer.compare(a, b);
-            });
+            }
+            int[] order = new int[m];
+            for (int j = 0; j < m; j++) {
+                order[j] = (int) (keys[j] & 0xffffffffL);
+            }
             x = new float[m];
             y = new float[m];
             z = new float[m];
@@ -122,7 +141,6 @@ public final class CompactSourceModel {
             east = new float[m];
             north = new float[m];
             rho = new double[m];
-            phi = new double[m];
             cellStart = new int[n * n * n + 1];
             int pixels = camera.pixels();
             double dLo = Double.POSITIVE_INFINITY, dHi = Double.NEGATIVE_INFINITY;
@@ -136,8 +154,7 @@ public final class CompactSourceModel {
                 pth[j] = table.pth[i];
                 pph[j] = table.pph[i];
                 dl[j] = table.dl[i];
-                rho[j] = FastMath.hypot(x[j], y[j]);
-                phi[j] = FastMath.atan2(y[j], x[j]);
+                rho[j] = FastMath.sqrt((double) x[j] * x[j] + (double) y[j] * y[j]);
                 int k = owner[i];
                 east[j] = (float) camera.skyX(k % pixels);
                 north[j] = (float) camera.skyY(k / pixels);
@@ -151,40 +168,36 @@ public final class CompactSourceModel {
             double[] range = table.delayRange();
             dmin = range[0];
             dmax = range[1];
-            // delays sorted, with the radius of each sample, for the frame-grid quantiles
-            long[] dk = new long[m];
-            for (int i = 0; i < m; i++) {
-                dk[i] = ((long) sortable(table.delay[i]) << 32) | i;
-            }
-            Arrays.sort(dk);
-            byDelay = new float[m];
-            rByDelay = new float[m];
-            for (int j = 0; j < m; j++) {
-                int i = (int) (dk[j] & 0xffffffffL);
-                byDelay[j] = table.delay[i];
-                rByDelay[j] = (float) FastMath.sqrt(table.x[i] * table.x[i] + table.y[i] * table.y[i]
-                        + table.z[i] * table.z[i]);
-            }
-            // the same samples by radius bin, in delay order within each bin (a stable pass over byDelay)
+            // the samples by radius bin (radius as the table's quantiles compute it), in (delay, index) order
+            // within each bin: a counting pass by bin, then a sort of each bin's packed delay keys
+            float[] radius = new float[m];
             float rMaxAll = 0;
-            for (int j = 0; j < m; j++) {
-                rMaxAll = FastMath.max(rMaxAll, rByDelay[j]);
+            for (int i = 0; i < m; i++) {
+                radius[i] = (float) FastMath.sqrt(table.x[i] * table.x[i] + table.y[i] * table.y[i]
+                        + table.z[i] * table.z[i]);
+                rMaxAll = FastMath.max(rMaxAll, radius[i]);
             }
             rBins = (int) (rMaxAll / R_BIN) + 1;
             rStart = new int[rBins + 1];
-            for (int j = 0; j < m; j++) {
-                rStart[(int) (rByDelay[j] / R_BIN) + 1]++;
+            for (int i = 0; i < m; i++) {
+                rStart[(int) (radius[i] / R_BIN) + 1]++;
             }
             for (int bin = 0; bin < rBins; bin++) {
                 rStart[bin + 1] += rStart[bin];
             }
-            int[] fill = Arrays.copyOf(rStart, rBins);
+            int[] nextInBin = Arrays.copyOf(rStart, rBins);
+            for (int i = 0; i < m; i++) {
+                keys[nextInBin[(int) (radius[i] / R_BIN)]++] = ((long) sortable(table.delay[i]) << 32) | i;
+            }
             dByR = new float[m];
             rByR = new float[m];
-            for (int j = 0; j < m; j++) {
-                int at = fill[(int) (rByDelay[j] / R_BIN)]++;
-                dByR[at] = byDelay[j];
-                rByR[at] = rByDelay[j];
+            for (int bin = 0; bin < rBins; bin++) {
+                Arrays.sort(keys, rStart[bin], rStart[bin + 1]);
+                for (int j = rStart[bin]; j < rStart[bin + 1]; j++) {
+                    int i = (int) (keys[j] & 0xffffffffL);
+                    dByR[j] = table.delay[i];
+                    rByR[j] = radius[i];
+                }
             }
         }
 
@@ -195,7 +208,7 @@ public final class CompactSourceModel {
             return (ix * (long) n + iy) * n + iz;
         }
 
-        private int clamp(int i) {
+        int clamp(int i) {
             return FastMath.max(0, FastMath.min(n - 1, i));
         }
 
@@ -213,30 +226,53 @@ public final class CompactSourceModel {
          * The same quantiles as {@link RayTable#delayQuantiles} (delays of the samples with
          * radius in [rLo, rHi]), without sorting: the k-th smallest delay is found by bisection
          * over the ordered float values, counting with the radius bins (delay-sorted within each
-         * bin; partial end bins are scanned).
+         * bin, so a count is one binary search per bin). The samples of the two partly covered end
+         * bins that lie in the range are first copied, still delay-sorted, into the caller's
+         * scratch (one per thread; the index itself stays read-only).
+         *
+         * @param scratch two arrays, grown as needed (the caller keeps them)
          */
-        double[] delayQuantiles(double rLo, double rHi, double qLo, double qHi) {
+        double[] delayQuantiles(double rLo, double rHi, double qLo, double qHi, float[][] scratch) {
             int b0 = FastMath.max(0, (int) FastMath.floor(rLo / R_BIN));
             int b1 = FastMath.min(rBins - 1, (int) FastMath.floor(rHi / R_BIN));
             if (b0 > b1) {
                 return new double[] {dmin, dmax};
             }
-            int count = countBelow(rLo, rHi, b0, b1, Float.POSITIVE_INFINITY);
+            int[] ends = new int[2];
+            ends[0] = partial(b0, rLo, rHi, scratch, 0);
+            ends[1] = b1 > b0 ? partial(b1, rLo, rHi, scratch, 1) : 0;
+            int count = countBelow(b0, b1, scratch, ends, Float.POSITIVE_INFINITY);
             if (count == 0) {
                 return new double[] {dmin, dmax};
             }
             int a = (int) FastMath.floor(qLo * (count - 1));
             int b = (int) FastMath.ceil(qHi * (count - 1));
-            return new double[] {kth(rLo, rHi, b0, b1, a), kth(rLo, rHi, b0, b1, b)};
+            return new double[] {kth(b0, b1, scratch, ends, a), kth(b0, b1, scratch, ends, b)};
         }
 
-        /** @return the (k+1)-th smallest delay of the samples with radius in [rLo, rHi] */
-        private float kth(double rLo, double rHi, int b0, int b1, int k) {
+        /** Copies the delays of the samples of bin with radius in [rLo, rHi] (delay order) into scratch[slot]; returns their number. */
+        private int partial(int bin, double rLo, double rHi, float[][] scratch, int slot) {
+            int from = rStart[bin], until = rStart[bin + 1];
+            if (scratch[slot] == null || scratch[slot].length < until - from) {
+                scratch[slot] = new float[until - from];
+            }
+            float[] out = scratch[slot];
+            int k = 0;
+            for (int j = from; j < until; j++) {
+                if (rByR[j] >= rLo && rByR[j] <= rHi) {
+                    out[k++] = dByR[j];
+                }
+            }
+            return k;
+        }
+
+        /** @return the (k+1)-th smallest delay of the samples counted by {@link #countBelow} */
+        private float kth(int b0, int b1, float[][] scratch, int[] ends, int k) {
             long lo = sortable((float) dmin) - 1L, hi = sortable((float) dmax);
             // smallest key with more than k samples at or below it: an element's value
             while (hi - lo > 1) {
                 int mid = (int) ((lo + hi) >> 1);
-                if (countBelow(rLo, rHi, b0, b1, Float.intBitsToFloat(unsortable(mid))) > k) {
+                if (countBelow(b0, b1, scratch, ends, Float.intBitsToFloat(unsortable(mid))) > k) {
                     hi = mid;
                 } else {
                     lo = mid;
@@ -245,40 +281,42 @@ public final class CompactSourceModel {
             return Float.intBitsToFloat(unsortable((int) hi));
         }
 
-        /** @return the number of samples with radius in [rLo, rHi] and delay &lt;= v */
-        private int countBelow(double rLo, double rHi, int b0, int b1, float v) {
-            int count = 0;
-            for (int bin = b0; bin <= b1; bin++) {
-                int from = rStart[bin], until = rStart[bin + 1];
-                if (bin * R_BIN >= rLo && (bin + 1) * R_BIN <= rHi) {
-                    count += firstAbove(dByR, from, until, v) - from;
-                } else {
-                    for (int j = from; j < until && dByR[j] <= v; j++) {
-                        if (rByR[j] >= rLo && rByR[j] <= rHi) {
-                            count++;
-                        }
-                    }
-                }
+        /** @return the number of samples with radius in range and delay &lt;= v: inner bins whole, end bins from the scratch */
+        private int countBelow(int b0, int b1, float[][] scratch, int[] ends, float v) {
+            int count = firstAbove(scratch[0], 0, ends[0], v);
+            if (b1 > b0) {
+                count += firstAbove(scratch[1], 0, ends[1], v);
+            }
+            for (int bin = b0 + 1; bin < b1; bin++) {
+                count += firstAbove(dByR, rStart[bin], rStart[bin + 1], v) - rStart[bin];
             }
             return count;
         }
 
-        /** @return the smallest and largest delay of the samples with radius in [rLo, rHi] ({dmin, dmax} when none) */
+        /**
+         * @return the smallest and largest delay of the samples with radius in [rLo, rHi] ({dmin, dmax}
+         *     when none): the ends of the inner radius bins, the end bins scanned from either end
+         */
         double[] delayRange(double rLo, double rHi) {
-            double lo = Double.NaN, hi = Double.NaN;
-            for (int j = 0; j < m; j++) {
-                if (rByDelay[j] >= rLo && rByDelay[j] <= rHi) {
-                    lo = byDelay[j];
-                    break;
+            int b0 = FastMath.max(0, (int) FastMath.floor(rLo / R_BIN));
+            int b1 = FastMath.min(rBins - 1, (int) FastMath.floor(rHi / R_BIN));
+            double lo = Double.POSITIVE_INFINITY, hi = Double.NEGATIVE_INFINITY;
+            for (int bin = b0; bin <= b1; bin++) {
+                int from = rStart[bin], until = rStart[bin + 1];
+                for (int j = from; j < until; j++) {
+                    if (rByR[j] >= rLo && rByR[j] <= rHi) {
+                        lo = FastMath.min(lo, dByR[j]);
+                        break;
+                    }
+                }
+                for (int j = until - 1; j >= from; j--) {
+                    if (rByR[j] >= rLo && rByR[j] <= rHi) {
+                        hi = FastMath.max(hi, dByR[j]);
+                        break;
+                    }
                 }
             }
-            for (int j = m - 1; j >= 0; j--) {
-                if (rByDelay[j] >= rLo && rByDelay[j] <= rHi) {
-                    hi = byDelay[j];
-                    break;
-                }
-            }
-            return Double.isNaN(lo) ? new double[] {dmin, dmax} : new double[] {lo, hi};
+            return lo > hi ? new double[] {dmin, dmax} : new double[] {lo, hi};
         }
 
         private static int sortable(float f) {
@@ -394,6 +432,7 @@ public final class CompactSourceModel {
     /** Delay quantiles of the last radial range (the frame grid while the orbit's radii do not change). */
     private double qLo = Double.NaN, qHi = Double.NaN;
     private double[] lastQ;
+    private final float[][] quantileScratch = new float[2][];
     private Index quantiled;
     /** Beam-peak scratch: one frame's pixel sums, the pixels touched, then every frame's pixels in a row. */
     private double[] pixelSum = new double[0];
@@ -435,7 +474,7 @@ public final class CompactSourceModel {
         }
         double lo = rr[0] - spread - 2 * h, hi = rr[1] + spread + 2 * h;
         if (quantiled != index || lo != qLo || hi != qHi) {
-            lastQ = index.delayQuantiles(lo, hi, 0.02, 0.98);
+            lastQ = index.delayQuantiles(lo, hi, 0.02, 0.98, quantileScratch);
             quantiled = index;
             qLo = lo;
             qHi = hi;
@@ -465,6 +504,10 @@ public final class CompactSourceModel {
                          double steadyRatio, double beamSigmaM) {
         boolean beamed = beamSigmaM > 0;
         summingPixels = beamed;
+        if (++framesCall == Integer.MAX_VALUE) {
+            framesCall = 1;
+            java.util.Arrays.fill(profileCall, 0);
+        }
         if (beamed) {
             prepareBeam(index, times.length, beamSigmaM);
         }
@@ -620,7 +663,7 @@ public final class CompactSourceModel {
                                         if (sheared) {
                                             // curvilinear offsets from the centre on its circle: radial u, along
                                             // the orbit w, vertical ddz; sheared Gaussian plus the kernel
-                                            double dphi = index.phi[i] - phiC - omC * dt;
+                                            double dphi = FastMath.atan2(index.y[i], index.x[i]) - phiC - omC * dt;
                                             dphi -= TWO_PI * FastMath.rint(dphi / TWO_PI);
                                             double u = index.rho[i] - rhoC, w = rhoC * dphi;
                                             double sh = sRate * te;
@@ -776,151 +819,78 @@ public final class CompactSourceModel {
 
     /** Sums of the last {@link #ring} call: flux, flux x east, flux x north. */
     private final double[] acc = new double[3];
-    /** Cells of the annulus about the last sheared orbit, and the orbit they were listed for. */
-    private int[] ringCells = new int[0];
-    private double[] ringPhi = new double[0];
-    private int ringCount;
-    private double ringRho = Double.NaN, ringZ = Double.NaN, ringBox = Double.NaN;
-    private Index ringIndex;
+
+    /** Binned samples about each sheared spot's orbit (per source), and the frames() call they were built in. */
+    private RingProfile[] profiles = new RingProfile[0];
+    private int[] profileCall = new int[0];
+    private int framesCall;
 
     /**
      * A sheared spot on its circular orbit, one frame: the orbit's centre has constant cylindrical
-     * radius, height, angular velocity and 4-velocity, so every sample of the cells of the annulus
-     * about it whose delay maps into the emission window [e0, e1] is weighed at its own emission
-     * time without stepping (a sheared spot becomes an arc and then a ring, and stepping a box along
-     * it would visit the same cells many times). Sums into {@link #acc}.
+     * radius, height, angular velocity and 4-velocity, so the samples of the annulus about it are
+     * binned once per call of frames() ({@link RingProfile}) and every frame weighs the bins whose
+     * delay maps into the emission window [e0, e1] by the sheared Gaussian and the envelope at their
+     * own emission time. Sums into {@link #acc}.
      */
     private void ring(Index index, CentreTrack track, Spot spot, int k, double to, double e0, double e1, double sig2,
                       double blob2, double kern2) {
         acc[0] = 0;
         acc[1] = 0;
         acc[2] = 0;
-        double tm = 0.5 * (e0 + e1);
-        if (!track.expansion(k, tm, c)) {
+        ringSinkIndex = index;
+        RingProfile pf = profile(index, track, spot, k, sig2, blob2, kern2);
+        if (pf == null) {
             return;
         }
-        double rhoC = FastMath.hypot(c[0], c[1]);
-        double phiM = FastMath.atan2(c[1], c[0]);
-        double omC = (c[0] * c[4] - c[1] * c[3]) / (rhoC * rhoC);
-        double zC = c[2];
-        double box = CUT_SIGMAS * FastMath.sqrt(sig2) + 1e-6;
-        // the listing keeps a margin of a cell diagonal beyond the half cell it needs: a circle moved
-        // by integration drift less than a quarter cell is still covered
-        if (ringIndex != index || FastMath.abs(rhoC - ringRho) > 0.25 * index.cell
-                || FastMath.abs(zC - ringZ) > 0.25 * index.cell || box != ringBox) {
-            listAnnulus(index, rhoC, zC, box);
+        double sRate = spot.shearRate(), rhoC = pf.rhoC;
+        // only phases within the arc's half-length (at the largest shear of the window) can be inside the
+        // cut: the quadratic form is at least w^2 / cc for any radial offset
+        double shMax = sRate * FastMath.max(FastMath.abs(e0), FastMath.abs(e1));
+        double halfPhase = CUT_SIGMAS * FastMath.sqrt(blob2 * (1 + shMax * shMax) + kern2) / rhoC;
+        int np = pf.phaseBins();
+        int b0 = 0, b1 = np - 1;
+        if (2 * halfPhase + 2 * pf.phaseStep() < TWO_PI) {
+            double lo = pf.theta(to) - halfPhase;
+            lo -= TWO_PI * FastMath.floor(lo / TWO_PI);
+            b0 = FastMath.min(np - 1, (int) (lo / pf.phaseStep()));
+            b1 = b0 + (int) FastMath.ceil(2 * halfPhase / pf.phaseStep()) + 1;
         }
-        double ut = c[9], ur = c[10], uth = c[11], uph = c[12];
-        double e = 2.0 + track.spectralIndex(k);
-        double sRate = spot.shearRate();
-        double dLo = to - e1, dHi = to - e0;
-        double cutQ = CUT_SIGMAS * CUT_SIGMAS;
-        double sf = 0, sx = 0, sy = 0;
-        // a cell sees the spot only while the centre's azimuth is within the arc's half-width (at the
-        // largest shear of the window) plus the cell's own extent: one emission-time interval per turn
-        double shMax = FastMath.abs(sRate) * e1;
-        double halfW = CUT_SIGMAS * FastMath.sqrt(blob2 * (1 + shMax * shMax) + kern2);
-        double dPhi = (halfW + index.cell * FastMath.sqrt(3.0)) / FastMath.max(rhoC - box - index.cell, 1e-3);
-        boolean whole = dPhi >= FastMath.PI || !(FastMath.abs(omC) > 0);
-        for (int ci = 0; ci < ringCount; ci++) {
-            int cellIdx = ringCells[ci];
-            int from = index.cellStart[cellIdx], until = index.cellStart[cellIdx + 1];
-            int m0 = 0, m1 = 0;
-            double rel = 0;
-            if (!whole) {
-                rel = ringPhi[ci] - phiM;
-                // turns m with |rel + 2 pi m - omC (te - tm)| <= dPhi for some te in [e0, e1]
-                double p0 = omC * (e0 - tm), p1 = omC * (e1 - tm);
-                double lo = FastMath.min(p0, p1) - dPhi - rel, hi = FastMath.max(p0, p1) + dPhi - rel;
-                m0 = (int) FastMath.ceil(lo / TWO_PI);
-                m1 = (int) FastMath.floor(hi / TWO_PI);
-            }
-            for (int m = m0; m <= m1; m++) {
-            double wLo = dLo, wHi = dHi;
-            if (!whole) {
-                double ta = tm + (rel + TWO_PI * m - dPhi) / omC, tb = tm + (rel + TWO_PI * m + dPhi) / omC;
-                double tLo = FastMath.max(e0, FastMath.min(ta, tb)), tHi = FastMath.min(e1, FastMath.max(ta, tb));
-                if (!(tHi >= tLo)) {
-                    continue;
-                }
-                wLo = FastMath.max(dLo, to - tHi - 1e-9);
-                wHi = FastMath.min(dHi, to - tLo + 1e-9);
-            }
-            for (int i = firstAbove(index.d, from, until, wLo); i < until && index.d[i] <= wHi; i++) {
-                double u = index.rho[i] - rhoC, dz = index.z[i] - zC;
-                if (FastMath.abs(u) > box || FastMath.abs(dz) > box) {
-                    continue;
-                }
-                double te = to - index.d[i];
-                double dphi = index.phi[i] - phiM - omC * (te - tm);
-                dphi -= TWO_PI * FastMath.rint(dphi / TWO_PI);
-                double w = rhoC * dphi;
-                double sh = sRate * te;
-                double aa = blob2 + kern2, bb = blob2 * sh, cc = blob2 * (1 + sh * sh) + kern2;
-                double det = aa * cc - bb * bb;
-                double q = (cc * u * u - 2 * bb * u * w + aa * w * w) / det + dz * dz / aa;
-                if (q >= cutQ) {
-                    continue;
-                }
-                double gInv = Redshift.inverse(index.pr[i], index.pth[i], index.pph[i], ut, ur, uth, uph);
-                if (!(gInv > 0)) {
-                    continue;
-                }
-                double gp = e == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -e);
-                // emitter-frame density: weight x envelope / u^t (MTW 1973, sect. 22.3), sheared Gaussian
-                double dens = spot.weight() * spot.flare().applyAsDouble(te) / ut * INV_TWO_PI_15 / FastMath.sqrt(det * aa)
-                        * gaussian(0.5 * q);
-                double val = index.dl[i] * dens * gp;
-                sf += val;
-                sx += val * index.east[i];
-                sy += val * index.north[i];
-                if (summingPixels) {
-                    addToPixel(index, index.east[i], index.north[i], val);
-                }
-            }
-            }
-        }
-        acc[0] = sf;
-        acc[1] = sx;
-        acc[2] = sy;
+        pf.sum(to, e0, e1, b0, b1, acc, summingPixels ? pixelSink : null);
+
     }
 
-    /** Lists the non-empty cells that can hold samples within box of the circle (rhoC, zC). */
-    private void listAnnulus(Index index, double rhoC, double zC, double box) {
-        double diag = index.cell * FastMath.sqrt(3.0);
-        double reach = rhoC + box + diag;
-        int x0 = index.clamp((int) FastMath.floor((-reach - index.lo) * index.inv));
-        int x1 = index.clamp((int) FastMath.floor((reach - index.lo) * index.inv));
-        int z0 = index.clamp((int) FastMath.floor((zC - box - index.lo) * index.inv));
-        int z1 = index.clamp((int) FastMath.floor((zC + box - index.lo) * index.inv));
-        int need = (x1 - x0 + 1) * (x1 - x0 + 1) * (z1 - z0 + 1);
-        if (ringCells.length < need) {
-            ringCells = new int[need];
-            ringPhi = new double[need];
+    /** @return the profile of sheared source k for the current frames() call (built on first use; null: no orbit) */
+    private RingProfile profile(Index index, CentreTrack track, Spot spot, int k, double sig2, double blob2,
+                                double kern2) {
+        if (profiles.length <= k) {
+            profiles = java.util.Arrays.copyOf(profiles, k + 1);
+            profileCall = java.util.Arrays.copyOf(profileCall, k + 1);
         }
-        ringCount = 0;
-        for (int ix = x0; ix <= x1; ix++) {
-            double cx = index.lo + (ix + 0.5) * index.cell;
-            for (int iy = x0; iy <= x1; iy++) {
-                double cy = index.lo + (iy + 0.5) * index.cell;
-                double rc = FastMath.sqrt(cx * cx + cy * cy);
-                if (FastMath.abs(rc - rhoC) > box + diag) {
-                    continue;
-                }
-                for (int iz = z0; iz <= z1; iz++) {
-                    int cellIdx = (ix * index.n + iy) * index.n + iz;
-                    if (index.cellStart[cellIdx + 1] > index.cellStart[cellIdx]) {
-                        ringPhi[ringCount] = FastMath.atan2(cy, cx);
-                        ringCells[ringCount++] = cellIdx;
-                    }
-                }
-            }
+        if (profiles[k] == null) {
+            profiles[k] = new RingProfile();
         }
-        ringIndex = index;
-        ringRho = rhoC;
-        ringZ = zC;
-        ringBox = box;
+        RingProfile pf = profiles[k];
+        if (profileCall[k] == framesCall) {
+            return pf.size >= 0 ? pf : null;
+        }
+        profileCall[k] = framesCall;
+        double tEnd = track.time(track.snapshots() - 1);
+        double tm = 0.5 * tEnd;
+        if (!track.expansion(k, tm, c)) {
+            pf.size = -1;
+            return null;
+        }
+        double rhoC = FastMath.hypot(c[0], c[1]);
+        double box = CUT_SIGMAS * FastMath.sqrt(sig2) + 1e-6;
+        pf.prepare(index, sig2, box, rhoC, c[2], (c[0] * c[4] - c[1] * c[3]) / (rhoC * rhoC),
+                FastMath.atan2(c[1], c[0]), tm, c[9], c[10], c[11], c[12], 2.0 + track.spectralIndex(k));
+        pf.tabulate(spot, tEnd, spot.shearRate(), blob2, kern2);
+        return pf;
     }
+
+    /** Adds a group's value to its pixel. */
+    private final RingProfile.PixelSink pixelSink = (e, n, v) -> addToPixel(this.ringSinkIndex, e, n, v);
+    private Index ringSinkIndex;
 
     /** Entries per unit of the exponent in {@link #GAUSS}. */
     private static final int GAUSS_PER_UNIT = 512;

@@ -102,11 +102,17 @@ public final class LightPlots {
             FrameMoments m = r.moments().get(f);
             if (!Double.isNaN(m.x()) && m.flux() >= floor) {
                 ext = Math.max(ext, Math.max(Math.abs(m.x()), Math.abs(m.y())) * uas);
+                if (Double.isFinite(r.astrometricX()[f])) {
+                    ext = Math.max(ext, Math.max(Math.abs(r.astrometricX()[f]), Math.abs(r.astrometricY()[f])) * uas);
+                }
             }
         }
         double beam = s.beamFwhmUas();
         // room for the beam circle in the corner, clear of the track
-        ext = Math.max(ext * 1.1 + 1.2 * beam, 1.0);
+        ext = ext * 1.1 + 1.2 * beam;
+        if (!(ext > 0)) {
+            ext = 1.0;     // nothing to show: any field will do
+        }
         int bins = Math.min(TRACK_BINS, Math.max(1, t.length - 1));
         for (int b = 0; b < bins; b++) {
             int f0 = b * (t.length - 1) / bins;
@@ -150,6 +156,23 @@ public final class LightPlots {
             ser.setLineColor(Color.GRAY);
             ser.setLineStyle(SeriesLines.DASH_DASH);
             ser.setMarker(SeriesMarkers.NONE);
+        }
+        if (beam > 0 && r.astrometricX() != r.steadyX()) {
+            // with a beam the instrument reports the peak of the beam-convolved image, not a centroid
+            List<Double> xs = new ArrayList<>();
+            List<Double> ys = new ArrayList<>();
+            for (int f = 0; f < t.length; f++) {
+                if (r.moments().get(f).flux() >= floor && Double.isFinite(r.astrometricX()[f])) {
+                    xs.add(-r.astrometricX()[f] * uas);
+                    ys.add(r.astrometricY()[f] * uas);
+                }
+            }
+            if (!xs.isEmpty()) {
+                XYSeries ser = c.addSeries("reported (beam peak)", xs, ys);
+                ser.setLineColor(new Color(0.80f, 0.25f, 0.10f));
+                ser.setLineStyle(SeriesLines.DOT_DOT);
+                ser.setMarker(SeriesMarkers.NONE);
+            }
         }
         XYSeries hole = c.addSeries("black hole", new double[] {0.0}, new double[] {0.0});
         hole.setMarker(SeriesMarkers.CROSS);
@@ -222,6 +245,22 @@ public final class LightPlots {
             b.setMarker(SeriesMarkers.NONE);
             b.setLineStyle(SeriesLines.DASH_DASH);
             b.setLineColor(new Color(0.10f, 0.35f, 0.75f));
+        }
+        if (s.beamFwhmUas() > 0 && r.astrometricX() != r.steadyX()) {
+            // the position the instrument reports (beam-convolved peak), which mock epochs scatter about
+            double[] x3 = new double[n], y3 = new double[n];
+            for (int i = 0; i < keep.size(); i++) {
+                x3[i] = r.astrometricX()[keep.get(i)] * uas;
+                y3[i] = r.astrometricY()[keep.get(i)] * uas;
+            }
+            XYSeries a = c.addSeries("x reported (beam peak)", t, x3);
+            a.setMarker(SeriesMarkers.NONE);
+            a.setLineStyle(SeriesLines.DOT_DOT);
+            a.setLineColor(new Color(0.55f, 0.15f, 0.05f));
+            XYSeries b = c.addSeries("y reported (beam peak)", t, y3);
+            b.setMarker(SeriesMarkers.NONE);
+            b.setLineStyle(SeriesLines.DOT_DOT);
+            b.setLineColor(new Color(0.05f, 0.20f, 0.50f));
         }
         if (r.mock() != null) {
             LightResult.MockAstrometry mk = r.mock();

@@ -87,11 +87,18 @@ final class Charts {
         return String.format(Locale.ROOT, Math.abs(v) >= 100 ? "%.0f" : Math.abs(v) >= 10 ? "%.1f" : "%.2f", v);
     }
 
-    static void circle(XYChart c, String name, double radius, Color color, boolean dashed) {
+    /**
+     * A circle about the origin. XChart draws a line series segment by segment, each starting the
+     * dash pattern afresh, so a dashed circle uses segments about one dash period long (a
+     * sixteenth of the half-width {@code extent} of the plotted field: about 13 pixels on a
+     * 430-pixel panel) and shows dashes; a solid one uses 180 segments.
+     */
+    static void circle(XYChart c, String name, double radius, Color color, boolean dashed, double extent) {
         if (!(radius > 0) || !Double.isFinite(radius)) {
             return;
         }
-        int m = 181;
+        int m = dashed && extent > 0 ? (int) Math.max(13, Math.min(181, Math.ceil(2 * Math.PI * radius / (extent / 16)) + 1))
+                : 181;
         double[] x = new double[m];
         double[] y = new double[m];
         for (int j = 0; j < m; j++) {
@@ -104,7 +111,7 @@ final class Charts {
         s.setMarker(SeriesMarkers.NONE);
         s.setLineColor(color);
         s.setLineStyle(dashed ? new BasicStroke(1.5f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
-                new float[] {6f, 4f}, 0f) : new BasicStroke(1.5f));
+                new float[] {7f, 5f}, 0f) : new BasicStroke(1.5f));
     }
 
     static void vline(XYChart c, String name, double x, double y0, double y1, Color col) {

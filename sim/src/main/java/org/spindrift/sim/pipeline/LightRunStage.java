@@ -47,7 +47,7 @@ public final class LightRunStage implements RunStage {
         LightOutputs.write((name, w) -> ctx.archive().writeStream(name, w), r);
         LightPlots.write((name, w) -> ctx.archive().writeStream(name, w), r, RunNotes.guard(ctx));
         ctx.results().light(r);
-        ObjectNode m = ctx.manifest().putObject("light");
+        ObjectNode m = ctx.manifest().putObject(org.spindrift.shared.archive.ArchiveLayout.K_LIGHT);
         m.put("lensing", s.lensing());
         m.put("pixels", s.pixels());
         m.put("field_of_view_M", s.fieldOfViewM());
@@ -57,7 +57,7 @@ public final class LightRunStage implements RunStage {
         m.put("smoothing_length_M", r.smoothingLength());
         m.put("rays", r.table().rays());
         m.put("samples", r.table().samples());
-        m.put("frames", r.timesM().length);
+        m.put(org.spindrift.shared.archive.ArchiveLayout.K_FRAMES, r.timesM().length);
         m.put("time_origin", "observer time = emission coordinate time + ray delay; delay = elapsed coordinate"
                 + " time from the camera plane at distance d minus d + 2 M ln(d/M)");
         m.put("steady_source_flux", r.steadyFlux());
@@ -74,7 +74,7 @@ public final class LightRunStage implements RunStage {
                             - ctx.history().time(0))).getMessage());
         }
         ObjectNode sm = ctx.summary().putObject("light");
-        sm.put("frames", r.timesM().length);
+        sm.put(org.spindrift.shared.archive.ArchiveLayout.K_FRAMES, r.timesM().length);
         if (r.timesM().length > 0) {
             sm.put("t_first_min", r.timesM()[0] * s.minutesPerM());
             sm.put("t_last_min", r.timesM()[r.timesM().length - 1] * s.minutesPerM());

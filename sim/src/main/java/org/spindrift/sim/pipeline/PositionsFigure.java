@@ -148,10 +148,10 @@ final class PositionsFigure implements RunFigure {
             double rh = ctx.landmark(ArchiveLayout.LM_HORIZON_OUTER);
             double inner = Double.isFinite(rh) ? rh : ctx.landmark(ArchiveLayout.LM_CAPTURE_RADIUS);
             circle(c, (Double.isFinite(rh) ? "horizon " : "surface (capture radius) ") + fmt(inner) + " M", inner,
-                    Color.BLACK, false);
-            circle(c, "ISCO " + fmt(ctx.landmark(ArchiveLayout.LM_ISCO_PROGRADE)) + " M", ctx.landmark(ArchiveLayout.LM_ISCO_PROGRADE), Color.GRAY, true);
+                    Color.BLACK, false, extent);
+            circle(c, "ISCO " + fmt(ctx.landmark(ArchiveLayout.LM_ISCO_PROGRADE)) + " M", ctx.landmark(ArchiveLayout.LM_ISCO_PROGRADE), Color.GRAY, true, extent);
             circle(c, "Omega max " + fmt(ctx.landmark(ArchiveLayout.LM_OMEGA_MAX_RADIUS)) + " M", ctx.landmark(ArchiveLayout.LM_OMEGA_MAX_RADIUS),
-                    new Color(214, 39, 40), true);
+                    new Color(214, 39, 40), true, extent);
             charts.add(c);
         }
         return charts;

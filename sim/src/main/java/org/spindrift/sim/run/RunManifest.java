@@ -76,43 +76,44 @@ final class RunManifest {
     static ObjectNode body(ScenarioRun.Prepared p, ObjectNode extra, ObjectNode diag, BatchIntegrator.Result res) {
         Scenario sc = p.loaded().scenario();
         ObjectNode m = RunArchiveWriter.json().createObjectNode();
-        m.set("scenario", ScenarioJson.toJson(sc));
+        m.set(ArchiveLayout.K_SCENARIO, ScenarioJson.toJson(sc));
         m.put("scenario_file", p.loaded().file().toString());
-        m.put("seed", sc.run().seed());
-        ObjectNode bh = m.putObject("black_hole");
-        bh.put("mass_solar", sc.blackHole().massSolar());
-        bh.put("distance_Mpc", sc.blackHole().distanceMpc());
-        bh.put("family", sc.blackHole().family());
-        bh.put("spin", sc.blackHole().spin());
-        ObjectNode par = bh.putObject("parameters");
+        m.put(ArchiveLayout.K_SEED, sc.run().seed());
+        ObjectNode bh = m.putObject(ArchiveLayout.K_BLACK_HOLE);
+        bh.put(ArchiveLayout.K_MASS_SOLAR, sc.blackHole().massSolar());
+        bh.put(ArchiveLayout.K_DISTANCE_MPC, sc.blackHole().distanceMpc());
+        bh.put(ArchiveLayout.K_FAMILY, sc.blackHole().family());
+        bh.put(ArchiveLayout.K_SPIN, sc.blackHole().spin());
+        ObjectNode par = bh.putObject(ArchiveLayout.K_PARAMETERS);
         sc.blackHole().parameters().forEach(par::put);
-        ObjectNode u = m.putObject("units");
-        u.put("M_seconds", p.secondsPerM());
-        u.put("M_metres", Units.lengthUnitMetres(sc.blackHole().massSolar()));
-        u.put("M_uas", p.uasPerM());
-        m.putObject("observer").put("inclination_deg", sc.observer().inclinationDeg())
-                .put("position_angle_deg", sc.observer().positionAngleDeg());
+        ObjectNode u = m.putObject(ArchiveLayout.K_UNITS);
+        u.put(ArchiveLayout.K_M_SECONDS, p.secondsPerM());
+        u.put(ArchiveLayout.K_M_METRES, Units.lengthUnitMetres(sc.blackHole().massSolar()));
+        u.put(ArchiveLayout.K_M_UAS, p.uasPerM());
+        m.putObject(ArchiveLayout.K_OBSERVER).put(ArchiveLayout.K_INCLINATION_DEG, sc.observer().inclinationDeg())
+                .put(ArchiveLayout.K_POSITION_ANGLE_DEG, sc.observer().positionAngleDeg());
         ObjectNode lm = m.putObject(ArchiveLayout.LANDMARKS);
         p.landmarks().forEach((k, v) -> put(lm, k, v));
-        ObjectNode time = m.putObject("time");
+        ObjectNode time = m.putObject(ArchiveLayout.K_TIME);
         time.put("origin", "coordinate time t = 0 at the start of the run (emitter time)");
         time.put("duration_M", p.durationM());
         time.put("duration_requested_M", p.requestedDurationM());
         time.put("duration_min", p.durationM() * p.secondsPerM() / 60.0);
-        time.put("snapshots", p.times().length);
+        time.put(ArchiveLayout.K_SNAPSHOTS, p.times().length);
         time.put("cadence_M", p.times()[1] - p.times()[0]);
         time.put("first_orbit_period_M", p.placed().centres()[0].periodM());
-        ArrayNode sources = m.putArray("sources");
+        ArrayNode sources = m.putArray(ArchiveLayout.K_SOURCES);
         int[] first = p.placed().firstIndex();
         int[] kept = Subsample.keptPerSource(sc);
         int at = 0;
         for (int k = 0; k < sc.sources().size(); k++) {
             Source s = sc.sources().get(k);
-            sources.addObject().put("name", s.name()).put("kind", s.kind().key()).put("particles", s.particles())
-                    .put("kept", kept[k]).put("first_index", at).put("first_particle", first[k]);
+            sources.addObject().put(ArchiveLayout.K_NAME, s.name()).put(ArchiveLayout.K_KIND, s.kind().key())
+                    .put(ArchiveLayout.K_PARTICLES, s.particles()).put(ArchiveLayout.K_KEPT, kept[k])
+                    .put(ArchiveLayout.K_FIRST_INDEX, at).put("first_particle", first[k]);
             at += kept[k];
         }
-        m.set("diagnostics", diag);
+        m.set(ArchiveLayout.K_DIAGNOSTICS, diag);
         ObjectNode es = m.putObject(ArchiveLayout.END_STATES);
         for (EndState e : EndState.values()) {
             es.put(e.key(), res.count(e));

@@ -240,7 +240,9 @@ final class StudyOutputs {
     static BufferedImage pulls(StudyFile s, JsonNode[] cells) {
         List<BufferedImage> panels = new ArrayList<>();
         for (var f : s.free()) {
-            XYChart c = chart("pull of " + f.key(), "deformation " + s.deformationKey(), "best reference - truth");
+            XYChart c = chart("pull of " + f.key(), "deformation " + s.deformationKey(),
+                    "best reference - truth" + unitOf(f.key()));
+            double lo = 0.0, hi = 0.0;     // zero pull always in view
             for (double beam : s.beamsUas()) {
                 List<Double> xs = new ArrayList<>(), ys = new ArrayList<>();
                 for (double d : s.deformations()) {
@@ -252,10 +254,35 @@ final class StudyOutputs {
                 }
                 XYSeries ser = c.addSeries("beam " + beam + " uas", xs, ys);
                 ser.setMarker(SeriesMarkers.CIRCLE);
+                lo = FastMath.min(lo, ys.stream().mapToDouble(Double::doubleValue).min().orElse(lo));
+                hi = FastMath.max(hi, ys.stream().mapToDouble(Double::doubleValue).max().orElse(hi));
             }
+            padded(c, s.deformations(), lo, hi);
             panels.add(BitmapEncoder.getBufferedImage(c));
         }
         return tile(panels);
+    }
+
+    /** @return " (unit)" for a key path whose name ends in a unit suffix (_M, _deg, _min, _uas), else "" */
+    static String unitOf(String key) {
+        for (String[] u : new String[][] {{"_M", "M"}, {"_deg", "deg"}, {"_min", "min"}, {"_uas", "uas"}}) {
+            if (key.endsWith(u[0])) {
+                return " (" + u[1] + ")";
+            }
+        }
+        return "";
+    }
+
+    /**
+     * Axis ranges with a margin, also when every value is the same (a single deformation or a zero
+     * pull): XChart would otherwise collapse the axis onto one value and print it in full.
+     */
+    private static void padded(XYChart c, double[] xs, double yLo, double yHi) {
+        double xLo = java.util.Arrays.stream(xs).min().orElse(0.0), xHi = java.util.Arrays.stream(xs).max().orElse(1.0);
+        double xm = xHi > xLo ? 0.08 * (xHi - xLo) : FastMath.max(0.5 * FastMath.abs(xLo), 0.5);
+        double ym = yHi > yLo ? 0.1 * (yHi - yLo) : FastMath.max(0.5 * FastMath.abs(yLo), 0.5);
+        c.getStyler().setXAxisMin(xLo - xm).setXAxisMax(xHi + xm).setYAxisMin(yLo - ym).setYAxisMax(yHi + ym);
+        c.getStyler().setXAxisDecimalPattern("0.###").setYAxisDecimalPattern("0.###");
     }
 
     /** Sky tracks at the epochs of the most deformed cell: truth and the best-fitting reference (noise-free). */
@@ -274,6 +301,22 @@ final class StudyOutputs {
         a.setMarker(SeriesMarkers.CIRCLE);
         XYSeries b = c.addSeries("best reference", neg(t.path("reference_x_uas")), vals(t.path("reference_y_uas")));
         b.setMarker(SeriesMarkers.DIAMOND);
+        XYSeries hole = c.addSeries("black hole", new double[] {0.0}, new double[] {0.0});
+        hole.setMarker(SeriesMarkers.CROSS);
+        hole.setMarkerColor(Color.BLACK);
+        hole.setLineStyle(org.knowm.xchart.style.lines.SeriesLines.NONE);
+        // the abscissa is -x so that east is on the left; the tick labels show the true east offset
+        c.getStyler().setxAxisTickLabelsFormattingFunction(v -> String.format(java.util.Locale.ROOT, "%.3g",
+                v == 0 ? 0.0 : -v));
+        double ext = 0.0;
+        for (String k : new String[] {"truth_x_uas", "truth_y_uas", "reference_x_uas", "reference_y_uas"}) {
+            for (double v : vals(t.path(k))) {
+                ext = FastMath.max(ext, FastMath.abs(v));
+            }
+        }
+        ext = ext > 0 ? 1.1 * ext : 1.0;
+        // equal scales on both axes (a square field): the sky is not stretched
+        c.getStyler().setXAxisMin(-ext).setXAxisMax(ext).setYAxisMin(-ext).setYAxisMax(ext);
         return c;
     }
 

@@ -23,11 +23,12 @@ class CompactIndexTest {
         RayTable table = RayTable.trace(st, cam, ts, 2);
         CompactSourceModel.Index index = new CompactSourceModel.Index(table, 0.5);
         SplittableRandom rng = new SplittableRandom(11);
+        float[][] scratch = new float[2][];
         for (int i = 0; i < 40; i++) {
             double lo = rng.nextDouble(1.0, 11.0), hi = lo + rng.nextDouble(0.01, 6.0);
             double qa = rng.nextDouble(0.0, 0.2), qb = rng.nextDouble(0.8, 1.0);
             double[] want = table.delayQuantiles(lo, hi, qa, qb);
-            double[] got = index.delayQuantiles(lo, hi, qa, qb);
+            double[] got = index.delayQuantiles(lo, hi, qa, qb, scratch);
             assertEquals(want[0], got[0], 0.0, "lower quantile in [" + lo + ", " + hi + "]");
             assertEquals(want[1], got[1], 0.0, "upper quantile in [" + lo + ", " + hi + "]");
         }
