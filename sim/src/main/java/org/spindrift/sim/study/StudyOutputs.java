@@ -160,9 +160,12 @@ final class StudyOutputs {
     static BufferedImage map(StudyFile s, JsonNode[] cells) {
         List<BufferedImage> panels = new ArrayList<>();
         for (double beam : s.beamsUas()) {
-            XYChart c = chart("beam FWHM " + beam + " uas", "astrometric one-sigma per epoch (uas)",
+            XYChart c = chart("beam FWHM " + beam + " uas", "astrometric one-sigma per epoch (uas, logarithmic)",
                     "deformation " + s.deformationKey());
-            c.getStyler().setXAxisLogarithmic(true);
+            // log10(sigma) on a linear axis, labelled in uas: XChart's logarithmic axis labels decades only
+            c.getStyler().setxAxisTickLabelsFormattingFunction(v -> String.format(java.util.Locale.ROOT, "%.3g",
+                    FastMath.pow(10.0, v)));
+            double xLo = Double.POSITIVE_INFINITY, xHi = Double.NEGATIVE_INFINITY;
             List<double[]> groups = List.of(new double[] {0, 3}, new double[] {3, 5}, new double[] {5, Double.POSITIVE_INFINITY});
             String[] labels = {"median < 3 sigma", "3-5 sigma", "> 5 sigma"};
             Color[] colours = {new Color(120, 120, 120), new Color(230, 150, 0), new Color(200, 0, 0)};
@@ -171,16 +174,21 @@ final class StudyOutputs {
                 for (JsonNode n : cells) {
                     double sig = n.path("median_sigma").asDouble();
                     if (n.path("beam_fwhm_uas").asDouble() == beam && sig >= groups.get(g)[0] && sig < groups.get(g)[1]) {
-                        xs.add(n.path("sigma_uas").asDouble());
+                        xs.add(FastMath.log10(n.path("sigma_uas").asDouble()));
                         ys.add(n.path("deformation").asDouble());
+                        xLo = FastMath.min(xLo, xs.get(xs.size() - 1));
+                        xHi = FastMath.max(xHi, xs.get(xs.size() - 1));
                     }
                 }
-                if (!xs.isEmpty()) {
-                    XYSeries ser = c.addSeries(labels[g], xs, ys);
-                    ser.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
-                    ser.setMarker(SeriesMarkers.CIRCLE);
-                    ser.setMarkerColor(colours[g]);
+                if (xs.isEmpty()) {
+                    // every panel lists every class, so the panels have equal legends and heights
+                    xs.add(Double.NaN);
+                    ys.add(Double.NaN);
                 }
+                XYSeries ser = c.addSeries(labels[g], xs, ys);
+                ser.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+                ser.setMarker(SeriesMarkers.CIRCLE);
+                ser.setMarkerColor(colours[g]);
             }
             for (double level : new double[] {3, 5}) {
                 List<Double> xs = new ArrayList<>(), ys = new ArrayList<>();
@@ -192,17 +200,32 @@ final class StudyOutputs {
                     double at = contour(n.path("expected_delta_chi2").asDouble(), n.path("sigma_uas").asDouble(),
                             n.path("extra_parameters").asInt(), n.path("null_on_boundary").asInt() == 1, level);
                     if (Double.isFinite(at)) {
-                        xs.add(at);
+                        xs.add(FastMath.log10(at));
                         ys.add(d);
+                        xLo = FastMath.min(xLo, xs.get(xs.size() - 1));
+                        xHi = FastMath.max(xHi, xs.get(xs.size() - 1));
                     }
                 }
-                if (xs.size() >= 1) {
+                if (xs.isEmpty()) {
+                    xs.add(Double.NaN);
+                    ys.add(Double.NaN);
+                }
+                {
                     XYSeries ser = c.addSeries("expected " + (int) level + " sigma", xs, ys);
                     ser.setMarker(SeriesMarkers.DIAMOND);
                     ser.setLineColor(level == 3 ? new Color(230, 150, 0) : new Color(200, 0, 0));
                     ser.setMarkerColor(level == 3 ? new Color(230, 150, 0) : new Color(200, 0, 0));
                 }
             }
+            if (xLo <= xHi) {
+                double m = FastMath.max(0.1 * (xHi - xLo), 0.1);
+                c.getStyler().setXAxisMin(xLo - m).setXAxisMax(xHi + m);
+            }
+            // the same deformation axis in every panel
+            double dLo = java.util.Arrays.stream(s.deformations()).min().orElse(0.0);
+            double dHi = java.util.Arrays.stream(s.deformations()).max().orElse(1.0);
+            double dm = dHi > dLo ? 0.08 * (dHi - dLo) : FastMath.max(0.5 * FastMath.abs(dLo), 0.5);
+            c.getStyler().setYAxisMin(dLo - dm).setYAxisMax(dHi + dm).setYAxisDecimalPattern("0.###");
             panels.add(BitmapEncoder.getBufferedImage(c));
         }
         return tile(panels);
