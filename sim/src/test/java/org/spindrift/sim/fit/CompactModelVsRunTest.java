@@ -100,7 +100,12 @@ public class CompactModelVsRunTest {
         for (int i = 1; i < lines.size(); i++) {
             runTimes[i - 1] = Double.parseDouble(lines.get(i).split(",")[ct]);
         }
-        CompactSourceModel.Frames fr = FitModel.frames(ls, new FitModel.Cache(2), new CompactSourceModel(), runTimes);
+        // the model at 96 px whatever the run's resolution: it is converged there (see below), and its
+        // finely refined tables at 192 px would need more than 3 GB of heap
+        Path modelFile = tmp.resolve("compact-model.yaml");
+        Files.writeString(modelFile, scenario(family, spin, params, inc, beamUas, 96));
+        CompactSourceModel.Frames fr = FitModel.frames(ScenarioLoader.load(modelFile), new FitModel.Cache(2),
+                new CompactSourceModel(), runTimes);
         double radius = 0, worstC = 0, worstF = 0;
         int n = 0;
         double[] dc = new double[lines.size()], df = new double[lines.size()];
@@ -150,10 +155,10 @@ public class CompactModelVsRunTest {
         // (its table refines stretched pixels to at most 4 x 4 rays 3 pixels apart): the same comparison
         // with the run at 192 px gives medians 0.4-0.5 % / 0.6-0.9 % in all three cases (within the
         // targets) and worst frames 5 % face-on, 11 % (Kerr) and 21 % (jp) at i = 60 deg. Medians are held
-        // to the targets. The face-on case runs at 192 px: at 96 px the run's thin secondary ring jitters by
-        // 0.1-0.4 M from frame to frame, anticorrelated with its flux (median 1.4 %); at 192 px the median
-        // is 0.41 % / 0.58 %, worst 5.1 % / 3.2 %. The worst frames record what is reached so that a
-        // regression shows.
+        // to the targets. The face-on case runs at 192 px (the model at 96 px): at 96 px the run's thin
+        // secondary ring jitters by 0.1-0.4 M from frame to frame, anticorrelated with its flux (median
+        // 1.4 %); at 192 px the median is 0.50 % / 0.74 %, worst 4.8 % / 3.1 %. The worst frames record
+        // what is reached so that a regression shows.
         assertTrue(medC <= tolMedC * radius, msg);
         assertTrue(medF <= tolMedF, msg);
         assertTrue(worstC <= tolWorstC * radius, msg);
