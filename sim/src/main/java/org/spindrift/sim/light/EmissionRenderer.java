@@ -60,6 +60,12 @@ public final class EmissionRenderer implements AutoCloseable {
     private final float[] gDelay;
     /** true: every sample queries its slice with the bounding-box search of earlier versions */
     private final boolean reference;
+    /** true: samples read each slice's {@link GriddedEmission} instead of summing its particles */
+    private final boolean gridded;
+    /** grids of the cached slices (null where a slice falls back to its particles) */
+    private final Map<Long, GriddedEmission> grids = new HashMap<>();
+    private final ArrayDeque<GriddedEmission> spareGrids = new ArrayDeque<>();
+    private final GriddedEmission.Scratch[] scratch = new GriddedEmission.Scratch[BLOCKS];
     private int slicesBuilt;
     /** wall time spent building slices and summing samples, ns (for benchmarks) */
     private long buildNanos, sumNanos;
@@ -79,7 +85,22 @@ public final class EmissionRenderer implements AutoCloseable {
      */
     public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
                             int threads, boolean reference) {
-        this.reference = reference;
+        this(table, history, spacetime, smoothingLength, threads, reference, false);
+    }
+
+    /**
+     * @param reference true: no group test, every sample is queried (particles only)
+     * @param gridded true: each slice's particles are deposited on a grid of spacing h
+     *     ({@link GriddedEmission}) and samples read the grid; a slice whose particles have
+     *     different spectral indices is summed particle by particle
+     */
+    public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
+                            int threads, boolean reference, boolean gridded) {
+        this.reference = reference && !gridded;
+        this.gridded = gridded;
+        for (int b = 0; b < BLOCKS; b++) {
+            scratch[b] = new GriddedEmission.Scratch();
+        }
         this.history = history;
         this.spacetime = spacetime;
         this.pixels = table.camera().pixels();
@@ -237,6 +258,12 @@ public final class EmissionRenderer implements AutoCloseable {
             }
             return e.getKey() < jLo;
         });
+        grids.entrySet().removeIf(e -> {
+            if (e.getKey() < jLo && e.getValue() != null) {
+                spareGrids.push(e.getValue());
+            }
+            return e.getKey() < jLo;
+        });
         List<Long> missing = new ArrayList<>();
         for (long j = jLo; j <= jHi; j++) {
             if (!cache.containsKey(j)) {
@@ -249,13 +276,28 @@ public final class EmissionRenderer implements AutoCloseable {
         for (int i = 0; i < stores.length; i++) {
             stores[i] = spare.isEmpty() ? new EmissionSlice.Storage() : spare.pop();
         }
-        run(() -> IntStream.range(0, built.length).parallel().forEach(i -> built[i] = EmissionSlice.build(
-                history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h, 0.5 * sliceSpacing, rMax,
-                stores[i])));
+        GriddedEmission[] gs = new GriddedEmission[gridded ? built.length : 0];
+        for (int i = 0; i < gs.length; i++) {
+            gs[i] = spareGrids.isEmpty() ? new GriddedEmission() : spareGrids.pop();
+        }
+        run(() -> IntStream.range(0, built.length).parallel().forEach(i -> {
+            built[i] = EmissionSlice.build(history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h,
+                    0.5 * sliceSpacing, rMax, stores[i]);
+            if (gridded && built[i] != null) {
+                gs[i].fill(built[i], h);
+            }
+        }));
         for (int i = 0; i < built.length; i++) {
             cache.put(missing.get(i), built[i]);
             if (built[i] == null) {
                 spare.push(stores[i]);
+            }
+            if (gridded) {
+                boolean use = built[i] != null && gs[i].singleExponent();
+                grids.put(missing.get(i), use ? gs[i] : null);
+                if (!use) {
+                    spareGrids.push(gs[i]);
+                }
             }
         }
         slicesBuilt += built.length;
@@ -263,8 +305,10 @@ public final class EmissionRenderer implements AutoCloseable {
         buildNanos += t1 - t0;
         int count = (int) (jHi - jLo + 1);
         EmissionSlice[] window = new EmissionSlice[count];
+        GriddedEmission[] gridWindow = new GriddedEmission[count];
         for (int i = 0; i < count; i++) {
             window[i] = cache.get(jLo + i);
+            gridWindow[i] = gridded ? grids.get(jLo + i) : null;
         }
         // the samples that see any slice of the window, split into BLOCKS equal blocks
         // (whole delay bins: a superset; samples outside the window are skipped per sample)
@@ -279,7 +323,7 @@ public final class EmissionRenderer implements AutoCloseable {
             Arrays.fill(acc, 0.0);
             int i0 = from + b * size;
             int i1 = Math.min(to, i0 + size);
-            renderSamples(i0, i1, tObs, jLo, window, acc);
+            renderSamples(i0, i1, tObs, jLo, window, gridWindow, scratch[b], acc);
         }));
         for (int k = 0; k < image.length; k++) {
             double v = 0.0;
@@ -303,7 +347,8 @@ public final class EmissionRenderer implements AutoCloseable {
      * samples would find no particle), which spares the per-sample set-up on the many samples away
      * from the gas at the frame's emission times.
      */
-    private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
+    private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window,
+                               GriddedEmission[] gridWindow, GriddedEmission.Scratch sc, double[] acc) {
         if (reference) {
             renderRange(i0, i1, tObs, jLo, window, acc);
             return;
@@ -319,7 +364,7 @@ public final class EmissionRenderer implements AutoCloseable {
                         gBox[6 * g + 4], gBox[6 * g + 5]);
             }
             if (any) {
-                renderNear(a, b, tObs, jLo, window, acc);
+                renderNear(a, b, tObs, jLo, window, gridWindow, sc, acc);
             }
         }
     }
@@ -343,7 +388,8 @@ public final class EmissionRenderer implements AutoCloseable {
     }
 
     /** {@link #renderRange} with the slices' exact shortcuts ({@link EmissionSlice#emissivityNear}). */
-    private void renderNear(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
+    private void renderNear(int i0, int i1, double tObs, long jLo, EmissionSlice[] window,
+                            GriddedEmission[] gridWindow, GriddedEmission.Scratch sc, double[] acc) {
         for (int i = i0; i < i1; i++) {
             double tE = tObs - sd[i];
             // Math.rint: the same correctly rounded value as FastMath.rint, as a processor instruction
@@ -355,8 +401,11 @@ public final class EmissionRenderer implements AutoCloseable {
             if (sl == null) {
                 continue;
             }
-            double e = sl.emissivityNear(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm,
-                    support2);
+            GriddedEmission gr = gridWindow[w];
+            double e = gr != null
+                    ? gr.emissivity(spacetime, sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], sc)
+                    : sl.emissivityNear(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm,
+                            support2);
             if (e != 0.0) {
                 acc[pix[i]] += sdl[i] * e;
             }

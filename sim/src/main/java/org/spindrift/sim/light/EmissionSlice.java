@@ -27,7 +27,7 @@ final class EmissionSlice {
     /** search radius the cells are sized for: kernel support plus the largest drift within half a slice spacing */
     final double reach;
     /** Values per particle record in {@link #pos} and in {@link #att}. */
-    private static final int REC = 6;
+    static final int REC = 6;
     /**
      * Records sorted by cell, for locality, split so that the distance test reads only the first:
      * pos = x, y, z, vx, vy, vz; att = u^t, u^r, u^theta, u^phi, weight / u^t, exponent 2 + alpha.
@@ -137,6 +137,16 @@ final class EmissionSlice {
 
     private static double[] grow(double[] a, int n) {
         return a.length >= n ? a : new double[Math.max(n, a.length + a.length / 4)];
+    }
+
+    /** @return the particle records x, y, z, vx, vy, vz ({@link #REC} per particle, {@link #count} used) */
+    double[] positions() {
+        return pos;
+    }
+
+    /** @return the particle records u^t, u^r, u^theta, u^phi, weight / u^t, 2 + alpha ({@link #REC} per particle) */
+    float[] attributes() {
+        return att;
     }
 
     /** Occupied (x, y) columns dilated by NEAR cells in x and y (two one-dimensional passes). */
