@@ -76,7 +76,7 @@ public final class EmissionRenderer implements AutoCloseable {
      */
     public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
                             int threads) {
-        this(table, history, spacetime, smoothingLength, threads, false);
+        this(table, history, spacetime, smoothingLength, threads, false, true);
     }
 
     /**

@@ -25,16 +25,16 @@ import org.spindrift.sim.spacetime.Spacetime;
  * sample moved back by the interpolated mean Cartesian velocity times (t_e - tau) (one
  * semi-Lagrangian step, e.g. Staniforth &amp; Cote 1991, Mon. Weather Rev. 119, 2206).
  *
- * <p>Storage is block-sparse: blocks of 4 x 4 x 4 nodes over the particles' bounding box,
+ * <p>Storage is block-sparse: blocks of 2 x 2 x 2 nodes over the particles' bounding box,
  * allocated on first touch in particle order (so the sums and their order do not depend on
  * anything but the slice). Arrays are kept and reused when the object is rebuilt for another
  * slice; reading allocates nothing.
  */
 final class GriddedEmission {
-    /** Values per node: W, U^t, U^r, U^theta, U^phi, V^x, V^y, V^z. */
+    /** Values per node: W, V^x, V^y, V^z, U^t, U^r, U^theta, U^phi. */
     static final int NV = 8;
-    private static final int SIDE = 4;
-    private static final int SHIFT = 2;
+    private static final int SIDE = 2;
+    private static final int SHIFT = 1;
     private static final int MASK = SIDE - 1;
     private static final int BLOCK = SIDE * SIDE * SIDE * NV;
 
@@ -101,13 +101,13 @@ final class GriddedEmission {
                     double c = w * wxy * (dk == 0 ? 1.0 - az : az);
                     int q = nodeForWrite(i + di, j + dj, k + dk);
                     val[q] += c;
-                    val[q + 1] += c * ut;
-                    val[q + 2] += c * ur;
-                    val[q + 3] += c * uth;
-                    val[q + 4] += c * uph;
-                    val[q + 5] += c * vx;
-                    val[q + 6] += c * vy;
-                    val[q + 7] += c * vz;
+                    val[q + 1] += c * vx;
+                    val[q + 2] += c * vy;
+                    val[q + 3] += c * vz;
+                    val[q + 4] += c * ut;
+                    val[q + 5] += c * ur;
+                    val[q + 6] += c * uth;
+                    val[q + 7] += c * uph;
                 }
             }
         }
@@ -243,20 +243,20 @@ final class GriddedEmission {
         double x = sx, y = sy, z = sz;
         if (dtE != 0.0) {
             // the gas at the sample at t_e was at x - v (t_e - tau) at tau
-            if (!read(x, y, z, NV, v) || !(v[0] > 0)) {
+            if (!read(x, y, z, 4, v) || !(v[0] > 0)) {
                 return 0.0;
             }
             double f = dtE / v[0];
-            x -= v[5] * f;
-            y -= v[6] * f;
-            z -= v[7] * f;
+            x -= v[1] * f;
+            y -= v[2] * f;
+            z -= v[3] * f;
         }
-        if (!read(x, y, z, 5, v) || !(v[0] > 0)) {
+        if (!read(x, y, z, NV, v) || !(v[0] > 0)) {
             return 0.0;
         }
         double w = v[0];
-        double ut = v[1] / w, ur = v[2] / w, uth = v[3] / w, uph = v[4] / w;
-        Coordinates.boyerLindquist(x, y, z, st.spin(), s.bl);
+        double ut = v[4] / w, ur = v[5] / w, uth = v[6] / w, uph = v[7] / w;
+        Coordinates.radiusAndPolarAngle(x, y, z, st.spin(), s.bl);
         double[] g = s.g;
         st.covariant(s.bl[0], s.bl[1], g);
         double n = g[Spacetime.TT] * ut * ut + 2 * g[Spacetime.TP] * ut * uph + g[Spacetime.PP] * uph * uph
