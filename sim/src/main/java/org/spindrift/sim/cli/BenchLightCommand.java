@@ -257,6 +257,7 @@ public final class BenchLightCommand implements Callable<Integer> {
         }
         cx /= Math.max(1, bright);
         cy /= Math.max(1, bright);
+        double signed = 0;
         double track = 0, dFlux = 0, dCen = 0, dMax = 0, dRms = 0, sumFlux = 0;
         for (int f = 0; f < frames; f++) {
             if (mp[f].flux() > 0.01 * peak) {
@@ -269,6 +270,7 @@ public final class BenchLightCommand implements Callable<Integer> {
             }
             sumFlux = Math.max(sumFlux, Math.abs(mg[f].flux() - mp[f].flux()) / peak);
             dFlux = Math.max(dFlux, Math.abs(mg[f].flux() - mp[f].flux()) / mp[f].flux());
+            signed += (mg[f].flux() - mp[f].flux()) / mp[f].flux() / bright;
             dCen = Math.max(dCen, Math.hypot(mg[f].x() - mp[f].x(), mg[f].y() - mp[f].y()));
             double top = 0, mx = 0, ss = 0;
             for (int k = 0; k < n * n; k++) {
@@ -283,8 +285,8 @@ public final class BenchLightCommand implements Callable<Integer> {
         System.out.printf(Locale.ROOT, "  the same %d frames, %s emission: %.2f s (%.1f CPU s); grid vs particles over"
                         + " %d frames above 1%% of the peak flux: flux %.2e of the frame's flux (%.2e of the peak),"
                         + " centroid %.2e M (%.2f%% of the track radius %.2f M), image max %.2e and rms %.2e of the"
-                        + " frame's peak pixel%n", frames, grid ? "grid" : "particles", secs, cpuSecs, bright, dFlux,
-                sumFlux, dCen, 100 * dCen / track, track, dMax, dRms);
+                        + " frame's peak pixel; mean signed flux difference %.2e%n", frames, grid ? "grid" : "particles", secs, cpuSecs, bright, dFlux,
+                sumFlux, dCen, 100 * dCen / track, track, dMax, dRms, signed);
     }
 
     /** Times one table; prints a line; @return wall and CPU seconds */

@@ -30,6 +30,12 @@ import org.spindrift.sim.spacetime.Spacetime;
 public final class EmissionRenderer implements AutoCloseable {
     /** Fixed number of blocks of samples per frame (independent of the thread count). */
     private static final int BLOCKS = 16;
+    /**
+     * Grid spacing of {@link GriddedEmission} in units of h: sqrt(0.9), so that the deposit-and-read
+     * kernel's second moment per axis, spacing^2 / 3, equals the cubic spline's 0.3 h^2 (the
+     * integral of q^4 W over the kernel of Monaghan &amp; Lattanzio 1985, A&amp;A 149, 135, eq. 2.4)
+     */
+    static final double GRID_SPACING = Math.sqrt(0.9);
 
     private final EmitterHistory history;
     private final Spacetime spacetime;
@@ -76,7 +82,7 @@ public final class EmissionRenderer implements AutoCloseable {
      */
     public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
                             int threads) {
-        this(table, history, spacetime, smoothingLength, threads, false, true);
+        this(table, history, spacetime, smoothingLength, threads, false, false);
     }
 
     /**
@@ -90,14 +96,19 @@ public final class EmissionRenderer implements AutoCloseable {
 
     /**
      * @param reference true: no group test, every sample is queried (particles only)
-     * @param gridded true: each slice's particles are deposited on a grid of spacing h
-     *     ({@link GriddedEmission}) and samples read the grid; a slice whose particles have
-     *     different spectral indices is summed particle by particle
+     * @param gridded true: each slice's particles are deposited on a grid
+     *     ({@link GriddedEmission}) and samples read the grid; when the particles have different
+     *     spectral indices the particles are summed as with false
      */
     public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
                             int threads, boolean reference, boolean gridded) {
-        this.reference = reference && !gridded;
-        this.gridded = gridded;
+        boolean oneIndex = true;
+        for (int p = 1; p < history.particles() && gridded; p++) {
+            oneIndex &= history.spectralIndex(p) == history.spectralIndex(0);
+        }
+        // one grid serves one spectral index; with several the particles are summed
+        this.gridded = gridded && oneIndex;
+        this.reference = reference && !this.gridded;
         for (int b = 0; b < BLOCKS; b++) {
             scratch[b] = new GriddedEmission.Scratch();
         }
@@ -282,9 +293,9 @@ public final class EmissionRenderer implements AutoCloseable {
         }
         run(() -> IntStream.range(0, built.length).parallel().forEach(i -> {
             built[i] = EmissionSlice.build(history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h,
-                    0.5 * sliceSpacing, rMax, stores[i]);
+                    0.5 * sliceSpacing, rMax, stores[i], !gridded);
             if (gridded && built[i] != null) {
-                gs[i].fill(built[i], h);
+                gs[i].fill(built[i], GRID_SPACING * h);
             }
         }));
         for (int i = 0; i < built.length; i++) {
@@ -293,9 +304,8 @@ public final class EmissionRenderer implements AutoCloseable {
                 spare.push(stores[i]);
             }
             if (gridded) {
-                boolean use = built[i] != null && gs[i].singleExponent();
-                grids.put(missing.get(i), use ? gs[i] : null);
-                if (!use) {
+                grids.put(missing.get(i), built[i] != null ? gs[i] : null);
+                if (built[i] == null) {
                     spareGrids.push(gs[i]);
                 }
             }

@@ -48,7 +48,7 @@ final class GriddedEmission {
     private int[] blockOf = new int[0];
     private double[] val = new double[0];
     private int blocks;
-    /** the common exponent 2 + alpha of the slice's particles; NaN when they differ */
+    /** the exponent 2 + alpha of the slice's particles (the renderer grids only slices with one index) */
     private double exponent;
     /** emission time of the slice, M */
     double tau;
@@ -76,7 +76,6 @@ final class GriddedEmission {
         }
         Arrays.fill(blockOf, 0, nb, -1);
         blocks = 0;
-        exponent = Double.NEGATIVE_INFINITY;
     }
 
     /**
@@ -87,7 +86,7 @@ final class GriddedEmission {
      */
     void deposit(double x, double y, double z, double vx, double vy, double vz, double w, double ut, double ur,
                  double uth, double uph, double e) {
-        exponent = exponent == Double.NEGATIVE_INFINITY ? e : exponent == e ? e : Double.NaN;
+        exponent = e;
         double fx = (x - ox) * invH, fy = (y - oy) * invH, fz = (z - oz) * invH;
         int i = Math.min(nx - 2, Math.max(0, (int) fx));
         int j = Math.min(ny - 2, Math.max(0, (int) fy));
@@ -166,11 +165,6 @@ final class GriddedEmission {
         return this;
     }
 
-    /** @return true when every particle has the same spectral exponent (one grid serves them all) */
-    boolean singleExponent() {
-        return !Double.isNaN(exponent);
-    }
-
     /** @return the sum of the node weights (equals the sum of the deposited weights) */
     double totalWeight() {
         double sum = 0.0;
@@ -233,7 +227,7 @@ final class GriddedEmission {
 
     /**
      * Emissivity at a sample: rho g^(2+alpha) with rho the grid density and g from the mean
-     * 4-velocity (see the class comment). The slice's exponent must be single ({@link #singleExponent}).
+     * 4-velocity (see the class comment), with the exponent of the last particle deposited.
      *
      * @param dtE t_e - tau, M
      */
