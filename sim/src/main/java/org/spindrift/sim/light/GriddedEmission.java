@@ -38,7 +38,7 @@ final class GriddedEmission {
     private static final int MASK = SIDE - 1;
     private static final int BLOCK = SIDE * SIDE * SIDE * NV;
 
-    private double h, invH, invH3;
+    private double invH, invH3;
     private double ox, oy, oz;
     /** nodes per axis */
     private int nx, ny, nz;
@@ -50,15 +50,12 @@ final class GriddedEmission {
     private int blocks;
     /** the exponent 2 + alpha of the slice's particles (the renderer grids only slices with one index) */
     private double exponent;
-    /** emission time of the slice, M */
-    double tau;
 
     /**
      * Starts a grid of spacing h covering particles in [min, max] per axis (nodes from min to one
      * node past max). Earlier contents are dropped; arrays are reused.
      */
     void begin(double spacing, double minX, double minY, double minZ, double maxX, double maxY, double maxZ) {
-        h = spacing;
         invH = 1.0 / spacing;
         invH3 = invH * invH * invH;
         ox = minX;
@@ -141,7 +138,6 @@ final class GriddedEmission {
      * @return this
      */
     GriddedEmission fill(EmissionSlice s, double spacing) {
-        tau = s.tau;
         double[] pos = s.positions();
         float[] att = s.attributes();
         int rec = EmissionSlice.REC;
