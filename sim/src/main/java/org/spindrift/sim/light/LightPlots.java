@@ -232,35 +232,13 @@ public final class LightPlots {
         sy.setMarker(SeriesMarkers.NONE);
         sy.setLineColor(new Color(0.10f, 0.35f, 0.75f));
         if (s.steadyFluxRatio() > 0) {
-            double[] x2 = new double[n], y2 = new double[n];
-            for (int i = 0; i < keep.size(); i++) {
-                x2[i] = r.steadyX()[keep.get(i)] * uas;
-                y2[i] = r.steadyY()[keep.get(i)] * uas;
-            }
-            XYSeries a = c.addSeries("x with steady source", t, x2);
-            a.setMarker(SeriesMarkers.NONE);
-            a.setLineStyle(SeriesLines.DASH_DASH);
-            a.setLineColor(new Color(0.80f, 0.25f, 0.10f));
-            XYSeries b = c.addSeries("y with steady source", t, y2);
-            b.setMarker(SeriesMarkers.NONE);
-            b.setLineStyle(SeriesLines.DASH_DASH);
-            b.setLineColor(new Color(0.10f, 0.35f, 0.75f));
+            offsetPair(c, t, keep, uas, r.steadyX(), r.steadyY(), "with steady source", SeriesLines.DASH_DASH,
+                    new Color(0.80f, 0.25f, 0.10f), new Color(0.10f, 0.35f, 0.75f));
         }
         if (s.beamFwhmUas() > 0 && r.astrometricX() != r.steadyX()) {
             // the position the instrument reports (beam-convolved peak), which mock epochs scatter about
-            double[] x3 = new double[n], y3 = new double[n];
-            for (int i = 0; i < keep.size(); i++) {
-                x3[i] = r.astrometricX()[keep.get(i)] * uas;
-                y3[i] = r.astrometricY()[keep.get(i)] * uas;
-            }
-            XYSeries a = c.addSeries("x reported (beam peak)", t, x3);
-            a.setMarker(SeriesMarkers.NONE);
-            a.setLineStyle(SeriesLines.DOT_DOT);
-            a.setLineColor(new Color(0.55f, 0.15f, 0.05f));
-            XYSeries b = c.addSeries("y reported (beam peak)", t, y3);
-            b.setMarker(SeriesMarkers.NONE);
-            b.setLineStyle(SeriesLines.DOT_DOT);
-            b.setLineColor(new Color(0.05f, 0.20f, 0.50f));
+            offsetPair(c, t, keep, uas, r.astrometricX(), r.astrometricY(), "reported (beam peak)", SeriesLines.DOT_DOT,
+                    new Color(0.55f, 0.15f, 0.05f), new Color(0.05f, 0.20f, 0.50f));
         }
         if (r.mock() != null) {
             LightResult.MockAstrometry mk = r.mock();
@@ -282,6 +260,24 @@ public final class LightPlots {
         }
         niceTimeAxis(c, t);
         return c;
+    }
+
+    /** Adds x(t) and y(t) of the kept frames of one position series (M, drawn in uas) as two lines. */
+    private static void offsetPair(XYChart c, double[] t, List<Integer> keep, double uas, double[] xM, double[] yM,
+                                   String what, BasicStroke line, Color xColour, Color yColour) {
+        double[] x = new double[t.length], y = new double[t.length];
+        for (int i = 0; i < keep.size(); i++) {
+            x[i] = xM[keep.get(i)] * uas;
+            y[i] = yM[keep.get(i)] * uas;
+        }
+        XYSeries a = c.addSeries("x " + what, t, x);
+        a.setMarker(SeriesMarkers.NONE);
+        a.setLineStyle(line);
+        a.setLineColor(xColour);
+        XYSeries b = c.addSeries("y " + what, t, y);
+        b.setMarker(SeriesMarkers.NONE);
+        b.setLineStyle(line);
+        b.setLineColor(yColour);
     }
 
     private static XYChart lightCurve(LightResult r) {
