@@ -413,7 +413,7 @@ public final class EmissionRenderer implements AutoCloseable {
             }
             GriddedEmission gr = gridWindow[w];
             double e = gr != null
-                    ? gr.emissivity(spacetime, sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], sc)
+                    ? gr.emissivity(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], sc)
                     : sl.emissivityNear(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm,
                             support2);
             if (e != 0.0) {

@@ -2,8 +2,6 @@ package org.spindrift.sim.light;
 
 import java.util.Arrays;
 import org.hipparchus.util.FastMath;
-import org.spindrift.shared.Coordinates;
-import org.spindrift.sim.spacetime.Spacetime;
 
 /**
  * The emitting particles of one emission slice deposited onto a Cartesian grid of spacing h (the
@@ -12,15 +10,19 @@ import org.spindrift.sim.spacetime.Spacetime;
  * assignment and CIC interpolation). Per node the grid holds the weight sum W = sum_p w_p
  * Lambda_p (w_p = weight / u^t, the rest-frame density weight of {@link EmissionSlice}; Lambda_p
  * the tensor product of one-dimensional tents 1 - |x - x_n| / h), the weighted sums of the
- * 4-velocity sum_p w_p Lambda_p u_p^mu and of the Cartesian velocity sum_p w_p Lambda_p v_p.
+ * 4-velocity sum_p w_p Lambda_p u_p^mu, of its products u_p^mu u_p^nu and of the Cartesian
+ * velocity sum_p w_p Lambda_p v_p.
  *
  * <p>Deposit then read is the kernel K(x, x_p) = h^-3 prod_axes sum_n Lambda((x - x_n) / h)
  * Lambda((x_p - x_n) / h): support 2h per axis, integral 1 over x for every x_p (the tents form a
  * partition of unity), and averaged over the particle's offset from the nodes the tensor product
  * of cubic B-splines (the tent convolved with itself), the same one-dimensional shape as the
- * cubic-spline kernel of {@link Kernel}. The density at a sample is the interpolated W / h^3; the
- * emitter velocity is the interpolated mean u^mu = U^mu / W, rescaled to g_{mu nu} u^mu u^nu = -1
- * with the metric at the sample, and g = 1 / (-p_mu u^mu) ({@link Redshift}). The particles'
+ * cubic-spline kernel of {@link Kernel}. The density at a sample is the interpolated W / h^3.
+ * The particle sum weights each particle by g_p^n = D_p^-n with D_p = -p_mu u_p^mu (n = 2 + alpha,
+ * {@link Redshift}); D is linear in u, so its kernel-weighted mean and variance at the sample follow
+ * from the interpolated first and second moments of u, and the mean of D^-n is taken to second
+ * order about the mean D (no rescaling of the mean velocity: that would move the mean D at second
+ * order away from the particles' mean). The particles'
  * drift v (t_e - tau) within half a slice spacing is followed by reading the grid at the
  * sample moved back by the interpolated mean Cartesian velocity times (t_e - tau) (one
  * semi-Lagrangian step, e.g. Staniforth &amp; Cote 1991, Mon. Weather Rev. 119, 2206).
@@ -31,8 +33,12 @@ import org.spindrift.sim.spacetime.Spacetime;
  * slice; reading allocates nothing.
  */
 final class GriddedEmission {
-    /** Values per node: W, V^x, V^y, V^z, U^t, U^r, U^theta, U^phi. */
-    static final int NV = 8;
+    /**
+     * Values per node: W, V^x, V^y, V^z, U^t, U^r, U^theta, U^phi, then the second moments
+     * sum w Lambda u^mu u^nu for (mu, nu) = tt, tr, t theta, t phi, rr, r theta, r phi,
+     * theta theta, theta phi, phi phi.
+     */
+    static final int NV = 18;
     private static final int SIDE = 2;
     private static final int SHIFT = 1;
     private static final int MASK = SIDE - 1;
@@ -104,6 +110,16 @@ final class GriddedEmission {
                     val[q + 5] += c * ur;
                     val[q + 6] += c * uth;
                     val[q + 7] += c * uph;
+                    val[q + 8] += c * ut * ut;
+                    val[q + 9] += c * ut * ur;
+                    val[q + 10] += c * ut * uth;
+                    val[q + 11] += c * ut * uph;
+                    val[q + 12] += c * ur * ur;
+                    val[q + 13] += c * ur * uth;
+                    val[q + 14] += c * ur * uph;
+                    val[q + 15] += c * uth * uth;
+                    val[q + 16] += c * uth * uph;
+                    val[q + 17] += c * uph * uph;
                 }
             }
         }
@@ -217,8 +233,6 @@ final class GriddedEmission {
     /** Scratch arrays of {@link #emissivity}, one per thread. */
     static final class Scratch {
         final double[] v = new double[NV];
-        final double[] g = new double[Spacetime.SIZE];
-        final double[] bl = new double[3];
     }
 
     /**
@@ -227,7 +241,7 @@ final class GriddedEmission {
      *
      * @param dtE t_e - tau, M
      */
-    double emissivity(Spacetime st, double sx, double sy, double sz, double dtE, double pr, double pth,
+    double emissivity(double sx, double sy, double sz, double dtE, double pr, double pth,
                       double pphi, Scratch s) {
         double[] v = s.v;
         double x = sx, y = sy, z = sz;
@@ -245,22 +259,27 @@ final class GriddedEmission {
             return 0.0;
         }
         double w = v[0];
-        double ut = v[4] / w, ur = v[5] / w, uth = v[6] / w, uph = v[7] / w;
-        Coordinates.radiusAndPolarAngle(x, y, z, st.spin(), s.bl);
-        double[] g = s.g;
-        st.covariant(s.bl[0], s.bl[1], g);
-        double n = g[Spacetime.TT] * ut * ut + 2 * g[Spacetime.TP] * ut * uph + g[Spacetime.PP] * uph * uph
-                + g[Spacetime.RR] * ur * ur + g[Spacetime.HH] * uth * uth;
-        if (!(n < 0)) {
+        double iw = 1.0 / w;
+        double ut = v[4] * iw, ur = v[5] * iw, uth = v[6] * iw, uph = v[7] * iw;
+        // D = -p_mu u^mu = a_mu u^mu with a = (1, -p_r, -p_theta, -p_phi) (p_t = -1) is linear in u,
+        // so its kernel-weighted mean over the particles is a.u_mean exactly, and its variance is
+        // a_mu a_nu (<u^mu u^nu> - u_mean^mu u_mean^nu)
+        double a1 = -pr, a2 = -pth, a3 = -pphi;
+        double mean = Redshift.inverse(pr, pth, pphi, ut, ur, uth, uph);
+        if (!(mean > 0)) {
             return 0.0;
         }
-        double scale = 1.0 / FastMath.sqrt(-n);
-        double gInv = Redshift.inverse(pr, pth, pphi, ut * scale, ur * scale, uth * scale, uph * scale);
-        if (!(gInv > 0)) {
-            return 0.0;
-        }
-        // g^(2+alpha); the common alpha = 1 (exponent 3) avoids pow
-        double gp = exponent == 3.0 ? 1.0 / (gInv * gInv * gInv) : FastMath.pow(gInv, -exponent);
-        return w * invH3 * gp;
+        double var = (v[8] * iw - ut * ut) + 2 * a1 * (v[9] * iw - ut * ur)
+                + 2 * a2 * (v[10] * iw - ut * uth) + 2 * a3 * (v[11] * iw - ut * uph)
+                + a1 * a1 * (v[12] * iw - ur * ur) + 2 * a1 * a2 * (v[13] * iw - ur * uth)
+                + 2 * a1 * a3 * (v[14] * iw - ur * uph) + a2 * a2 * (v[15] * iw - uth * uth)
+                + 2 * a2 * a3 * (v[16] * iw - uth * uph) + a3 * a3 * (v[17] * iw - uph * uph);
+        // g^n = D^-n, n = 2 + alpha; the common alpha = 1 (n = 3) avoids pow
+        double n = exponent;
+        double gp = n == 3.0 ? 1.0 / (mean * mean * mean) : FastMath.pow(mean, -n);
+        // mean of D^-n to second order about the mean of D (second-order Taylor expansion of an
+        // expectation, the delta method; common practice, no source):
+        // <D^-n> = mean^-n (1 + n (n + 1) / 2 var / mean^2)
+        return w * invH3 * gp * (1.0 + 0.5 * n * (n + 1) * Math.max(0.0, var) / (mean * mean));
     }
 }
