@@ -83,6 +83,17 @@ public final class Main implements Runnable {
                 c.getErr().flush();
                 return EXIT_FAILURE;
             }
+            Throwable oom = ex;
+            while (oom != null && !(oom instanceof OutOfMemoryError)) {
+                oom = oom.getCause();
+            }
+            if (oom != null) {
+                c.getErr().println(c.getCommandSpec().qualifiedName() + ": out of memory (" + (Runtime.getRuntime()
+                        .maxMemory() >> 20) + " MiB of heap); nothing was written: give Java more memory, e.g."
+                        + " SPINDRIFT_JAVA_OPTS=-Xmx8g, or use fewer threads or pixels");
+                c.getErr().flush();
+                return EXIT_FAILURE;
+            }
             throw ex;
         });
         return cl;

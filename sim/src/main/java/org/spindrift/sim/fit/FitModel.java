@@ -1,8 +1,7 @@
 package org.spindrift.sim.fit;
 
 import java.util.List;
-import java.util.Map;
-import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.atomic.AtomicInteger;
 import org.hipparchus.util.FastMath;
 import org.spindrift.shared.Units;
 import org.spindrift.shared.UserInputException;
@@ -46,11 +45,13 @@ public final class FitModel {
 
     /** Spacetimes, capture radii and ray tables shared by the threads of one fit. */
     public static final class Cache {
-        private final Map<String, Object[]> spacetimes = new ConcurrentHashMap<>();
-        private final Map<String, CompactSourceModel.Index> tables = new ConcurrentHashMap<>();
+        /** Ray tables kept: a fit that moves spin, inclination or a deformation traces a table per value. */
+        static final int TABLES_KEPT = 8;
+        private final RecentTables<String, Object[]> spacetimes = new RecentTables<>(64);
+        private final RecentTables<String, CompactSourceModel.Index> tables = new RecentTables<>(TABLES_KEPT);
         private final int threads;
         private final RayTable.Refinement refinement;
-        private volatile int traced;
+        private final AtomicInteger traced = new AtomicInteger();
 
         /** @param threads threads for tracing tables (results do not depend on it) */
         public Cache(int threads) {
@@ -68,7 +69,7 @@ public final class FitModel {
 
         /** @return tables traced so far */
         public int tablesTraced() {
-            return traced;
+            return traced.get();
         }
     }
 
@@ -189,7 +190,7 @@ public final class FitModel {
         Scenario sc = ls.scenario();
         BlackHole bh = sc.blackHole();
         String bhKey = bh.family() + "|" + bh.spin() + "|" + bh.parameters() + "|" + bh.allowHorizonless();
-        Object[] stc = cache.spacetimes.computeIfAbsent(bhKey, k -> {
+        Object[] stc = cache.spacetimes.get(bhKey, () -> {
             Spacetime st = ScenarioChecks.spacetime(ls);
             return new Object[] {st, Landmarks.of(st).captureRadius()};
         });
@@ -234,10 +235,10 @@ public final class FitModel {
                 : CompactSourceModel.refinement(cam, spots);
         String tKey = bhKey + "|" + ls0.inclinationDeg() + "|" + ls0.fieldOfViewM() + "|" + ls0.pixels() + "|"
                 + ls0.lensing() + "|" + rEm + "|" + capture + "|" + cell + "|" + rule;
-        CompactSourceModel.Index index = cache.tables.computeIfAbsent(tKey, k -> {
+        CompactSourceModel.Index index = cache.tables.get(tKey, () -> {
             TraceSettings ts = TraceSettings.of(rEm, capture, LightStage.SAMPLES_PER_H * h, ls0.lensing())
                     .withTolerance(1.0e-8, 1.0e-10);
-            cache.traced++;
+            cache.traced.incrementAndGet();
             return new CompactSourceModel.Index(RayTable.trace(st, cam, ts, cache.threads, rule), cell);
         });
         double cadence = sc.imaging().frameCadence() == null ? times[1] - times[0] : sc.imaging().frameCadence().toM(spm);
