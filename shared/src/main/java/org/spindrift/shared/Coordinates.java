@@ -24,12 +24,17 @@ public final class Coordinates {
      * r^4 - (R^2 - a^2) r^2 - a^2 z^2 = 0 with R^2 = x^2 + y^2 + z^2 (positive root).
      */
     public static void boyerLindquist(double x, double y, double z, double spin, double[] out) {
+        radiusAndPolarAngle(x, y, z, spin, out);
+        out[2] = Math.atan2(y, x);
+    }
+
+    /** The (r, theta) part of {@link #boyerLindquist} into out[0..1] (no azimuth). */
+    public static void radiusAndPolarAngle(double x, double y, double z, double spin, double[] out) {
         final double a2 = spin * spin;
         final double b = x * x + y * y + z * z - a2;
         final double r2 = 0.5 * (b + Math.sqrt(b * b + 4.0 * a2 * z * z));
         final double r = Math.sqrt(r2);
         out[0] = r;
         out[1] = r > 0 ? Math.acos(Math.max(-1.0, Math.min(1.0, z / r))) : 0.5 * Math.PI;
-        out[2] = Math.atan2(y, x);
     }
 }

@@ -78,6 +78,16 @@ public final class BenchLightCommand implements Callable<Integer> {
             description = "With --reference: compare every K-th pixel in both directions, 1..64 (default: ${DEFAULT-VALUE}).")
     int accuracyEvery;
 
+    @Option(names = "--emission", paramLabel = "KIND", defaultValue = "particles",
+            description = "Frame emission: grid (each slice's particles on a grid of spacing h, read by trilinear"
+                    + " interpolation) or particles (kernel sum over the particles) (default: ${DEFAULT-VALUE}).")
+    String emission;
+
+    @Option(names = "--compare-emission",
+            description = "Also render the same frames with the other --emission kind, time both and print their"
+                    + " differences (flux, centroid, image maximum and rms).")
+    boolean compareEmission;
+
     @Option(names = "--vis-pixels", paramLabel = "N", defaultValue = "96",
             description = "Pixels per side of the frames of the visibility timing, 8..1024 (default: ${DEFAULT-VALUE}).")
     int visPixels;
@@ -95,6 +105,8 @@ public final class BenchLightCommand implements Callable<Integer> {
         check(framePixels >= 16 && framePixels <= 1024, "--frame-pixels must be in 16..1024, got " + framePixels);
         check(frames >= 1 && frames <= 100_000, "--frames must be in 1..100000, got " + frames);
         check(accuracyEvery >= 1 && accuracyEvery <= 64, "--accuracy-every must be in 1..64, got " + accuracyEvery);
+        check(emission.equals("grid") || emission.equals("particles"),
+                "--emission must be grid or particles, got " + emission);
         check(visPixels >= 8 && visPixels <= 1024, "--vis-pixels must be in 8..1024, got " + visPixels);
         check(visPoints >= 1 && visPoints <= 100_000, "--vis-points must be in 1..100000, got " + visPoints);
         int nt = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
@@ -165,7 +177,8 @@ public final class BenchLightCommand implements Callable<Integer> {
                     int differ = 0;
                     double peak = 0, dFlux = 0, dCentroid = 0;
                     FrameMoments[] fm = new FrameMoments[frames];
-                    try (EmissionRenderer r = new EmissionRenderer(table, h, p.spacetime(), hK, nt, old)) {
+                    try (EmissionRenderer r = new EmissionRenderer(table, h, p.spacetime(), hK, nt, old,
+                            !old && emission.equals("grid"))) {
                         for (int f = 0; f < frames; f++) {
                             double t = frames == 1 ? tA : tA + (tB - tA) * f / (frames - 1);
                             r.render(t, old ? img : imgs[f]);
@@ -184,9 +197,10 @@ public final class BenchLightCommand implements Callable<Integer> {
                         }
                         secs = seconds(t0);
                         double[] sec = r.sectionSeconds();
-                        System.out.printf(Locale.ROOT, "  %d frames of %d x %d%s: %.2f s (%.1f CPU s, %.1f s in garbage"
+                        System.out.printf(Locale.ROOT, "  %d frames of %d x %d, %s emission%s: %.2f s (%.1f CPU s, %.1f s in garbage"
                                         + " collection), %.1f frames/s (%d emission slices: %.2f s building, %.2f s"
-                                        + " summing)%s%n", frames, n, n, old ? " (reference renderer)" : "",
+                                        + " summing)%s%n", frames, n, n, old ? "particles" : emission,
+                                old ? " (reference renderer)" : "",
                                 secs, cpu() - c0, gcSeconds() - g0, frames / secs, r.slicesBuilt(), sec[0], sec[1], old ? String.format(Locale.ROOT,
                                         "; speed-up %.2fx wall; %d frames differ bit for bit, flux by at most"
                                         + " %.1e of the peak, centroid by at most %.1e M (frames above 1%% of the"
@@ -194,12 +208,85 @@ public final class BenchLightCommand implements Callable<Integer> {
                         fast = old ? fast : secs;
                     }
                 }
+                if (compareEmission) {
+                    compareEmission(table, h, p.spacetime(), hK, nt, cam, imgs, tA, tB);
+                }
             }
             System.out.println(org.spindrift.sim.interferometry.VisibilityBench.run(frames, visPixels, visPoints, nt));
         } finally {
             deleteTree(tmp);
         }
         return 0;
+    }
+
+    /**
+     * Renders the same frames with the other emission kind, times it, and prints the largest
+     * per-frame differences from the frames of --emission: flux relative to the frame's flux,
+     * centroid in M and in % of the track radius (largest distance of the particle frames' centroid
+     * from its mean), image maximum and rms difference relative to the frame's peak pixel; frames
+     * above 1% of the peak flux.
+     */
+    private void compareEmission(RayTable table, EmitterHistory h, org.spindrift.sim.spacetime.Spacetime st,
+                                 double hK, int nt, Camera cam, float[][] imgs, double tA, double tB) {
+        boolean grid = !emission.equals("grid");
+        int n = cam.pixels();
+        float[][] other = new float[frames][n * n];
+        long t0 = System.nanoTime();
+        double c0 = cpu();
+        try (EmissionRenderer r = new EmissionRenderer(table, h, st, hK, nt, false, grid)) {
+            for (int f = 0; f < frames; f++) {
+                r.render(frames == 1 ? tA : tA + (tB - tA) * f / (frames - 1), other[f]);
+            }
+        }
+        double secs = seconds(t0), cpuSecs = cpu() - c0;
+        float[][] part = grid ? imgs : other, gr = grid ? other : imgs;
+        FrameMoments[] mp = new FrameMoments[frames], mg = new FrameMoments[frames];
+        double peak = 0, cx = 0, cy = 0;
+        int bright = 0;
+        for (int f = 0; f < frames; f++) {
+            mp[f] = FrameMoments.of(part[f], cam);
+            mg[f] = FrameMoments.of(gr[f], cam);
+            peak = Math.max(peak, mp[f].flux());
+        }
+        for (int f = 0; f < frames; f++) {
+            if (mp[f].flux() > 0.01 * peak) {
+                cx += mp[f].x();
+                cy += mp[f].y();
+                bright++;
+            }
+        }
+        cx /= Math.max(1, bright);
+        cy /= Math.max(1, bright);
+        double signed = 0;
+        double track = 0, dFlux = 0, dCen = 0, dMax = 0, dRms = 0, sumFlux = 0;
+        for (int f = 0; f < frames; f++) {
+            if (mp[f].flux() > 0.01 * peak) {
+                track = Math.max(track, Math.hypot(mp[f].x() - cx, mp[f].y() - cy));
+            }
+        }
+        for (int f = 0; f < frames; f++) {
+            if (!(mp[f].flux() > 0.01 * peak)) {
+                continue;
+            }
+            sumFlux = Math.max(sumFlux, Math.abs(mg[f].flux() - mp[f].flux()) / peak);
+            dFlux = Math.max(dFlux, Math.abs(mg[f].flux() - mp[f].flux()) / mp[f].flux());
+            signed += (mg[f].flux() - mp[f].flux()) / mp[f].flux() / bright;
+            dCen = Math.max(dCen, Math.hypot(mg[f].x() - mp[f].x(), mg[f].y() - mp[f].y()));
+            double top = 0, mx = 0, ss = 0;
+            for (int k = 0; k < n * n; k++) {
+                top = Math.max(top, part[f][k]);
+                double d = gr[f][k] - part[f][k];
+                mx = Math.max(mx, Math.abs(d));
+                ss += d * d;
+            }
+            dMax = Math.max(dMax, mx / top);
+            dRms = Math.max(dRms, Math.sqrt(ss / (n * n)) / top);
+        }
+        System.out.printf(Locale.ROOT, "  the same %d frames, %s emission: %.2f s (%.1f CPU s); grid vs particles over"
+                        + " %d frames above 1%% of the peak flux: flux %.2e of the frame's flux (%.2e of the peak),"
+                        + " centroid %.2e M (%.2f%% of the track radius %.2f M), image max %.2e and rms %.2e of the"
+                        + " frame's peak pixel; mean signed flux difference %.2e%n", frames, grid ? "grid" : "particles", secs, cpuSecs, bright, dFlux,
+                sumFlux, dCen, 100 * dCen / track, track, dMax, dRms, signed);
     }
 
     /** Times one table; prints a line; @return wall and CPU seconds */

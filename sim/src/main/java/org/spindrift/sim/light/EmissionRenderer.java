@@ -30,6 +30,12 @@ import org.spindrift.sim.spacetime.Spacetime;
 public final class EmissionRenderer implements AutoCloseable {
     /** Fixed number of blocks of samples per frame (independent of the thread count). */
     private static final int BLOCKS = 16;
+    /**
+     * Grid spacing of {@link GriddedEmission} in units of h: sqrt(0.9), so that the deposit-and-read
+     * kernel's second moment per axis, spacing^2 / 3, equals the cubic spline's 0.3 h^2 (the
+     * integral of q^4 W over the kernel of Monaghan &amp; Lattanzio 1985, A&amp;A 149, 135, eq. 2.4)
+     */
+    static final double GRID_SPACING = Math.sqrt(0.9);
 
     private final EmitterHistory history;
     private final Spacetime spacetime;
@@ -60,6 +66,12 @@ public final class EmissionRenderer implements AutoCloseable {
     private final float[] gDelay;
     /** true: every sample queries its slice with the bounding-box search of earlier versions */
     private final boolean reference;
+    /** true: samples read each slice's {@link GriddedEmission} instead of summing its particles */
+    private final boolean gridded;
+    /** grids of the cached slices (null where a slice falls back to its particles) */
+    private final Map<Long, GriddedEmission> grids = new HashMap<>();
+    private final ArrayDeque<GriddedEmission> spareGrids = new ArrayDeque<>();
+    private final GriddedEmission.Scratch[] scratch = new GriddedEmission.Scratch[BLOCKS];
     private int slicesBuilt;
     /** wall time spent building slices and summing samples, ns (for benchmarks) */
     private long buildNanos, sumNanos;
@@ -70,7 +82,7 @@ public final class EmissionRenderer implements AutoCloseable {
      */
     public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
                             int threads) {
-        this(table, history, spacetime, smoothingLength, threads, false);
+        this(table, history, spacetime, smoothingLength, threads, false, false);
     }
 
     /**
@@ -79,7 +91,27 @@ public final class EmissionRenderer implements AutoCloseable {
      */
     public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
                             int threads, boolean reference) {
-        this.reference = reference;
+        this(table, history, spacetime, smoothingLength, threads, reference, false);
+    }
+
+    /**
+     * @param reference true: no group test, every sample is queried (particles only)
+     * @param gridded true: each slice's particles are deposited on a grid
+     *     ({@link GriddedEmission}) and samples read the grid; when the particles have different
+     *     spectral indices the particles are summed as with false
+     */
+    public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
+                            int threads, boolean reference, boolean gridded) {
+        boolean oneIndex = true;
+        for (int p = 1; p < history.particles() && gridded; p++) {
+            oneIndex &= history.spectralIndex(p) == history.spectralIndex(0);
+        }
+        // one grid serves one spectral index; with several the particles are summed
+        this.gridded = gridded && oneIndex;
+        this.reference = reference && !this.gridded;
+        for (int b = 0; b < BLOCKS; b++) {
+            scratch[b] = new GriddedEmission.Scratch();
+        }
         this.history = history;
         this.spacetime = spacetime;
         this.pixels = table.camera().pixels();
@@ -237,6 +269,12 @@ public final class EmissionRenderer implements AutoCloseable {
             }
             return e.getKey() < jLo;
         });
+        grids.entrySet().removeIf(e -> {
+            if (e.getKey() < jLo && e.getValue() != null) {
+                spareGrids.push(e.getValue());
+            }
+            return e.getKey() < jLo;
+        });
         List<Long> missing = new ArrayList<>();
         for (long j = jLo; j <= jHi; j++) {
             if (!cache.containsKey(j)) {
@@ -249,13 +287,27 @@ public final class EmissionRenderer implements AutoCloseable {
         for (int i = 0; i < stores.length; i++) {
             stores[i] = spare.isEmpty() ? new EmissionSlice.Storage() : spare.pop();
         }
-        run(() -> IntStream.range(0, built.length).parallel().forEach(i -> built[i] = EmissionSlice.build(
-                history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h, 0.5 * sliceSpacing, rMax,
-                stores[i])));
+        GriddedEmission[] gs = new GriddedEmission[gridded ? built.length : 0];
+        for (int i = 0; i < gs.length; i++) {
+            gs[i] = spareGrids.isEmpty() ? new GriddedEmission() : spareGrids.pop();
+        }
+        run(() -> IntStream.range(0, built.length).parallel().forEach(i -> {
+            built[i] = EmissionSlice.build(history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h,
+                    0.5 * sliceSpacing, rMax, stores[i], !gridded);
+            if (gridded && built[i] != null) {
+                gs[i].fill(built[i], GRID_SPACING * h);
+            }
+        }));
         for (int i = 0; i < built.length; i++) {
             cache.put(missing.get(i), built[i]);
             if (built[i] == null) {
                 spare.push(stores[i]);
+            }
+            if (gridded) {
+                grids.put(missing.get(i), built[i] != null ? gs[i] : null);
+                if (built[i] == null) {
+                    spareGrids.push(gs[i]);
+                }
             }
         }
         slicesBuilt += built.length;
@@ -263,8 +315,10 @@ public final class EmissionRenderer implements AutoCloseable {
         buildNanos += t1 - t0;
         int count = (int) (jHi - jLo + 1);
         EmissionSlice[] window = new EmissionSlice[count];
+        GriddedEmission[] gridWindow = new GriddedEmission[count];
         for (int i = 0; i < count; i++) {
             window[i] = cache.get(jLo + i);
+            gridWindow[i] = gridded ? grids.get(jLo + i) : null;
         }
         // the samples that see any slice of the window, split into BLOCKS equal blocks
         // (whole delay bins: a superset; samples outside the window are skipped per sample)
@@ -279,7 +333,7 @@ public final class EmissionRenderer implements AutoCloseable {
             Arrays.fill(acc, 0.0);
             int i0 = from + b * size;
             int i1 = Math.min(to, i0 + size);
-            renderSamples(i0, i1, tObs, jLo, window, acc);
+            renderSamples(i0, i1, tObs, jLo, window, gridWindow, scratch[b], acc);
         }));
         for (int k = 0; k < image.length; k++) {
             double v = 0.0;
@@ -303,7 +357,8 @@ public final class EmissionRenderer implements AutoCloseable {
      * samples would find no particle), which spares the per-sample set-up on the many samples away
      * from the gas at the frame's emission times.
      */
-    private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
+    private void renderSamples(int i0, int i1, double tObs, long jLo, EmissionSlice[] window,
+                               GriddedEmission[] gridWindow, GriddedEmission.Scratch sc, double[] acc) {
         if (reference) {
             renderRange(i0, i1, tObs, jLo, window, acc);
             return;
@@ -319,7 +374,7 @@ public final class EmissionRenderer implements AutoCloseable {
                         gBox[6 * g + 4], gBox[6 * g + 5]);
             }
             if (any) {
-                renderNear(a, b, tObs, jLo, window, acc);
+                renderNear(a, b, tObs, jLo, window, gridWindow, sc, acc);
             }
         }
     }
@@ -343,7 +398,8 @@ public final class EmissionRenderer implements AutoCloseable {
     }
 
     /** {@link #renderRange} with the slices' exact shortcuts ({@link EmissionSlice#emissivityNear}). */
-    private void renderNear(int i0, int i1, double tObs, long jLo, EmissionSlice[] window, double[] acc) {
+    private void renderNear(int i0, int i1, double tObs, long jLo, EmissionSlice[] window,
+                            GriddedEmission[] gridWindow, GriddedEmission.Scratch sc, double[] acc) {
         for (int i = i0; i < i1; i++) {
             double tE = tObs - sd[i];
             // Math.rint: the same correctly rounded value as FastMath.rint, as a processor instruction
@@ -355,8 +411,11 @@ public final class EmissionRenderer implements AutoCloseable {
             if (sl == null) {
                 continue;
             }
-            double e = sl.emissivityNear(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm,
-                    support2);
+            GriddedEmission gr = gridWindow[w];
+            double e = gr != null
+                    ? gr.emissivity(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], sc)
+                    : sl.emissivityNear(sx[i], sy[i], sz[i], tE - sl.tau, spr[i], spth[i], spph[i], invH, norm,
+                            support2);
             if (e != 0.0) {
                 acc[pix[i]] += sdl[i] * e;
             }

@@ -27,7 +27,7 @@ final class EmissionSlice {
     /** search radius the cells are sized for: kernel support plus the largest drift within half a slice spacing */
     final double reach;
     /** Values per particle record in {@link #pos} and in {@link #att}. */
-    private static final int REC = 6;
+    static final int REC = 6;
     /**
      * Records sorted by cell, for locality, split so that the distance test reads only the first:
      * pos = x, y, z, vx, vy, vz; att = u^t, u^r, u^theta, u^phi, weight / u^t, exponent 2 + alpha.
@@ -68,7 +68,8 @@ final class EmissionSlice {
     final Storage storage;
 
     private EmissionSlice(double tau, int count, Storage st, double ox, double oy,
-                          double oz, double cell, int nx, int ny, int nz, double reach, double vmax) {
+                          double oz, double cell, int nx, int ny, int nz, double reach, double vmax,
+                          boolean shortcuts) {
         this.storage = st;
         int[] cellStart = st.cellStart;
         this.tau = tau;
@@ -84,6 +85,15 @@ final class EmissionSlice {
         this.nz = nz;
         this.reach = reach;
         this.vmax = vmax;
+        this.pos = st.pos;
+        this.att = st.att;
+        if (!shortcuts) {
+            nearColumn = null;
+            gap2 = null;
+            zLo = null;
+            zHi = null;
+            return;
+        }
         nearColumn = st.nearColumn = columns(st, nx, ny, nz);
         gap2 = gaps(st, nx, ny, nz);
         zLo = st.zLo = grow(st.zLo, nx * ny);
@@ -99,8 +109,6 @@ final class EmissionSlice {
             zLo[c] = (byte) lo;
             zHi[c] = (byte) hi;
         }
-        this.pos = st.pos;
-        this.att = st.att;
     }
 
     /**
@@ -137,6 +145,16 @@ final class EmissionSlice {
 
     private static double[] grow(double[] a, int n) {
         return a.length >= n ? a : new double[Math.max(n, a.length + a.length / 4)];
+    }
+
+    /** @return the particle records x, y, z, vx, vy, vz ({@link #REC} per particle, {@link #count} used) */
+    double[] positions() {
+        return pos;
+    }
+
+    /** @return the particle records u^t, u^r, u^theta, u^phi, weight / u^t, 2 + alpha ({@link #REC} per particle) */
+    float[] attributes() {
+        return att;
     }
 
     /** Occupied (x, y) columns dilated by NEAR cells in x and y (two one-dimensional passes). */
@@ -235,6 +253,15 @@ final class EmissionSlice {
      */
     static EmissionSlice build(EmitterHistory h, Spacetime st, double tau, double support, double halfSpacing,
                                double rMax, Storage store) {
+        return build(h, st, tau, support, halfSpacing, rMax, store, true);
+    }
+
+    /**
+     * @param shortcuts false: the slice keeps its records and cell list only (enough for
+     *     {@link #mayReach} and the records; the queries need the column maps and gap field)
+     */
+    static EmissionSlice build(EmitterHistory h, Spacetime st, double tau, double support, double halfSpacing,
+                               double rMax, Storage store, boolean shortcuts) {
         int ns = h.snapshots();
         if (ns < 2 || tau < h.time(0) || tau > h.time(ns - 1)) {
             return null;
@@ -373,7 +400,7 @@ final class EmissionSlice {
                 att[dst + q] = tmp[REC + q][p];
             }
         }
-        return new EmissionSlice(tau, m, store, minX, minY, minZ, cell, gx, gy, gz, reach, vmax);
+        return new EmissionSlice(tau, m, store, minX, minY, minZ, cell, gx, gy, gz, reach, vmax, shortcuts);
     }
 
     /**

@@ -33,9 +33,7 @@ class EmissionRendererTest {
             LightSettings s = new LightSettings(60.0, 0.0, 20.0, 48, 2.0, true, 1.0e6, 1.0e-3, 0.0, 0.0, 0.0, 1.0, 7L);
             Camera cam = s.camera();
             double hK = LightStage.smoothingLength(cam);
-            TraceSettings ts = LightStage.traceSettings(h, st, cam, LightTestSupport.captureRadius(a), s.fieldOfViewM(),
-                    true);
-            RayTable table = RayTable.trace(st, cam, ts, 2);
+            RayTable table = LightTestSupport.table(h, st, a, s);
             double[] d = table.delayRange();
             double tA = h.time(0) + d[1], tB = h.time(h.snapshots() - 1) + d[0];
             int frames = 8, n = cam.pixels();

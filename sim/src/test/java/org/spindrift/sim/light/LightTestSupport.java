@@ -18,4 +18,10 @@ final class LightTestSupport {
     static double captureRadius(double a) {
         return 1.0 + Math.sqrt(1.0 - a * a) + Landmarks.CAPTURE_MARGIN;
     }
+
+    /** The run's ray table for a history seen with settings s around Kerr of spin a (2 threads). */
+    static RayTable table(EmitterHistory h, Spacetime st, double a, LightSettings s) {
+        TraceSettings ts = LightStage.traceSettings(h, st, s.camera(), captureRadius(a), s.fieldOfViewM(), true);
+        return RayTable.trace(st, s.camera(), ts, 2);
+    }
 }
