@@ -55,6 +55,11 @@ public record Scenario(String name, String description, BlackHole blackHole, Obs
         return new Scenario(name, description, blackHole, observer, sources, r, imaging, instrument, interferometer);
     }
 
+    /** @return a copy with other imaging settings */
+    public Scenario withImaging(Imaging i) {
+        return new Scenario(name, description, blackHole, observer, sources, run, i, instrument, interferometer);
+    }
+
     /** @return a copy with another black hole */
     public Scenario withBlackHole(BlackHole b) {
         return new Scenario(name, description, b, observer, sources, run, imaging, instrument, interferometer);

@@ -44,6 +44,10 @@ public final class BenchRunCommand implements Callable<Integer> {
             description = "Duration in orbits of the first source's centre, 0.1..100 (default: ${DEFAULT-VALUE}).")
     double orbits;
 
+    @Option(names = "--emission", paramLabel = "SUM", description = "Emission sum of the light stage: particles or"
+            + " grid (default: the config's imaging.emission_sum).")
+    String emission;
+
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: available processors).")
     Integer threads;
 
@@ -68,12 +72,18 @@ public final class BenchRunCommand implements Callable<Integer> {
         for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
             pool.resetPeakUsage();
         }
+        if (emission != null && !emission.equals("particles") && !emission.equals("grid")) {
+            throw new UserInputException("--emission " + emission + ": allowed particles, grid");
+        }
         long t0 = System.nanoTime();
         LoadedScenario ls = ScenarioLoader.load(config);
         Scenario sc = ls.scenario();
         List<Source> src = new java.util.ArrayList<>(sc.sources());
         src.set(0, src.get(0).withParticles(particles));
         sc = sc.withSources(src).withRun(sc.run().withDuration(new TimeSpan(orbits, TimeSpan.Unit.ORBITS)));
+        if (emission != null) {
+            sc = sc.withImaging(sc.imaging().withGriddedEmission(emission.equals("grid")));
+        }
         ScenarioRun.Prepared p = ScenarioRun.prepare(ls.with(sc));
         double setup = (System.nanoTime() - t0) * 1e-9;
         // a run folder inside a fresh temporary folder, so its lock file goes with it
@@ -98,9 +108,10 @@ public final class BenchRunCommand implements Callable<Integer> {
         }
         long rss = peakResidentKib();
         long steps = o.result().acceptedSteps();
-        System.out.printf(Locale.ROOT, "bench run: %s, %d particles, %.1f orbits (%.0f M), %d snapshots, %d threads on %d cores%s%n",
-                config, sc.totalParticles(), orbits, p.durationM(), p.times().length, n,
-                Runtime.getRuntime().availableProcessors(), skip.isEmpty() ? "" : ", skipping " + String.join(",", skip));
+        System.out.printf(Locale.ROOT, "bench run: %s, %d particles, %.1f orbits (%.0f M), %d snapshots, %d threads on %d"
+                + " cores, emission sum: %s%s%n", config, sc.totalParticles(), orbits, p.durationM(), p.times().length, n,
+                Runtime.getRuntime().availableProcessors(), sc.imaging().griddedEmission() ? "grid" : "particles",
+                skip.isEmpty() ? "" : ", skipping " + String.join(",", skip));
         System.out.printf(Locale.ROOT, "  wall time        %8.2f s  (set-up %.2f s, integration %.2f s, output %.2f s)%n",
                 wall, setup, o.integrationSeconds(), o.outputSeconds());
         StringBuilder st = new StringBuilder();

@@ -102,12 +102,8 @@ public final class EmissionRenderer implements AutoCloseable {
      */
     public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
                             int threads, boolean reference, boolean gridded) {
-        boolean oneIndex = true;
-        for (int p = 1; p < history.particles() && gridded; p++) {
-            oneIndex &= history.spectralIndex(p) == history.spectralIndex(0);
-        }
         // one grid serves one spectral index; with several the particles are summed
-        this.gridded = gridded && oneIndex;
+        this.gridded = gridded && oneSpectralIndex(history);
         this.reference = reference && !this.gridded;
         for (int b = 0; b < BLOCKS; b++) {
             scratch[b] = new GriddedEmission.Scratch();
@@ -213,6 +209,16 @@ public final class EmissionRenderer implements AutoCloseable {
             gDelay[2 * g] = dLo;
             gDelay[2 * g + 1] = dHi;
         }
+    }
+
+    /** @return whether every particle has the same spectral index (a grid can then sum them) */
+    public static boolean oneSpectralIndex(EmitterHistory history) {
+        for (int p = 1; p < history.particles(); p++) {
+            if (history.spectralIndex(p) != history.spectralIndex(0)) {
+                return false;
+            }
+        }
+        return true;
     }
 
     /** @return the delay bin (one slice spacing wide) of delay d; monotone in d */

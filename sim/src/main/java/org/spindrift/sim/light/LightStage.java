@@ -42,6 +42,18 @@ public final class LightStage {
      */
     public static LightResult run(LightSettings s, Spacetime st, double captureRadius, EmitterHistory history,
                                   int threads) {
+        return run(s, st, captureRadius, history, threads, false);
+    }
+
+    /**
+     * As {@link #run(LightSettings, Spacetime, double, EmitterHistory, int)}, with the choice of
+     * emission sum.
+     *
+     * @param gridded true: gridded emission per emission time ({@link GriddedEmission}; particles
+     *     with different spectral indices are summed one by one all the same)
+     */
+    public static LightResult run(LightSettings s, Spacetime st, double captureRadius, EmitterHistory history,
+                                  int threads, boolean gridded) {
         Camera cam = s.camera();
         double h = smoothingLength(cam);
         TraceSettings ts = traceSettings(history, st, cam, captureRadius, s.fieldOfViewM(), s.lensing());
@@ -57,7 +69,7 @@ public final class LightStage {
         List<FrameMoments> moments = new ArrayList<>(times.length);
         GaussianBeam beam = beamOn(s)
                 ? new GaussianBeam(s.beamFwhmUas() / (s.uasPerM() * cam.pixelSize()), n) : null;
-        try (EmissionRenderer r = new EmissionRenderer(table, history, st, h, threads)) {
+        try (EmissionRenderer r = new EmissionRenderer(table, history, st, h, threads, false, gridded)) {
             for (int f = 0; f < times.length; f++) {
                 float[] img = new float[n * n];
                 r.render(times[f], img);

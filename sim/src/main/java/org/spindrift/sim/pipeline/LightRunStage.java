@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import org.hipparchus.util.FastMath;
 import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.sim.light.EmissionRenderer;
 import org.spindrift.sim.light.EmitterHistory;
 import org.spindrift.sim.light.FrameBudget;
 import org.spindrift.sim.light.FrameMoments;
@@ -43,12 +44,16 @@ public final class LightRunStage implements RunStage {
         if (ctx.progress()) {
             System.err.printf("spindrift: light: tracing %d x %d rays%n", s.pixels(), s.pixels());
         }
-        LightResult r = LightStage.run(s, ctx.spacetime(), capture, h, ctx.threads());
+        boolean gridded = ctx.scenario().imaging().griddedEmission();
+        LightResult r = LightStage.run(s, ctx.spacetime(), capture, h, ctx.threads(), gridded);
         LightOutputs.write((name, w) -> ctx.archive().writeStream(name, w), r);
         LightPlots.write((name, w) -> ctx.archive().writeStream(name, w), r, RunNotes.guard(ctx));
         ctx.results().light(r);
         ObjectNode m = ctx.manifest().putObject(org.spindrift.shared.archive.ArchiveLayout.K_LIGHT);
         m.put("lensing", s.lensing());
+        // what summed the emission: a grid per emission time, or the particles (also when a grid was
+        // asked for but the sources have different spectral indices)
+        m.put("emission_sum", gridded && EmissionRenderer.oneSpectralIndex(h) ? "grid" : "particles");
         m.put("pixels", s.pixels());
         m.put("field_of_view_M", s.fieldOfViewM());
         m.put("pixel_uas", r.camera().pixelSize() * s.uasPerM());

@@ -258,11 +258,12 @@ public final class ScenarioLoader {
         if (s == null) {
             return Imaging.defaults();
         }
-        s.allow("field_of_view_M", "pixels", "frame_cadence", "lensing", "sky_colours");
+        s.allow("field_of_view_M", "pixels", "frame_cadence", "lensing", "sky_colours", "emission_sum");
         return new Imaging(s.number("field_of_view_M", Imaging.DEFAULT_FIELD_OF_VIEW_M, Range.positive(1e5)),
                 (int) s.integer("pixels", (long) Imaging.DEFAULT_PIXELS, 8, 4096),
                 s.time("frame_cadence", null, true, false, true), s.bool("lensing", true),
-                ColourRamp.skyOption(s.choice("sky_colours", "default", "default", "grey")));
+                ColourRamp.skyOption(s.choice("sky_colours", "default", "default", "grey")),
+                s.choice("emission_sum", "particles", "particles", "grid").equals("grid"));
     }
 
     private static Instrument instrument(ConfigSection s) {

@@ -4,7 +4,8 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.hipparchus.util.FastMath;
-import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
 import org.spindrift.sim.history.ParticleHistory;
 import org.spindrift.sim.history.SyntheticHistories;
 import org.spindrift.sim.spacetime.Spacetime;
@@ -17,7 +18,10 @@ class HistoryEmittersTest {
     /** Flux and centroid scatter allowed over the covered frames: discreteness of 720 particles (common practice, no source). */
     static final double STEADY_TOLERANCE = 0.01;
 
-    @Test void faceOnUniformRingIsSteadyCentredAtThePrimaryImageRadius() {
+    /** @param gridded the gridded emission sum ({@link GriddedEmission}) instead of the particle sum */
+    @ParameterizedTest(name = "gridded = {0}")
+    @ValueSource(booleans = {false, true})
+    void faceOnUniformRingIsSteadyCentredAtThePrimaryImageRadius(boolean gridded) {
         double re = 10.0;
         Spacetime st = LightTestSupport.kerr(0.0);
         double period = 2 * FastMath.PI * FastMath.pow(re, 1.5); // 2 pi r^1.5 (BPT 1972 eq. 2.16 at a = 0)
@@ -32,7 +36,7 @@ class HistoryEmittersTest {
         LightSettings s = new LightSettings(0.0, 0.0, 30.0, 64, period / 20.0, true, 1.0e6, 1.0e-3, 0.0, 0.0, 0.0,
                 1.0, 7L);
         LightResult res = LightStage.run(s, st, LightTestSupport.captureRadius(0.0), new HistoryEmitters(h,
-                new double[] {1.0}), 2);
+                new double[] {1.0}), 2, gridded);
         Camera cam = res.camera();
         int px = cam.pixels();
         double expected = SchwarzschildRays.faceOnImpactParameter(re);
