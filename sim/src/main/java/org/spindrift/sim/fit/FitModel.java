@@ -139,6 +139,72 @@ public final class FitModel {
      *     ISCO, no horizon, ...)
      */
     public Prediction predict(double[] p) {
+        return onTableNodes(p, 0);
+    }
+
+    /**
+     * Grid step of a free parameter that changes the ray table (spin, inclination, the family's
+     * deformation parameters), 0 for the others: the model at such a parameter's value is the
+     * linear interpolation between the two grid values around it, so a fit that moves it traces a
+     * table per grid value visited rather than one per value tried (the change of the track between
+     * neighbouring grid values is small and smooth in them; the interpolation error is measured in
+     * FitModelTableNodesTest).
+     */
+    static double tableStep(FitFile.Free f) {
+        String k = f.key();
+        if (k.equals("black_hole.spin")) {
+            return SPIN_STEP;
+        }
+        if (k.equals("observer.inclination_deg")) {
+            return INCLINATION_STEP_DEG;
+        }
+        return k.startsWith("black_hole.parameters.") ? (f.max() - f.min()) / 100.0 : 0.0;
+    }
+
+    /** Grid step of a free spin. */
+    static final double SPIN_STEP = 0.01;
+    /** Grid step of a free inclination, degrees. */
+    static final double INCLINATION_STEP_DEG = 0.5;
+
+    /** The prediction with the table parameters from index {@code from} on put on their grids. */
+    private Prediction onTableNodes(double[] p, int from) {
+        for (int i = from; i < p.length; i++) {
+            double step = tableStep(free.get(i));
+            if (step > 0) {
+                FitFile.Free f = free.get(i);
+                double v = FastMath.max(f.min(), FastMath.min(f.max(), p[i]));
+                double lo = FastMath.min(f.max(), f.min() + FastMath.floor((v - f.min()) / step) * step);
+                double hi = FastMath.min(f.max(), lo + step);
+                double[] q = p.clone();
+                q[i] = lo;
+                Prediction a = onTableNodes(q, i + 1);
+                if (!(hi > lo) || v == lo) {
+                    return a;
+                }
+                q[i] = hi;
+                Prediction b = onTableNodes(q, i + 1);
+                return blend(a, b, (v - lo) / (hi - lo));
+            }
+        }
+        return predictAt(p);
+    }
+
+    /** @return (1 - w) a + w b for the data-space values; frames and units of the nearer one */
+    private static Prediction blend(Prediction a, Prediction b, double w) {
+        double[] x = a.x().clone(), y = a.y().clone(), f = a.flux().clone();
+        for (int i = 0; i < x.length; i++) {
+            x[i] += w * (b.x()[i] - x[i]);
+            y[i] += w * (b.y()[i] - y[i]);
+        }
+        for (int i = 0; i < f.length; i++) {
+            f[i] += w * (b.flux()[i] - f[i]);
+        }
+        Prediction n = w < 0.5 ? a : b;
+        return new Prediction(x, y, f, n.frames(), n.uasPerM(), n.minutesPerM(), n.timeOffsetMin(), n.fluxScale());
+    }
+
+    /** The prediction at exactly these parameter values (one table for their spacetime and inclination). */
+    Prediction predictAt(double[] p) {
         LoadedScenario ls = scenario(p);
         Scenario sc = ls.scenario();
         BlackHole bh = sc.blackHole();
