@@ -4,6 +4,8 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.CompletionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
 import java.util.function.Supplier;
 
 /**
@@ -11,7 +13,8 @@ import java.util.function.Supplier;
  * {@code capacity} of them, shared by threads: a value is computed once while others asking for
  * the same key wait for it, and the least recently used one is dropped beyond the capacity (a
  * fit that moves spin or inclination continuously would otherwise keep every table it traced).
- * A dropped value is computed again when asked for, with the same result.
+ * A dropped value is computed again when asked for, with the same result. Values are computed on
+ * threads of their own (see {@link #get}).
  */
 final class RecentTables<K, V> {
     private final int capacity;
@@ -23,7 +26,7 @@ final class RecentTables<K, V> {
         this.map = new LinkedHashMap<>(16, 0.75f, true);
     }
 
-    /** @return the value for key, computed by make (on this thread) when it is not held */
+    /** @return the value for key, computed by make when it is not held (the caller waits) */
     V get(K key, Supplier<V> make) {
         CompletableFuture<V> mine = new CompletableFuture<>();
         CompletableFuture<V> held;
@@ -38,22 +41,36 @@ final class RecentTables<K, V> {
             }
         }
         if (held != null) {
-            try {
-                return held.join();
-            } catch (CompletionException e) {
-                throw rethrow(e.getCause());
-            }
+            return join(held);
         }
-        try {
-            V v = make.get();
-            mine.complete(v);
-            return v;
-        } catch (RuntimeException | Error e) {
-            synchronized (map) {
-                map.remove(key, mine);
+        // computed on a thread of its own, never on a fork-join worker: a worker waiting for the
+        // table's tracing pool would help with other tasks of its own pool meanwhile, and such a
+        // task asking for this very table would wait for itself
+        MAKERS.execute(() -> {
+            try {
+                mine.complete(make.get());
+            } catch (RuntimeException | Error e) {
+                synchronized (map) {
+                    map.remove(key, mine);
+                }
+                mine.completeExceptionally(e);
             }
-            mine.completeExceptionally(e);
-            throw e;
+        });
+        return join(mine);
+    }
+
+    /** Daemon threads that compute the values (idle ones end after a minute). */
+    private static final ExecutorService MAKERS = Executors.newCachedThreadPool(r -> {
+        Thread t = new Thread(r, "spindrift-table");
+        t.setDaemon(true);
+        return t;
+    });
+
+    private static <V> V join(CompletableFuture<V> f) {
+        try {
+            return f.join();
+        } catch (CompletionException e) {
+            throw rethrow(e.getCause());
         }
     }
 
