@@ -89,8 +89,8 @@ public final class Main implements Runnable {
             }
             if (oom != null) {
                 c.getErr().println(c.getCommandSpec().qualifiedName() + ": out of memory (" + (Runtime.getRuntime()
-                        .maxMemory() >> 20) + " MiB of heap); nothing was written: give Java more memory, e.g."
-                        + " SPINDRIFT_JAVA_OPTS=-Xmx8g, or use fewer threads or pixels");
+                        .maxMemory() >> 20) + " MiB of heap): give Java more memory, e.g. SPINDRIFT_JAVA_OPTS=-Xmx8g,"
+                        + " or use fewer threads or pixels");
                 c.getErr().flush();
                 return EXIT_FAILURE;
             }

@@ -210,12 +210,10 @@ final class StudyOutputs {
                     xs.add(Double.NaN);
                     ys.add(Double.NaN);
                 }
-                {
-                    XYSeries ser = c.addSeries("expected " + (int) level + " sigma", xs, ys);
-                    ser.setMarker(SeriesMarkers.DIAMOND);
-                    ser.setLineColor(level == 3 ? new Color(230, 150, 0) : new Color(200, 0, 0));
-                    ser.setMarkerColor(level == 3 ? new Color(230, 150, 0) : new Color(200, 0, 0));
-                }
+                XYSeries ser = c.addSeries("expected " + (int) level + " sigma", xs, ys);
+                ser.setMarker(SeriesMarkers.DIAMOND);
+                ser.setLineColor(level == 3 ? new Color(230, 150, 0) : new Color(200, 0, 0));
+                ser.setMarkerColor(level == 3 ? new Color(230, 150, 0) : new Color(200, 0, 0));
             }
             if (xLo <= xHi) {
                 double m = FastMath.max(0.1 * (xHi - xLo), 0.1);
@@ -224,7 +222,7 @@ final class StudyOutputs {
             // the same deformation axis in every panel
             double dLo = java.util.Arrays.stream(s.deformations()).min().orElse(0.0);
             double dHi = java.util.Arrays.stream(s.deformations()).max().orElse(1.0);
-            double dm = dHi > dLo ? 0.08 * (dHi - dLo) : FastMath.max(0.5 * FastMath.abs(dLo), 0.5);
+            double dm = margin(dLo, dHi, 0.08);
             c.getStyler().setYAxisMin(dLo - dm).setYAxisMax(dHi + dm).setYAxisDecimalPattern("0.###");
             panels.add(BitmapEncoder.getBufferedImage(c));
         }
@@ -302,10 +300,14 @@ final class StudyOutputs {
      */
     private static void padded(XYChart c, double[] xs, double yLo, double yHi) {
         double xLo = java.util.Arrays.stream(xs).min().orElse(0.0), xHi = java.util.Arrays.stream(xs).max().orElse(1.0);
-        double xm = xHi > xLo ? 0.08 * (xHi - xLo) : FastMath.max(0.5 * FastMath.abs(xLo), 0.5);
-        double ym = yHi > yLo ? 0.1 * (yHi - yLo) : FastMath.max(0.5 * FastMath.abs(yLo), 0.5);
+        double xm = margin(xLo, xHi, 0.08), ym = margin(yLo, yHi, 0.1);
         c.getStyler().setXAxisMin(xLo - xm).setXAxisMax(xHi + xm).setYAxisMin(yLo - ym).setYAxisMax(yHi + ym);
         c.getStyler().setXAxisDecimalPattern("0.###").setYAxisDecimalPattern("0.###");
+    }
+
+    /** @return a fraction of the range as axis margin, or half the value (at least 0.5) when the range is empty */
+    private static double margin(double lo, double hi, double fraction) {
+        return hi > lo ? fraction * (hi - lo) : FastMath.max(0.5 * FastMath.abs(lo), 0.5);
     }
 
     /** Sky tracks at the epochs of the most deformed cell: truth and the best-fitting reference (noise-free). */
