@@ -25,14 +25,15 @@ import org.spindrift.sim.spacetime.Spacetime;
  * The binned sum of a sheared spot ({@link RingProfile}) against the plain sum over every table
  * sample of the same emitter-frame density (written out here from its definition: the sheared
  * Gaussian in radial, along-orbit and vertical offsets, the envelope at each sample's own emission
- * time, g^(2 + alpha) from the centre's 4-velocity), and the independence of the result from the
+ * time, g^(2 + alpha) from the centre's 4-velocity: I_nu / nu^3 invariant, Rybicki &amp; Lightman
+ * 1979, Radiative Processes in Astrophysics, sect. 1.4), and the independence of the result from the
  * orbits evaluated before (the base bins grow by whole radial bins). The full-run comparison is
  * {@code CompactModelVsRunTest}.
  */
 class RingProfileTest {
     /**
      * Binning error allowed: bins half a blob width wide summed at their weighted mean positions are
-     * a Riemann sum of the Gaussian (our choice of bound; measured here at 48 px: 0.23 % of the
+     * a Riemann sum of the Gaussian (our choice of bound, common practice, no source; measured here at 48 px: 0.23 % of the
      * track radius and 0.46 % in flux).
      */
     private static final double CENTROID_REL = 0.005;
