@@ -36,6 +36,17 @@ public record LagProfile(double[] r, double[] lag, int[] count, double stationar
     /** Smallest number of members in a bin. */
     static final int MIN_PER_BIN = 5;
 
+    /** As {@link #of(double[], double[], int[], int, int, double)}, finding the members' median azimuth itself. */
+    static LagProfile of(double[] r, double[] phi, int[] idx, int m, int bins) {
+        double[] phis = new double[m];
+        for (int k = 0; k < m; k++) {
+            phis[k] = phi[idx[k]];
+        }
+        double[] med = new double[1];
+        Stats.quantiles(phis, m, new double[] {0.5}, med);
+        return of(r, phi, idx, m, bins, med[0]);
+    }
+
     /**
      * Computes the profile of the members listed in idx (alive members of one source).
      *
@@ -44,26 +55,23 @@ public record LagProfile(double[] r, double[] lag, int[] count, double stationar
      * @param idx indices of the members to use
      * @param m how many of idx
      * @param bins number of bins (equal counts: bins are r quantiles)
+     * @param phiC median azimuth of the members ({@link Stats#quantile} at 0.5 of their phi)
      */
-    static LagProfile of(double[] r, double[] phi, int[] idx, int m, int bins) {
+    static LagProfile of(double[] r, double[] phi, int[] idx, int m, int bins, double phiC) {
         if (m < 2 * MIN_PER_BIN || bins < 3) {
             return EMPTY;
         }
         bins = Math.max(3, Math.min(bins, m / MIN_PER_BIN));
-        double[] phis = new double[m];
         double[] rsort = new double[m];
         for (int k = 0; k < m; k++) {
-            phis[k] = phi[idx[k]];
             rsort[k] = r[idx[k]];
         }
-        java.util.Arrays.sort(phis);
-        double phiC = Stats.quantile(phis, 0.5);
-        // equal-count bins: edges at the r quantiles (primitive sort; ties may shift a member)
-        java.util.Arrays.sort(rsort);
-        double[] edge = new double[bins - 1];
+        // equal-count bins: edges at the r order statistics of ranks b m / bins (ties may shift a member)
+        int[] ranks = new int[bins - 1];
         for (int b = 1; b < bins; b++) {
-            edge[b - 1] = rsort[(int) ((long) b * m / bins)];
+            ranks[b - 1] = (int) ((long) b * m / bins);
         }
+        double[] edge = Stats.orderStatistics(rsort, m, ranks);
         double[] rb = new double[bins];
         double[] lag = new double[bins];
         int[] cnt = new int[bins];

@@ -27,6 +27,9 @@ public final class ParticlePeriods {
     /** Smallest relative oscillation amplitude treated as a real oscillation. */
     public static final double MIN_RELATIVE_AMPLITUDE = 1e-7;
 
+    /** Particles gathered from the snapshots at a time. */
+    private static final int BLOCK = 64;
+
     private final double[] periodPhi;
     private final double[] periodR;
     private final double[] periodTheta;
@@ -55,25 +58,45 @@ public final class ParticlePeriods {
         int s = h.snapshots();
         ParticlePeriods p = new ParticlePeriods(n);
         double[] t = h.times();
-        double[] r = new double[s];
-        double[] th = new double[s];
-        double[] ph = new double[s];
+        // particles in blocks: each snapshot's arrays are read in runs of BLOCK neighbours, not one
+        // element per snapshot per particle
+        int block = Math.min(BLOCK, Math.max(1, n));
+        double[][] r = new double[block][s];
+        double[][] th = new double[block][s];
+        double[][] ph = new double[block][s];
+        int[] alive = new int[block];
         double[] ext = new double[s];
         double[] extPhi = new double[s];
-        for (int i = 0; i < n; i++) {
-            int m = 0;
+        for (int i0 = 0; i0 < n; i0 += block) {
+            int nb = Math.min(block, n - i0);
+            // alive[j]: snapshots before the first where particle i0 + j is not alive (-1: none yet)
+            java.util.Arrays.fill(alive, 0, nb, -1);
             for (int k = 0; k < s; k++) {
-                if (h.state(k)[i] != 0) {
-                    break;
+                byte[] st = h.state(k);
+                double[] rk = h.r(k);
+                double[] thk = h.theta(k);
+                double[] phk = h.phi(k);
+                for (int j = 0; j < nb; j++) {
+                    if (alive[j] >= 0) {
+                        continue;
+                    }
+                    int i = i0 + j;
+                    if (st[i] != 0) {
+                        alive[j] = k;
+                        continue;
+                    }
+                    r[j][k] = rk[i];
+                    th[j][k] = thk[i];
+                    ph[j][k] = phk[i];
                 }
-                r[m] = h.r(k)[i];
-                th[m] = h.theta(k)[i];
-                ph[m] = h.phi(k)[i];
-                m++;
             }
-            p.measure(i, t, r, th, ph, m, ext, extPhi);
-            if (turning != null) {
-                p.fromTurningPoints(i, turning[i], r, th, m);
+            for (int j = 0; j < nb; j++) {
+                int i = i0 + j;
+                int m = alive[j] < 0 ? s : alive[j];
+                p.measure(i, t, r[j], th[j], ph[j], m, ext, extPhi);
+                if (turning != null) {
+                    p.fromTurningPoints(i, turning[i], r[j], th[j], m);
+                }
             }
         }
         return p;

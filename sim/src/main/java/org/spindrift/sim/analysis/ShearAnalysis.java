@@ -3,6 +3,7 @@ package org.spindrift.sim.analysis;
 import java.util.ArrayList;
 import java.util.List;
 import org.spindrift.shared.Coordinates;
+import org.spindrift.sim.history.CentreTracks;
 import org.spindrift.sim.history.ParticleHistory;
 
 /**
@@ -19,6 +20,9 @@ public final class ShearAnalysis {
     private ShearAnalysis() {
     }
 
+    /** Probabilities of the azimuth quantiles a shape needs: the extent's ends and the median. */
+    private static final double[] PHI_QUANTILES = {0.05, 0.5, 0.95};
+
     /** Bins of a lag profile for m members: about 25 per bin, between 4 and 24 bins. */
     static int bins(int m) {
         return Math.max(4, Math.min(24, m / 25));
@@ -34,42 +38,42 @@ public final class ShearAnalysis {
         int s = h.snapshots();
         List<ShearShape> out = new ArrayList<>(k * s);
         double[] xyz = new double[3];
+        CentreTracks tracks = h.centres();
         for (int src = 0; src < k; src++) {
             int from = first[src];
             int to = src + 1 < k ? first[src + 1] : n;
-            int[] idx = new int[to - from];
-            double[][] com = new double[s][3];
-            int[] alive = new int[s];
-            for (int q = 0; q < s; q++) {
-                double[] r = h.r(q);
-                double[] th = h.theta(q);
-                double[] ph = h.phi(q);
-                byte[] st = h.state(q);
-                for (int i = from; i < to; i++) {
-                    if (st[i] == 0) {
-                        Coordinates.cartesian(r[i], th[i], ph[i], h.spin(), xyz);
-                        com[q][0] += xyz[0];
-                        com[q][1] += xyz[1];
-                        com[q][2] += xyz[2];
-                        alive[q]++;
-                    }
-                }
-                for (int c = 0; c < 3; c++) {
-                    com[q][c] = alive[q] > 0 ? com[q][c] / alive[q] : Double.NaN;
+            for (int i = from; i < to; i++) {
+                if (h.sourceIndex()[i] != src) {
+                    throw new IllegalArgumentException("particle " + i + " belongs to source " + h.sourceIndex()[i]
+                            + ", not to source " + src + " as the first indices say");
                 }
             }
+            int[] idx = new int[to - from];
+            // a source without particles has no track of its own
+            double[][] com = src < tracks.sources() ? tracks.centre()[src] : nanTrack(s);
+            int[] alive = src < tracks.sources() ? tracks.alive()[src] : new int[s];
             double[] nrm = planeNormal(com);
             double[] e1 = new double[3];
             double[] e2 = new double[3];
             basis(nrm, e1, e2);
+            double[] phis = new double[to - from];
             for (int q = 0; q < s; q++) {
-                out.add(shape(h, src, q, from, to, idx, com[q], alive[q], nrm, e1, e2, xyz));
+                out.add(shape(h, src, q, from, to, idx, phis, com[q], alive[q], nrm, e1, e2, xyz));
             }
         }
         return out;
     }
 
-    private static ShearShape shape(ParticleHistory h, int src, int q, int from, int to, int[] idx, double[] c,
+    private static double[][] nanTrack(int s) {
+        double[][] t = new double[s][3];
+        for (double[] c : t) {
+            java.util.Arrays.fill(c, Double.NaN);
+        }
+        return t;
+    }
+
+    private static ShearShape shape(ParticleHistory h, int src, int q, int from, int to, int[] idx, double[] phis,
+            double[] c,
             int alive, double[] nrm, double[] e1, double[] e2, double[] xyz) {
         double[] r = h.r(q);
         double[] th = h.theta(q);
@@ -89,7 +93,6 @@ public final class ShearAnalysis {
         double syy = 0;
         double sxy = 0;
         int m = 0;
-        double[] phis = new double[alive];
         for (int i = from; i < to; i++) {
             if (st[i] != 0) {
                 continue;
@@ -114,12 +117,13 @@ public final class ShearAnalysis {
         double major = Math.sqrt(mean + dif);
         double minor = Math.sqrt(Math.max(0.0, mean - dif));
         double orient = Math.toDegrees(0.5 * Math.atan2(2.0 * sxy, sxx - syy));
-        java.util.Arrays.sort(phis, 0, m);
-        double[] sorted = java.util.Arrays.copyOf(phis, m);
-        double extent = Math.toDegrees(Stats.quantile(sorted, 0.95) - Stats.quantile(sorted, 0.05));
+        // 5 %, 50 % (the lag profile's centre azimuth) and 95 % points of the members' azimuths
+        double[] pq = new double[3];
+        Stats.quantiles(phis, m, PHI_QUANTILES, pq);
+        double extent = Math.toDegrees(pq[2] - pq[0]);
         double[] rtp = new double[3];
         Coordinates.boyerLindquist(c[0], c[1], c[2], h.spin(), rtp);
-        LagProfile lag = LagProfile.of(r, ph, idx, m, bins(m));
+        LagProfile lag = LagProfile.of(r, ph, idx, m, bins(m), pq[1]);
         return new ShearShape(src, q, h.time(q), alive, c[0], c[1], c[2], rtp[0], major, minor,
                 minor > 0 ? major / minor : Double.POSITIVE_INFINITY, orient, extent, lag);
     }

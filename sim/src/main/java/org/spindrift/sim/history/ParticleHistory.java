@@ -26,6 +26,7 @@ public final class ParticleHistory {
     private final byte[][] state;
     private final int[] sourceIndex;
     private final double spin;
+    private CentreTracks centres;
 
     /**
      * @param times S snapshot times, increasing (M)
@@ -138,5 +139,16 @@ public final class ParticleHistory {
     /** @return state codes at snapshot s */
     public byte[] state(int s) {
         return state[s];
+    }
+
+    /**
+     * @return the centre of mass of each source's alive particles at every snapshot, computed on
+     *     the first call and kept (the arrays are shared: read only)
+     */
+    public synchronized CentreTracks centres() {
+        if (centres == null) {
+            centres = CentreTracks.of(this);
+        }
+        return centres;
     }
 }

@@ -47,24 +47,8 @@ final class PositionsFigure implements RunFigure {
         int[] idx = Subsample.keptIndices(sc, ctx.placed().firstIndex());
         int s = h.snapshots();
         // orbital plane of the first source (from its centre-of-mass track)
-        int n0 = sc.sources().get(0).particles();
-        double[][] com = new double[s][3];
+        double[][] com = h.centres().centre()[0];
         double[] xyz = new double[3];
-        for (int q = 0; q < s; q++) {
-            int m = 0;
-            for (int i = 0; i < n0; i++) {
-                if (h.state(q)[i] == 0) {
-                    Coordinates.cartesian(h.r(q)[i], h.theta(q)[i], h.phi(q)[i], h.spin(), xyz);
-                    for (int c = 0; c < 3; c++) {
-                        com[q][c] += xyz[c];
-                    }
-                    m++;
-                }
-            }
-            for (int c = 0; c < 3; c++) {
-                com[q][c] = m > 0 ? com[q][c] / m : Double.NaN;
-            }
-        }
         double[] nrm = ShearAnalysis.planeNormal(com);
         double[] e1 = new double[3];
         double[] e2 = new double[3];

@@ -1,10 +1,10 @@
 package org.spindrift.sim.pipeline;
 
 import java.io.IOException;
-import org.spindrift.shared.Coordinates;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.archive.SnapshotWriter;
 import org.spindrift.shared.scenario.Scenario;
+import org.spindrift.sim.history.CentreTracks;
 import org.spindrift.sim.history.ParticleHistory;
 import org.spindrift.sim.history.Subsample;
 
@@ -32,34 +32,26 @@ public final class SnapshotStage implements RunStage {
         double[][] cols = new double[7][m];
         float[] wt = new float[m];
         byte[] st = new byte[m];
-        double[] xyz = new double[3];
+        CentreTracks tracks = h.centres();
         for (int s = 0; s < h.snapshots(); s++) {
             double[][] src = {h.r(s), h.theta(s), h.phi(s), h.ut(s), h.ur(s), h.uTheta(s), h.uPhi(s)};
+            float[] weight = h.weight(s);
+            byte[] state = h.state(s);
+            for (int c = 0; c < 7; c++) {
+                double[] from = src[c];
+                double[] to = cols[c];
+                for (int j = 0; j < m; j++) {
+                    to[j] = from[idx[j]];
+                }
+            }
             for (int j = 0; j < m; j++) {
-                int i = idx[j];
-                for (int c = 0; c < 7; c++) {
-                    cols[c][j] = src[c][i];
-                }
-                wt[j] = h.weight(s)[i];
-                st[j] = h.state(s)[i];
+                wt[j] = weight[idx[j]];
+                st[j] = state[idx[j]];
             }
-            double[][] centres = new double[k][3];
-            int[] alive = new int[k];
-            for (int i = 0; i < h.particles(); i++) {
-                if (h.state(s)[i] != ArchiveLayout.ALIVE) {
-                    continue;
-                }
-                int q = h.sourceIndex()[i];
-                Coordinates.cartesian(h.r(s)[i], h.theta(s)[i], h.phi(s)[i], h.spin(), xyz);
-                centres[q][0] += xyz[0];
-                centres[q][1] += xyz[1];
-                centres[q][2] += xyz[2];
-                alive[q]++;
-            }
+            double[][] centres = new double[k][];
             for (int q = 0; q < k; q++) {
-                for (int c = 0; c < 3; c++) {
-                    centres[q][c] = alive[q] > 0 ? centres[q][c] / alive[q] : Double.NaN;
-                }
+                centres[q] = q < tracks.sources() ? tracks.centre()[q][s].clone()
+                        : new double[] {Double.NaN, Double.NaN, Double.NaN};
             }
             w.add(h.time(s), cols[0], cols[1], cols[2], cols[3], cols[4], cols[5], cols[6], wt, st, centres);
         }
