@@ -63,8 +63,13 @@ public record LagProfile(double[] r, double[] lag, int[] count, double stationar
         }
         bins = Math.max(3, Math.min(bins, m / MIN_PER_BIN));
         double[] rsort = new double[m];
+        double rMin = Double.POSITIVE_INFINITY;
+        double rMax = Double.NEGATIVE_INFINITY;
         for (int k = 0; k < m; k++) {
-            rsort[k] = r[idx[k]];
+            double v = r[idx[k]];
+            rsort[k] = v;
+            rMin = Math.min(rMin, v);
+            rMax = Math.max(rMax, v);
         }
         // equal-count bins: edges at the r order statistics of ranks b m / bins (ties may shift a member)
         int[] ranks = new int[bins - 1];
@@ -79,10 +84,38 @@ public record LagProfile(double[] r, double[] lag, int[] count, double stationar
         double[] sp = new double[bins];
         double[] sp2 = new double[bins];
         int[] bin = new int[m];
+        // a member's bin is the binary search's insertion point among the edges; with distinct edges
+        // that is the number of edges <= r, counted from a grid of equal cells in r: cell(r) never
+        // decreases with r, so every edge of an earlier cell is below r and of a later one above
+        // (positive radii: the search orders -0.0 below 0.0, a comparison does not)
+        boolean distinct = Double.isFinite(rMax - rMin) && rMax > rMin && rMin > 0;
+        for (int b = 1; b < edge.length; b++) {
+            distinct &= edge[b] > edge[b - 1];
+        }
+        int cells = GRID_PER_BIN * bins;
+        double scale = cells / (rMax - rMin);
+        int[] below = new int[cells + 1];
+        if (distinct) {
+            for (double e : edge) {
+                below[cell(e, rMin, scale, cells) + 1]++;
+            }
+            for (int c = 0; c < cells; c++) {
+                below[c + 1] += below[c];
+            }
+        }
         for (int k = 0; k < m; k++) {
             int i = idx[k];
-            int b = java.util.Arrays.binarySearch(edge, r[i]);
-            b = b >= 0 ? b + 1 : -b - 1;
+            int b;
+            if (distinct) {
+                double v = r[i];
+                b = below[cell(v, rMin, scale, cells)];
+                while (b < edge.length && edge[b] <= v) {
+                    b++;
+                }
+            } else {
+                b = java.util.Arrays.binarySearch(edge, r[i]);
+                b = b >= 0 ? b + 1 : -b - 1;
+            }
             bin[k] = b;
             cnt[b]++;
             rb[b] += r[i];
@@ -131,6 +164,14 @@ public record LagProfile(double[] r, double[] lag, int[] count, double stationar
             outer = armLength(rb, lag, lo, bins - 1);
         }
         return new LagProfile(rb, lag, cnt, rs, inner, outer);
+    }
+
+    /** Cells of the bin-lookup grid per bin. */
+    private static final int GRID_PER_BIN = 8;
+
+    /** Cell of the bin-lookup grid holding v: non-decreasing in v (each operation rounds monotonically). */
+    private static int cell(double v, double lo, double scale, int cells) {
+        return Math.max(0, Math.min(cells - 1, (int) ((v - lo) * scale)));
     }
 
     private static double armLength(double[] r, double[] lag, int from, int to) {

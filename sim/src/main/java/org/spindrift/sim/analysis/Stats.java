@@ -66,102 +66,90 @@ public final class Stats {
 
     /**
      * The values at the given ranks (0-based) of the first n values of a in ascending order, as
-     * {@link Arrays#sort(double[])} orders them, found by multiple quickselect (Hoare 1961, Comm.
-     * ACM 4, 321, algorithm 65 FIND, extended to several ranks at once) with a three-way partition
-     * about a median-of-three pivot; a range that recurses too deep is sorted instead, so the
-     * worst case stays O(n log n). The first n values of a are reordered.
+     * {@link Arrays#sort(double[])} orders them, without sorting them all: a bucket selection
+     * (distribution counting, as in Knuth, TAOCP vol. 3, 5.2): the values are counted into about
+     * n / 8 equal-width buckets between their minimum and maximum, whose index is a non-decreasing
+     * function of the value, so the value of rank k lies in the bucket where the running count
+     * passes k; only the buckets holding a wanted rank are gathered and sorted. Two passes over the
+     * data and a few short sorts; data too small, all equal or with a non-finite value are sorted
+     * whole instead. The first n values of a may be reordered.
      *
      * @return one value per rank, in the order of ranks
      */
     public static double[] orderStatistics(double[] a, int n, int[] ranks) {
         double[] out = new double[ranks.length];
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
         for (int k = 0; k < n; k++) {
-            if (Double.isNaN(a[k])) {
-                Arrays.sort(a, 0, n);
-                for (int j = 0; j < ranks.length; j++) {
-                    out[j] = a[ranks[j]];
-                }
-                return out;
-            }
+            double v = a[k];
+            lo = Math.min(lo, v);
+            hi = Math.max(hi, v);
         }
-        int[] sorted = ranks.clone();
-        Arrays.sort(sorted);
-        select(a, 0, n - 1, sorted, 0, sorted.length - 1, 2 * (32 - Integer.numberOfLeadingZeros(Math.max(1, n))));
-        boolean zero = false;
-        for (int j = 0; j < ranks.length; j++) {
-            out[j] = a[ranks[j]];
-            zero |= out[j] == 0.0;
-        }
-        if (zero) {
-            // the partition treats -0.0 and 0.0 as equal; a sort puts every -0.0 first
-            int below = 0;
-            int negativeZeros = 0;
-            for (int k = 0; k < n; k++) {
-                if (a[k] < 0) {
-                    below++;
-                } else if (a[k] == 0.0 && Double.doubleToRawLongBits(a[k]) != 0L) {
-                    negativeZeros++;
-                }
-            }
+        double scaleBase = hi - lo;
+        if (n < SELECT_MIN || !Double.isFinite(scaleBase) || !(scaleBase > 0)) {
+            // Math.min/max propagate NaN: a NaN anywhere lands here
+            Arrays.sort(a, 0, n);
             for (int j = 0; j < ranks.length; j++) {
-                if (out[j] == 0.0) {
-                    out[j] = ranks[j] < below + negativeZeros ? -0.0 : 0.0;
-                }
+                out[j] = a[ranks[j]];
             }
+            return out;
+        }
+        int nb = n / 8;
+        double scale = nb / scaleBase;
+        int[] start = new int[nb + 1];
+        for (int k = 0; k < n; k++) {
+            start[bucket(a[k], lo, scale, nb) + 1]++;
+        }
+        for (int b = 0; b < nb; b++) {
+            start[b + 1] += start[b];
+        }
+        // the buckets that hold a wanted rank, and where their values go in the gathered array
+        int[] wanted = new int[ranks.length];
+        int[] at = new int[nb];
+        Arrays.fill(at, -1);
+        int gathered = 0;
+        for (int j = 0; j < ranks.length; j++) {
+            int b = Arrays.binarySearch(start, ranks[j]);
+            // the last bucket starting at or before the rank (empty buckets share their start)
+            if (b >= 0) {
+                while (b + 1 <= nb && start[b + 1] == ranks[j]) {
+                    b++;
+                }
+            } else {
+                b = -b - 2;
+            }
+            wanted[j] = b;
+            if (at[b] < 0) {
+                at[b] = gathered;
+                gathered += start[b + 1] - start[b];
+            }
+        }
+        double[] g = new double[gathered];
+        int[] fill = at.clone();
+        for (int k = 0; k < n; k++) {
+            int b = bucket(a[k], lo, scale, nb);
+            if (fill[b] >= 0) {
+                g[fill[b]++] = a[k];
+            }
+        }
+        boolean[] sorted = new boolean[nb];
+        for (int j = 0; j < ranks.length; j++) {
+            int b = wanted[j];
+            if (!sorted[b]) {
+                Arrays.sort(g, at[b], at[b] + start[b + 1] - start[b]);
+                sorted[b] = true;
+            }
+            out[j] = g[at[b] + ranks[j] - start[b]];
         }
         return out;
     }
 
-    /** Smallest range that selection partitions; shorter ones are sorted. */
-    private static final int SELECT_CUTOFF = 40;
+    /** Fewest values for the bucket selection; fewer are sorted. */
+    private static final int SELECT_MIN = 64;
 
-    /** Puts the values of ranks[rlo..rhi] (ascending, all within lo..hi) at their sorted positions. */
-    private static void select(double[] a, int lo, int hi, int[] ranks, int rlo, int rhi, int depth) {
-        while (rlo <= rhi) {
-            if (hi - lo < SELECT_CUTOFF || depth-- <= 0) {
-                Arrays.sort(a, lo, hi + 1);
-                return;
-            }
-            int mid = (lo + hi) >>> 1;
-            double x = a[lo];
-            double y = a[mid];
-            double z = a[hi];
-            double pivot = x < y ? (y < z ? y : Math.max(x, z)) : (x < z ? x : Math.max(y, z));
-            // three-way partition (Dijkstra): a[lo..lt-1] < pivot, a[lt..gt] == pivot, a[gt+1..hi] > pivot
-            int lt = lo;
-            int gt = hi;
-            int k = lo;
-            while (k <= gt) {
-                double v = a[k];
-                if (v < pivot) {
-                    a[k++] = a[lt];
-                    a[lt++] = v;
-                } else if (v > pivot) {
-                    a[k] = a[gt];
-                    a[gt--] = v;
-                } else {
-                    k++;
-                }
-            }
-            // ranks below lt go left, above gt go right; those in between hold the pivot already
-            int left = rlo;
-            while (left <= rhi && ranks[left] < lt) {
-                left++;
-            }
-            int right = rhi;
-            while (right >= rlo && ranks[right] > gt) {
-                right--;
-            }
-            if (left - rlo <= rhi - right) {
-                select(a, lo, lt - 1, ranks, rlo, left - 1, depth);
-                lo = gt + 1;
-                rlo = right + 1;
-            } else {
-                select(a, gt + 1, hi, ranks, right + 1, rhi, depth);
-                hi = lt - 1;
-                rhi = left - 1;
-            }
-        }
+    /** Bucket of v: non-decreasing in v (each operation rounds monotonically), 0..nb-1. */
+    private static int bucket(double v, double lo, double scale, int nb) {
+        return Math.min(nb - 1, (int) ((v - lo) * scale));
     }
 
     /** @return median, and half of the 16-84 % range (one-sigma equivalent for a Gaussian) */
