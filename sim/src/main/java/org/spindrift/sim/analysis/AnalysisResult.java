@@ -24,6 +24,11 @@ public record AnalysisResult(ParticlePeriods periods, List<ShearShape> shapes) {
      * @param firstIndex first particle of each source
      */
     public static AnalysisResult of(ParticleHistory h, TurningPoints[] turning, int[] firstIndex) {
-        return new AnalysisResult(ParticlePeriods.of(h, turning), ShearAnalysis.of(h, firstIndex));
+        return of(h, turning, firstIndex, 1);
+    }
+
+    /** As {@link #of(ParticleHistory, TurningPoints[], int[])} on up to threads threads (the same result for any count). */
+    public static AnalysisResult of(ParticleHistory h, TurningPoints[] turning, int[] firstIndex, int threads) {
+        return new AnalysisResult(ParticlePeriods.of(h, turning, threads), ShearAnalysis.of(h, firstIndex, threads));
     }
 }

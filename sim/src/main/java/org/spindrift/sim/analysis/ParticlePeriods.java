@@ -1,6 +1,7 @@
 package org.spindrift.sim.analysis;
 
 import org.spindrift.sim.motion.TurningPoints;
+import org.spindrift.sim.history.Chunked;
 import org.spindrift.sim.history.ParticleHistory;
 
 /**
@@ -30,6 +31,9 @@ public final class ParticlePeriods {
     /** Particles gathered from the snapshots at a time. */
     private static final int BLOCK = 64;
 
+    /** Chunks of blocks the particles are cut into (fixed, so that nothing depends on the thread count). */
+    private static final int CHUNKS = 32;
+
     private final double[] periodPhi;
     private final double[] periodR;
     private final double[] periodTheta;
@@ -54,21 +58,41 @@ public final class ParticlePeriods {
      * (one per particle, or null to use the snapshots).
      */
     public static ParticlePeriods of(ParticleHistory h, TurningPoints[] turning) {
+        return of(h, turning, 1);
+    }
+
+    /**
+     * As {@link #of(ParticleHistory, TurningPoints[])}, blocks of particles on up to threads
+     * threads (each particle is measured on its own: the same values for any count).
+     */
+    public static ParticlePeriods of(ParticleHistory h, TurningPoints[] turning, int threads) {
         int n = h.particles();
-        int s = h.snapshots();
         ParticlePeriods p = new ParticlePeriods(n);
+        int blocks = (n + BLOCK - 1) / BLOCK;
+        int chunks = Math.min(CHUNKS, blocks);
+        Chunked.forEach(chunks, threads, c -> {
+            int b0 = Chunked.start(c, chunks, blocks);
+            int b1 = Chunked.start(c + 1, chunks, blocks);
+            p.measureParticles(h, turning, b0 * BLOCK, Math.min(n, b1 * BLOCK));
+        });
+        return p;
+    }
+
+    /** Measures particles from..to-1, gathered from the snapshots in blocks. */
+    private void measureParticles(ParticleHistory h, TurningPoints[] turning, int from, int to) {
+        int s = h.snapshots();
         double[] t = h.times();
         // particles in blocks: each snapshot's arrays are read in runs of BLOCK neighbours, not one
         // element per snapshot per particle
-        int block = Math.min(BLOCK, Math.max(1, n));
+        int block = Math.min(BLOCK, Math.max(1, to - from));
         double[][] r = new double[block][s];
         double[][] th = new double[block][s];
         double[][] ph = new double[block][s];
         int[] alive = new int[block];
         double[] ext = new double[s];
         double[] extPhi = new double[s];
-        for (int i0 = 0; i0 < n; i0 += block) {
-            int nb = Math.min(block, n - i0);
+        for (int i0 = from; i0 < to; i0 += block) {
+            int nb = Math.min(block, to - i0);
             // alive[j]: snapshots before the first where particle i0 + j is not alive (-1: none yet)
             java.util.Arrays.fill(alive, 0, nb, -1);
             for (int k = 0; k < s; k++) {
@@ -93,13 +117,12 @@ public final class ParticlePeriods {
             for (int j = 0; j < nb; j++) {
                 int i = i0 + j;
                 int m = alive[j] < 0 ? s : alive[j];
-                p.measure(i, t, r[j], th[j], ph[j], m, ext, extPhi);
+                measure(i, t, r[j], th[j], ph[j], m, ext, extPhi);
                 if (turning != null) {
-                    p.fromTurningPoints(i, turning[i], r[j], th[j], m);
+                    fromTurningPoints(i, turning[i], r[j], th[j], m);
                 }
             }
         }
-        return p;
     }
 
     private void measure(int i, double[] t, double[] r, double[] th, double[] ph, int m, double[] ext,

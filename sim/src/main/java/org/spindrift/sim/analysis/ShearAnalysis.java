@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.spindrift.shared.Coordinates;
 import org.spindrift.sim.history.CentreTracks;
+import org.spindrift.sim.history.Chunked;
 import org.spindrift.sim.history.ParticleHistory;
 
 /**
@@ -20,6 +21,9 @@ public final class ShearAnalysis {
     private ShearAnalysis() {
     }
 
+    /** Snapshot chunks of a source's shapes (fixed, so that nothing depends on the thread count). */
+    private static final int CHUNKS = 16;
+
     /** Probabilities of the azimuth quantiles a shape needs: the extent's ends and the median. */
     private static final double[] PHI_QUANTILES = {0.05, 0.5, 0.95};
 
@@ -33,12 +37,17 @@ public final class ShearAnalysis {
      * @return shapes, source-major (all snapshots of source 0, then source 1, ...)
      */
     public static List<ShearShape> of(ParticleHistory h, int[] first) {
+        return of(h, first, 1);
+    }
+
+    /** As {@link #of(ParticleHistory, int[])}, snapshots on up to threads threads (the same shapes for any count). */
+    public static List<ShearShape> of(ParticleHistory h, int[] first, int threads) {
         int k = first.length;
         int n = h.particles();
         int s = h.snapshots();
-        List<ShearShape> out = new ArrayList<>(k * s);
-        double[] xyz = new double[3];
-        CentreTracks tracks = h.centres();
+        ShearShape[] out = new ShearShape[k * s];
+        CentreTracks tracks = h.centres(threads);
+        int chunks = Math.min(CHUNKS, s);
         for (int src = 0; src < k; src++) {
             int from = first[src];
             int to = src + 1 < k ? first[src + 1] : n;
@@ -48,7 +57,6 @@ public final class ShearAnalysis {
                             + ", not to source " + src + " as the first indices say");
                 }
             }
-            int[] idx = new int[to - from];
             // a source without particles has no track of its own
             double[][] com = src < tracks.sources() ? tracks.centre()[src] : nanTrack(s);
             int[] alive = src < tracks.sources() ? tracks.alive()[src] : new int[s];
@@ -56,12 +64,17 @@ public final class ShearAnalysis {
             double[] e1 = new double[3];
             double[] e2 = new double[3];
             basis(nrm, e1, e2);
-            double[] phis = new double[to - from];
-            for (int q = 0; q < s; q++) {
-                out.add(shape(h, src, q, from, to, idx, phis, com[q], alive[q], nrm, e1, e2, xyz));
-            }
+            int source = src;
+            Chunked.forEach(chunks, threads, c -> {
+                int[] idx = new int[to - from];
+                double[] phis = new double[to - from];
+                double[] xyz = new double[3];
+                for (int q = Chunked.start(c, chunks, s); q < Chunked.start(c + 1, chunks, s); q++) {
+                    out[source * s + q] = shape(h, source, q, from, to, idx, phis, com[q], alive[q], nrm, e1, e2, xyz);
+                }
+            });
         }
-        return out;
+        return java.util.Arrays.asList(out);
     }
 
     private static double[][] nanTrack(int s) {

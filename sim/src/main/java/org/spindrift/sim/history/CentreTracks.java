@@ -14,8 +14,14 @@ import org.spindrift.shared.Coordinates;
  * @param alive [source][snapshot] alive particles
  */
 public record CentreTracks(double[][][] centre, int[][] alive) {
-    /** Computes the tracks of every source that has a particle (sources numbered by the history's source index). */
-    static CentreTracks of(ParticleHistory h) {
+    /** Snapshot chunks the work is cut into (fixed, so that nothing depends on the thread count). */
+    private static final int CHUNKS = 16;
+
+    /**
+     * Computes the tracks of every source that has a particle (sources numbered by the history's
+     * source index), snapshots on up to threads threads.
+     */
+    static CentreTracks of(ParticleHistory h, int threads) {
         int n = h.particles();
         int s = h.snapshots();
         int[] src = h.sourceIndex();
@@ -25,36 +31,46 @@ public record CentreTracks(double[][][] centre, int[][] alive) {
         }
         double[][][] c = new double[k][s][3];
         int[][] alive = new int[k][s];
-        double[] xyz = new double[3];
-        double spin = h.spin();
-        for (int q = 0; q < s; q++) {
-            double[] r = h.r(q);
-            double[] th = h.theta(q);
-            double[] ph = h.phi(q);
-            byte[] st = h.state(q);
-            for (int i = 0; i < n; i++) {
-                if (st[i] == 0) {
-                    Coordinates.cartesian(r[i], th[i], ph[i], spin, xyz);
-                    double[] ck = c[src[i]][q];
-                    ck[0] += xyz[0];
-                    ck[1] += xyz[1];
-                    ck[2] += xyz[2];
-                    alive[src[i]][q]++;
-                }
+        int sources = k;
+        int chunks = Math.min(CHUNKS, s);
+        Chunked.forEach(chunks, threads, chunk -> {
+            double[] xyz = new double[3];
+            for (int q = Chunked.start(chunk, chunks, s); q < Chunked.start(chunk + 1, chunks, s); q++) {
+                snapshot(h, q, sources, c, alive, xyz);
             }
-            for (int j = 0; j < k; j++) {
-                double[] cj = c[j][q];
-                int m = alive[j][q];
-                if (m > 0) {
-                    cj[0] /= m;
-                    cj[1] /= m;
-                    cj[2] /= m;
-                } else {
-                    Arrays.fill(cj, Double.NaN);
-                }
+        });
+        return new CentreTracks(c, alive);
+    }
+
+    private static void snapshot(ParticleHistory h, int q, int k, double[][][] c, int[][] alive, double[] xyz) {
+        int n = h.particles();
+        int[] src = h.sourceIndex();
+        double spin = h.spin();
+        double[] r = h.r(q);
+        double[] th = h.theta(q);
+        double[] ph = h.phi(q);
+        byte[] st = h.state(q);
+        for (int i = 0; i < n; i++) {
+            if (st[i] == 0) {
+                Coordinates.cartesian(r[i], th[i], ph[i], spin, xyz);
+                double[] ck = c[src[i]][q];
+                ck[0] += xyz[0];
+                ck[1] += xyz[1];
+                ck[2] += xyz[2];
+                alive[src[i]][q]++;
             }
         }
-        return new CentreTracks(c, alive);
+        for (int j = 0; j < k; j++) {
+            double[] cj = c[j][q];
+            int m = alive[j][q];
+            if (m > 0) {
+                cj[0] /= m;
+                cj[1] /= m;
+                cj[2] /= m;
+            } else {
+                Arrays.fill(cj, Double.NaN);
+            }
+        }
     }
 
     /** @return number of sources with tracks */

@@ -145,9 +145,14 @@ public final class ParticleHistory {
      * @return the centre of mass of each source's alive particles at every snapshot, computed on
      *     the first call and kept (the arrays are shared: read only)
      */
-    public synchronized CentreTracks centres() {
+    public CentreTracks centres() {
+        return centres(1);
+    }
+
+    /** As {@link #centres()}, computed (on the first call) on up to threads threads; the same values for any count. */
+    public synchronized CentreTracks centres(int threads) {
         if (centres == null) {
-            centres = CentreTracks.of(this);
+            centres = CentreTracks.of(this, threads);
         }
         return centres;
     }

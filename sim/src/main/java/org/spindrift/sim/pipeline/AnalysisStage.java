@@ -33,7 +33,7 @@ public final class AnalysisStage implements RunStage {
     @Override public void run(RunContext ctx) throws IOException {
         ParticleHistory h = ctx.history();
         int[] first = ctx.placed().firstIndex();
-        AnalysisResult result = AnalysisResult.of(h, ctx.turningPoints(), first);
+        AnalysisResult result = AnalysisResult.of(h, ctx.turningPoints(), first, ctx.threads());
         ParticlePeriods periods = result.periods();
         List<ShearShape> shapes = result.shapes();
         ctx.results().analysis(result);

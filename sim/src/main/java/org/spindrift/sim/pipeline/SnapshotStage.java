@@ -32,7 +32,7 @@ public final class SnapshotStage implements RunStage {
         double[][] cols = new double[7][m];
         float[] wt = new float[m];
         byte[] st = new byte[m];
-        CentreTracks tracks = h.centres();
+        CentreTracks tracks = h.centres(ctx.threads());
         for (int s = 0; s < h.snapshots(); s++) {
             double[][] src = {h.r(s), h.theta(s), h.phi(s), h.ut(s), h.ur(s), h.uTheta(s), h.uPhi(s)};
             float[] weight = h.weight(s);
