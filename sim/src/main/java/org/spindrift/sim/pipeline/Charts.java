@@ -34,9 +34,9 @@ final class Charts {
         new Color(214, 39, 40), new Color(148, 103, 189), new Color(140, 86, 75), new Color(23, 190, 207)};
 
     /** Writes a figure as PNG (panels in rows x cols) and, for one panel, its SVG twin. */
-    static void save(RunContext ctx, String name, List<? extends Chart<?, ?>> charts, int rows, int cols)
+    static void save(FigureFiles files, String name, List<? extends Chart<?, ?>> charts, int rows, int cols)
             throws IOException {
-        ctx.archive().writeStream(name, out -> {
+        files.write(name, out -> {
             if (charts.size() == 1) {
                 BitmapEncoder.saveBitmap(charts.get(0), out, BitmapEncoder.BitmapFormat.PNG);
             } else {
@@ -45,7 +45,7 @@ final class Charts {
         });
         if (charts.size() == 1) {
             // a vector twin where XChart offers one (single-panel charts)
-            ctx.archive().writeStream(name.replaceFirst("\\.png$", ".svg"), out -> VectorGraphicsEncoder
+            files.write(name.replaceFirst("\\.png$", ".svg"), out -> VectorGraphicsEncoder
                     .saveVectorGraphic(charts.get(0), out, VectorGraphicsEncoder.VectorGraphicsFormat.SVG));
         }
     }

@@ -30,8 +30,8 @@ final class LagFigure implements RunFigure {
         return "plots/lag.png";
     }
 
-    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws IOException {
-        Charts.save(ctx, file(), lag(ctx, analysis.shapes()), 1, ctx.scenario().sources().size());
+    @Override public void draw(RunContext ctx, AnalysisResult analysis, FigureFiles out) throws IOException {
+        Charts.save(out, file(), lag(ctx, analysis.shapes()), 1, ctx.scenario().sources().size());
     }
 
     private static List<XYChart> lag(RunContext ctx, List<ShearShape> shapes) {

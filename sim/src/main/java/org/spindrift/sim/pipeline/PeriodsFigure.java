@@ -34,8 +34,8 @@ final class PeriodsFigure implements RunFigure {
         return "plots/periods.png";
     }
 
-    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws IOException {
-        Charts.save(ctx, file(), periods(ctx, analysis.periods()), 1, 2);
+    @Override public void draw(RunContext ctx, AnalysisResult analysis, FigureFiles out) throws IOException {
+        Charts.save(out, file(), periods(ctx, analysis.periods()), 1, 2);
     }
 
     private static List<XYChart> periods(RunContext ctx, ParticlePeriods p) {

@@ -37,8 +37,8 @@ final class PositionsFigure implements RunFigure {
         return "plots/positions.png";
     }
 
-    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws IOException {
-        Charts.save(ctx, file(), positions(ctx), 2, 2);
+    @Override public void draw(RunContext ctx, AnalysisResult analysis, FigureFiles out) throws IOException {
+        Charts.save(out, file(), positions(ctx), 2, 2);
     }
 
     private static List<XYChart> positions(RunContext ctx) {

@@ -8,6 +8,6 @@ interface RunFigure {
     /** @return the figure's file in the run folder, for example {@code plots/shape.png} */
     String file();
 
-    /** Draws the figure and writes its file(s) through the run's archive. */
-    void draw(RunContext ctx, AnalysisResult analysis) throws IOException;
+    /** Draws the figure and encodes its file(s) into out. */
+    void draw(RunContext ctx, AnalysisResult analysis, FigureFiles out) throws IOException;
 }

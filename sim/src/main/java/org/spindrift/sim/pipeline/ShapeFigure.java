@@ -25,8 +25,8 @@ final class ShapeFigure implements RunFigure {
         return "plots/shape.png";
     }
 
-    @Override public void draw(RunContext ctx, AnalysisResult analysis) throws IOException {
-        Charts.save(ctx, file(), List.of(shape(ctx, analysis.shapes())), 1, 1);
+    @Override public void draw(RunContext ctx, AnalysisResult analysis, FigureFiles out) throws IOException {
+        Charts.save(out, file(), List.of(shape(ctx, analysis.shapes())), 1, 1);
     }
 
     private static XYChart shape(RunContext ctx, List<ShearShape> shapes) {

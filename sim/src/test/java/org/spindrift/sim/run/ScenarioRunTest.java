@@ -38,7 +38,8 @@ class ScenarioRunTest {
 
     @Test void sameSeedGivesBitwiseIdenticalSnapshotsWhateverTheThreads() throws Exception {
         // 300 particles = 5 chunks of 64: several threads really share the work
-        List<RunStage> stages = List.of(new SnapshotStage(), new org.spindrift.sim.pipeline.AnalysisStage());
+        List<RunStage> stages = List.of(new SnapshotStage(), new org.spindrift.sim.pipeline.AnalysisStage(),
+                new org.spindrift.sim.pipeline.PlotStage());
         Path a = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("a"), 1, false),
                 stages).folder();
         Path b = ScenarioRun.run(ScenarioRun.prepare(thermalSpot(300)), new ScenarioRun.Options(tmp.resolve("b"), 3, false),
@@ -47,6 +48,18 @@ class ScenarioRunTest {
         byte[] hb = Files.readAllBytes(b.resolve(ArchiveLayout.SNAPSHOTS));
         assertArrayEquals(ha, hb, "snapshots.h5 differs between 1 and 3 threads");
         assertEquals(Files.readString(a.resolve(ArchiveLayout.PERIODS)), Files.readString(b.resolve(ArchiveLayout.PERIODS)));
+        assertEquals(Files.readString(a.resolve(ArchiveLayout.SHEAR)), Files.readString(b.resolve(ArchiveLayout.SHEAR)));
+        // the figures, drawn on the run's threads, are the same files in the same manifest order
+        try (org.spindrift.shared.archive.RunArchive ra = org.spindrift.shared.archive.RunArchive.open(a);
+                org.spindrift.shared.archive.RunArchive rb = org.spindrift.shared.archive.RunArchive.open(b)) {
+            assertEquals(List.copyOf(ra.files().keySet()), List.copyOf(rb.files().keySet()));
+            for (String f : ra.files().keySet()) {
+                if (f.startsWith("plots/")) {
+                    assertArrayEquals(Files.readAllBytes(a.resolve(f)), Files.readAllBytes(b.resolve(f)), f);
+                }
+            }
+            assertTrue(ra.files().containsKey("plots/shape.svg"), "the figures were drawn");
+        }
         // and a different seed gives different particles
         LoadedScenario other = thermalSpot(300);
         other = other.with(other.scenario().withRun(other.scenario().run().withSeed(100)));
