@@ -13,6 +13,7 @@ import org.spindrift.sim.analysis.LagProfile;
 import org.spindrift.sim.analysis.ParticlePeriods;
 import org.spindrift.sim.analysis.ShearShape;
 import org.spindrift.sim.analysis.Stats;
+import org.spindrift.sim.history.Chunked;
 import org.spindrift.sim.history.ParticleHistory;
 import org.spindrift.sim.scenario.SourceSetup;
 
@@ -26,6 +27,9 @@ public final class AnalysisStage implements RunStage {
     /** Lag profiles kept in the summary per source. */
     static final int PROFILES_IN_SUMMARY = 6;
 
+    /** Row chunks of periods.csv (fixed, so that nothing depends on the thread count). */
+    private static final int CSV_CHUNKS = 16;
+
     @Override public String name() {
         return "analysis";
     }
@@ -38,21 +42,34 @@ public final class AnalysisStage implements RunStage {
         List<ShearShape> shapes = result.shapes();
         ctx.results().analysis(result);
         double spm = ctx.secondsPerM();
-        ctx.archive().writeText(ArchiveLayout.PERIODS, periodsCsv(ctx.scenario(), h, periods, spm));
+        ctx.archive().writeText(ArchiveLayout.PERIODS, periodsCsv(ctx.scenario(), h, periods, spm, ctx.threads()));
         ctx.archive().writeText(ArchiveLayout.SHEAR, shearCsv(ctx.scenario(), shapes, spm));
         summary(ctx, periods, shapes);
     }
 
-    static String periodsCsv(Scenario sc, ParticleHistory h, ParticlePeriods p, double spm) {
-        StringBuilder b = new StringBuilder(64 * h.particles() + 200);
+    static String periodsCsv(Scenario sc, ParticleHistory h, ParticlePeriods p, double spm, int threads) {
+        int n = h.particles();
+        // rows formatted in fixed chunks on the run's threads, joined in order: the same text for any count
+        int chunks = Math.max(1, Math.min(CSV_CHUNKS, n));
+        String[] parts = new String[chunks];
+        Chunked.forEach(chunks, threads, c -> {
+            int from = Chunked.start(c, chunks, n);
+            int to = Chunked.start(c + 1, chunks, n);
+            StringBuilder b = new StringBuilder(160 * (to - from));
+            for (int i = from; i < to; i++) {
+                b.append(sc.sources().get(h.sourceIndex()[i]).name()).append(',').append(i).append(',')
+                        .append(f(p.meanR(i))).append(',').append(f(p.periodPhi(i))).append(',').append(f(p.periodR(i)))
+                        .append(',').append(f(p.periodTheta(i))).append(',').append(f(Math.toDegrees(p.advance(i))))
+                        .append(',').append(f(p.periodPhi(i) * spm / 60)).append(',').append(f(p.periodR(i) * spm / 60))
+                        .append(',').append(f(p.periodTheta(i) * spm / 60)).append('\n');
+            }
+            parts[c] = b.toString();
+        });
+        StringBuilder b = new StringBuilder(200);
         b.append(org.spindrift.shared.archive.ArchiveColumns.header(
                 org.spindrift.shared.archive.ArchiveColumns.PERIODS)).append('\n');
-        for (int i = 0; i < h.particles(); i++) {
-            b.append(sc.sources().get(h.sourceIndex()[i]).name()).append(',').append(i).append(',')
-                    .append(f(p.meanR(i))).append(',').append(f(p.periodPhi(i))).append(',').append(f(p.periodR(i)))
-                    .append(',').append(f(p.periodTheta(i))).append(',').append(f(Math.toDegrees(p.advance(i))))
-                    .append(',').append(f(p.periodPhi(i) * spm / 60)).append(',').append(f(p.periodR(i) * spm / 60))
-                    .append(',').append(f(p.periodTheta(i) * spm / 60)).append('\n');
+        for (String part : parts) {
+            b.append(part);
         }
         return b.toString();
     }
