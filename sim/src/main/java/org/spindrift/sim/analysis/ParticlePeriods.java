@@ -117,16 +117,18 @@ public final class ParticlePeriods {
             for (int j = 0; j < nb; j++) {
                 int i = i0 + j;
                 int m = alive[j] < 0 ? s : alive[j];
-                measure(i, t, r[j], th[j], ph[j], m, ext, extPhi);
-                if (turning != null) {
-                    fromTurningPoints(i, turning[i], r[j], th[j], m);
-                }
+                measure(i, t, r[j], th[j], ph[j], m, ext, extPhi, turning == null ? null : turning[i]);
             }
         }
     }
 
+    /**
+     * Measures particle i from its m alive samples; with its turning points (tp not null) the
+     * passages come from them, and the snapshots' extrema are searched only where those cannot be
+     * used (for the azimuthal period of a near-circular orbit).
+     */
     private void measure(int i, double[] t, double[] r, double[] th, double[] ph, int m, double[] ext,
-            double[] extPhi) {
+            double[] extPhi, TurningPoints tp) {
         periodPhi[i] = Double.NaN;
         periodR[i] = Double.NaN;
         periodTheta[i] = Double.NaN;
@@ -140,30 +142,8 @@ public final class ParticlePeriods {
             sum += r[k];
         }
         meanR[i] = sum / m;
-        int nr = extrema(t, r, ph, m, -1, meanR[i] * MIN_RELATIVE_AMPLITUDE, ext, extPhi);
-        double omega;
-        if (nr >= 2) {
-            periodR[i] = (ext[nr - 1] - ext[0]) / (nr - 1);
-            omega = (extPhi[nr - 1] - extPhi[0]) / (ext[nr - 1] - ext[0]);
-        } else {
-            omega = slope(t, ph, m);
-        }
-        periodPhi[i] = 2.0 * Math.PI / Math.abs(omega);
-        if (nr >= 2) {
-            advance[i] = Math.abs(omega) * periodR[i] - 2.0 * Math.PI;
-        }
-        int nt = extrema(t, th, ph, m, +1, MIN_RELATIVE_AMPLITUDE, ext, extPhi);
-        if (nt >= 2) {
-            periodTheta[i] = (ext[nt - 1] - ext[0]) / (nt - 1);
-        }
-    }
-
-    private void fromTurningPoints(int i, TurningPoints tp, double[] r, double[] th, int m) {
-        if (m < 3) {
-            return;
-        }
         // near-circular / near-equatorial orbits: the passages are ill-conditioned (see TurningPoints)
-        if (amplitude(r, m) > meanR[i] * MIN_RELATIVE_AMPLITUDE && tp.periapsisCount() >= 2) {
+        if (tp != null && amplitude(r, m) > meanR[i] * MIN_RELATIVE_AMPLITUDE && tp.periapsisCount() >= 2) {
             int c = tp.periapsisCount();
             double dt = tp.periapsisTime(c - 1) - tp.periapsisTime(0);
             double om = (tp.periapsisPhi(c - 1) - tp.periapsisPhi(0)) / dt;
@@ -171,14 +151,25 @@ public final class ParticlePeriods {
             periodPhi[i] = 2.0 * Math.PI / Math.abs(om);
             advance[i] = Math.abs(om) * periodR[i] - 2.0 * Math.PI;
         } else {
-            periodR[i] = Double.NaN;
-            advance[i] = Double.NaN;
+            int nr = extrema(t, r, ph, m, -1, meanR[i] * MIN_RELATIVE_AMPLITUDE, ext, extPhi);
+            double omega = nr >= 2 ? (extPhi[nr - 1] - extPhi[0]) / (ext[nr - 1] - ext[0]) : slope(t, ph, m);
+            periodPhi[i] = 2.0 * Math.PI / Math.abs(omega);
+            // with turning points, snapshot extrema of an ill-conditioned orbit give no radial period
+            if (tp == null && nr >= 2) {
+                periodR[i] = (ext[nr - 1] - ext[0]) / (nr - 1);
+                advance[i] = Math.abs(omega) * periodR[i] - 2.0 * Math.PI;
+            }
         }
-        if (amplitude(th, m) > MIN_RELATIVE_AMPLITUDE && tp.polarCount() >= 2) {
-            int c = tp.polarCount();
-            periodTheta[i] = (tp.polarTime(c - 1) - tp.polarTime(0)) / (c - 1);
+        if (tp != null) {
+            if (amplitude(th, m) > MIN_RELATIVE_AMPLITUDE && tp.polarCount() >= 2) {
+                int c = tp.polarCount();
+                periodTheta[i] = (tp.polarTime(c - 1) - tp.polarTime(0)) / (c - 1);
+            }
         } else {
-            periodTheta[i] = Double.NaN;
+            int nt = extrema(t, th, ph, m, +1, MIN_RELATIVE_AMPLITUDE, ext, extPhi);
+            if (nt >= 2) {
+                periodTheta[i] = (ext[nt - 1] - ext[0]) / (nt - 1);
+            }
         }
     }
 
