@@ -1,6 +1,5 @@
 package org.spindrift.sim.analysis;
 
-import java.util.ArrayList;
 import java.util.List;
 import org.spindrift.shared.Coordinates;
 import org.spindrift.sim.history.CentreTracks;
@@ -86,8 +85,7 @@ public final class ShearAnalysis {
     }
 
     private static ShearShape shape(ParticleHistory h, int src, int q, int from, int to, int[] idx, double[] phis,
-            double[] c,
-            int alive, double[] nrm, double[] e1, double[] e2, double[] xyz) {
+            double[] c, int alive, double[] nrm, double[] e1, double[] e2, double[] xyz) {
         double[] r = h.r(q);
         double[] th = h.theta(q);
         double[] ph = h.phi(q);
