@@ -71,14 +71,22 @@ final class PositionsFigure implements RunFigure {
                 }
             }
         }
-        double[] sortedR = Stats.finiteSorted(allR, na);
-        double[] edges = classEdges(sortedR, RAMP.length);
+        // the finite radii (all of them, as a sort would keep), their largest, and the class quantiles by selection
+        int nf = 0;
+        double maxR = Double.NaN;
+        for (int j = 0; j < na; j++) {
+            if (Double.isFinite(allR[j])) {
+                allR[nf++] = allR[j];
+                maxR = nf == 1 ? allR[j] : Math.max(maxR, allR[j]);
+            }
+        }
+        double[] edges = classEdges(allR, nf, RAMP.length);
         int nb = Math.max(0, edges.length - 1);
         String[] labels = classLabels(edges);
         extent = Math.max(extent * 1.08, 1.3 * ctx.landmark(ArchiveLayout.LM_ISCO_PROGRADE));
         if (!(extent > 0) || !Double.isFinite(extent)) {
             // no ISCO and no particle left: a field a few capture radii wide
-            extent = sortedR.length > 0 ? 1.1 * sortedR[sortedR.length - 1]
+            extent = nf > 0 ? 1.1 * maxR
                     : Math.max(10.0, 3 * ctx.landmark(ArchiveLayout.LM_CAPTURE_RADIUS));
         }
         List<XYChart> charts = new ArrayList<>();
@@ -146,16 +154,22 @@ final class PositionsFigure implements RunFigure {
      * merged, so a compact spot, a thin ring or a single particle give fewer (at least one)
      * classes; none when there is no value.
      *
+     * @param values the first n are the (finite) values; they are reordered
      * @return ascending edges, classes = length - 1 (a single class of one value has two equal edges)
      */
-    static double[] classEdges(double[] sorted, int classes) {
-        if (sorted.length == 0) {
+    static double[] classEdges(double[] values, int n, int classes) {
+        if (n == 0) {
             return new double[0];
         }
+        double[] qs = new double[classes + 1];
+        for (int b = 0; b <= classes; b++) {
+            qs[b] = (double) b / classes;
+        }
+        double[] quantiles = new double[classes + 1];
+        Stats.quantiles(values, n, qs, quantiles);
         double[] e = new double[classes + 1];
         int m = 0;
-        for (int b = 0; b <= classes; b++) {
-            double q = Stats.quantile(sorted, (double) b / classes);
+        for (double q : quantiles) {
             if (m == 0 || q > e[m - 1]) {
                 e[m++] = q;
             }
