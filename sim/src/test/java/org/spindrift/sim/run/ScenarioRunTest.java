@@ -63,8 +63,8 @@ class ScenarioRunTest {
         // and a different seed gives different particles
         LoadedScenario other = thermalSpot(300);
         other = other.with(other.scenario().withRun(other.scenario().run().withSeed(100)));
-        Path c = ScenarioRun.run(ScenarioRun.prepare(other), new ScenarioRun.Options(tmp.resolve("c"), 2, false), stages)
-                .folder();
+        Path c = ScenarioRun.run(ScenarioRun.prepare(other), new ScenarioRun.Options(tmp.resolve("c"), 2, false),
+                stages.subList(0, 1)).folder();
         assertFalse(java.util.Arrays.equals(ha, Files.readAllBytes(c.resolve(ArchiveLayout.SNAPSHOTS))));
     }
 
