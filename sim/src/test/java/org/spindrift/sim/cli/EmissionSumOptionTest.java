@@ -55,6 +55,7 @@ class EmissionSumOptionTest {
         }
         for (int i = 0; i < p.length; i++) {
             worst = Math.max(worst, Math.abs(g[i] - p[i]));
+            System.out.printf("DBG %d %.5g %.5g%n", i, p[i], g[i]);
         }
         // the gridded kernel has the cubic spline's second moment (docs/methods.md); for a spot wider
         // than a pixel the light curves agree to a few per cent of the peak (the 3 % bound is our choice,
