@@ -305,7 +305,7 @@ public final class EmissionRenderer implements AutoCloseable {
             built[i] = EmissionSlice.build(history, spacetime, sliceOrigin + missing.get(i) * sliceSpacing, 2.0 * h,
                     0.5 * sliceSpacing, rMax, stores[i], !gridded);
             if (gridded && built[i] != null) {
-                gs[i].fill(built[i], GRID_SPACING * h);
+                gs[i].fill(built[i], GRID_SPACING * h, 0.5 * sliceSpacing);
             }
         }));
         for (int i = 0; i < built.length; i++) {

@@ -53,10 +53,12 @@ final class GriddedEmission {
     /** block id of each block of the box, -1 when empty */
     private int[] blockOf = new int[0];
     /**
-     * per block of the box: whether it or one of its neighbours in +x, +y, +z (the 2 x 2 x 2 blocks
-     * from it) holds values, that is whether a cell whose lowest node lies in it may read anything
+     * per block of the box: whether it or one of its 26 neighbours holds values; a cell whose lowest
+     * node lies in a block without may read nothing, and nor may any cell within one node spacing
      */
     private boolean[] near = new boolean[0];
+    /** whether the largest drift within the slice (speed times the largest |t_e - tau|) is at most one spacing */
+    private boolean driftWithinSpacing;
     /** node values: first one node of zeros (what missing nodes read), then the blocks */
     private double[] val = new double[NV];
     private int blocks;
@@ -90,6 +92,7 @@ final class GriddedEmission {
         Arrays.fill(near, 0, nb, false);
         blocks = 0;
         meanVx = meanVy = meanVz = 0.0;
+        driftWithinSpacing = false;
     }
 
     /**
@@ -141,11 +144,10 @@ final class GriddedEmission {
         int id = blockOf[b];
         if (id < 0) {
             id = blockOf[b] = blocks++;
-            // cells whose lowest node lies in this block or in the one below it on any axis may read it
             int bi = i >> SHIFT, bj = j >> SHIFT, bk = k >> SHIFT;
-            for (int ci = Math.max(0, bi - 1); ci <= bi; ci++) {
-                for (int cj = Math.max(0, bj - 1); cj <= bj; cj++) {
-                    for (int ck = Math.max(0, bk - 1); ck <= bk; ck++) {
+            for (int ci = Math.max(0, bi - 1); ci <= Math.min(bx - 1, bi + 1); ci++) {
+                for (int cj = Math.max(0, bj - 1); cj <= Math.min(by - 1, bj + 1); cj++) {
+                    for (int ck = Math.max(0, bk - 1); ck <= Math.min(bz - 1, bk + 1); ck++) {
                         near[(ci * by + cj) * bz + ck] = true;
                     }
                 }
@@ -171,9 +173,11 @@ final class GriddedEmission {
     /**
      * Fills the slice's particles into this grid.
      *
+     * @param spacing node spacing, M
+     * @param maxDt the largest |t_e - tau| the slice serves, M
      * @return this
      */
-    GriddedEmission fill(EmissionSlice s, double spacing) {
+    GriddedEmission fill(EmissionSlice s, double spacing, double maxDt) {
         double[] pos = s.positions();
         float[] att = s.attributes();
         int rec = EmissionSlice.REC;
@@ -189,16 +193,18 @@ final class GriddedEmission {
             maxZ = Math.max(maxZ, pos[q + 2]);
         }
         begin(spacing, minX, minY, minZ, maxX, maxY, maxZ);
-        double sw = 0, svx = 0, svy = 0, svz = 0;
+        double sw = 0, svx = 0, svy = 0, svz = 0, vmax = 0;
         for (int p = 0; p < s.count; p++) {
             int q = rec * p;
             deposit(pos[q], pos[q + 1], pos[q + 2], pos[q + 3], pos[q + 4], pos[q + 5], att[q + 4], att[q], att[q + 1],
                     att[q + 2], att[q + 3], att[q + 5]);
             sw += att[q + 4];
+            vmax = Math.max(vmax, Math.sqrt(pos[q + 3] * pos[q + 3] + pos[q + 4] * pos[q + 4] + pos[q + 5] * pos[q + 5]));
             svx += att[q + 4] * pos[q + 3];
             svy += att[q + 4] * pos[q + 4];
             svz += att[q + 4] * pos[q + 5];
         }
+        driftWithinSpacing = vmax * maxDt <= spacing;
         meanVx = sw > 0 ? svx / sw : 0.0;
         meanVy = sw > 0 ? svy / sw : 0.0;
         meanVz = sw > 0 ? svz / sw : 0.0;
@@ -250,6 +256,21 @@ final class GriddedEmission {
         return true;
     }
 
+    /**
+     * @return false when no block within one block of the cell holding (x, y, z) holds values: then
+     *     nothing within one node spacing of the point can be read
+     */
+    private boolean near(double x, double y, double z) {
+        double fx = Math.floor((x - ox) * invH), fy = Math.floor((y - oy) * invH), fz = Math.floor((z - oz) * invH);
+        if (fx < -2 || fy < -2 || fz < -2 || fx > nx || fy > ny || fz > nz) {
+            return false;
+        }
+        int bi = Math.min(bx - 1, Math.max(0, ((int) fx) >> SHIFT));
+        int bj = Math.min(by - 1, Math.max(0, ((int) fy) >> SHIFT));
+        int bk = Math.min(bz - 1, Math.max(0, ((int) fz) >> SHIFT));
+        return near[(bi * by + bj) * bz + bk];
+    }
+
     /** @return the grid density estimate sum_p w_p K(x, x_p) at (x, y, z) (no drift) */
     double density(double x, double y, double z, double[] work) {
         return read(x, y, z, 1, work) ? work[0] * invH3 : 0.0;
@@ -270,6 +291,11 @@ final class GriddedEmission {
                       double pphi, Scratch s) {
         double[] v = s.v;
         double x = sx, y = sy, z = sz;
+        if (driftWithinSpacing && !near(x, y, z)) {
+            // no gas within one block of the sample, so none within the drift either: the reads
+            // below would find nothing (an exact shortcut)
+            return 0.0;
+        }
         if (dtE != 0.0) {
             // the gas at the sample at t_e was at x - v (t_e - tau) at tau; where the grid holds
             // nothing at the sample itself (gas that has moved in since tau) the slice's mean velocity
