@@ -12,8 +12,10 @@ import org.spindrift.shared.scenario.EmissionSum;
  * offset-dependent kernel, and its frame fluxes scatter by a few per cent about the particle sum
  * (measured: a spot of rms width 0.15 M on a 0.20 M grid, 1-3 % per frame; rms width 0.4 M on
  * 0.15-0.30 M grids, at most 0.9 %). {@link EmissionSum#AUTO} therefore takes the grid only when
- * the thinnest source is at least one grid spacing thick: the smallest rms width of any source's
- * particles along any Cartesian axis, over up to {@link #SNAPSHOTS} snapshots spread over the run.
+ * the thinnest source as placed is at least one grid spacing thick: the smallest rms width of any
+ * source's particles along any Cartesian axis at the first snapshot. (Later the widths change: a
+ * spot placed off the plane with circular-orbit velocities oscillates vertically in phase and
+ * flattens for a moment every half vertical period; the comparison above includes such moments.)
  * The grid also needs one spectral index for all particles (one power of g per grid).
  *
  * @param asked what the scenario asked for
@@ -22,9 +24,6 @@ import org.spindrift.shared.scenario.EmissionSum;
  * @param gridSpacingM the grid spacing, M
  */
 public record EmissionChoice(EmissionSum asked, boolean gridded, double thinnestRmsM, double gridSpacingM) {
-    /** Snapshots sampled for the thinnest width (first and last included). */
-    public static final int SNAPSHOTS = 16;
-
     /**
      * @param spin the spacetime's spin parameter a (for the Cartesian map)
      * @param smoothingLength kernel smoothing length h, M
@@ -49,8 +48,7 @@ public record EmissionChoice(EmissionSum asked, boolean gridded, double thinnest
 
     /**
      * The smallest rms width, M, of any source's live particles along x, y or z (the Cartesian map of
-     * {@link Coordinates#cartesian}) at up to {@link #SNAPSHOTS} snapshots spread evenly over the run;
-     * 0 when a source has a single live particle at a sampled snapshot.
+     * {@link Coordinates#cartesian}) at the first snapshot; 0 when a source has a single live particle.
      */
     public static double thinnestRms(EmitterHistory h, double spin) {
         int sources = 0;
@@ -60,35 +58,29 @@ public record EmissionChoice(EmissionSum asked, boolean gridded, double thinnest
         // per source: count and sums of x, y, z and of their squares
         double[] acc = new double[7 * sources];
         double[] c = new double[3];
-        int ns = h.snapshots();
-        int picks = Math.min(SNAPSHOTS, ns);
-        double thinnest = Double.POSITIVE_INFINITY;
-        for (int i = 0; i < picks; i++) {
-            int s = picks == 1 ? 0 : (int) Math.round((double) i * (ns - 1) / (picks - 1));
-            java.util.Arrays.fill(acc, 0.0);
-            for (int p = 0; p < h.particles(); p++) {
-                if (h.state(s, p) != EmitterHistory.ALIVE) {
-                    continue;
-                }
-                Coordinates.cartesian(h.r(s, p), h.theta(s, p), h.phi(s, p), spin, c);
-                int q = 7 * h.source(p);
-                acc[q]++;
-                for (int k = 0; k < 3; k++) {
-                    acc[q + 1 + k] += c[k];
-                    acc[q + 4 + k] += c[k] * c[k];
-                }
+        for (int p = 0; p < h.particles(); p++) {
+            if (h.state(0, p) != EmitterHistory.ALIVE) {
+                continue;
             }
-            for (int src = 0; src < sources; src++) {
-                int q = 7 * src;
-                double n = acc[q];
-                if (n == 0) {
-                    continue;
-                }
-                for (int k = 0; k < 3; k++) {
-                    double mean = acc[q + 1 + k] / n;
-                    double var = acc[q + 4 + k] / n - mean * mean;
-                    thinnest = Math.min(thinnest, n < 2 ? 0.0 : Math.sqrt(Math.max(0.0, var)));
-                }
+            Coordinates.cartesian(h.r(0, p), h.theta(0, p), h.phi(0, p), spin, c);
+            int q = 7 * h.source(p);
+            acc[q]++;
+            for (int k = 0; k < 3; k++) {
+                acc[q + 1 + k] += c[k];
+                acc[q + 4 + k] += c[k] * c[k];
+            }
+        }
+        double thinnest = Double.POSITIVE_INFINITY;
+        for (int src = 0; src < sources; src++) {
+            int q = 7 * src;
+            double n = acc[q];
+            if (n == 0) {
+                continue;
+            }
+            for (int k = 0; k < 3; k++) {
+                double mean = acc[q + 1 + k] / n;
+                double var = acc[q + 4 + k] / n - mean * mean;
+                thinnest = Math.min(thinnest, n < 2 ? 0.0 : Math.sqrt(Math.max(0.0, var)));
             }
         }
         return thinnest == Double.POSITIVE_INFINITY ? 0.0 : thinnest;
