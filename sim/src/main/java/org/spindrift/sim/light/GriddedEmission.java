@@ -109,13 +109,19 @@ final class GriddedEmission {
         int j = Math.min(ny - 2, Math.max(0, (int) fy));
         int k = Math.min(nz - 2, Math.max(0, (int) fz));
         double ax = fx - i, ay = fy - j, az = fz - k;
+        // the lowest corner's node; a corner one step up an axis lies in the same block when the
+        // lowest corner's index on that axis is even, at a fixed offset
+        int q0 = nodeForWrite(i, j, k);
+        boolean inX = (i & MASK) == 0, inY = (j & MASK) == 0, inZ = (k & MASK) == 0;
         for (int di = 0; di < 2; di++) {
             double wx = di == 0 ? 1.0 - ax : ax;
             for (int dj = 0; dj < 2; dj++) {
                 double wxy = wx * (dj == 0 ? 1.0 - ay : ay);
                 for (int dk = 0; dk < 2; dk++) {
                     double c = w * wxy * (dk == 0 ? 1.0 - az : az);
-                    int q = nodeForWrite(i + di, j + dj, k + dk);
+                    int q = (di == 0 || inX) && (dj == 0 || inY) && (dk == 0 || inZ)
+                            ? q0 + ((di * SIDE + dj) * SIDE + dk) * NV
+                            : nodeForWrite(i + di, j + dj, k + dk);
                     val[q] += c;
                     val[q + 1] += c * vx;
                     val[q + 2] += c * vy;
