@@ -11,24 +11,25 @@ import org.spindrift.shared.colour.ColourRamp;
  *     the snapshot cadence
  * @param lensing true: ray-traced null geodesics; false: straight lines (delays kept), for comparison
  * @param skyColours colour ramp of the image plots ({@link ColourRamp#SKY} or {@link ColourRamp#GREY})
- * @param griddedEmission true: the gas density is read from a grid per emission time instead of
- *     summing the particles at every ray sample (about twice as fast; images differ by about 1 %)
+ * @param emissionSum how the gas is summed along each ray: a grid per emission time (faster;
+ *     images within about 1 % of the particle sum when the grid resolves the gas), the particles
+ *     at every ray sample, or the grid when it resolves the gas ({@link EmissionSum#AUTO})
  */
 public record Imaging(double fieldOfViewM, int pixels, TimeSpan frameCadence, boolean lensing, ColourRamp skyColours,
-                      boolean griddedEmission) {
+                      EmissionSum emissionSum) {
     /** Default field of view, M. */
     public static final double DEFAULT_FIELD_OF_VIEW_M = 30.0;
     /** Default pixels per side. */
     public static final int DEFAULT_PIXELS = 96;
 
-    /** Imaging that sums the particles at every ray sample. */
+    /** Imaging with the emission sum chosen by the gas ({@link EmissionSum#AUTO}). */
     public Imaging(double fieldOfViewM, int pixels, TimeSpan frameCadence, boolean lensing, ColourRamp skyColours) {
-        this(fieldOfViewM, pixels, frameCadence, lensing, skyColours, false);
+        this(fieldOfViewM, pixels, frameCadence, lensing, skyColours, EmissionSum.AUTO);
     }
 
-    /** @return a copy with the gridded (true) or the particle (false) emission sum */
-    public Imaging withGriddedEmission(boolean gridded) {
-        return new Imaging(fieldOfViewM, pixels, frameCadence, lensing, skyColours, gridded);
+    /** @return a copy with the given emission sum */
+    public Imaging withEmissionSum(EmissionSum sum) {
+        return new Imaging(fieldOfViewM, pixels, frameCadence, lensing, skyColours, sum);
     }
 
     /** Imaging with the default sky colours. */

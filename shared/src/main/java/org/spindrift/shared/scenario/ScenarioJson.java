@@ -54,7 +54,7 @@ public final class ScenarioJson {
         }
         img.put("lensing", im.lensing());
         img.put("sky_colours", im.skyColours().key());
-        img.put("emission_sum", im.griddedEmission() ? "grid" : "particles");
+        img.put("emission_sum", im.emissionSum().key());
         Instrument in = s.instrument();
         o.putObject("instrument").put("beam_fwhm_uas", in.beamFwhmUas())
                 .put("steady_source_flux_ratio", in.steadySourceFluxRatio())

@@ -11,10 +11,12 @@ import java.util.stream.Stream;
 import org.spindrift.shared.UserInputException;
 import org.spindrift.shared.archive.ArchiveLayout;
 import org.spindrift.shared.scenario.BlackHole;
+import org.spindrift.shared.scenario.EmissionSum;
 import org.spindrift.shared.scenario.Observer;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.shared.scenario.Source;
 import org.spindrift.sim.light.Camera;
+import org.spindrift.sim.light.EmissionChoice;
 import org.spindrift.sim.light.EmissionMask;
 import org.spindrift.sim.light.EmissionRenderer;
 import org.spindrift.sim.light.EmitterHistory;
@@ -78,10 +80,14 @@ public final class BenchLightCommand implements Callable<Integer> {
             description = "With --reference: compare every K-th pixel in both directions, 1..64 (default: ${DEFAULT-VALUE}).")
     int accuracyEvery;
 
-    @Option(names = "--emission", paramLabel = "KIND", defaultValue = "particles",
-            description = "Frame emission: grid (each slice's particles on a grid of spacing h, read by trilinear"
-                    + " interpolation) or particles (kernel sum over the particles) (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--emission", paramLabel = "KIND", defaultValue = "auto",
+            description = "Frame emission: grid (each slice's particles on a grid of spacing 0.95 h, read by"
+                    + " trilinear interpolation), particles (kernel sum over the particles) or auto (the grid when"
+                    + " it resolves the thinnest source, as runs choose) (default: ${DEFAULT-VALUE}).")
     String emission;
+
+    /** the emission sum --emission resolved to for the frames (true: grid) */
+    private boolean gridded;
 
     @Option(names = "--compare-emission",
             description = "Also render the same frames with the other --emission kind, time both and print their"
@@ -105,8 +111,8 @@ public final class BenchLightCommand implements Callable<Integer> {
         check(framePixels >= 16 && framePixels <= 1024, "--frame-pixels must be in 16..1024, got " + framePixels);
         check(frames >= 1 && frames <= 100_000, "--frames must be in 1..100000, got " + frames);
         check(accuracyEvery >= 1 && accuracyEvery <= 64, "--accuracy-every must be in 1..64, got " + accuracyEvery);
-        check(emission.equals("grid") || emission.equals("particles"),
-                "--emission must be grid or particles, got " + emission);
+        check(List.of("auto", "grid", "particles").contains(emission),
+                "--emission must be auto, grid or particles, got " + emission);
         check(visPixels >= 8 && visPixels <= 1024, "--vis-pixels must be in 8..1024, got " + visPixels);
         check(visPoints >= 1 && visPoints <= 100_000, "--vis-points must be in 1..100000, got " + visPoints);
         int nt = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
@@ -161,6 +167,11 @@ public final class BenchLightCommand implements Callable<Integer> {
                 if (n != framePixels) {
                     continue;
                 }
+                EmissionChoice choice = EmissionChoice.of(EmissionSum.ofKey(emission), h, p.spacetime().spin(), hK);
+                gridded = choice.gridded();
+                System.out.printf(Locale.ROOT, "  emission sum: %s -> %s (grid spacing %.3f M%s)%n", emission,
+                        choice.used(), choice.gridSpacingM(), Double.isNaN(choice.thinnestRmsM()) ? ""
+                                : String.format(Locale.ROOT, ", thinnest source %.3f M rms", choice.thinnestRmsM()));
                 if (reference) {
                     compareFrames(p.spacetime(), cam, ts, table, h, hK, nt);
                 }
@@ -178,7 +189,7 @@ public final class BenchLightCommand implements Callable<Integer> {
                     double peak = 0, dFlux = 0, dCentroid = 0;
                     FrameMoments[] fm = new FrameMoments[frames];
                     try (EmissionRenderer r = new EmissionRenderer(table, h, p.spacetime(), hK, nt, old,
-                            !old && emission.equals("grid"))) {
+                            !old && gridded)) {
                         for (int f = 0; f < frames; f++) {
                             double t = frames == 1 ? tA : tA + (tB - tA) * f / (frames - 1);
                             r.render(t, old ? img : imgs[f]);
@@ -199,7 +210,7 @@ public final class BenchLightCommand implements Callable<Integer> {
                         double[] sec = r.sectionSeconds();
                         System.out.printf(Locale.ROOT, "  %d frames of %d x %d, %s emission%s: %.2f s (%.1f CPU s, %.1f s in garbage"
                                         + " collection), %.1f frames/s (%d emission slices: %.2f s building, %.2f s"
-                                        + " summing)%s%n", frames, n, n, old ? "particles" : emission,
+                                        + " summing)%s%n", frames, n, n, old || !gridded ? "particles" : "grid",
                                 old ? " (reference renderer)" : "",
                                 secs, cpu() - c0, gcSeconds() - g0, frames / secs, r.slicesBuilt(), sec[0], sec[1], old ? String.format(Locale.ROOT,
                                         "; speed-up %.2fx wall; %d frames differ bit for bit, flux by at most"
@@ -228,7 +239,7 @@ public final class BenchLightCommand implements Callable<Integer> {
      */
     private void compareEmission(RayTable table, EmitterHistory h, org.spindrift.sim.spacetime.Spacetime st,
                                  double hK, int nt, Camera cam, float[][] imgs, double tA, double tB) {
-        boolean grid = !emission.equals("grid");
+        boolean grid = !gridded;
         int n = cam.pixels();
         float[][] other = new float[frames][n * n];
         long t0 = System.nanoTime();

@@ -12,6 +12,8 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import java.util.stream.Stream;
 import org.spindrift.shared.UserInputException;
+import org.spindrift.shared.archive.ArchiveLayout;
+import org.spindrift.shared.scenario.EmissionSum;
 import org.spindrift.shared.scenario.Scenario;
 import org.spindrift.shared.scenario.Source;
 import org.spindrift.shared.scenario.TimeSpan;
@@ -44,8 +46,8 @@ public final class BenchRunCommand implements Callable<Integer> {
             description = "Duration in orbits of the first source's centre, 0.1..100 (default: ${DEFAULT-VALUE}).")
     double orbits;
 
-    @Option(names = "--emission", paramLabel = "SUM", description = "Emission sum of the light stage: particles or"
-            + " grid (default: the config's imaging.emission_sum).")
+    @Option(names = "--emission", paramLabel = "SUM", description = "Emission sum of the light stage: auto,"
+            + " particles or grid (default: the config's imaging.emission_sum).")
     String emission;
 
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: available processors).")
@@ -72,8 +74,8 @@ public final class BenchRunCommand implements Callable<Integer> {
         for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
             pool.resetPeakUsage();
         }
-        if (emission != null && !emission.equals("particles") && !emission.equals("grid")) {
-            throw new UserInputException("--emission " + emission + ": allowed particles, grid");
+        if (emission != null && !List.of("auto", "particles", "grid").contains(emission)) {
+            throw new UserInputException("--emission " + emission + ": allowed auto, particles, grid");
         }
         long t0 = System.nanoTime();
         LoadedScenario ls = ScenarioLoader.load(config);
@@ -82,7 +84,7 @@ public final class BenchRunCommand implements Callable<Integer> {
         src.set(0, src.get(0).withParticles(particles));
         sc = sc.withSources(src).withRun(sc.run().withDuration(new TimeSpan(orbits, TimeSpan.Unit.ORBITS)));
         if (emission != null) {
-            sc = sc.withImaging(sc.imaging().withGriddedEmission(emission.equals("grid")));
+            sc = sc.withImaging(sc.imaging().withEmissionSum(EmissionSum.ofKey(emission)));
         }
         ScenarioRun.Prepared p = ScenarioRun.prepare(ls.with(sc));
         double setup = (System.nanoTime() - t0) * 1e-9;
@@ -90,10 +92,14 @@ public final class BenchRunCommand implements Callable<Integer> {
         Path scratch = keep != null ? null : Files.createTempDirectory("spindrift-bench-");
         Path out = keep != null ? keep : scratch.resolve("run");
         ScenarioRun.Outcome o;
+        String used;
         try {
             List<org.spindrift.sim.pipeline.RunStage> stages = new java.util.ArrayList<>(ScenarioRun.stages());
             stages.removeIf(st -> skip.contains(st.name()));
             o = ScenarioRun.run(p, new ScenarioRun.Options(out, n, false), stages);
+            // the sum the light stage used, from the run's manifest
+            used = new com.fasterxml.jackson.databind.ObjectMapper().readTree(out.resolve(ArchiveLayout.MANIFEST).toFile())
+                    .path(ArchiveLayout.K_LIGHT).path("emission_sum").asText("none");
         } finally {
             if (keep == null) {
                 delete(scratch);
@@ -110,7 +116,7 @@ public final class BenchRunCommand implements Callable<Integer> {
         long steps = o.result().acceptedSteps();
         System.out.printf(Locale.ROOT, "bench run: %s, %d particles, %.1f orbits (%.0f M), %d snapshots, %d threads on %d"
                 + " cores, emission sum: %s%s%n", config, sc.totalParticles(), orbits, p.durationM(), p.times().length, n,
-                Runtime.getRuntime().availableProcessors(), sc.imaging().griddedEmission() ? "grid" : "particles",
+                Runtime.getRuntime().availableProcessors(), sc.imaging().emissionSum().key() + " -> " + used,
                 skip.isEmpty() ? "" : ", skipping " + String.join(",", skip));
         System.out.printf(Locale.ROOT, "  wall time        %8.2f s  (set-up %.2f s, integration %.2f s, output %.2f s)%n",
                 wall, setup, o.integrationSeconds(), o.outputSeconds());

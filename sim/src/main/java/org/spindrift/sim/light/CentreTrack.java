@@ -292,4 +292,9 @@ public final class CentreTrack implements EmitterHistory {
     @Override public double spectralIndex(int n) {
         return alpha[n];
     }
+
+    /** @return n: each particle is one source's centre */
+    @Override public int source(int n) {
+        return n;
+    }
 }

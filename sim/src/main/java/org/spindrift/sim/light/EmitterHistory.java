@@ -38,4 +38,7 @@ public interface EmitterHistory {
 
     /** @return spectral index alpha (F_nu ~ nu^-alpha) of particle n's source */
     double spectralIndex(int n);
+
+    /** @return index of particle n's source (0 for the first) */
+    int source(int n);
 }

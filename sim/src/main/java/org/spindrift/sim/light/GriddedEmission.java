@@ -52,10 +52,20 @@ final class GriddedEmission {
     private int bx, by, bz;
     /** block id of each block of the box, -1 when empty */
     private int[] blockOf = new int[0];
-    private double[] val = new double[0];
+    /**
+     * per block of the box: whether it or one of its 26 neighbours holds values; a cell whose lowest
+     * node lies in a block without may read nothing, and nor may any cell within one node spacing
+     */
+    private boolean[] near = new boolean[0];
+    /** whether the largest drift within the slice (speed times the largest |t_e - tau|) is at most one spacing */
+    private boolean driftWithinSpacing;
+    /** node values: first one node of zeros (what missing nodes read), then the blocks */
+    private double[] val = new double[NV];
     private int blocks;
     /** the exponent 2 + alpha of the slice's particles (the renderer grids only slices with one index) */
     private double exponent;
+    /** weighted mean Cartesian velocity of all the slice's particles */
+    private double meanVx, meanVy, meanVz;
 
     /**
      * Starts a grid of spacing h covering particles in [min, max] per axis (nodes from min to one
@@ -76,9 +86,13 @@ final class GriddedEmission {
         int nb = bx * by * bz;
         if (blockOf.length < nb) {
             blockOf = new int[Math.max(nb, blockOf.length + blockOf.length / 4)];
+            near = new boolean[blockOf.length];
         }
         Arrays.fill(blockOf, 0, nb, -1);
+        Arrays.fill(near, 0, nb, false);
         blocks = 0;
+        meanVx = meanVy = meanVz = 0.0;
+        driftWithinSpacing = false;
     }
 
     /**
@@ -95,13 +109,19 @@ final class GriddedEmission {
         int j = Math.min(ny - 2, Math.max(0, (int) fy));
         int k = Math.min(nz - 2, Math.max(0, (int) fz));
         double ax = fx - i, ay = fy - j, az = fz - k;
+        // the lowest corner's node; a corner one step up an axis lies in the same block when the
+        // lowest corner's index on that axis is even, at a fixed offset
+        int q0 = nodeForWrite(i, j, k);
+        boolean inX = (i & MASK) == 0, inY = (j & MASK) == 0, inZ = (k & MASK) == 0;
         for (int di = 0; di < 2; di++) {
             double wx = di == 0 ? 1.0 - ax : ax;
             for (int dj = 0; dj < 2; dj++) {
                 double wxy = wx * (dj == 0 ? 1.0 - ay : ay);
                 for (int dk = 0; dk < 2; dk++) {
                     double c = w * wxy * (dk == 0 ? 1.0 - az : az);
-                    int q = nodeForWrite(i + di, j + dj, k + dk);
+                    int q = (di == 0 || inX) && (dj == 0 || inY) && (dk == 0 || inZ)
+                            ? q0 + ((di * SIDE + dj) * SIDE + dk) * NV
+                            : nodeForWrite(i + di, j + dj, k + dk);
                     val[q] += c;
                     val[q + 1] += c * vx;
                     val[q + 2] += c * vy;
@@ -130,30 +150,40 @@ final class GriddedEmission {
         int id = blockOf[b];
         if (id < 0) {
             id = blockOf[b] = blocks++;
-            int need = blocks * BLOCK;
+            int bi = i >> SHIFT, bj = j >> SHIFT, bk = k >> SHIFT;
+            for (int ci = Math.max(0, bi - 1); ci <= Math.min(bx - 1, bi + 1); ci++) {
+                for (int cj = Math.max(0, bj - 1); cj <= Math.min(by - 1, bj + 1); cj++) {
+                    for (int ck = Math.max(0, bk - 1); ck <= Math.min(bz - 1, bk + 1); ck++) {
+                        near[(ci * by + cj) * bz + ck] = true;
+                    }
+                }
+            }
+            int need = NV + blocks * BLOCK;
             if (val.length < need) {
                 val = Arrays.copyOf(val, Math.max(need, val.length + val.length / 2));
             }
-            Arrays.fill(val, id * BLOCK, need, 0.0);
+            Arrays.fill(val, NV + id * BLOCK, need, 0.0);
         }
-        return id * BLOCK + (((i & MASK) * SIDE + (j & MASK)) * SIDE + (k & MASK)) * NV;
+        return NV + id * BLOCK + (((i & MASK) * SIDE + (j & MASK)) * SIDE + (k & MASK)) * NV;
     }
 
-    /** @return offset of node (i, j, k) in {@link #val}, or -1 when outside the box or in an empty block */
+    /** @return offset of node (i, j, k) in {@link #val}, or 0 (the zero node) when outside the box or in an empty block */
     private int node(int i, int j, int k) {
         if (i < 0 || j < 0 || k < 0 || i >= nx || j >= ny || k >= nz) {
-            return -1;
+            return 0;
         }
         int id = blockOf[((i >> SHIFT) * by + (j >> SHIFT)) * bz + (k >> SHIFT)];
-        return id < 0 ? -1 : id * BLOCK + (((i & MASK) * SIDE + (j & MASK)) * SIDE + (k & MASK)) * NV;
+        return id < 0 ? 0 : NV + id * BLOCK + (((i & MASK) * SIDE + (j & MASK)) * SIDE + (k & MASK)) * NV;
     }
 
     /**
      * Fills the slice's particles into this grid.
      *
+     * @param spacing node spacing, M
+     * @param maxDt the largest |t_e - tau| the slice serves, M
      * @return this
      */
-    GriddedEmission fill(EmissionSlice s, double spacing) {
+    GriddedEmission fill(EmissionSlice s, double spacing, double maxDt) {
         double[] pos = s.positions();
         float[] att = s.attributes();
         int rec = EmissionSlice.REC;
@@ -169,11 +199,21 @@ final class GriddedEmission {
             maxZ = Math.max(maxZ, pos[q + 2]);
         }
         begin(spacing, minX, minY, minZ, maxX, maxY, maxZ);
+        double sw = 0, svx = 0, svy = 0, svz = 0, vmax = 0;
         for (int p = 0; p < s.count; p++) {
             int q = rec * p;
             deposit(pos[q], pos[q + 1], pos[q + 2], pos[q + 3], pos[q + 4], pos[q + 5], att[q + 4], att[q], att[q + 1],
                     att[q + 2], att[q + 3], att[q + 5]);
+            sw += att[q + 4];
+            vmax = Math.max(vmax, Math.sqrt(pos[q + 3] * pos[q + 3] + pos[q + 4] * pos[q + 4] + pos[q + 5] * pos[q + 5]));
+            svx += att[q + 4] * pos[q + 3];
+            svy += att[q + 4] * pos[q + 4];
+            svz += att[q + 4] * pos[q + 5];
         }
+        driftWithinSpacing = vmax * maxDt <= spacing;
+        meanVx = sw > 0 ? svx / sw : 0.0;
+        meanVy = sw > 0 ? svy / sw : 0.0;
+        meanVz = sw > 0 ? svz / sw : 0.0;
         return this;
     }
 
@@ -181,7 +221,7 @@ final class GriddedEmission {
     double totalWeight() {
         double sum = 0.0;
         for (int b = 0; b < blocks; b++) {
-            for (int q = b * BLOCK; q < (b + 1) * BLOCK; q += NV) {
+            for (int q = NV + b * BLOCK; q < NV + (b + 1) * BLOCK; q += NV) {
                 sum += val[q];
             }
         }
@@ -191,7 +231,7 @@ final class GriddedEmission {
     /**
      * Trilinear read of the first {@code count} node values at (x, y, z) into out[0..count-1].
      *
-     * @return false when no node around the point holds a value (out untouched)
+     * @return false when no node around the point holds a value (out then untouched)
      */
     boolean read(double x, double y, double z, int count, double[] out) {
         double fx = (x - ox) * invH, fy = (y - oy) * invH, fz = (z - oz) * invH;
@@ -200,29 +240,41 @@ final class GriddedEmission {
             return false;
         }
         int i = (int) flx, j = (int) fly, k = (int) flz;
+        // most samples lie away from the gas: one look-up tells whether any corner may hold values
+        if (!near[((Math.max(0, i >> SHIFT) * by) + Math.max(0, j >> SHIFT)) * bz + Math.max(0, k >> SHIFT)]) {
+            return false;
+        }
         double ax = fx - flx, ay = fy - fly, az = fz - flz;
-        boolean any = false;
-        for (int c = 0; c < count; c++) {
-            out[c] = 0.0;
+        double ex = 1.0 - ax, ey = 1.0 - ay, ez = 1.0 - az;
+        // the 8 corners (missing ones read the zero node) and their trilinear weights
+        int q0 = node(i, j, k), q1 = node(i, j, k + 1), q2 = node(i, j + 1, k), q3 = node(i, j + 1, k + 1);
+        int q4 = node(i + 1, j, k), q5 = node(i + 1, j, k + 1), q6 = node(i + 1, j + 1, k), q7 = node(i + 1, j + 1, k + 1);
+        if ((q0 | q1 | q2 | q3 | q4 | q5 | q6 | q7) == 0) {
+            return false;
         }
-        for (int di = 0; di < 2; di++) {
-            double wx = di == 0 ? 1.0 - ax : ax;
-            for (int dj = 0; dj < 2; dj++) {
-                double wxy = wx * (dj == 0 ? 1.0 - ay : ay);
-                for (int dk = 0; dk < 2; dk++) {
-                    int q = node(i + di, j + dj, k + dk);
-                    if (q < 0) {
-                        continue;
-                    }
-                    any = true;
-                    double c = wxy * (dk == 0 ? 1.0 - az : az);
-                    for (int v = 0; v < count; v++) {
-                        out[v] += c * val[q + v];
-                    }
-                }
-            }
+        double c0 = ex * ey * ez, c1 = ex * ey * az, c2 = ex * ay * ez, c3 = ex * ay * az;
+        double c4 = ax * ey * ez, c5 = ax * ey * az, c6 = ax * ay * ez, c7 = ax * ay * az;
+        double[] a = val;
+        for (int v = 0; v < count; v++) {
+            out[v] = c0 * a[q0 + v] + c1 * a[q1 + v] + c2 * a[q2 + v] + c3 * a[q3 + v]
+                    + c4 * a[q4 + v] + c5 * a[q5 + v] + c6 * a[q6 + v] + c7 * a[q7 + v];
         }
-        return any;
+        return true;
+    }
+
+    /**
+     * @return false when no block within one block of the cell holding (x, y, z) holds values: then
+     *     nothing within one node spacing of the point can be read
+     */
+    private boolean near(double x, double y, double z) {
+        double fx = Math.floor((x - ox) * invH), fy = Math.floor((y - oy) * invH), fz = Math.floor((z - oz) * invH);
+        if (fx < -2 || fy < -2 || fz < -2 || fx > nx || fy > ny || fz > nz) {
+            return false;
+        }
+        int bi = Math.min(bx - 1, Math.max(0, ((int) fx) >> SHIFT));
+        int bj = Math.min(by - 1, Math.max(0, ((int) fy) >> SHIFT));
+        int bk = Math.min(bz - 1, Math.max(0, ((int) fz) >> SHIFT));
+        return near[(bi * by + bj) * bz + bk];
     }
 
     /** @return the grid density estimate sum_p w_p K(x, x_p) at (x, y, z) (no drift) */
@@ -245,15 +297,24 @@ final class GriddedEmission {
                       double pphi, Scratch s) {
         double[] v = s.v;
         double x = sx, y = sy, z = sz;
+        if (driftWithinSpacing && !near(x, y, z)) {
+            // no gas within one block of the sample, so none within the drift either: the reads
+            // below would find nothing (an exact shortcut)
+            return 0.0;
+        }
         if (dtE != 0.0) {
-            // the gas at the sample at t_e was at x - v (t_e - tau) at tau
-            if (!read(x, y, z, 4, v) || !(v[0] > 0)) {
-                return 0.0;
+            // the gas at the sample at t_e was at x - v (t_e - tau) at tau; where the grid holds
+            // nothing at the sample itself (gas that has moved in since tau) the slice's mean velocity
+            if (read(x, y, z, 4, v) && v[0] > 0) {
+                double f = dtE / v[0];
+                x -= v[1] * f;
+                y -= v[2] * f;
+                z -= v[3] * f;
+            } else {
+                x -= meanVx * dtE;
+                y -= meanVy * dtE;
+                z -= meanVz * dtE;
             }
-            double f = dtE / v[0];
-            x -= v[1] * f;
-            y -= v[2] * f;
-            z -= v[3] * f;
         }
         if (!read(x, y, z, NV, v) || !(v[0] > 0)) {
             return 0.0;

@@ -59,4 +59,8 @@ public final class HistoryEmitters implements EmitterHistory {
     @Override public double spectralIndex(int n) {
         return alphaBySource[source[n]];
     }
+
+    @Override public int source(int n) {
+        return source[n];
+    }
 }

@@ -4,7 +4,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import org.hipparchus.util.FastMath;
 import org.spindrift.shared.scenario.Scenario;
-import org.spindrift.sim.light.EmissionRenderer;
+import org.spindrift.sim.light.EmissionChoice;
 import org.spindrift.sim.light.EmitterHistory;
 import org.spindrift.sim.light.FrameBudget;
 import org.spindrift.sim.light.FrameMoments;
@@ -44,16 +44,22 @@ public final class LightRunStage implements RunStage {
         if (ctx.progress()) {
             System.err.printf("spindrift: light: tracing %d x %d rays%n", s.pixels(), s.pixels());
         }
-        boolean gridded = ctx.scenario().imaging().griddedEmission();
-        LightResult r = LightStage.run(s, ctx.spacetime(), capture, h, ctx.threads(), gridded);
+        EmissionChoice sum = EmissionChoice.of(ctx.scenario().imaging().emissionSum(), h, ctx.spacetime().spin(),
+                LightStage.smoothingLength(s.camera()));
+        LightResult r = LightStage.run(s, ctx.spacetime(), capture, h, ctx.threads(), sum.gridded());
         LightOutputs.write((name, w) -> ctx.archive().writeStream(name, w), r);
         LightPlots.write((name, w) -> ctx.archive().writeStream(name, w), r, RunNotes.guard(ctx));
         ctx.results().light(r);
         ObjectNode m = ctx.manifest().putObject(org.spindrift.shared.archive.ArchiveLayout.K_LIGHT);
         m.put("lensing", s.lensing());
         // what summed the emission: a grid per emission time, or the particles (also when a grid was
-        // asked for but the sources have different spectral indices)
-        m.put("emission_sum", gridded && EmissionRenderer.oneSpectralIndex(h) ? "grid" : "particles");
+        // asked for but the sources have different spectral indices); with auto, the measure it went by
+        m.put("emission_sum", sum.used());
+        m.put("emission_sum_asked", sum.asked().key());
+        m.put("grid_spacing_M", sum.gridSpacingM());
+        if (Double.isFinite(sum.thinnestRmsM())) {
+            m.put("thinnest_source_rms_M", sum.thinnestRmsM());
+        }
         m.put("pixels", s.pixels());
         m.put("field_of_view_M", s.fieldOfViewM());
         m.put("pixel_uas", r.camera().pixelSize() * s.uasPerM());

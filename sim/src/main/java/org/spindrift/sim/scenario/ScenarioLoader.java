@@ -12,6 +12,7 @@ import org.spindrift.shared.colour.ColourRamp;
 import org.spindrift.shared.scenario.BlackHole;
 import org.spindrift.shared.scenario.CentreOrbit;
 import org.spindrift.shared.scenario.Emission;
+import org.spindrift.shared.scenario.EmissionSum;
 import org.spindrift.shared.scenario.Flare;
 import org.spindrift.shared.scenario.Imaging;
 import org.spindrift.shared.scenario.Instrument;
@@ -263,7 +264,7 @@ public final class ScenarioLoader {
                 (int) s.integer("pixels", (long) Imaging.DEFAULT_PIXELS, 8, 4096),
                 s.time("frame_cadence", null, true, false, true), s.bool("lensing", true),
                 ColourRamp.skyOption(s.choice("sky_colours", "default", "default", "grey")),
-                s.choice("emission_sum", "particles", "particles", "grid").equals("grid"));
+                EmissionSum.ofKey(s.choice("emission_sum", "auto", "auto", "particles", "grid")));
     }
 
     private static Instrument instrument(ConfigSection s) {

@@ -21,8 +21,12 @@ class EmissionSumOptionTest {
 
     /** A spot a little wider than the pixel (the smoothing length, 0.75 M here). */
     static String scenario(String sum) {
+        return scenario(sum, 0.8);
+    }
+
+    static String scenario(String sum, double sigma) {
         return DegenerateRunsTest.BASE.replace("SOURCE", DegenerateRunsTest.SPOT.replace("PARTICLES", "600")
-                .replace("SIGMA", "0.8")).replace("  pixels: 16", "  pixels: 32\n  emission_sum: " + sum);
+                .replace("SIGMA", Double.toString(sigma))).replace("  pixels: 16", "  pixels: 32\n  emission_sum: " + sum);
     }
 
     private double[] lightCurve(String sum) throws Exception {
@@ -61,6 +65,31 @@ class EmissionSumOptionTest {
         // common practice, no source; measured: 0.77 % of the peak)
         assertTrue(worst <= 0.03 * peak, "largest flux difference " + worst / peak + " of the peak");
         assertTrue(peak > 0, "the spot is seen");
+    }
+
+    /**
+     * auto: the grid for a spot at least one grid spacing (0.95 x 0.75 M here) wide, the particles for
+     * a narrower one; the manifest names what was asked, what was used and the width it went by.
+     */
+    @Test void autoTakesTheGridOnlyForGasItResolves() throws Exception {
+        for (double sigma : new double[] {0.8, 0.3}) {
+            Path file = tmp.resolve("auto-" + sigma + ".yaml");
+            Files.writeString(file, scenario("auto", sigma));
+            Path out = tmp.resolve("run-auto-" + sigma);
+            CliCapture.run(0, "run", file.toString(), "-o", out.toString(), "--quiet", "--threads", "2");
+            try (RunArchive a = RunArchive.open(out, true)) {
+                var light = a.manifest().path(ArchiveLayout.K_LIGHT);
+                assertEquals("auto", light.path("emission_sum_asked").asText());
+                assertEquals("auto", a.manifest().path(ArchiveLayout.K_SCENARIO).path("imaging").path("emission_sum")
+                        .asText());
+                // a Gaussian spot's rms width along each axis is its sigma (the definition of sigma); 600
+                // particles estimate it to ~ sigma / sqrt(2 x 600) = 3 % (common practice, no source)
+                double w = light.path("thinnest_source_rms_M").asDouble();
+                assertTrue(w > 0.85 * sigma && w <= 1.05 * sigma, "thinnest width " + w + " for sigma " + sigma);
+                assertEquals(0.75 * Math.sqrt(0.9), light.path("grid_spacing_M").asDouble(), 1e-12);
+                assertEquals(sigma > 0.75 ? "grid" : "particles", light.path("emission_sum").asText());
+            }
+        }
     }
 
     @Test void unknownValueIsOneLineExitTwo() throws Exception {

@@ -85,4 +85,8 @@ final class CircularSpotHistory implements EmitterHistory {
     @Override public double spectralIndex(int n) {
         return alpha;
     }
+
+    @Override public int source(int n) {
+        return 0;
+    }
 }
