@@ -141,7 +141,7 @@ public final class BenchLightCommand implements Callable<Integer> {
             for (int n : new int[] {tablePixels, framePixels}) {
                 Camera cam = s.withPixels(n).camera();
                 double hK = LightStage.smoothingLength(cam);
-                TraceSettings ts = LightStage.traceSettings(h, p.spacetime(), cam, stop, s.fieldOfViewM(), true);
+                TraceSettings ts = LightStage.traceSettings(h, p.spacetime(), cam, stop, s.fieldOfViewM(), true, nt);
                 double[] ref = null;
                 if (reference && n == tablePixels) {
                     TraceSettings general = ts.withGeneralPath(true)

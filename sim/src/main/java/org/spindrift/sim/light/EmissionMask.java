@@ -2,6 +2,7 @@ package org.spindrift.sim.light;
 
 import java.util.Arrays;
 import org.hipparchus.util.FastMath;
+import org.spindrift.sim.history.Chunked;
 import org.spindrift.sim.spacetime.Trig;
 
 /**
@@ -79,29 +80,49 @@ public final class EmissionMask {
      * @param support kernel support 2h plus any extra dilation, M
      */
     public static EmissionMask of(EmitterHistory h, double spin, double radius, double support) {
+        return of(h, spin, radius, support, 1);
+    }
+
+    /**
+     * As {@link #of(EmitterHistory, double, double, double)} on the given number of threads (the
+     * snapshots in fixed chunks; marks are set, never cleared, and the speed bound is a maximum, so
+     * the mask is the same for any thread count).
+     */
+    public static EmissionMask of(EmitterHistory h, double spin, double radius, double support, int threads) {
         int n = (int) FastMath.min(160, FastMath.max(16, FastMath.ceil(2 * radius / 0.25)));
         double cell = 2 * radius / n;
         boolean[] mark = new boolean[n * n * n];
         double a2 = spin * spin;
-        double vmax = 0;
-        for (int s = 0; s < h.snapshots(); s++) {
-            for (int p = 0; p < h.particles(); p++) {
-                if (h.state(s, p) != EmitterHistory.ALIVE) {
-                    continue;
+        int ns = h.snapshots();
+        int chunks = Math.min(ns, 64);
+        double[] vmaxOf = new double[chunks];
+        Chunked.forEach(chunks, threads, c -> {
+            double vmax = 0;
+            for (int s = c * ns / chunks; s < (c + 1) * ns / chunks; s++) {
+                for (int p = 0; p < h.particles(); p++) {
+                    if (h.state(s, p) != EmitterHistory.ALIVE) {
+                        continue;
+                    }
+                    double r = h.r(s, p), th = h.theta(s, p), ph = h.phi(s, p);
+                    // Trig: StrictMath's values without JNI or FastMath's allocation (millions of calls)
+                    double rho = FastMath.sqrt(r * r + a2) * Trig.sin(th);
+                    int ix = (int) FastMath.floor((rho * Trig.cos(ph) + radius) / cell);
+                    int iy = (int) FastMath.floor((rho * Trig.sin(ph) + radius) / cell);
+                    int iz = (int) FastMath.floor((r * Trig.cos(th) + radius) / cell);
+                    if (ix >= 0 && iy >= 0 && iz >= 0 && ix < n && iy < n && iz < n) {
+                        mark[(ix * n + iy) * n + iz] = true;
+                    }
+                    double ut = h.u(s, p, 0);
+                    double v = (FastMath.abs(h.u(s, p, 1)) + r * (FastMath.abs(h.u(s, p, 2)) + FastMath.abs(h.u(s, p, 3))))
+                            / ut;
+                    vmax = FastMath.max(vmax, v);
                 }
-                double r = h.r(s, p), th = h.theta(s, p), ph = h.phi(s, p);
-                // Trig: StrictMath's values without JNI or FastMath's allocation (millions of calls)
-                double rho = FastMath.sqrt(r * r + a2) * Trig.sin(th);
-                int ix = (int) FastMath.floor((rho * Trig.cos(ph) + radius) / cell);
-                int iy = (int) FastMath.floor((rho * Trig.sin(ph) + radius) / cell);
-                int iz = (int) FastMath.floor((r * Trig.cos(th) + radius) / cell);
-                if (ix >= 0 && iy >= 0 && iz >= 0 && ix < n && iy < n && iz < n) {
-                    mark[(ix * n + iy) * n + iz] = true;
-                }
-                double ut = h.u(s, p, 0);
-                double v = (FastMath.abs(h.u(s, p, 1)) + r * (FastMath.abs(h.u(s, p, 2)) + FastMath.abs(h.u(s, p, 3)))) / ut;
-                vmax = FastMath.max(vmax, v);
             }
+            vmaxOf[c] = vmax;
+        });
+        double vmax = 0;
+        for (double v : vmaxOf) {
+            vmax = FastMath.max(vmax, v);
         }
         double dt = 0;
         for (int s = 1; s < h.snapshots(); s++) {

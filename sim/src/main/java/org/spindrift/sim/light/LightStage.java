@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
 import org.hipparchus.util.FastMath;
+import org.spindrift.sim.history.Chunked;
 import org.spindrift.sim.spacetime.MassFunctionSpacetime;
 import org.spindrift.sim.spacetime.Spacetime;
 
@@ -56,7 +57,7 @@ public final class LightStage {
                                   int threads, boolean gridded) {
         Camera cam = s.camera();
         double h = smoothingLength(cam);
-        TraceSettings ts = traceSettings(history, st, cam, captureRadius, s.fieldOfViewM(), s.lensing());
+        TraceSettings ts = traceSettings(history, st, cam, captureRadius, s.fieldOfViewM(), s.lensing(), threads);
         long t0 = System.nanoTime();
         RayTable table = RayTable.trace(st, cam, ts, threads);
         double secs = (System.nanoTime() - t0) * 1e-9;
@@ -101,7 +102,7 @@ public final class LightStage {
             // what the instrument reports: the peak of the beam-convolved image with the steady source
             ax = new double[times.length];
             ay = new double[times.length];
-            beamPeaks(raw, cam, GaussianBeam.sigmaOf(s.beamFwhmUas() / s.uasPerM()), fs, ax, ay);
+            beamPeaks(raw, cam, GaussianBeam.sigmaOf(s.beamFwhmUas() / s.uasPerM()), fs, ax, ay, threads);
         }
         LightResult.MockAstrometry mock = s.noiseUas() > 0 ? mock(s, times, ax, ay) : null;
         return new LightResult(s, cam, times, moments, images, raw, fs, sx, sy, ax, ay, mock, h, ts.emissionRadius(),
@@ -118,14 +119,24 @@ public final class LightStage {
      * @param x out: east offsets, M (and y north)
      */
     static void beamPeaks(float[][] raw, Camera cam, double sigmaM, double fs, double[] x, double[] y) {
-        BeamAstrometry beam = new BeamAstrometry(sigmaM);
+        beamPeaks(raw, cam, sigmaM, fs, x, y, 1);
+    }
+
+    /** As {@link #beamPeaks(float[][], Camera, double, double, double[], double[])}, frames on threads. */
+    static void beamPeaks(float[][] raw, Camera cam, double sigmaM, double fs, double[] x, double[] y, int threads) {
         double steady = fs / (cam.pixelSize() * cam.pixelSize());
-        double[] p = new double[2];
-        for (int f = 0; f < raw.length; f++) {
-            boolean any = beam.peak(raw[f], cam, steady, p);
-            x[f] = any ? p[0] : 0.0;
-            y[f] = any ? p[1] : 0.0;
-        }
+        // frames in fixed chunks, one search (with its scratch arrays) per chunk; each frame's peak
+        // depends on that frame only
+        int chunks = Math.min(raw.length, 32);
+        Chunked.forEach(chunks, threads, c -> {
+            BeamAstrometry beam = new BeamAstrometry(sigmaM);
+            double[] p = new double[2];
+            for (int f = c * raw.length / chunks; f < (c + 1) * raw.length / chunks; f++) {
+                boolean any = beam.peak(raw[f], cam, steady, p);
+                x[f] = any ? p[0] : 0.0;
+                y[f] = any ? p[1] : 0.0;
+            }
+        });
     }
 
     /**
@@ -171,9 +182,15 @@ public final class LightStage {
      */
     public static TraceSettings traceSettings(EmitterHistory history, Spacetime st, Camera cam, double captureRadius,
                                               double fov, boolean lensing) {
+        return traceSettings(history, st, cam, captureRadius, fov, lensing, 1);
+    }
+
+    /** As {@link #traceSettings(EmitterHistory, Spacetime, Camera, double, double, boolean)}, the mask on threads. */
+    public static TraceSettings traceSettings(EmitterHistory history, Spacetime st, Camera cam, double captureRadius,
+                                              double fov, boolean lensing, int threads) {
         double h = smoothingLength(cam);
         double rEm = emissionRadius(history, h, fov, captureRadius);
-        EmissionMask mask = EmissionMask.of(history, st.spin(), rEm, 2.0 * h);
+        EmissionMask mask = EmissionMask.of(history, st.spin(), rEm, 2.0 * h, threads);
         boolean separated = st instanceof MassFunctionSpacetime;
         return TraceSettings.of(rEm, captureRadius, SAMPLES_PER_H * h, lensing)
                 .withTolerance(separated ? SEPARATED_RTOL : GENERAL_RTOL, separated ? SEPARATED_ATOL : GENERAL_ATOL)

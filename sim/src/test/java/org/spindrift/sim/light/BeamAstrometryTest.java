@@ -1,5 +1,6 @@
 package org.spindrift.sim.light;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -183,5 +184,18 @@ class BeamAstrometryTest {
         LightStage.beamPeaks(new float[][] {img}, cam, 0.05 * cam.pixelSize(), fs, x, y);
         assertEquals(cam.skyX(5), x[0], 1e-12);
         assertEquals(cam.skyY(3), y[0], 1e-12);
+        // frames on 1 and 3 threads (chunks of frames, one search each): the same positions bit for bit
+        java.util.Random rng = new java.util.Random(8);
+        float[][] frames = new float[40][n * n];
+        for (float[] f : frames) {
+            for (int k = 0; k < 6; k++) {
+                f[rng.nextInt(n * n)] = (float) rng.nextDouble();
+            }
+        }
+        double[] x1 = new double[40], y1 = new double[40], x3 = new double[40], y3 = new double[40];
+        LightStage.beamPeaks(frames, cam, 2 * cam.pixelSize(), fs, x1, y1, 1);
+        LightStage.beamPeaks(frames, cam, 2 * cam.pixelSize(), fs, x3, y3, 3);
+        assertArrayEquals(x1, x3);
+        assertArrayEquals(y1, y3);
     }
 }

@@ -175,5 +175,18 @@ class EmissionSliceAndMaskTest {
         assertFalse(m.occupied(0.0, 0.0, 11.0));
         assertTrue(m.filling() > 0 && m.filling() < 0.5, "filling " + m.filling());
         assertEquals(12.0, m.radius(), 0.0);
+        // the same mask on 3 threads (snapshots in chunks): every cell and every bound alike
+        EmissionMask m3 = EmissionMask.of(h, A, 12.0, support, 3);
+        assertEquals(m.filling(), m3.filling(), 0.0);
+        assertEquals(m.innerRadius(), m3.innerRadius(), 0.0);
+        assertEquals(m.outerRadius(), m3.outerRadius(), 0.0);
+        assertEquals(m.maxHeight(), m3.maxHeight(), 0.0);
+        for (double x = -12; x <= 12; x += m.cellSize()) {
+            for (double y = -12; y <= 12; y += m.cellSize()) {
+                for (double z = -3; z <= 3; z += m.cellSize()) {
+                    assertEquals(m.occupied(x, y, z), m3.occupied(x, y, z), "cell at " + x + ", " + y + ", " + z);
+                }
+            }
+        }
     }
 }
