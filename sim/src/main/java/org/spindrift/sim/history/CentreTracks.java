@@ -2,6 +2,7 @@ package org.spindrift.sim.history;
 
 import java.util.Arrays;
 import org.spindrift.shared.Coordinates;
+import org.spindrift.shared.archive.ArchiveLayout;
 
 /**
  * Centre of mass of each source's alive particles at every snapshot, in the Cartesian coordinates
@@ -51,7 +52,7 @@ public record CentreTracks(double[][][] centre, int[][] alive) {
         double[] ph = h.phi(q);
         byte[] st = h.state(q);
         for (int i = 0; i < n; i++) {
-            if (st[i] == 0) {
+            if (st[i] == ArchiveLayout.ALIVE) {
                 Coordinates.cartesian(r[i], th[i], ph[i], spin, xyz);
                 double[] ck = c[src[i]][q];
                 ck[0] += xyz[0];

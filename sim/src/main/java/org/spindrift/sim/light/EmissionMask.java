@@ -98,7 +98,7 @@ public final class EmissionMask {
         double[] vmaxOf = new double[chunks];
         Chunked.forEach(chunks, threads, c -> {
             double vmax = 0;
-            for (int s = c * ns / chunks; s < (c + 1) * ns / chunks; s++) {
+            for (int s = Chunked.start(c, chunks, ns); s < Chunked.start(c + 1, chunks, ns); s++) {
                 for (int p = 0; p < h.particles(); p++) {
                     if (h.state(s, p) != EmitterHistory.ALIVE) {
                         continue;

@@ -131,7 +131,7 @@ public final class LightStage {
         Chunked.forEach(chunks, threads, c -> {
             BeamAstrometry beam = new BeamAstrometry(sigmaM);
             double[] p = new double[2];
-            for (int f = c * raw.length / chunks; f < (c + 1) * raw.length / chunks; f++) {
+            for (int f = Chunked.start(c, chunks, raw.length); f < Chunked.start(c + 1, chunks, raw.length); f++) {
                 boolean any = beam.peak(raw[f], cam, steady, p);
                 x[f] = any ? p[0] : 0.0;
                 y[f] = any ? p[1] : 0.0;
