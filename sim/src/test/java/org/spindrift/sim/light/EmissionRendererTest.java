@@ -6,7 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.hipparchus.analysis.integration.SimpsonIntegrator;
 import org.junit.jupiter.api.Test;
-import org.spindrift.sim.spacetime.Spacetime;
 
 /**
  * The frame renderer (group test of 32 samples) against the reference renderer (every sample
@@ -25,28 +24,18 @@ class EmissionRendererTest {
     /** Frames of a spot of 2000 particles, a = 0.5, i = 60 deg, 48 x 48, from both renderers. */
     @Test
     void framesMatchTheReferenceRendererAndDoNotDependOnTheThreadCount() {
-        double a = 0.5;
-        Spacetime st = LightTestSupport.kerr(a);
         // alpha = 1 (g^3 without pow) and alpha = 0.5 (g^2.5 by pow)
         for (double alpha : new double[] {1.0, 0.5}) {
-            CircularSpotHistory h = new CircularSpotHistory(st, 6.0, 0.3, 0.4, 2000, 0.0, 200.0, 101, alpha, 5L);
-            LightSettings s = new LightSettings(60.0, 0.0, 20.0, 48, 2.0, true, 1.0e6, 1.0e-3, 0.0, 0.0, 0.0, 1.0, 7L);
-            Camera cam = s.camera();
-            double hK = LightStage.smoothingLength(cam);
-            RayTable table = LightTestSupport.table(h, st, a, s);
-            double[] d = table.delayRange();
-            double tA = h.time(0) + d[1], tB = h.time(h.snapshots() - 1) + d[0];
-            int frames = 8, n = cam.pixels();
-            float[][] fast1 = new float[frames][n * n], fast2 = new float[frames][n * n], ref = new float[frames][n * n];
-            try (EmissionRenderer r1 = new EmissionRenderer(table, h, st, hK, 1);
-                 EmissionRenderer r2 = new EmissionRenderer(table, h, st, hK, 2);
-                 EmissionRenderer rr = new EmissionRenderer(table, h, st, hK, 2, true)) {
-                for (int f = 0; f < frames; f++) {
-                    double t = tA + (tB - tA) * f / (frames - 1);
-                    r1.render(t, fast1[f]);
-                    r2.render(t, fast2[f]);
-                    rr.render(t, ref[f]);
-                }
+            LightTestSupport.SpotScene sc = LightTestSupport.SpotScene.of(alpha, 8);
+            Camera cam = sc.camera();
+            int frames = sc.times().length, n = cam.pixels();
+            float[][] fast1, fast2, ref;
+            try (EmissionRenderer r1 = sc.renderer(1, false, false);
+                 EmissionRenderer r2 = sc.renderer(2, false, false);
+                 EmissionRenderer rr = sc.renderer(2, true, false)) {
+                fast1 = sc.frames(r1);
+                fast2 = sc.frames(r2);
+                ref = sc.frames(rr);
             }
             double peak = 0;
             for (int f = 0; f < frames; f++) {

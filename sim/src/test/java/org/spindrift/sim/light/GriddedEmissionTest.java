@@ -217,26 +217,16 @@ class GriddedEmissionTest {
      */
     @Test
     void gridFramesAreThreadIndependentAndCloseToTheParticleFrames() {
-        double a = 0.5;
-        Spacetime st = LightTestSupport.kerr(a);
-        CircularSpotHistory h = new CircularSpotHistory(st, 6.0, 0.3, 0.4, 2000, 0.0, 200.0, 101, 1.0, 5L);
-        LightSettings s = new LightSettings(60.0, 0.0, 20.0, 48, 2.0, true, 1.0e6, 1.0e-3, 0.0, 0.0, 0.0, 1.0, 7L);
-        Camera cam = s.camera();
-        double hK = LightStage.smoothingLength(cam);
-        RayTable table = LightTestSupport.table(h, st, a, s);
-        double[] d = table.delayRange();
-        double tA = h.time(0) + d[1], tB = h.time(h.snapshots() - 1) + d[0];
-        int frames = 8, n = cam.pixels();
-        float[][] g1 = new float[frames][n * n], g2 = new float[frames][n * n], pa = new float[frames][n * n];
-        try (EmissionRenderer r1 = new EmissionRenderer(table, h, st, hK, 1, false, true);
-             EmissionRenderer r2 = new EmissionRenderer(table, h, st, hK, 2, false, true);
-             EmissionRenderer rp = new EmissionRenderer(table, h, st, hK, 2, false, false)) {
-            for (int f = 0; f < frames; f++) {
-                double t = tA + (tB - tA) * f / (frames - 1);
-                r1.render(t, g1[f]);
-                r2.render(t, g2[f]);
-                rp.render(t, pa[f]);
-            }
+        int frames = 8;
+        LightTestSupport.SpotScene sc = LightTestSupport.SpotScene.of(1.0, frames);
+        Camera cam = sc.camera();
+        float[][] g1, g2, pa;
+        try (EmissionRenderer r1 = sc.renderer(1, false, true);
+             EmissionRenderer r2 = sc.renderer(2, false, true);
+             EmissionRenderer rp = sc.renderer(2, false, false)) {
+            g1 = sc.frames(r1);
+            g2 = sc.frames(r2);
+            pa = sc.frames(rp);
         }
         double peak = 0, xs = 0, ys = 0;
         FrameMoments[] mp = new FrameMoments[frames];
