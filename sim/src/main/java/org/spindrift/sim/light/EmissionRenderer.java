@@ -90,16 +90,8 @@ public final class EmissionRenderer implements AutoCloseable {
     }
 
     /**
-     * @param reference true: no group test, every sample is queried (the renderer of earlier
-     *     versions, kept for benchmarks); the images are the same bit for bit
-     */
-    public EmissionRenderer(RayTable table, EmitterHistory history, Spacetime spacetime, double smoothingLength,
-                            int threads, boolean reference) {
-        this(table, history, spacetime, smoothingLength, threads, reference, false);
-    }
-
-    /**
-     * @param reference true: no group test, every sample is queried (particles only)
+     * @param reference true: no group test, every sample is queried (particles only; the renderer of
+     *     earlier versions, kept for benchmarks and tests; the images are the same bit for bit)
      * @param gridded true: each slice's particles are deposited on a grid
      *     ({@link GriddedEmission}) and samples read the grid; when the particles have different
      *     spectral indices the particles are summed as with false
