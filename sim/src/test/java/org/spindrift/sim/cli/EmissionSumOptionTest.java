@@ -86,6 +86,8 @@ class EmissionSumOptionTest {
                 // particles estimate it to ~ sigma / sqrt(2 x 600) = 3 % (common practice, no source)
                 double w = light.path("thinnest_source_rms_M").asDouble();
                 assertTrue(w > 0.85 * sigma && w <= 1.05 * sigma, "thinnest width " + w + " for sigma " + sigma);
+                // spacing sqrt(0.9) h: the cloud-in-cell kernel's second moment s^2 / 3 equals the cubic
+                // spline's 0.3 h^2 (Hockney & Eastwood 1988, ch. 5; Monaghan & Lattanzio 1985, eq. 2.4)
                 assertEquals(0.75 * Math.sqrt(0.9), light.path("grid_spacing_M").asDouble(), 1e-12);
                 assertEquals(sigma > 0.75 ? "grid" : "particles", light.path("emission_sum").asText());
             }

@@ -113,7 +113,8 @@ class EmissionChoiceTest {
         }
         double w = EmissionChoice.thinnestRms(h, SPIN);
         assertEquals(expected, w, 1e-9);
-        // the x width of source 0, not the 16 M spread of both sources together
+        // the x width of source 0 (drawn with sigma 0.3 M; 2000 draws estimate it to ~ sigma / sqrt(2 x 2000),
+        // 1.6 %, so 10 % is loose: common practice, no source), not the 16 M spread of both sources
         assertTrue(Math.abs(w - 0.3) < 0.03, "thinnest " + w);
     }
 
